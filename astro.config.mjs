@@ -1,0 +1,23 @@
+// @ts-check
+import { defineConfig } from "astro/config";
+import node from "@astrojs/node";
+import react from "@astrojs/react";
+import tailwindcss from "@tailwindcss/vite";
+
+const host = process.env.HOST ?? "127.0.0.1";
+const port = Number(process.env.PORT ?? 4321);
+
+export default defineConfig({
+  output: "server",
+  adapter: node({ mode: "standalone" }),
+  integrations: [react()],
+  vite: { plugins: [tailwindcss()] },
+  server: { host, port },
+  security: {
+    allowedDomains: [
+      { protocol: "http", hostname: "127.0.0.1" },
+      { protocol: "http", hostname: "localhost" },
+      ...(process.env.PUBLIC_HOSTNAME ? [{ protocol: "https", hostname: process.env.PUBLIC_HOSTNAME }] : []),
+    ],
+  },
+});
