@@ -1,0 +1,4 @@
+// Every table, split by concern. drizzle-kit and the better-auth adapter both read this.
+export * from "./auth.ts";
+export * from "./mail.ts";
+export * from "./chamber.ts";

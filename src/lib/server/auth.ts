@@ -1,0 +1,80 @@
+/**
+ * Sign-in and chamber membership (better-auth). A chamber is a better-auth organization;
+ * a user's role in it is one of CHAMBER_ROLES. Server-only.
+ */
+import { betterAuth } from "better-auth";
+import { drizzleAdapter } from "better-auth/adapters/drizzle";
+import { organization } from "better-auth/plugins";
+import { db } from "./db.ts";
+import * as schema from "../db/schema/index.ts";
+import { ac, roles } from "./access-control.ts";
+import { enqueueMail } from "./mail.ts";
+import { ROLE_LABELS, isChamberRole } from "../permissions.ts";
+import { escapeHtml } from "../text/escape-html.ts";
+
+export function baseUrl(): string {
+  return process.env.BETTER_AUTH_URL ?? `http://${process.env.HOST ?? "127.0.0.1"}:${process.env.PORT ?? 4321}`;
+}
+
+export const auth = betterAuth({
+  appName: "Gavelwright",
+  secret: process.env.BETTER_AUTH_SECRET,
+  baseURL: baseUrl(),
+  trustedOrigins: [baseUrl()],
+  database: drizzleAdapter(db, { provider: "pg", schema }),
+  telemetry: { enabled: false },
+  emailAndPassword: {
+    enabled: true,
+    minPasswordLength: 10,
+    maxPasswordLength: 128,
+    resetPasswordTokenExpiresIn: 60 * 60,
+    revokeSessionsOnPasswordReset: true,
+    async sendResetPassword({ user, url }) {
+      await enqueueMail({
+        kind: "password-reset",
+        ref: user.id,
+        to: user.email,
+        subject: "Reset your Gavelwright password",
+        text: `Someone asked to reset the password of your Gavelwright account (${user.email}).\n\nTo choose a new password, open this link within one hour:\n${url}\n\nIf you did not ask for this, ignore this message; your password stays as it is.`,
+        html: `<p>Someone asked to reset the password of your Gavelwright account (${escapeHtml(user.email)}).</p><p><a href="${escapeHtml(url)}">Choose a new password</a> (the link works for one hour).</p><p>If you did not ask for this, ignore this message; your password stays as it is.</p>`,
+      });
+    },
+  },
+  rateLimit: {
+    enabled: process.env.GAVELWRIGHT_RATE_LIMIT !== "off",
+    window: 60,
+    max: 200,
+    customRules: {
+      "/sign-in/email": { window: 60, max: 10 },
+      "/request-password-reset": { window: 300, max: 5 },
+      "/sign-up/email": { window: 60, max: 10 },
+    },
+  },
+  advanced: {
+    useSecureCookies: baseUrl().startsWith("https://"),
+    ipAddress: { ipAddressHeaders: ["x-forwarded-for"] },
+  },
+  plugins: [
+    organization({
+      ac,
+      roles,
+      creatorRole: "chief-clerk",
+      invitationExpiresIn: 7 * 24 * 60 * 60,
+      cancelPendingInvitationsOnReInvite: true,
+      async sendInvitationEmail(data) {
+        const url = `${baseUrl()}/invitations/${data.id}`;
+        const roleLabel = isChamberRole(data.role) ? ROLE_LABELS[data.role] : data.role;
+        await enqueueMail({
+          kind: "invitation",
+          ref: data.id,
+          to: data.email,
+          subject: `Invitation to ${data.organization.name} on Gavelwright`,
+          text: `${data.inviter.user.name} invites you to join ${data.organization.name} on Gavelwright as ${roleLabel}.\n\nAccept the invitation (sign in or create an account with this e-mail address first):\n${url}\n\nThe invitation expires in seven days.`,
+          html: `<p>${escapeHtml(data.inviter.user.name)} invites you to join <strong>${escapeHtml(data.organization.name)}</strong> on Gavelwright as ${escapeHtml(roleLabel)}.</p><p><a href="${escapeHtml(url)}">Accept the invitation</a> (sign in or create an account with this e-mail address first).</p><p>The invitation expires in seven days.</p>`,
+        });
+      },
+    }),
+  ],
+});
+
+export type AuthSession = typeof auth.$Infer.Session;

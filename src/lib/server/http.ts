@@ -1,0 +1,79 @@
+/**
+ * The API's one error-to-status table and the helpers every JSON route uses: parse the
+ * body with zod, require a signed-in user in a chamber with a permission, answer JSON.
+ */
+import type { APIContext, APIRoute } from "astro";
+import type { z } from "zod";
+import { GavelError, isGavelError, parseWith, type ErrorCode } from "../errors.ts";
+import { can, type ChamberRole, type Permission } from "../permissions.ts";
+
+export const STATUS: Record<ErrorCode, number> = {
+  "invalid-input": 400,
+  unprocessable: 422,
+  unauthenticated: 401,
+  forbidden: 403,
+  "not-found": 404,
+  conflict: 409,
+  "too-large": 413,
+  "limit-exceeded": 422,
+  "rate-limited": 429,
+};
+
+export const MAX_JSON_BYTES = 1024 * 1024;
+
+export function json(body: unknown, status = 200, headers: Record<string, string> = {}): Response {
+  return new Response(JSON.stringify(body), { status, headers: { "content-type": "application/json; charset=utf-8", "cache-control": "no-store", ...headers } });
+}
+
+export function errorResponse(e: unknown): Response {
+  if (isGavelError(e)) return json(e.toJSON(), STATUS[e.code]);
+  console.error("[api] unexpected error:", e);
+  return json({ error: { code: "internal", message: "Something went wrong on the server. The request was not completed; nothing was saved." } }, 500);
+}
+
+/** Wrap a route handler: GavelErrors become their status; anything else a logged 500. */
+export function route(handler: (ctx: APIContext) => Promise<Response | unknown>): APIRoute {
+  return async (ctx) => {
+    try {
+      const out = await handler(ctx);
+      return out instanceof Response ? out : json(out);
+    } catch (e) {
+      return errorResponse(e);
+    }
+  };
+}
+
+/** Read a JSON body (size- and type-checked) and parse it with `schema`. */
+export async function readJson<S extends z.ZodType>(request: Request, schema: S, what = "request body", maxBytes = MAX_JSON_BYTES): Promise<z.output<S>> {
+  const type = request.headers.get("content-type") ?? "";
+  if (!/^application\/json\b/i.test(type)) throw new GavelError("invalid-input", `${what}: send JSON with the header Content-Type: application/json`, { issues: [{ path: "(content-type)", message: `expected application/json, got ${type || "nothing"}` }] });
+  const declared = Number(request.headers.get("content-length") ?? 0);
+  if (declared > maxBytes) throw new GavelError("too-large", `${what} is ${declared} bytes; the limit is ${maxBytes}`);
+  const text = await request.text();
+  if (text.length > maxBytes) throw new GavelError("too-large", `${what} is larger than ${maxBytes} bytes`);
+  let value: unknown;
+  try {
+    value = JSON.parse(text);
+  } catch (e) {
+    throw new GavelError("invalid-input", `${what} is not valid JSON: ${(e as Error).message}`, { issues: [{ path: "(body)", message: "not valid JSON" }] });
+  }
+  return parseWith(schema, value, what) as z.output<S>;
+}
+
+export function parseQuery<S extends z.ZodType>(url: URL, schema: S): z.output<S> {
+  return parseWith(schema, Object.fromEntries(url.searchParams), "query") as z.output<S>;
+}
+
+export interface Actor {
+  user: NonNullable<App.Locals["user"]>;
+  chamber: NonNullable<App.Locals["chamber"]>;
+  role: ChamberRole;
+}
+
+/** A signed-in user working in a chamber, holding `permission` there (or any role when omitted). */
+export function requireActor(locals: App.Locals, permission?: Permission): Actor {
+  if (!locals.user) throw new GavelError("unauthenticated", "Sign in first.");
+  if (!locals.chamber || !locals.role) throw new GavelError("forbidden", "You do not belong to a chamber yet. Accept an invitation or create a chamber.");
+  if (permission && !can(locals.role, permission)) throw new GavelError("forbidden", `Your role in ${locals.chamber.name} does not allow this (${permission}).`);
+  return { user: locals.user, chamber: locals.chamber, role: locals.role };
+}

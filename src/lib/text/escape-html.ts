@@ -1,0 +1,4 @@
+/** Escape text for inclusion in HTML (element content or a quoted attribute). */
+export function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
+}

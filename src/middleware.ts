@@ -1,0 +1,47 @@
+import { defineMiddleware } from "astro:middleware";
+import { randomUUID } from "node:crypto";
+import { ensureMigrated } from "./lib/server/db.ts";
+import { loadContext } from "./lib/server/context.ts";
+import { startOutboxWorker } from "./lib/server/mail.ts";
+import { errorResponse } from "./lib/server/http.ts";
+
+const SECURITY_HEADERS: Record<string, string> = {
+  "x-content-type-options": "nosniff",
+  "referrer-policy": "same-origin",
+  "x-frame-options": "DENY",
+  "permissions-policy": "camera=(), microphone=(), geolocation=()",
+  "content-security-policy": [
+    "default-src 'self'",
+    "script-src 'self' 'unsafe-inline'",
+    "style-src 'self' 'unsafe-inline'",
+    "img-src 'self' data: blob:",
+    "font-src 'self'",
+    "connect-src 'self'",
+    "frame-ancestors 'none'",
+    "base-uri 'self'",
+    "form-action 'self'",
+    "object-src 'none'",
+  ].join("; "),
+};
+
+export const onRequest = defineMiddleware(async (ctx, next) => {
+  ctx.locals.requestId = randomUUID();
+  const path = ctx.url.pathname;
+  const isAsset = path.startsWith("/_astro/") || path === "/favicon.svg";
+  if (!isAsset) {
+    try {
+      await ensureMigrated();
+      startOutboxWorker();
+      if (!path.startsWith("/api/auth/")) Object.assign(ctx.locals, await loadContext(ctx.request.headers));
+      else Object.assign(ctx.locals, { user: null, session: null, chamber: null, role: null, chambers: [] });
+    } catch (e) {
+      console.error("[request] database unavailable:", (e as Error).message);
+      if (path.startsWith("/api/")) return errorResponse(e);
+      return new Response("Gavelwright cannot reach its database just now. Nothing was changed. Try again in a moment.", { status: 503, headers: { "content-type": "text/plain; charset=utf-8", "retry-after": "5" } });
+    }
+  }
+  const res = await next();
+  for (const [k, v] of Object.entries(SECURITY_HEADERS)) if (!res.headers.has(k)) res.headers.set(k, v);
+  if (ctx.url.protocol === "https:") res.headers.set("strict-transport-security", "max-age=31536000; includeSubDomains");
+  return res;
+});
