@@ -9,6 +9,9 @@ const port = Number(process.env.PORT ?? 4321);
 
 export default defineConfig({
   output: "server",
+  // Separate build folders let several builds run side by side (tests, parallel work).
+  outDir: process.env.GAVELWRIGHT_OUT_DIR ?? "./dist",
+  cacheDir: process.env.GAVELWRIGHT_CACHE_DIR ?? "./node_modules/.astro",
   adapter: node({ mode: "standalone" }),
   integrations: [react()],
   vite: { plugins: [tailwindcss()] },
