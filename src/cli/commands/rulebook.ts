@@ -1,0 +1,70 @@
+/**
+ * `gavelwright rulebook check FILE`: validate a rulebook file and print a short summary.
+ * Also exports `loadRulebookRef`, which the `moves` and `check` commands use to read the
+ * `rulebook` member of a case file (a path, a template id, or an inline object).
+ */
+import { existsSync } from "node:fs";
+import { dirname, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
+import { GavelError } from "../../lib/errors.ts";
+import { parseRulebook } from "../../lib/procedure/parse-rulebook.ts";
+import type { Rulebook } from "../../lib/procedure/rulebook-schema.ts";
+import { printJson, readJsonFile, type CliIO } from "../io.ts";
+import type { Command } from "../main.ts";
+
+/** The shipped templates (rulebooks/*.json at the package root). */
+export const TEMPLATE_DIR = resolve(dirname(fileURLToPath(import.meta.url)), "../../../rulebooks");
+
+/** Prefix the issue paths of a GavelError with the member the value came from ("rulebook.motions.3.rank"). */
+function prefixed(e: unknown, prefix: string): unknown {
+  if (!(e instanceof GavelError)) return e;
+  const issues = e.issues.map((i) => ({ path: i.path === "(root)" || i.path.startsWith("(") ? prefix : `${prefix}.${i.path}`, message: i.message }));
+  return new GavelError(e.code, e.message, { issues, details: e.details });
+}
+
+/**
+ * Resolve a case file's `rulebook`: an inline object; a path relative to the case file;
+ * or the id of a shipped template ("general-parliamentary-law").
+ */
+export function loadRulebookRef(ref: unknown, caseDir: string, io: CliIO): Rulebook {
+  if (typeof ref === "string") {
+    const asPath = resolve(caseDir, ref);
+    const template = resolve(TEMPLATE_DIR, `${ref}.json`);
+    const file = existsSync(asPath) ? asPath : /^[a-z0-9-]+$/.test(ref) && existsSync(template) ? template : null;
+    if (!file) throw new GavelError("not-found", `rulebook "${ref}" is neither a file (relative to the case file) nor a template id`, { issues: [{ path: "rulebook", message: "no such file or template" }] });
+    const value = readJsonFile(file, io, "rulebook file");
+    try {
+      return parseRulebook(value);
+    } catch (e) {
+      throw prefixed(e, "rulebook");
+    }
+  }
+  if (ref === undefined) throw new GavelError("invalid-input", "the case has no rulebook", { issues: [{ path: "rulebook", message: "required: a path, a template id or an object" }] });
+  try {
+    return parseRulebook(ref);
+  } catch (e) {
+    throw prefixed(e, "rulebook");
+  }
+}
+
+export default {
+  summary: "Validate a rulebook file (exit 0 with a summary, or 2 with path-precise errors).",
+  usage: "rulebook check FILE",
+  async run(args, io) {
+    const [sub, file] = args;
+    if (sub !== "check") throw new GavelError("invalid-input", `unknown subcommand ${JSON.stringify(sub ?? "")}; use "rulebook check FILE"`, { issues: [{ path: "(argument)", message: "expected \"check\"" }] });
+    const rulebook = parseRulebook(readJsonFile(file, io, "rulebook file"));
+    printJson(io, {
+      valid: true,
+      id: rulebook.id,
+      title: rulebook.title,
+      format: rulebook.format,
+      formatVersion: rulebook.formatVersion,
+      motions: rulebook.motions.length,
+      rules: { motion: rulebook.rules.filter((r) => r.scope === "motion").length, amendment: rulebook.rules.filter((r) => r.scope === "amendment").length },
+      maxDegree: rulebook.amendments.maxDegree,
+      procedure: rulebook.voting.procedure,
+    });
+    return 0;
+  },
+} satisfies Command;

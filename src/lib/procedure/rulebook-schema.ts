@@ -1,0 +1,146 @@
+/**
+ * The rulebook file format ("gavelwright.rulebook", formatVersion 1): chamber metadata, the
+ * motion catalogue, amendment rules, the voting section, and json-rules-engine rules over facts.
+ * This file fixes the shape only; parseRulebook adds the semantic checks (unique ids, known
+ * facts and operators, precedence without cycles). Field by field: docs/rulebook-format.md.
+ *
+ * Motion classes follow the general classification of Robert's Rules of Order Revised (1915)
+ * §§11-15, with "restorative" for the motions that bring a question again before the
+ * assembly (take from the table, reconsider, rescind; §§35-37).
+ */
+import { z } from "zod";
+import { AMENDMENT_FORMS, idSchema } from "../amendments/case-schema.ts";
+import { citationSchema, VOTE_THRESHOLDS, votingSectionSchema } from "./voting-section.ts";
+import { RULE_SCOPES } from "./rule-vocabulary.ts";
+
+export const RULEBOOK_FORMAT = "gavelwright.rulebook";
+export const RULEBOOK_FORMAT_VERSION = 1;
+
+export const MOTION_CLASSES = ["privileged", "subsidiary", "incidental", "main", "restorative"] as const;
+export type MotionClass = (typeof MOTION_CLASSES)[number];
+
+export const FINDING_SEVERITIES = ["error", "warning", "info"] as const;
+export type FindingSeverity = (typeof FINDING_SEVERITIES)[number];
+
+/** Codes the shipped templates and the tree builder use; a rulebook may add its own. */
+export const FINDING_CODES = [
+  "degree-exceeded",
+  "slot-taken",
+  "not-germane",
+  "needs-ruling",
+  "filed-late",
+  "sponsors-missing",
+  "target-missing",
+  "target-closed",
+  "conflicts-with",
+  "cycle",
+  "form-not-allowed",
+  "voted-after-perfecting",
+] as const;
+
+const text = (max: number) => z.string().trim().min(1).max(max);
+export const findingCodeSchema = z.string().regex(/^[a-z][a-z0-9-]{0,63}$/, "must be lower-case letters, digits and '-'");
+
+export const motionSchema = z.object({
+  id: idSchema,
+  name: text(200),
+  class: z.enum(MOTION_CLASSES),
+  /** Higher outranks lower; null for motions without rank (incidental, restorative). */
+  rank: z.number().int().min(0).max(1000).nullable(),
+  second: z.boolean(),
+  debatable: z.boolean(),
+  /** Debatable exactly when the question it applies to is (amend, reconsider). */
+  debatableFollowsTarget: z.boolean().default(false),
+  amendable: z.boolean(),
+  vote: z.enum(VOTE_THRESHOLDS),
+  /** In order when another member has the floor. */
+  interrupt: z.boolean(),
+  reconsiderable: z.boolean(),
+  citation: citationSchema,
+  note: z.string().max(1000).optional(),
+});
+
+export const germanenessSchema = z.object({
+  /** subjects: tags overlap with the measure's; section: with the targeted section's; committee: same committee of jurisdiction. */
+  test: z.enum(["subjects", "section", "committee", "none"]),
+  citation: citationSchema,
+});
+
+export const amendmentRulesSchema = z.object({
+  /** Catalogue id of the motion to amend. */
+  motion: idSchema.default("amend"),
+  forms: z.array(z.enum(AMENDMENT_FORMS)).min(1).max(AMENDMENT_FORMS.length),
+  maxDegree: z.number().int().min(1).max(10),
+  /** How many amendments may be pending at once in one slot; null = no limit. */
+  pendingPerSlot: z.number().int().min(1).max(100).nullable().default(1),
+  /** A substitute has its own first-degree slot beside the perfecting amendment (four-amendment tree). */
+  substituteSlot: z.boolean().default(false),
+  /** How many amendments may be pending at once on one measure; null = no limit. */
+  maxPending: z.number().int().min(1).max(1000).nullable().default(null),
+  germaneness: germanenessSchema,
+  /** Amendments must be filed this many hours before the sitting (`asOf`); null = no deadline. */
+  filingDeadline: z.object({ hoursBefore: z.number().min(0).max(24 * 366), citation: citationSchema }).nullable().default(null),
+  minSponsors: z.number().int().min(0).max(1000).default(1),
+  citation: citationSchema,
+});
+
+export const chamberSchema = z.object({
+  name: text(200),
+  kind: z.enum(["assembly", "legislature", "committee", "board", "other"]).default("assembly"),
+  members: z.number().int().min(1).max(100_000).optional(),
+  jurisdiction: z.string().max(200).optional(),
+  note: z.string().max(2000).optional(),
+});
+
+export const sourceSchema = z.object({
+  title: text(500),
+  edition: z.string().max(200).optional(),
+  url: z.url().max(2000).optional(),
+  license: z.string().max(200).optional(),
+  note: z.string().max(2000).optional(),
+});
+
+/** A json-rules-engine condition tree; its nodes are checked by parseRulebook with exact paths. */
+export const conditionTreeSchema = z.record(z.string(), z.unknown());
+
+export const ruleSchema = z.object({
+  id: idSchema,
+  scope: z.enum(RULE_SCOPES),
+  citation: citationSchema,
+  /** May name facts in braces, e.g. "{motion.name} ranks below {immediatelyPending.name}". */
+  message: text(1000),
+  conditions: conditionTreeSchema,
+  priority: z.number().int().min(1).max(100).optional(),
+  /** Amendment scope: the finding's stable code and severity. */
+  code: findingCodeSchema.optional(),
+  severity: z.enum(FINDING_SEVERITIES).optional(),
+  /** Amendment scope: a fact (an array of amendment ids) listed as the finding's `related`. */
+  related: z.enum(["conflictsWith", "perfectingSiblings"]).optional(),
+});
+
+export const rulebookSchema = z.object({
+  format: z.literal(RULEBOOK_FORMAT),
+  formatVersion: z.literal(RULEBOOK_FORMAT_VERSION),
+  id: idSchema,
+  title: text(300),
+  version: z.string().max(60).optional(),
+  chamber: chamberSchema,
+  source: sourceSchema,
+  motions: z.array(motionSchema).min(1).max(200),
+  /**
+   * Optional precedence chains, highest first, as an alternative to numeric ranks:
+   * ranks are then derived from the chains (a motion in a chain must not also give a number).
+   */
+  precedence: z.array(z.array(idSchema).min(2).max(200)).max(50).optional(),
+  amendments: amendmentRulesSchema,
+  voting: votingSectionSchema,
+  rules: z.array(ruleSchema).max(500),
+});
+
+export type MotionInput = z.input<typeof motionSchema>;
+export type Motion = z.output<typeof motionSchema>;
+export type AmendmentRules = z.output<typeof amendmentRulesSchema>;
+export type RuleDefinition = z.output<typeof ruleSchema>;
+export type RulebookInput = z.input<typeof rulebookSchema>;
+/** A parsed rulebook; after parseRulebook every ranked motion's `rank` is resolved. */
+export type Rulebook = z.output<typeof rulebookSchema>;

@@ -1,0 +1,84 @@
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import { main } from "../../../src/cli/main.ts";
+import { rawTemplate, templatePath } from "./fixtures.ts";
+
+const dir = mkdtempSync(join(tmpdir(), "gw-procedure-cli-"));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+function file(name: string, content: unknown): string {
+  const p = join(dir, name);
+  writeFileSync(p, typeof content === "string" ? content : JSON.stringify(content));
+  return p;
+}
+
+async function run(...argv: string[]) {
+  let out = "";
+  let err = "";
+  const code = await main(argv, { stdout: (t) => (out += t), stderr: (t) => (err += t), cwd: dir });
+  return { code, out, err };
+}
+
+describe("gavelwright rulebook check", () => {
+  it("exits 2 on a missing file, a non-JSON file, and a wrong subcommand", async () => {
+    expect((await run("rulebook", "check", join(dir, "nope.json"))).code).toBe(2);
+    expect((await run("rulebook", "check", file("junk.json", "{ nope"))).code).toBe(2);
+    expect((await run("rulebook", "lint", templatePath("general-parliamentary-law"))).code).toBe(2);
+  });
+
+  it("exits 2 naming the path of an unknown operator", async () => {
+    const rb = rawTemplate("general-parliamentary-law");
+    rb.rules[2].conditions.all[1].operator = "outranks";
+    const r = await run("rulebook", "check", file("bad-op.json", rb));
+    expect(r.code).toBe(2);
+    expect(r.err).toContain("rules.2.conditions.all.1.operator");
+    expect(r.out).toBe("");
+  });
+
+  it("exits 2 on 5 MB of junk", async () => {
+    const r = await run("rulebook", "check", file("big.json", "x".repeat(5 * 1024 * 1024 + 10)));
+    expect(r.code).toBe(2);
+  });
+
+  it("exits 0 with a JSON summary for a template", async () => {
+    const r = await run("rulebook", "check", templatePath("general-parliamentary-law"));
+    expect(r.code).toBe(0);
+    const summary = JSON.parse(r.out);
+    expect(summary).toMatchObject({ valid: true, id: "general-parliamentary-law", motions: 23 });
+  });
+});
+
+describe("gavelwright moves", () => {
+  it("exits 2 on a case without a rulebook or with a bad pending entry", async () => {
+    expect((await run("moves", file("no-rb.json", { pending: [] }))).code).toBe(2);
+    const r = await run("moves", file("bad-pending.json", { rulebook: "general-parliamentary-law", pending: [{ motion: "main" }, { motion: "quorum-call" }] }));
+    expect(r.code).toBe(2);
+    expect(r.err).toContain("pending.1.motion");
+  });
+
+  it("prefixes rulebook errors with the case member", async () => {
+    const rb = rawTemplate("general-parliamentary-law");
+    rb.motions[0].rank = -1;
+    const r = await run("moves", file("inline-bad.json", { rulebook: rb, pending: [] }));
+    expect(r.code).toBe(2);
+    expect(r.err).toContain("rulebook.motions.0.rank");
+  });
+
+  // Robert's Rules of Order Revised (1915) §§28, 29, 33, 34: DOMAIN §4 "Procedure" case.
+  it("prints one verdict per motion, following the contract, for a rulebook given by relative path", async () => {
+    file("gpl.json", rawTemplate("general-parliamentary-law"));
+    const r = await run("moves", file("case.json", { rulebook: "gpl.json", pending: [{ motion: "main" }, { motion: "amend", degree: 1 }] }));
+    expect(r.code).toBe(0);
+    const list = JSON.parse(r.out) as Array<Record<string, unknown>>;
+    expect(list).toHaveLength(23);
+    for (const v of list) {
+      expect(Object.keys(v)).toEqual(expect.arrayContaining(["motion", "inOrder", "reasons", "second", "debatable", "amendable", "vote"]));
+    }
+    const by = Object.fromEntries(list.map((v) => [v.motion, v]));
+    expect(by["lay-on-table"].inOrder).toBe(true);
+    expect(by["postpone-indefinitely"].inOrder).toBe(false);
+    expect(by.amend).toMatchObject({ inOrder: true, degree: 2 });
+  });
+});
