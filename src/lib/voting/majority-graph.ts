@@ -1,0 +1,68 @@
+/**
+ * The majority graph (weak tournament) of a profile, or one given directly.
+ *
+ * Margins m(x,y) = support(x over y) − support(y over x); members indifferent or abstaining drop out
+ * (DOMAIN §1–2). x beats y iff the motion "x over y" meets the threshold; a tie gives no edge
+ * (Robert's Rules of Order Revised, 1915, §46: a tie defeats the motion).
+ */
+import { adopts, type Threshold } from "./vote-threshold.ts";
+import type { Profile } from "./profile.ts";
+
+export interface MajorityGraph {
+  alternatives: string[];
+  /** margins[x][y] = −margins[y][x]. */
+  margins: number[][];
+  /** beats[x][y]: x defeats y when x is the motion. Asymmetric for every supported threshold. */
+  beats: boolean[][];
+  threshold: Threshold;
+}
+
+export function majorityGraph(profile: Profile, threshold: Threshold = "majority"): MajorityGraph {
+  const n = profile.alternatives.length;
+  const support = Array.from({ length: n }, () => new Float64Array(n));
+  for (const m of profile.members) {
+    const lv = m.level;
+    const w = m.weight;
+    for (let x = 0; x < n; x++) {
+      const a = lv[x];
+      if (a < 0) continue;
+      const row = support[x];
+      for (let y = 0; y < n; y++) {
+        const b = lv[y];
+        if (b > a) row[y] += w; // b < 0 (abstains) never exceeds a ≥ 0
+      }
+    }
+  }
+  const margins: number[][] = [];
+  const beats: boolean[][] = [];
+  for (let x = 0; x < n; x++) {
+    margins.push(Array.from({ length: n }, (_, y) => support[x][y] - support[y][x]));
+    beats.push(Array.from({ length: n }, (_, y) => x !== y && adopts(support[x][y], support[y][x], profile.totalWeight, threshold)));
+  }
+  return { alternatives: profile.alternatives, margins, beats, threshold };
+}
+
+/** A majority graph given by its margins (simple majority: x beats y iff m(x,y) > 0). */
+export function graphFromMargins(alternatives: string[], margins: number[][]): MajorityGraph {
+  return {
+    alternatives,
+    margins,
+    beats: margins.map((row, x) => row.map((m, y) => x !== y && m > 0)),
+    threshold: "majority",
+  };
+}
+
+/** Bitmask rows for n ≤ 30: out[x] = set x beats, into[x] = set beating x. */
+export function beatMasks(g: MajorityGraph): { out: number[]; into: number[] } {
+  const n = g.alternatives.length;
+  if (n > 30) throw new RangeError("beatMasks needs at most 30 alternatives");
+  const out = new Array<number>(n).fill(0);
+  const into = new Array<number>(n).fill(0);
+  for (let x = 0; x < n; x++)
+    for (let y = 0; y < n; y++)
+      if (g.beats[x][y]) {
+        out[x] |= 1 << y;
+        into[y] |= 1 << x;
+      }
+  return { out, into };
+}
