@@ -1,13 +1,15 @@
 // Shared helpers for browser tests: Debian's Chromium driven by playwright-core.
-import { chromium } from "playwright-core";
+import { chromium, type BrowserContext, type Page } from "playwright-core";
 import { mkdtempSync, rmSync, mkdirSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
+import demoAccounts from "../../src/lib/server/seed/demo-accounts.json";
 
 export const BASE_URL = process.env.GAVELWRIGHT_TEST_URL ?? "http://127.0.0.1:4399";
 export const SHOTS = join(process.cwd(), "test-results", "screenshots");
+export const ACCOUNTS = demoAccounts;
 
-export async function launch() {
+export async function launch(): Promise<{ context: BrowserContext; close(): Promise<void> }> {
   mkdirSync(SHOTS, { recursive: true });
   const profile = mkdtempSync(join(tmpdir(), "gw-chromium-"));
   const context = await chromium.launchPersistentContext(profile, {
@@ -25,13 +27,26 @@ export async function launch() {
   };
 }
 
-export async function signIn(page, email, password) {
+export function account(role: string, chamber = "harrowmere") {
+  const a = ACCOUNTS.find((x) => x.role === role && x.chamber === chamber);
+  if (!a) throw new Error(`no demo account for ${role} in ${chamber}`);
+  return a;
+}
+
+export async function signIn(page: Page, email: string, password: string): Promise<void> {
   await page.goto(`${BASE_URL}/sign-in`);
   await page.getByLabel("E-mail").fill(email);
   await page.getByLabel("Password").fill(password);
-  await Promise.all([page.waitForURL((u) => !u.pathname.startsWith("/sign-in"), { timeout: 15_000 }), page.getByRole("button", { name: "Sign in" }).click()]);
+  await Promise.all([page.waitForURL((u) => !u.pathname.startsWith("/sign-in"), { timeout: 20_000 }), page.getByRole("button", { name: "Sign in" }).click()]);
 }
 
-export async function shot(page, name) {
-  await page.screenshot({ path: join(SHOTS, `${name}.png`), fullPage: true });
+export async function signInAs(page: Page, role: string, chamber = "harrowmere"): Promise<void> {
+  const a = account(role, chamber);
+  await signIn(page, a.email, a.password);
+}
+
+export async function shot(page: Page, name: string): Promise<string> {
+  const path = join(SHOTS, `${name}.png`);
+  await page.screenshot({ path, fullPage: true });
+  return path;
 }

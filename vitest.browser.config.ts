@@ -1,0 +1,13 @@
+// Browser tests: playwright-core driving Debian's Chromium against a running app
+// (started by scripts/test.mjs, or any instance named by GAVELWRIGHT_TEST_URL).
+import { defineConfig } from "vitest/config";
+
+export default defineConfig({
+  test: {
+    environment: "node",
+    include: ["tests/browser/**/*.test.ts"],
+    fileParallelism: false,
+    testTimeout: 90_000,
+    hookTimeout: 90_000,
+  },
+});
