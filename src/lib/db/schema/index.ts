@@ -2,3 +2,4 @@
 export * from "./auth.ts";
 export * from "./mail.ts";
 export * from "./chamber.ts";
+export * from "./measures.ts";
