@@ -3,3 +3,5 @@ export * from "./auth.ts";
 export * from "./mail.ts";
 export * from "./chamber.ts";
 export * from "./measures.ts";
+export * from "./rulebooks.ts";
+export * from "./floor.ts";
