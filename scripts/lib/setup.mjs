@@ -213,6 +213,20 @@ function ensureDatabases(c) {
   }
 }
 
+/** Drop and create a database on the server at `url` (tests start from migrations on an empty database). */
+export function recreateDatabase(url) {
+  const u = new URL(url);
+  const name = u.pathname.slice(1);
+  if (!/^[a-z0-9_]+$/.test(name)) throw new SetupError(`refusing to recreate database "${name}"`);
+  u.pathname = "/postgres";
+  const bin = pgBinDir();
+  const psqlBin = bin ? join(bin, "psql") : "psql";
+  for (const sql of [`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`, `CREATE DATABASE ${name}`]) {
+    const r = spawnSync(psqlBin, [u.toString(), "-v", "ON_ERROR_STOP=1", "-tAc", sql], { encoding: "utf8" });
+    if (r.status !== 0) throw new SetupError(`could not run "${sql}": ${r.stderr}`);
+  }
+}
+
 export function pgStop() {
   const bin = pgBinDir();
   const d = dataDirs();

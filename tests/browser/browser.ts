@@ -50,3 +50,14 @@ export async function shot(page: Page, name: string): Promise<string> {
   await page.screenshot({ path, fullPage: true });
   return path;
 }
+
+/** The text of the first element matching `locator`, once it is visible. */
+export async function textOf(locator: import("playwright-core").Locator, timeout = 15_000): Promise<string> {
+  await locator.first().waitFor({ state: "visible", timeout });
+  return (await locator.first().innerText()).trim();
+}
+
+/** Wait until `locator` is visible (fails the test on timeout). */
+export async function visible(locator: import("playwright-core").Locator, timeout = 15_000): Promise<void> {
+  await locator.first().waitFor({ state: "visible", timeout });
+}
