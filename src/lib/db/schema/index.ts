@@ -5,3 +5,4 @@ export * from "./chamber.ts";
 export * from "./measures.ts";
 export * from "./rulebooks.ts";
 export * from "./floor.ts";
+export * from "./rulings.ts";
