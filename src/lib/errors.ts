@@ -22,6 +22,8 @@ export const ERROR_CODES = {
   /** The request asks for more computation than the stated limit. */
   "limit-exceeded": "The request exceeds a stated limit.",
   "rate-limited": "Too many requests.",
+  /** A service the request needs (the database, the mail relay) cannot be reached just now. */
+  unavailable: "A service is temporarily unavailable.",
 } as const;
 
 export type ErrorCode = keyof typeof ERROR_CODES;

@@ -17,6 +17,7 @@ export const STATUS: Record<ErrorCode, number> = {
   "too-large": 413,
   "limit-exceeded": 422,
   "rate-limited": 429,
+  unavailable: 503,
 };
 
 export const MAX_JSON_BYTES = 1024 * 1024;
