@@ -26,8 +26,19 @@ export function json(body: unknown, status = 200, headers: Record<string, string
   return new Response(JSON.stringify(body), { status, headers: { "content-type": "application/json; charset=utf-8", "cache-control": "no-store", ...headers } });
 }
 
+/** Connection-level database failures (server restarting, network cut): retryable, not our fault. */
+export function isDatabaseUnavailable(e: unknown): boolean {
+  const err = (e as { cause?: unknown })?.cause ?? e;
+  const code = String((err as { code?: unknown })?.code ?? "");
+  return ["ECONNREFUSED", "ECONNRESET", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "CONNECTION_CLOSED", "CONNECT_TIMEOUT", "57P01", "57P02", "57P03"].includes(code) || code.startsWith("08");
+}
+
 export function errorResponse(e: unknown): Response {
   if (isGavelError(e)) return json(e.toJSON(), STATUS[e.code]);
+  if (isDatabaseUnavailable(e)) {
+    console.error("[api] database unavailable:", (e as Error).message);
+    return json({ error: { code: "unavailable", message: "Gavelwright cannot reach its database just now. The request was not completed; try again in a moment." } }, 503, { "retry-after": "5" });
+  }
   console.error("[api] unexpected error:", e);
   return json({ error: { code: "internal", message: "Something went wrong on the server. The request was not completed; nothing was saved." } }, 500);
 }
