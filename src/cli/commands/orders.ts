@@ -1,0 +1,32 @@
+/**
+ * `gavelwright orders FILE`: the voting orders of an amendment tree under a rulebook's voting section.
+ * `rulebook` is an inline object or a path relative to the case file's folder; only its `voting`
+ * section is read.
+ */
+import { dirname, resolve } from "node:path";
+import { GavelError } from "../../lib/errors.ts";
+import { analyseOrders } from "../../lib/voting/analyse-orders.ts";
+import type { Command } from "../main.ts";
+import { printJson, readJsonFile } from "../io.ts";
+
+export default {
+  summary: "Alternatives, majority sets, legal voting orders and their outcomes for an amendment tree",
+  usage: "orders FILE",
+  async run(args, io) {
+    const input = readJsonFile(args[0], io);
+    if (input && typeof input === "object" && !Array.isArray(input) && typeof (input as { rulebook?: unknown }).rulebook === "string") {
+      const rel = (input as { rulebook: string }).rulebook;
+      const base = args[0] === "-" ? io.cwd : dirname(resolve(io.cwd, args[0]!));
+      let rulebook: unknown;
+      try {
+        rulebook = readJsonFile(resolve(base, rel), { ...io, cwd: base }, "rulebook file");
+      } catch (e) {
+        if (e instanceof GavelError) throw new GavelError(e.code, `rulebook: ${e.message}`, { issues: [{ path: "rulebook", message: e.message }] });
+        throw e;
+      }
+      (input as { rulebook: unknown }).rulebook = rulebook;
+    }
+    printJson(io, analyseOrders(input));
+    return 0;
+  },
+} satisfies Command;

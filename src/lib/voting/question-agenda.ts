@@ -1,0 +1,136 @@
+/**
+ * Voting on an amendment tree question by question (DOMAIN §2; Ordeshook & Schwartz 1987, APSR
+ * 81:179–199; Banks 1989, AJPS 33:25–43). Questions are the pending amendments plus final passage.
+ * The state is the set of adopted questions (passage's bit meaning "passed"); a question order is a
+ * binary voting tree: each question that is still in order is a vote, adoption its motion branch.
+ *
+ * A question falls (is not put) when passage was already decided; when it is a second-degree
+ * amendment whose parent was already decided or itself falls; when it is exclusive with an adopted
+ * amendment (the first adopted makes the rest fall); or when an adopted substitute replaced its text.
+ * A vote on amendment x compares the version with x adopted against the version without it, both
+ * with x's parent taken as adopted (a second-degree amendment perfects its parent). Passage compares
+ * the version reached with Q. A tie defeats the motion.
+ *
+ * Sincere voting: "amendment" procedure — members vote for the preferred of the two versions the vote
+ * compares; "successive" procedure — members vote yes iff the version with x adopted is strictly
+ * preferred to every version still available if x is rejected (any consistent adoption of the
+ * undecided amendments, and Q). Sophisticated voting: backward induction on the tree.
+ */
+import type { AmendmentTreeModel } from "./amendment-versions.ts";
+import type { MajorityGraph } from "./majority-graph.ts";
+import type { Profile } from "./profile.ts";
+import { successivePasses } from "./successive-agenda.ts";
+import type { Procedure } from "./agenda-counts.ts";
+
+export interface QuestionAgenda {
+  model: AmendmentTreeModel;
+  /** Questions: amendments 0..k−1 in tree order, passage = k. */
+  k: number;
+  passage: number;
+  falls(x: number, decided: number, adopted: number): boolean;
+  /** The two versions a vote on x compares, and the state after adoption / rejection. */
+  vote(x: number, adopted: number): { yesState: number; noState: number; yesVersion: number; noVersion: number };
+  /** Final outcome (version index) of a completed state. */
+  outcome(adopted: number): number;
+  sincereAdopts(x: number, decided: number, adopted: number): boolean;
+  beats(v: number, w: number): boolean;
+}
+
+export function questionAgenda(model: AmendmentTreeModel, g: MajorityGraph, profile: Profile | null, procedure: Procedure): QuestionAgenda {
+  const k = model.amendments.length;
+  const passage = k;
+  const P = 1 << passage;
+  const Q = 0;
+  const superseding = (adopted: number, x: number) => {
+    for (let s = 0; s < k; s++) if (adopted & (1 << s) && model.supersedes[s] & (1 << x) && (model.parent[s] < 0 || adopted & (1 << model.parent[s]))) return true;
+    return false;
+  };
+  const falls = (x: number, decided: number, adopted: number): boolean => {
+    if (x === passage) return false;
+    if (decided & P) return true;
+    const par = model.parent[x];
+    if (par >= 0 && (decided & (1 << par) || falls(par, decided, adopted))) return true;
+    return (model.exclusive[x] & adopted & ~P) !== 0 || superseding(adopted, x);
+  };
+  const vote = (x: number, adopted: number) => {
+    if (x === passage) return { yesState: adopted | P, noState: adopted, yesVersion: model.versionOf(adopted & ~P), noVersion: Q };
+    const par = model.parent[x];
+    const assumed = par >= 0 ? adopted | (1 << par) : adopted;
+    return { yesState: adopted | (1 << x), noState: adopted, yesVersion: model.versionOf((assumed | (1 << x)) & ~P), noVersion: model.versionOf(assumed & ~P) };
+  };
+  const outcome = (adopted: number) => (adopted & P ? model.versionOf(adopted & ~P) : Q);
+  const beats = (v: number, w: number) => v !== w && g.beats[v][w];
+  // Versions still available if x is rejected: Q and every consistent adoption of the undecided amendments.
+  const available = (x: number, decided: number, adopted: number): number[] => {
+    const open = [...Array(k).keys()].filter((a) => a !== x && !(decided & (1 << a)));
+    const out = new Set<number>([Q]);
+    const walk = (i: number, st: number, dec: number) => {
+      if (i === open.length) return void out.add(model.versionOf(st & ~P));
+      const a = open[i];
+      walk(i + 1, st, dec | (1 << a));
+      if (!falls(a, dec, st)) walk(i + 1, st | (1 << a), dec | (1 << a));
+    };
+    walk(0, adopted, decided | (1 << x));
+    return [...out];
+  };
+  const memo = new Map<string, boolean>();
+  const sincereAdopts = (x: number, decided: number, adopted: number): boolean => {
+    const v = vote(x, adopted);
+    if (procedure === "amendment" || x === passage || !profile) return beats(v.yesVersion, v.noVersion);
+    const key = `${x}:${decided}:${adopted}`;
+    let r = memo.get(key);
+    if (r === undefined) {
+      const avail = available(x, decided, adopted).filter((y) => y !== v.yesVersion);
+      r = successivePasses(profile, g.threshold, v.yesVersion, [v.yesVersion, ...avail]);
+      memo.set(key, r);
+    }
+    return r;
+  };
+  return { model, k, passage, falls, vote, outcome, sincereAdopts, beats };
+}
+
+export interface QuestionStep {
+  question: number;
+  put: boolean;
+  adopted?: boolean;
+}
+
+/** Sincere outcome of one question order, with the steps taken. */
+export function sincereQuestionPath(qa: QuestionAgenda, order: readonly number[]): { outcome: number; steps: QuestionStep[] } {
+  let decided = 0;
+  let adopted = 0;
+  const steps: QuestionStep[] = [];
+  for (const x of order) {
+    if (qa.falls(x, decided, adopted)) steps.push({ question: x, put: false });
+    else {
+      const yes = qa.sincereAdopts(x, decided, adopted);
+      steps.push({ question: x, put: true, adopted: yes });
+      if (yes) adopted = qa.vote(x, adopted).yesState;
+    }
+    decided |= 1 << x;
+  }
+  return { outcome: qa.outcome(adopted), steps };
+}
+
+/** Sophisticated outcome of one question order: backward induction, memoised on (position, state). */
+export function sophisticatedQuestionOutcome(qa: QuestionAgenda, order: readonly number[]): number {
+  const memo = new Map<number, number>();
+  const value = (i: number, decided: number, adopted: number): number => {
+    if (i === order.length) return qa.outcome(adopted);
+    const key = i * 2 ** 20 + adopted;
+    const hit = memo.get(key);
+    if (hit !== undefined) return hit;
+    const x = order[i];
+    let r: number;
+    if (qa.falls(x, decided, adopted)) r = value(i + 1, decided | (1 << x), adopted);
+    else {
+      const v = qa.vote(x, adopted);
+      const yes = value(i + 1, decided | (1 << x), v.yesState);
+      const no = value(i + 1, decided | (1 << x), v.noState);
+      r = qa.beats(yes, no) ? yes : no;
+    }
+    memo.set(key, r);
+    return r;
+  };
+  return value(0, 0, 0);
+}
