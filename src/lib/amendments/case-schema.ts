@@ -58,6 +58,8 @@ export const amendmentSchema = z.object({
    * further). Used by the "furthest-first" ordering constraint of continental chambers.
    */
   distance: z.number().finite().optional(),
+  /** Committee of jurisdiction the amendment's subject falls under (the "committee" germaneness test). */
+  committee: z.string().max(200).optional(),
   /** Lifecycle status; only draft/filed/pending amendments take part in a tree's analysis. */
   status: z.enum(["draft", "filed", "pending", "adopted", "rejected", "withdrawn", "fell", "ruled-out"]).default("filed"),
 });

@@ -14,7 +14,7 @@ export type RuleScope = (typeof RULE_SCOPES)[number];
 export const MOTION_FACTS = ["motion", "immediatelyPending", "pending", "pendingMotions", "pendingCount", "amendDegree", "floor", "limits"] as const;
 
 /** Facts available to amendment-scope rules. */
-export const AMENDMENT_FACTS = ["amendment", "target", "measure", "limits", "voting", "tree", "filing", "germaneness", "conflictsWith", "perfectingSiblings"] as const;
+export const AMENDMENT_FACTS = ["amendment", "target", "measure", "limits", "voting", "tree", "filing", "germaneness", "conflictsWith", "perfectingSiblings", "cycleMembers"] as const;
 
 export const SCOPE_FACTS: Record<RuleScope, readonly string[]> = { motion: MOTION_FACTS, amendment: AMENDMENT_FACTS };
 

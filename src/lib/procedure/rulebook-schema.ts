@@ -115,7 +115,7 @@ export const ruleSchema = z.object({
   code: findingCodeSchema.optional(),
   severity: z.enum(FINDING_SEVERITIES).optional(),
   /** Amendment scope: a fact (an array of amendment ids) listed as the finding's `related`. */
-  related: z.enum(["conflictsWith", "perfectingSiblings"]).optional(),
+  related: z.enum(["conflictsWith", "perfectingSiblings", "cycleMembers"]).optional(),
 });
 
 export const rulebookSchema = z.object({

@@ -1,0 +1,66 @@
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import { main } from "../../../src/cli/main.ts";
+
+const dir = mkdtempSync(join(tmpdir(), "gw-check-cli-"));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+function file(name: string, content: unknown): string {
+  const p = join(dir, name);
+  writeFileSync(p, typeof content === "string" ? content : JSON.stringify(content));
+  return p;
+}
+
+async function run(...argv: string[]) {
+  let out = "";
+  let err = "";
+  const code = await main(argv, { stdout: (t) => (out += t), stderr: (t) => (err += t), cwd: dir });
+  return { code, out, err };
+}
+
+const measure = { id: "HB-12", subjects: ["water"], sections: [{ id: "s1", subjects: ["water"] }, { id: "s2", subjects: ["audit"] }] };
+
+describe("gavelwright check", () => {
+  it("exits 2 without a file argument, and on a missing file", async () => {
+    expect((await run("check")).code).toBe(2);
+    expect((await run("check", "absent.json")).code).toBe(2);
+  });
+
+  it("exits 2 naming the path of a malformed amendment", async () => {
+    const r = await run("check", file("bad.json", { rulebook: "general-parliamentary-law", measure, amendments: [{ id: "A1", target: "s1", form: "insert" }, { id: "A2", target: "s1" }] }));
+    expect(r.code).toBe(2);
+    expect(r.err).toContain("amendments.1.form");
+    expect(r.out).toBe("");
+  });
+
+  it("exits 2 when the rulebook named does not exist", async () => {
+    expect((await run("check", file("norb.json", { rulebook: "no-such-rulebook", measure, amendments: [] }))).code).toBe(2);
+  });
+
+  // Robert's Rules of Order Revised (1915) §33: a third-degree amendment is out of order.
+  it("exits 0 with findings, in the contract's shape", async () => {
+    const amendments = [
+      { id: "A1", target: "s1", form: "insert", sponsors: ["M. Okafor"], subjects: ["water"] },
+      { id: "A2", target: "A1", form: "insert", sponsors: ["M. Okafor"], subjects: ["water"] },
+      { id: "A3", target: "A2", form: "strike", sponsors: ["M. Okafor"], subjects: ["water"] },
+      { id: "A4", target: "A4", form: "insert", sponsors: ["M. Okafor"] },
+      { id: "A5", target: "s7", form: "insert", sponsors: ["M. Okafor"] },
+    ];
+    const r = await run("check", file("case.json", { rulebook: "general-parliamentary-law", measure, amendments }));
+    expect(r.code).toBe(0);
+    const { findings } = JSON.parse(r.out) as { findings: Array<Record<string, unknown>> };
+    for (const f of findings) expect(Object.keys(f)).toEqual(expect.arrayContaining(["code", "severity", "amendment", "rule", "citation", "message"]));
+    expect(findings.map((f) => [f.amendment, f.code])).toEqual([
+      ["A3", "degree-exceeded"],
+      ["A4", "cycle"],
+      ["A5", "target-missing"],
+    ]);
+  });
+
+  it("prints an empty list for a clean tree", async () => {
+    const r = await run("check", file("clean.json", { rulebook: "general-parliamentary-law", measure, amendments: [{ id: "A1", target: "s1", form: "insert", sponsors: ["M. Okafor"], subjects: ["water"] }] }));
+    expect([r.code, JSON.parse(r.out)]).toEqual([0, { findings: [] }]);
+  });
+});

@@ -1,0 +1,53 @@
+import { describe, expect, it } from "vitest";
+import { legalMoves, type MotionVerdict } from "../../../src/lib/procedure/legal-moves.ts";
+import { template } from "./fixtures.ts";
+
+async function moves(id: string, pending: Array<{ motion: string }>, floor?: Record<string, unknown>) {
+  const list = await legalMoves(template(id), { pending, floor });
+  return Object.fromEntries(list.map((v) => [v.motion, v])) as Record<string, MotionVerdict>;
+}
+const MAIN = { motion: "main" };
+
+describe("four-amendment legislature (Rules of the US House of Representatives)", () => {
+  it("the previous question is ordered by a majority (Rule XIX cl. 1) and is undebatable (Rule XVI cl. 4(b))", async () => {
+    const v = (await moves("four-amendment-legislature", [MAIN]))["previous-question"];
+    expect([v.vote, v.debatable]).toEqual(["majority", false]);
+  });
+  it("precedence follows Rule XVI cl. 4(a): with refer pending, postpone to a day certain is in order and amend applies to it", async () => {
+    const m = await moves("four-amendment-legislature", [MAIN, { motion: "commit" }]);
+    expect(m["postpone-definitely"].inOrder).toBe(true);
+    expect(m["postpone-indefinitely"].inOrder).toBe(false);
+    expect(m.amend.inOrder).toBe(true);
+  });
+  it("a motion to limit debate is not among the motions entertained under debate (Rule XVI cl. 4(a))", async () => {
+    const v = (await moves("four-amendment-legislature", [MAIN]))["limit-debate"];
+    expect(v.inOrder).toBe(false);
+    expect(v.reasons.map((r) => r.rule)).toContain("not-entertained");
+  });
+  it("an amendment to an amendment to an amendment is out of order (Rule XVI cl. 6)", async () => {
+    const v = (await moves("four-amendment-legislature", [MAIN, { motion: "amend" }, { motion: "amend" }])).amend;
+    expect([v.inOrder, v.degree]).toEqual([false, 3]);
+  });
+});
+
+describe("continental successive (common practice, no source)", () => {
+  it("amendments are to the text only: an amendment to a pending amendment is out of order", async () => {
+    const m = await moves("continental-successive", [MAIN, { motion: "amend" }]);
+    expect([m.amend.inOrder, m.amend.degree]).toEqual([false, 2]);
+    expect((await moves("continental-successive", [MAIN])).amend.inOrder).toBe(true);
+  });
+});
+
+describe("Harrowmere Assembly (fictional Standing Orders)", () => {
+  it("ranks come from the precedence chain of SO 20: lay on the table outranks close debate, postpone indefinitely does not outrank amend", async () => {
+    const m = await moves("demo-chamber", [MAIN, { motion: "amend" }]);
+    expect(m["postpone-indefinitely"].inOrder).toBe(false);
+    expect(m["lay-on-table"].inOrder).toBe(true);
+    const top = await moves("demo-chamber", [MAIN, { motion: "lay-on-table" }]);
+    expect(top["previous-question"].inOrder).toBe(false);
+    expect(top.adjourn.inOrder).toBe(true);
+  });
+  it("suspending the standing orders takes a majority of all members (SO 42)", async () => {
+    expect((await moves("demo-chamber", []))["suspend-rules"].vote).toBe("majority-of-members");
+  });
+});
