@@ -45,8 +45,10 @@ export function countOrders<S extends number | string>(prec: Precedence, machine
   for (let pos = 0; pos < n; pos++) {
     const next = new Map<number, Map<S, Count>>();
     let states = 0;
+    polled = 0;
     for (const [placed, dist] of layer) {
-      if (control.shouldCancel && (++polled & 1023) === 0 && control.shouldCancel())
+      // Poll at the start of every layer and every 1024 sets within one.
+      if (control.shouldCancel && (polled++ & 1023) === 0 && control.shouldCancel())
         throw new GavelError("limit-exceeded", "the analysis was cancelled", { details: { cancelled: true } });
       for (let x = 0; x < n; x++) {
         const bit = 1 << x;
