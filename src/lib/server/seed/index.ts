@@ -1,6 +1,10 @@
 /** The whole demo scenario, step by step. Areas append their own steps here. */
 import { seedFoundation } from "./foundation.ts";
+import { seedMeasures } from "./measures.ts";
+import { seedRulebooks } from "./rulebooks.ts";
 
 export async function seedDemo(): Promise<void> {
   await seedFoundation();
+  await seedRulebooks();
+  await seedMeasures();
 }

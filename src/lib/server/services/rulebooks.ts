@@ -1,0 +1,231 @@
+/**
+ * Rulebook versions of a chamber: list, read, save (a new version each time, with optimistic
+ * concurrency), import, export, compare and adopt. Validation is the core's parseRulebook;
+ * nothing here interprets rules.
+ */
+import { and, asc, desc, eq, lte, sql as dsql } from "drizzle-orm";
+import { z } from "zod";
+import { db, type Tx } from "../db.ts";
+import { user } from "../../db/schema/auth.ts";
+import { rulebookAdoptions, rulebookVersions } from "../../db/schema/rulebooks.ts";
+import { GavelError } from "../../errors.ts";
+import { MAX_RULEBOOK_BYTES, parseRulebook, parseRulebookText } from "../../procedure/parse-rulebook.ts";
+import type { Rulebook } from "../../procedure/rulebook-schema.ts";
+import { diffRulebooks, type RulebookDiff } from "../rulebook-diff.ts";
+import { rulebookTemplates, rulebookTemplate } from "../rulebook-templates.ts";
+import type { Actor } from "../http.ts";
+
+export { MAX_RULEBOOK_BYTES };
+
+export const versionIdSchema = z.uuid({ message: "must be a version id" });
+
+export const saveVersionSchema = z.object({
+  /** The version the edit started from; null only for a chamber's first rulebook. */
+  basedOn: versionIdSchema.nullable(),
+  note: z.string().trim().max(1000).default(""),
+  /** Set when the edit started from a shipped template. */
+  template: z.string().regex(/^[a-z0-9-]{1,80}$/).optional(),
+  document: z.record(z.string(), z.unknown()),
+});
+export type SaveVersionInput = z.output<typeof saveVersionSchema>;
+
+export const adoptSchema = z.object({
+  /** The day (or moment) from which the version is in force; today when omitted. */
+  effectiveFrom: z.union([z.iso.date(), z.iso.datetime({ offset: true })]).optional(),
+  note: z.string().trim().max(1000).default(""),
+});
+
+export const compareQuerySchema = z.object({ from: versionIdSchema, to: versionIdSchema });
+
+const versionColumns = {
+  id: rulebookVersions.id,
+  number: rulebookVersions.number,
+  basedOn: rulebookVersions.basedOn,
+  title: rulebookVersions.title,
+  origin: rulebookVersions.origin,
+  note: rulebookVersions.note,
+  author: user.name,
+  createdAt: rulebookVersions.createdAt,
+};
+
+export interface InForce {
+  adoptionId: string;
+  versionId: string;
+  number: number;
+  title: string;
+  effectiveFrom: Date;
+}
+
+/** The adoption in force at `at` (the latest whose effective date has come), or null. */
+export async function rulebookInForce(chamberId: string, at = new Date(), q: Tx | typeof db = db): Promise<InForce | null> {
+  const [row] = await q
+    .select({ adoptionId: rulebookAdoptions.id, versionId: rulebookAdoptions.versionId, number: rulebookVersions.number, title: rulebookVersions.title, effectiveFrom: rulebookAdoptions.effectiveFrom })
+    .from(rulebookAdoptions)
+    .innerJoin(rulebookVersions, eq(rulebookAdoptions.versionId, rulebookVersions.id))
+    .where(and(eq(rulebookAdoptions.chamberId, chamberId), lte(rulebookAdoptions.effectiveFrom, at)))
+    .orderBy(desc(rulebookAdoptions.effectiveFrom), desc(rulebookAdoptions.adoptedAt))
+    .limit(1);
+  return row ?? null;
+}
+
+export async function listRulebooks(actor: Actor) {
+  const versions = await db
+    .select(versionColumns)
+    .from(rulebookVersions)
+    .leftJoin(user, eq(rulebookVersions.authorId, user.id))
+    .where(eq(rulebookVersions.chamberId, actor.chamber.id))
+    .orderBy(desc(rulebookVersions.number));
+  const adoptions = await db
+    .select({ id: rulebookAdoptions.id, versionId: rulebookAdoptions.versionId, number: rulebookVersions.number, effectiveFrom: rulebookAdoptions.effectiveFrom, note: rulebookAdoptions.note, adoptedBy: user.name, adoptedAt: rulebookAdoptions.adoptedAt })
+    .from(rulebookAdoptions)
+    .innerJoin(rulebookVersions, eq(rulebookAdoptions.versionId, rulebookVersions.id))
+    .leftJoin(user, eq(rulebookAdoptions.adoptedBy, user.id))
+    .where(eq(rulebookAdoptions.chamberId, actor.chamber.id))
+    .orderBy(desc(rulebookAdoptions.effectiveFrom), desc(rulebookAdoptions.adoptedAt));
+  const templates = (await rulebookTemplates()).map((t) => ({ id: t.id, title: t.title, chamber: t.chamber }));
+  return { versions, adoptions, inForce: await rulebookInForce(actor.chamber.id), latest: versions[0] ? { id: versions[0].id, number: versions[0].number } : null, templates };
+}
+
+async function versionRow(chamberId: string, id: string, q: Tx | typeof db = db) {
+  if (!versionIdSchema.safeParse(id).success) throw new GavelError("not-found", "No such rulebook version in this chamber.");
+  const [row] = await q
+    .select({ ...versionColumns, document: rulebookVersions.document })
+    .from(rulebookVersions)
+    .leftJoin(user, eq(rulebookVersions.authorId, user.id))
+    .where(and(eq(rulebookVersions.id, id), eq(rulebookVersions.chamberId, chamberId)));
+  if (!row) throw new GavelError("not-found", "No such rulebook version in this chamber.");
+  return row;
+}
+
+export async function getVersion(actor: Actor, id: string) {
+  const row = await versionRow(actor.chamber.id, id);
+  const [latest] = await db.select({ id: rulebookVersions.id, number: rulebookVersions.number }).from(rulebookVersions).where(eq(rulebookVersions.chamberId, actor.chamber.id)).orderBy(desc(rulebookVersions.number)).limit(1);
+  const adoptions = await db.select({ effectiveFrom: rulebookAdoptions.effectiveFrom, adoptedAt: rulebookAdoptions.adoptedAt }).from(rulebookAdoptions).where(and(eq(rulebookAdoptions.versionId, row.id), eq(rulebookAdoptions.chamberId, actor.chamber.id))).orderBy(asc(rulebookAdoptions.adoptedAt));
+  const inForce = await rulebookInForce(actor.chamber.id);
+  return { ...row, latest: latest ?? null, adoptions, inForce: inForce?.versionId === row.id };
+}
+
+/** The parsed rulebook a chamber works by: a named version, or the one in force. */
+export async function loadRulebook(chamberId: string, versionId?: string | null): Promise<{ versionId: string; number: number; title: string; rulebook: Rulebook }> {
+  let id = versionId ?? null;
+  if (!id) {
+    const f = await rulebookInForce(chamberId);
+    if (!f) throw new GavelError("not-found", "This chamber has not adopted a rulebook yet. A clerk can adopt one on the Rulebooks page.");
+    id = f.versionId;
+  }
+  const row = await versionRow(chamberId, id);
+  return { versionId: row.id, number: row.number, title: row.title, rulebook: parseRulebook(row.document) };
+}
+
+// Serialises saves per chamber, so two saves based on the same version cannot both win.
+const lockChamber = (tx: Tx, chamberId: string) => tx.execute(dsql`SELECT pg_advisory_xact_lock(hashtext(${"rulebooks:" + chamberId}))`);
+
+export interface StaleDetails {
+  basedOn: { id: string; number: number } | null;
+  latest: { id: string; number: number; author: string | null; createdAt: Date; note: string };
+  savedSince: Array<{ id: string; number: number; author: string | null; note: string }>;
+  changes: RulebookDiff;
+}
+
+/** Save a new version. The document is validated first (nothing stored when invalid). */
+export async function saveVersion(actor: Actor, input: SaveVersionInput, origin = input.template ? `template:${input.template}` : "edit") {
+  const parsed = parseRulebook(input.document);
+  if (input.template) await rulebookTemplate(input.template);
+  return db.transaction(async (tx) => {
+    await lockChamber(tx, actor.chamber.id);
+    const history = await tx
+      .select({ id: rulebookVersions.id, number: rulebookVersions.number, author: user.name, note: rulebookVersions.note, createdAt: rulebookVersions.createdAt, document: rulebookVersions.document })
+      .from(rulebookVersions)
+      .leftJoin(user, eq(rulebookVersions.authorId, user.id))
+      .where(eq(rulebookVersions.chamberId, actor.chamber.id))
+      .orderBy(desc(rulebookVersions.number));
+    const latest = history[0];
+    const base = input.basedOn ? history.find((h) => h.id === input.basedOn) : null;
+    if (input.basedOn && !base) throw new GavelError("not-found", "The version this edit is based on does not exist in this chamber.", { issues: [{ path: "basedOn", message: "no such version" }] });
+    if (latest && latest.id !== input.basedOn) {
+      const since = history.filter((h) => h.number > (base?.number ?? 0));
+      const details: StaleDetails = {
+        basedOn: base ? { id: base.id, number: base.number } : null,
+        latest: { id: latest.id, number: latest.number, author: latest.author, createdAt: latest.createdAt, note: latest.note },
+        savedSince: since.map((h) => ({ id: h.id, number: h.number, author: h.author, note: h.note })),
+        changes: diffRulebooks(base?.document ?? {}, latest.document),
+      };
+      throw new GavelError(
+        "conflict",
+        `Version ${latest.number} was saved by ${latest.author ?? "someone"} after you started from ${base ? `version ${base.number}` : "a blank rulebook"}. Nothing was saved. Changed since: ${details.changes.summary.join(" · ") || "nothing in substance"}.`,
+        { issues: [{ path: "basedOn", message: `stale: the latest version is ${latest.number}` }], details: details as unknown as Record<string, unknown> },
+      );
+    }
+    const [row] = await tx
+      .insert(rulebookVersions)
+      .values({ chamberId: actor.chamber.id, number: (latest?.number ?? 0) + 1, basedOn: input.basedOn, title: parsed.title, document: input.document, origin, note: input.note, authorId: actor.user.id })
+      .returning({ id: rulebookVersions.id, number: rulebookVersions.number, title: rulebookVersions.title, createdAt: rulebookVersions.createdAt });
+    return row;
+  });
+}
+
+export const importFieldsSchema = z.object({
+  basedOn: z.union([versionIdSchema, z.literal("").transform(() => null)]).nullable().default(null),
+  note: z.string().trim().max(1000).default(""),
+});
+
+const JSON_TYPES = new Set(["application/json", "text/json", ""]);
+
+/** Import an uploaded rulebook file (multipart field "file"); size- and type-checked, parsed, then saved. */
+export async function importVersion(actor: Actor, request: Request) {
+  const type = request.headers.get("content-type") ?? "";
+  if (!/^multipart\/form-data\b/i.test(type)) throw new GavelError("invalid-input", "Send the rulebook as a file upload (multipart/form-data, field \"file\").", { issues: [{ path: "(content-type)", message: `expected multipart/form-data, got ${type || "nothing"}` }] });
+  // The form carries the file plus two short fields; refuse an oversize body before reading it.
+  const declared = Number(request.headers.get("content-length") ?? 0);
+  if (declared > MAX_RULEBOOK_BYTES + 64 * 1024) throw new GavelError("too-large", `The upload is ${declared} bytes; a rulebook file may be at most ${MAX_RULEBOOK_BYTES} bytes.`, { issues: [{ path: "file", message: "too large" }] });
+  let form: FormData;
+  try {
+    form = await request.formData();
+  } catch {
+    throw new GavelError("invalid-input", "The upload could not be read as a form.", { issues: [{ path: "(body)", message: "not a readable multipart form" }] });
+  }
+  const file = form.get("file");
+  if (!(file instanceof File)) throw new GavelError("invalid-input", "Choose a rulebook file to upload.", { issues: [{ path: "file", message: "no file in the upload" }] });
+  if (file.size > MAX_RULEBOOK_BYTES) throw new GavelError("too-large", `${file.name} is ${file.size} bytes; a rulebook file may be at most ${MAX_RULEBOOK_BYTES} bytes.`, { issues: [{ path: "file", message: "too large" }] });
+  const mime = file.type.split(";")[0].trim().toLowerCase();
+  if (!JSON_TYPES.has(mime) || (file.name && !/\.json$/i.test(file.name))) {
+    throw new GavelError("invalid-input", `${file.name || "The file"} is not a JSON rulebook file (.json, application/json).`, { issues: [{ path: "file", message: `expected a .json file, got ${mime || "no type"}` }] });
+  }
+  const fields = importFieldsSchema.safeParse({ basedOn: form.get("basedOn") ?? null, note: form.get("note") ?? "" });
+  if (!fields.success) throw new GavelError("invalid-input", "The upload's fields are not valid.", { issues: fields.error.issues.map((i) => ({ path: i.path.join(".") || "(root)", message: i.message })) });
+  const text = await file.text();
+  parseRulebookText(text);
+  const document = JSON.parse(text) as Record<string, unknown>;
+  return saveVersion(actor, { basedOn: fields.data.basedOn, note: fields.data.note || `Imported from ${file.name}`, document }, "import");
+}
+
+export async function exportVersion(actor: Actor, id: string) {
+  const row = await versionRow(actor.chamber.id, id);
+  const doc = row.document as Record<string, unknown>;
+  const slug = String(doc.id ?? "rulebook").replace(/[^a-z0-9-]/gi, "-");
+  return { filename: `${slug}-v${row.number}.json`, text: JSON.stringify(row.document, null, 2) + "\n" };
+}
+
+export async function compareVersions(actor: Actor, fromId: string, toId: string) {
+  const [a, b] = await Promise.all([versionRow(actor.chamber.id, fromId), versionRow(actor.chamber.id, toId)]);
+  const strip = ({ document: _d, ...meta }: typeof a) => meta;
+  return { from: strip(a), to: strip(b), diff: diffRulebooks(a.document, b.document) };
+}
+
+function effectiveDate(input: string | undefined): Date {
+  if (!input) return new Date();
+  // A bare date means the start of that day (UTC), so "adopted with effect from today" is in force at once.
+  return new Date(/^\d{4}-\d{2}-\d{2}$/.test(input) ? `${input}T00:00:00Z` : input);
+}
+
+/** Adopt a version with effect from a date; earlier adoptions are kept. */
+export async function adoptVersion(actor: Actor, id: string, input: z.output<typeof adoptSchema>) {
+  const row = await versionRow(actor.chamber.id, id);
+  const effectiveFrom = effectiveDate(input.effectiveFrom);
+  const [a] = await db.insert(rulebookAdoptions).values({ chamberId: actor.chamber.id, versionId: row.id, effectiveFrom, note: input.note, adoptedBy: actor.user.id }).returning();
+  return { id: a.id, versionId: row.id, number: row.number, effectiveFrom: a.effectiveFrom, inForce: (await rulebookInForce(actor.chamber.id))?.versionId === row.id };
+}
+
+export async function templateDocument(id: string) {
+  return rulebookTemplate(id);
+}

@@ -1,0 +1,232 @@
+// Rulebook versions through the API: list, save (optimistic concurrency), import, export,
+// compare, adopt, templates. Roles, anonymous and the other chamber for every route.
+// The behaviour checked is the product's own contract (common practice, no source).
+import { readFileSync } from "node:fs";
+import { beforeAll, describe, expect, it } from "vitest";
+import * as list from "../../../src/pages/api/rulebooks/index.ts";
+import * as one from "../../../src/pages/api/rulebooks/[id].ts";
+import * as exportRoute from "../../../src/pages/api/rulebooks/[id]/export.ts";
+import * as adopt from "../../../src/pages/api/rulebooks/[id]/adopt.ts";
+import * as importRoute from "../../../src/pages/api/rulebooks/import.ts";
+import * as compare from "../../../src/pages/api/rulebooks/compare.ts";
+import * as template from "../../../src/pages/api/rulebooks/templates/[id].ts";
+import { seedRulebooks } from "../../../src/lib/server/seed/rulebooks.ts";
+import { call } from "../../support/app.ts";
+import { tableCounts } from "../../support/db.ts";
+import { seedChambers, type Seeded } from "../../support/fixtures.ts";
+
+const ROLES = ["chief-clerk", "clerk", "member", "staff", "observer"] as const;
+const EDITORS = new Set(["chief-clerk", "clerk"]);
+const demo = JSON.parse(readFileSync("rulebooks/demo-chamber.json", "utf8")) as Record<string, any>;
+
+let s: Seeded;
+const latest = async () => (await call(list.GET, "GET", "/api/rulebooks", { as: s.as.clerk })).body.latest as { id: string; number: number };
+
+function upload(name: string, content: BlobPart, type = "application/json", fields: Record<string, string> = {}): FormData {
+  const f = new FormData();
+  f.set("file", new File([content], name, { type }));
+  for (const [k, v] of Object.entries(fields)) f.set(k, v);
+  return f;
+}
+
+beforeAll(async () => {
+  s = await seedChambers();
+  await seedRulebooks();
+});
+
+describe("GET /api/rulebooks", () => {
+  it("refuses anonymous callers", async () => {
+    expect((await call(list.GET, "GET", "/api/rulebooks", { as: null })).status).toBe(401);
+  });
+  it("shows every role the chamber's versions, the one in force and the templates", async () => {
+    for (const role of ROLES) {
+      const r = await call(list.GET, "GET", "/api/rulebooks", { as: s.as[role] });
+      expect(r.status, role).toBe(200);
+      expect(r.body.versions.length).toBe(1);
+      expect(r.body.inForce.versionId).toBe(r.body.versions[0].id);
+      expect(r.body.templates.map((t: { id: string }) => t.id).sort()).toEqual(["continental-successive", "demo-chamber", "four-amendment-legislature", "general-parliamentary-law"]);
+    }
+  });
+  it("keeps chambers apart", async () => {
+    const r = await call(list.GET, "GET", "/api/rulebooks", { as: s.outsider });
+    expect(r.body.versions).toEqual([]);
+    expect(r.body.inForce).toBeNull();
+    const mine = await latest();
+    expect((await call(one.GET, "GET", `/api/rulebooks/${mine.id}`, { as: s.outsider, params: { id: mine.id } })).status).toBe(404);
+    expect((await call(exportRoute.GET, "GET", `/api/rulebooks/${mine.id}/export`, { as: s.outsider, params: { id: mine.id } })).status).toBe(404);
+    expect((await call(compare.GET, "GET", "/api/rulebooks/compare", { as: s.outsider, query: { from: mine.id, to: mine.id } })).status).toBe(404);
+    const before = await tableCounts();
+    expect((await call(adopt.POST, "POST", `/api/rulebooks/${mine.id}/adopt`, { as: s.outsider, params: { id: mine.id }, body: {} })).status).toBe(404);
+    const save = await call(list.POST, "POST", "/api/rulebooks", { as: s.outsider, body: { basedOn: mine.id, document: demo } });
+    expect(save.status).toBe(404);
+    expect(await tableCounts()).toEqual(before);
+  });
+});
+
+describe("GET /api/rulebooks/:id and export", () => {
+  it("returns the document to every role; unknown and malformed ids are 404; anonymous 401", async () => {
+    const v = await latest();
+    for (const role of ROLES) {
+      const r = await call(one.GET, "GET", `/api/rulebooks/${v.id}`, { as: s.as[role], params: { id: v.id } });
+      expect(r.status, role).toBe(200);
+      expect(r.body.document.id).toBe(demo.id);
+      expect(r.body.inForce).toBe(true);
+    }
+    expect((await call(one.GET, "GET", "/api/rulebooks/x", { as: s.as.clerk, params: { id: "x" } })).status).toBe(404);
+    expect((await call(one.GET, "GET", "/api/rulebooks/00000000-0000-4000-8000-000000000000", { as: s.as.clerk, params: { id: "00000000-0000-4000-8000-000000000000" } })).status).toBe(404);
+    expect((await call(one.GET, "GET", `/api/rulebooks/${v.id}`, { as: null, params: { id: v.id } })).status).toBe(401);
+  });
+  it("exports a download that imports back unchanged", async () => {
+    const v = await latest();
+    const r = await call(exportRoute.GET, "GET", `/api/rulebooks/${v.id}/export`, { as: s.as.observer, params: { id: v.id } });
+    expect(r.status).toBe(200);
+    expect(r.response.headers.get("content-disposition")).toMatch(/attachment; filename=".+-v1\.json"/);
+    expect(r.body).toEqual(demo);
+    expect((await call(exportRoute.GET, "GET", `/api/rulebooks/${v.id}/export`, { as: null, params: { id: v.id } })).status).toBe(401);
+  });
+  it("serves a template to any role", async () => {
+    const r = await call(template.GET, "GET", "/api/rulebooks/templates/general-parliamentary-law", { as: s.as.member, params: { id: "general-parliamentary-law" } });
+    expect(r.status).toBe(200);
+    expect(r.body.document.id).toBe("general-parliamentary-law");
+    expect((await call(template.GET, "GET", "/api/rulebooks/templates/nope", { as: s.as.member, params: { id: "nope" } })).status).toBe(404);
+    expect((await call(template.GET, "GET", "/api/rulebooks/templates/nope", { as: null, params: { id: "nope" } })).status).toBe(401);
+  });
+});
+
+describe("POST /api/rulebooks (save a new version)", () => {
+  it("lets only clerks save; others are refused and nothing changes", async () => {
+    const v = await latest();
+    const before = await tableCounts();
+    for (const role of ROLES.filter((r) => !EDITORS.has(r))) {
+      expect((await call(list.POST, "POST", "/api/rulebooks", { as: s.as[role], body: { basedOn: v.id, document: demo } })).status, role).toBe(403);
+    }
+    expect((await call(list.POST, "POST", "/api/rulebooks", { as: null, body: { basedOn: v.id, document: demo } })).status).toBe(401);
+    expect(await tableCounts()).toEqual(before);
+  });
+
+  it("rejects a rulebook with an unknown operator, naming the exact path, storing nothing", async () => {
+    const v = await latest();
+    const bad = structuredClone(demo);
+    bad.rules[0].conditions.all[0].operator = "sortOf";
+    const before = await tableCounts();
+    const r = await call(list.POST, "POST", "/api/rulebooks", { as: s.as.clerk, body: { basedOn: v.id, document: bad } });
+    expect(r.status).toBe(400);
+    expect(r.body.error.code).toBe("invalid-input");
+    expect(r.body.error.issues.map((i: { path: string }) => i.path)).toContain("rules.0.conditions.all.0.operator");
+    expect(await tableCounts()).toEqual(before);
+  });
+
+  it("rejects wrong types with their paths", async () => {
+    const v = await latest();
+    const bad = structuredClone(demo);
+    bad.motions[2].rank = "high";
+    bad.voting.procedure = "lottery";
+    const before = await tableCounts();
+    const r = await call(list.POST, "POST", "/api/rulebooks", { as: s.as["chief-clerk"], body: { basedOn: v.id, document: bad } });
+    expect(r.status).toBe(400);
+    const paths = r.body.error.issues.map((i: { path: string }) => i.path);
+    expect(paths).toEqual(expect.arrayContaining(["motions.2.rank", "voting.procedure"]));
+    expect(await tableCounts()).toEqual(before);
+  });
+
+  it("saves a new version (never overwriting) and refuses a stale save with what changed", async () => {
+    const v1 = await latest();
+    const edited = structuredClone(demo);
+    const amend = edited.motions.find((m: { id: string }) => m.id === "amend");
+    amend.vote = amend.vote === "two-thirds" ? "majority" : "two-thirds";
+    const ok = await call(list.POST, "POST", "/api/rulebooks", { as: s.as.clerk, body: { basedOn: v1.id, note: "Amend by two-thirds", document: edited } });
+    expect(ok.status).toBe(201);
+    expect(ok.body.number).toBe(v1.number + 1);
+    const old = await call(one.GET, "GET", `/api/rulebooks/${v1.id}`, { as: s.as.clerk, params: { id: v1.id } });
+    expect(old.body.document).toEqual(demo);
+
+    const other = structuredClone(demo);
+    other.rules = other.rules.slice(1);
+    const before = await tableCounts();
+    const stale = await call(list.POST, "POST", "/api/rulebooks", { as: s.as["chief-clerk"], body: { basedOn: v1.id, document: other } });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.code).toBe("conflict");
+    expect(stale.body.error.details.latest.id).toBe(ok.body.id);
+    const motions = stale.body.error.details.changes.sections.find((x: { section: string }) => x.section === "motions");
+    expect(motions.changes).toEqual([expect.objectContaining({ kind: "changed", id: "amend", fields: [expect.objectContaining({ field: "vote" })] })]);
+    expect(await tableCounts()).toEqual(before);
+    // A first save needs basedOn null only while the chamber has no version.
+    expect((await call(list.POST, "POST", "/api/rulebooks", { as: s.as.clerk, body: { basedOn: null, document: demo } })).status).toBe(409);
+  });
+});
+
+describe("POST /api/rulebooks/import", () => {
+  it("imports a valid file as a new version, for clerks only", async () => {
+    const v = await latest();
+    const body = JSON.stringify({ ...demo, title: "Harrowmere standing orders (imported)" });
+    for (const role of ["member", "staff", "observer"] as const) {
+      expect((await call(importRoute.POST, "POST", "/api/rulebooks/import", { as: s.as[role], rawBody: upload("r.json", body, "application/json", { basedOn: v.id }) })).status, role).toBe(403);
+    }
+    expect((await call(importRoute.POST, "POST", "/api/rulebooks/import", { as: null, rawBody: upload("r.json", body) })).status).toBe(401);
+    const r = await call(importRoute.POST, "POST", "/api/rulebooks/import", { as: s.as.clerk, rawBody: upload("standing-orders.json", body, "application/json", { basedOn: v.id }) });
+    expect(r.status).toBe(201);
+    expect(r.body.title).toBe("Harrowmere standing orders (imported)");
+  });
+
+  it("refuses a 5 MB junk upload, a non-JSON file, broken JSON and an unknown operator, storing nothing", async () => {
+    const v = await latest();
+    const before = await tableCounts();
+    const junk = new Uint8Array(5 * 1024 * 1024).map((_, i) => (i * 7919) % 251);
+    const big = await call(importRoute.POST, "POST", "/api/rulebooks/import", { as: s.as.clerk, rawBody: upload("junk.json", junk, "application/json", { basedOn: v.id }) });
+    expect(big.status).toBe(413);
+    expect(big.body.error.code).toBe("too-large");
+    const pdf = await call(importRoute.POST, "POST", "/api/rulebooks/import", { as: s.as.clerk, rawBody: upload("rules.pdf", "%PDF-1.4", "application/pdf", { basedOn: v.id }) });
+    expect(pdf.status).toBe(400);
+    const broken = await call(importRoute.POST, "POST", "/api/rulebooks/import", { as: s.as.clerk, rawBody: upload("broken.json", "{ \"format\": ", "application/json", { basedOn: v.id }) });
+    expect(broken.status).toBe(400);
+    const bad = structuredClone(demo);
+    bad.rules[1].conditions.all[0].operator = "resembles";
+    const op = await call(importRoute.POST, "POST", "/api/rulebooks/import", { as: s.as.clerk, rawBody: upload("bad.json", JSON.stringify(bad), "application/json", { basedOn: v.id }) });
+    expect(op.status).toBe(400);
+    expect(op.body.error.issues.map((i: { path: string }) => i.path)).toContain("rules.1.conditions.all.0.operator");
+    const notForm = await call(importRoute.POST, "POST", "/api/rulebooks/import", { as: s.as.clerk, body: demo });
+    expect(notForm.status).toBe(400);
+    const noFile = new FormData();
+    noFile.set("basedOn", v.id);
+    expect((await call(importRoute.POST, "POST", "/api/rulebooks/import", { as: s.as.clerk, rawBody: noFile })).status).toBe(400);
+    expect(await tableCounts()).toEqual(before);
+  });
+});
+
+describe("GET /api/rulebooks/compare", () => {
+  it("describes the difference by motion, rule and section", async () => {
+    const r0 = await call(list.GET, "GET", "/api/rulebooks", { as: s.as.member });
+    const [v1, v2] = [...r0.body.versions].sort((a: { number: number }, b: { number: number }) => a.number - b.number);
+    const r = await call(compare.GET, "GET", "/api/rulebooks/compare", { as: s.as.member, query: { from: v1.id, to: v2.id } });
+    expect(r.status).toBe(200);
+    expect(r.body.diff.identical).toBe(false);
+    expect(r.body.diff.summary.join(" ")).toMatch(/motions: changed amend \(vote\)/);
+    const same = await call(compare.GET, "GET", "/api/rulebooks/compare", { as: s.as.member, query: { from: v1.id, to: v1.id } });
+    expect(same.body.diff.identical).toBe(true);
+    expect((await call(compare.GET, "GET", "/api/rulebooks/compare", { as: s.as.member, query: { from: "x" } })).status).toBe(400);
+    expect((await call(compare.GET, "GET", "/api/rulebooks/compare", { as: null, query: { from: v1.id, to: v2.id } })).status).toBe(401);
+  });
+});
+
+describe("POST /api/rulebooks/:id/adopt", () => {
+  it("lets clerks adopt with an effective date; the latest effective adoption is in force; history kept", async () => {
+    const v = await latest();
+    const before = await tableCounts();
+    for (const role of ["member", "staff", "observer"] as const) {
+      expect((await call(adopt.POST, "POST", `/api/rulebooks/${v.id}/adopt`, { as: s.as[role], params: { id: v.id }, body: {} })).status, role).toBe(403);
+    }
+    expect((await call(adopt.POST, "POST", `/api/rulebooks/${v.id}/adopt`, { as: null, params: { id: v.id }, body: {} })).status).toBe(401);
+    expect((await call(adopt.POST, "POST", `/api/rulebooks/${v.id}/adopt`, { as: s.as.clerk, params: { id: v.id }, body: { effectiveFrom: "tomorrow" } })).status).toBe(400);
+    expect(await tableCounts()).toEqual(before);
+
+    const future = await call(adopt.POST, "POST", `/api/rulebooks/${v.id}/adopt`, { as: s.as.clerk, params: { id: v.id }, body: { effectiveFrom: "2999-01-01" } });
+    expect(future.status).toBe(201);
+    expect(future.body.inForce).toBe(false);
+    const now = await call(adopt.POST, "POST", `/api/rulebooks/${v.id}/adopt`, { as: s.as["chief-clerk"], params: { id: v.id }, body: { note: "Adopted today" } });
+    expect(now.status).toBe(201);
+    expect(now.body.inForce).toBe(true);
+    const r = await call(list.GET, "GET", "/api/rulebooks", { as: s.as.observer });
+    expect(r.body.inForce.versionId).toBe(v.id);
+    expect(r.body.adoptions.length).toBe(3);
+  });
+});
