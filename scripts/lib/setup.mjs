@@ -227,6 +227,12 @@ export function recreateDatabase(url) {
   }
 }
 
+/** The PostgreSQL client program `name` (pg_dump, pg_restore, psql) matching the installed server. */
+export function pgTool(name) {
+  const bin = pgBinDir();
+  return bin ? join(bin, name) : name;
+}
+
 export function pgStop() {
   const bin = pgBinDir();
   const d = dataDirs();
