@@ -1,11 +1,9 @@
 import { customType, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { AMENDMENT_STATUSES, MEASURE_STATUSES } from "../../server/measure-schemas.ts";
 import { organization, user } from "./auth.ts";
 
 /** Raw file bytes kept in PostgreSQL (uploads are small and must travel with backups). */
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
-
-export const MEASURE_STATUSES = ["draft", "introduced", "in-committee", "reported", "on-floor", "passed", "failed", "withdrawn"] as const;
-export const AMENDMENT_STATUSES = ["draft", "filed", "pending", "adopted", "rejected", "withdrawn", "fell", "ruled-out"] as const;
 
 /** One section of a measure's text, stored in the measure row (the core's sectionSchema shape). */
 export interface StoredSection {

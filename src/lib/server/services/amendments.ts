@@ -1,0 +1,271 @@
+/**
+ * Amendments to a measure: filing (by form or upload) with a gap-free number per measure and
+ * a filing receipt queued in the same transaction, drafts, edits with optimistic concurrency,
+ * and the audit trail of each change.
+ */
+import { and, asc, eq, sql as dsql } from "drizzle-orm";
+import type { z } from "zod";
+import { db, type Tx } from "../db.ts";
+import { user } from "../../db/schema/auth.ts";
+import { amendments, measureAttachments, measures } from "../../db/schema/measures.ts";
+import { GavelError, parseWith } from "../../errors.ts";
+import { can } from "../../permissions.ts";
+import type { Actor } from "../http.ts";
+import { enqueueMail } from "../mail.ts";
+import { assertFresh, recordAudit } from "../measure-audit.ts";
+import { amendmentFileSchema, amendmentUpdateSchema, AMENDMENT_STATUS_LABELS, FORM_LABELS, versionOnlySchema } from "../measure-schemas.ts";
+import { subjectList } from "../measure-sections.ts";
+import { checkDocument, readMultipart } from "../uploads.ts";
+import { checkLegislators, legislatorNames, measureRow, type MeasureRow } from "./measures.ts";
+
+export type AmendmentRow = typeof amendments.$inferSelect;
+
+const uuidLike = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+/** Measures in these states take no more amendments. */
+const CLOSED_MEASURE = new Set(["passed", "failed", "withdrawn"]);
+
+/** The amendment's id in the tree: "A7" once filed, "D-1a2b3c4d" while a draft. */
+export function amendmentKey(a: Pick<AmendmentRow, "id" | "number">): string {
+  return a.number === null ? `D-${a.id.slice(0, 8)}` : `A${a.number}`;
+}
+
+export async function amendmentRow(chamberId: string, id: string, q: Tx | typeof db = db, lock = false): Promise<AmendmentRow> {
+  if (!uuidLike.test(id)) throw new GavelError("not-found", "No such amendment in this chamber.");
+  const base = q.select().from(amendments).where(and(eq(amendments.id, id), eq(amendments.chamberId, chamberId)));
+  const [row] = lock ? await base.for("update") : await base;
+  if (!row) throw new GavelError("not-found", "No such amendment in this chamber.");
+  return row;
+}
+
+interface ResolvedTarget {
+  targetKind: "measure" | "section" | "amendment";
+  targetSection: string | null;
+  targetAmendmentId: string | null;
+}
+
+/** "measure", a section id, "A3" (an amendment's number) or an amendment id, within the measure. */
+async function resolveTarget(tx: Tx, m: MeasureRow, target: string, lines: [number, number] | null, selfId?: string): Promise<ResolvedTarget> {
+  const bad = (message: string, path = "target") => new GavelError("unprocessable", `${path}: ${message}`, { issues: [{ path, message }] });
+  let out: ResolvedTarget | null = null;
+  if (target === "measure") out = { targetKind: "measure", targetSection: null, targetAmendmentId: null };
+  else if (m.sections.some((s) => s.id === target)) out = { targetKind: "section", targetSection: target, targetAmendmentId: null };
+  else {
+    const byNumber = /^A(\d{1,9})$/i.exec(target);
+    const where = byNumber ? eq(amendments.number, Number(byNumber[1])) : uuidLike.test(target) ? eq(amendments.id, target) : null;
+    if (where) {
+      const [t] = await tx.select({ id: amendments.id }).from(amendments).where(and(eq(amendments.measureId, m.id), where));
+      if (t) out = { targetKind: "amendment", targetSection: null, targetAmendmentId: t.id };
+    }
+  }
+  if (!out) throw bad(`"${target}" is not this measure, one of its sections (${m.sections.map((s) => s.id).join(", ") || "none"}) or one of its amendments`);
+  if (selfId && out.targetAmendmentId === selfId) throw bad("an amendment cannot amend itself");
+  if (lines) {
+    if (out.targetKind !== "section") throw bad("a line range applies to a section of the measure only", "lines");
+    const section = m.sections.find((s) => s.id === out.targetSection)!;
+    if (section.lines !== undefined && lines[1] > section.lines) throw bad(`section ${section.id} has ${section.lines} lines`, "lines");
+  }
+  return out;
+}
+
+function snapshot(a: AmendmentRow) {
+  return { number: a.number, title: a.title, form: a.form, targetKind: a.targetKind, targetSection: a.targetSection, targetAmendmentId: a.targetAmendmentId, lines: a.lineFrom === null ? null : [a.lineFrom, a.lineTo], text: a.text, subjects: a.subjects, sponsors: a.sponsors, committee: a.committee, status: a.status, filedAt: a.filedAt?.toISOString() ?? null, attachmentId: a.attachmentId, version: a.version };
+}
+
+function targetLabel(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow): string {
+  if (a.targetKind === "measure") return `${m.number} (whole text)`;
+  if (a.targetKind === "section") {
+    const s = m.sections.find((x) => x.id === a.targetSection);
+    return `${a.targetSection}${s?.heading ? ` — ${s.heading}` : ""}${a.lineFrom !== null ? `, lines ${a.lineFrom}–${a.lineTo}` : ""}`;
+  }
+  return `Amendment ${keys.get(a.targetAmendmentId ?? "") ?? "(removed)"}`;
+}
+
+function view(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow, names: Map<string, string>) {
+  return {
+    id: a.id,
+    key: amendmentKey(a),
+    number: a.number,
+    measureId: a.measureId,
+    title: a.title,
+    form: a.form,
+    formLabel: FORM_LABELS[a.form as keyof typeof FORM_LABELS] ?? a.form,
+    target: a.targetKind === "measure" ? "measure" : a.targetKind === "section" ? a.targetSection! : (keys.get(a.targetAmendmentId ?? "") ?? a.targetAmendmentId!),
+    targetLabel: targetLabel(a, keys, m),
+    lines: a.lineFrom === null ? null : ([a.lineFrom, a.lineTo!] as [number, number]),
+    text: a.text,
+    subjects: a.subjects,
+    sponsors: a.sponsors.map((s) => ({ id: s, name: names.get(s) ?? "(former legislator)" })),
+    committee: a.committee,
+    status: a.status,
+    statusLabel: AMENDMENT_STATUS_LABELS[a.status],
+    filedAt: a.filedAt?.toISOString() ?? null,
+    filedBy: a.filedBy,
+    attachmentId: a.attachmentId,
+    version: a.version,
+  };
+}
+
+export type AmendmentView = ReturnType<typeof view>;
+
+export async function listAmendments(actor: Actor, measureId: string) {
+  const m = await measureRow(actor.chamber.id, measureId);
+  const rows = await db.select().from(amendments).where(and(eq(amendments.measureId, m.id), eq(amendments.chamberId, actor.chamber.id))).orderBy(asc(dsql`coalesce(${amendments.number}, 2147483647)`), asc(amendments.createdAt));
+  const keys = new Map(rows.map((r) => [r.id, amendmentKey(r)]));
+  const names = await legislatorNames(actor.chamber.id);
+  return { amendments: rows.map((r) => view(r, keys, m, names)) };
+}
+
+export async function getAmendment(actor: Actor, id: string) {
+  const a = await amendmentRow(actor.chamber.id, id);
+  const { amendments: all } = await listAmendments(actor, a.measureId);
+  return all.find((x) => x.id === id)!;
+}
+
+/** Hand out the measure's next number: the row lock serialises concurrent filings and a rollback returns the number. */
+async function nextNumber(tx: Tx, measureId: string): Promise<number> {
+  const [r] = await tx.update(measures).set({ amendmentCounter: dsql`${measures.amendmentCounter} + 1` }).where(eq(measures.id, measureId)).returning({ n: measures.amendmentCounter });
+  return r.n;
+}
+
+async function queueReceipt(tx: Tx, actor: Actor, m: MeasureRow, a: AmendmentRow, sponsorNames: string[]): Promise<void> {
+  const [filer] = await tx.select({ email: user.email, name: user.name }).from(user).where(eq(user.id, actor.user.id));
+  const key = amendmentKey(a);
+  const base = process.env.BETTER_AUTH_URL ?? "";
+  const text = [
+    `Filing receipt — ${actor.chamber.name}`,
+    "",
+    `Amendment ${key} to ${m.number} (${m.title}) was filed on ${a.filedAt!.toISOString()}.`,
+    `Receipt reference: ${m.number}/${key}/${a.id}`,
+    `Form: ${FORM_LABELS[a.form as keyof typeof FORM_LABELS] ?? a.form}`,
+    `Sponsors: ${sponsorNames.length ? sponsorNames.join(", ") : "none named"}`,
+    `Filed by: ${filer.name}`,
+    "",
+    `See where it stands in the tree: ${base}/measures/${m.id}/tree#${key}`,
+    "",
+    "Filing records the amendment; whether it is in order is for the presiding officer, under the chamber's rules.",
+  ].join("\n");
+  await enqueueMail({ kind: "amendment-receipt", ref: a.id, to: filer.email, subject: `Filing receipt: Amendment ${key} to ${m.number}`, text }, tx);
+}
+
+type FileInput = z.output<typeof amendmentFileSchema>;
+
+async function insertAmendment(tx: Tx, actor: Actor, m: MeasureRow, input: FileInput, attachmentId: string | null): Promise<AmendmentRow> {
+  if (CLOSED_MEASURE.has(m.status)) throw new GavelError("unprocessable", `${m.number} is ${m.status}; it takes no more amendments.`, { issues: [{ path: "(measure)", message: `measure is ${m.status}` }] });
+  const names = await checkLegislators(actor.chamber.id, input.sponsors, "sponsors", tx);
+  const target = await resolveTarget(tx, m, input.target, input.lines);
+  const number = input.draft ? null : await nextNumber(tx, m.id);
+  const [row] = await tx
+    .insert(amendments)
+    .values({
+      chamberId: actor.chamber.id,
+      measureId: m.id,
+      number,
+      title: input.title,
+      form: input.form,
+      ...target,
+      lineFrom: input.lines?.[0] ?? null,
+      lineTo: input.lines?.[1] ?? null,
+      text: input.text,
+      subjects: input.subjects,
+      sponsors: input.sponsors,
+      committee: input.committee,
+      status: input.draft ? "draft" : "filed",
+      filedAt: input.draft ? null : new Date(),
+      filedBy: actor.user.id,
+      attachmentId,
+    })
+    .returning();
+  await recordAudit(tx, actor, { measureId: m.id, entity: "amendment", entityId: row.id, action: input.draft ? "drafted" : `filed ${amendmentKey(row)}`, version: row.version, before: null, after: snapshot(row) });
+  if (!input.draft) await queueReceipt(tx, actor, m, row, input.sponsors.map((s) => names.get(s)!));
+  return row;
+}
+
+export async function fileAmendment(actor: Actor, measureId: string, input: FileInput) {
+  const row = await db.transaction(async (tx) => insertAmendment(tx, actor, await measureRow(actor.chamber.id, measureId, tx), input, null));
+  return getAmendment(actor, row.id);
+}
+
+function parseLines(s: string | undefined): [number, number] | null {
+  if (!s?.trim()) return null;
+  const m = /^\s*(\d+)\s*(?:[-–]\s*(\d+))?\s*$/.exec(s);
+  if (!m) throw new GavelError("invalid-input", "lines: write a line or a range such as 3-7", { issues: [{ path: "lines", message: "expected N or N-M" }] });
+  return [Number(m[1]), Number(m[2] ?? m[1])];
+}
+
+/** File from an upload: the document is kept as the attachment; its text is the amendment's text unless typed. */
+export async function fileAmendmentFromUpload(actor: Actor, measureId: string, request: Request) {
+  const { fields, file } = await readMultipart(request);
+  const input = parseWith(
+    amendmentFileSchema,
+    {
+      form: fields.form,
+      target: fields.target,
+      lines: parseLines(fields.lines),
+      title: fields.title || null,
+      text: fields.text ?? "",
+      subjects: fields.subjects ? subjectList(fields.subjects) : [],
+      sponsors: fields.sponsors ? fields.sponsors.split(",").map((s) => s.trim()).filter(Boolean) : [],
+      committee: fields.committee || null,
+      draft: fields.draft === "true",
+    },
+    "upload",
+  );
+  if (!file) throw new GavelError("invalid-input", "upload: attach the amendment as `file`", { issues: [{ path: "file", message: "required" }] });
+  const doc = await checkDocument(file);
+  const row = await db.transaction(async (tx) => {
+    const m = await measureRow(actor.chamber.id, measureId, tx);
+    const [att] = await tx.insert(measureAttachments).values({ chamberId: actor.chamber.id, filename: doc.filename, mediaType: doc.mediaType, size: doc.size, sha256: doc.sha256, bytes: doc.bytes, extractedText: doc.text, uploadedBy: actor.user.id }).returning({ id: measureAttachments.id });
+    return insertAmendment(tx, actor, m, { ...input, text: input.text.trim() ? input.text : doc.text.slice(0, 200_000) }, att.id);
+  });
+  return getAmendment(actor, row.id);
+}
+
+/** Clerks edit any amendment; a member edits their own while it is a draft or filed, and may withdraw it. */
+function assertMayEdit(actor: Actor, a: AmendmentRow, input: { status?: string }): void {
+  if (can(actor.role, "measure:edit")) return;
+  const own = a.filedBy === actor.user.id && can(actor.role, "amendment:file");
+  if (!own) throw new GavelError("forbidden", "Only the clerks, or the member who filed it, may change this amendment.");
+  if (a.status !== "draft" && a.status !== "filed") throw new GavelError("forbidden", `Amendment ${amendmentKey(a)} is ${a.status}; only a clerk may change it now.`);
+  if (input.status !== undefined && input.status !== "withdrawn") throw new GavelError("forbidden", "A member may withdraw their amendment; other status changes are for the clerks.");
+}
+
+export async function updateAmendment(actor: Actor, id: string, input: z.output<typeof amendmentUpdateSchema>) {
+  await db.transaction(async (tx) => {
+    const a = await amendmentRow(actor.chamber.id, id, tx, true);
+    assertMayEdit(actor, a, input);
+    await assertFresh(tx, { entity: "amendment", entityId: a.id, label: `Amendment ${amendmentKey(a)}` }, input.version, a.version);
+    if (a.status === "draft" && input.status) throw new GavelError("unprocessable", "status: file the draft first (POST /api/amendments/:id/file)", { issues: [{ path: "status", message: "a draft is filed, not given a status" }] });
+    const m = await measureRow(actor.chamber.id, a.measureId, tx);
+    if (input.sponsors) await checkLegislators(actor.chamber.id, input.sponsors, "sponsors", tx);
+    const lines = input.lines !== undefined ? input.lines : a.lineFrom === null ? null : ([a.lineFrom, a.lineTo!] as [number, number]);
+    const currentTarget = a.targetKind === "measure" ? "measure" : a.targetKind === "section" ? a.targetSection! : a.targetAmendmentId!;
+    const target = input.target !== undefined || input.lines !== undefined ? await resolveTarget(tx, m, input.target ?? currentTarget, lines, a.id) : null;
+    const { version, lines: _l, target: _t, ...rest } = input;
+    const [next] = await tx
+      .update(amendments)
+      .set({ ...rest, ...(target ?? {}), lineFrom: lines?.[0] ?? null, lineTo: lines?.[1] ?? null, version: version + 1, updatedAt: new Date() })
+      .where(eq(amendments.id, a.id))
+      .returning();
+    const action = input.status && input.status !== a.status ? `${amendmentKey(a)} marked ${input.status}` : `edited ${amendmentKey(a)}`;
+    await recordAudit(tx, actor, { measureId: a.measureId, entity: "amendment", entityId: a.id, action, version: next.version, before: snapshot(a), after: snapshot(next) });
+  });
+  return getAmendment(actor, id);
+}
+
+/** File a draft: it gets the measure's next number and a receipt is queued. */
+export async function fileDraft(actor: Actor, id: string, input: z.output<typeof versionOnlySchema>) {
+  await db.transaction(async (tx) => {
+    const a = await amendmentRow(actor.chamber.id, id, tx, true);
+    assertMayEdit(actor, a, {});
+    await assertFresh(tx, { entity: "amendment", entityId: a.id, label: `Amendment ${amendmentKey(a)}` }, input.version, a.version);
+    if (a.status !== "draft") throw new GavelError("conflict", `Amendment ${amendmentKey(a)} is already filed.`, { issues: [{ path: "(status)", message: `is ${a.status}` }] });
+    const m = await measureRow(actor.chamber.id, a.measureId, tx);
+    if (CLOSED_MEASURE.has(m.status)) throw new GavelError("unprocessable", `${m.number} is ${m.status}; it takes no more amendments.`);
+    const number = await nextNumber(tx, m.id);
+    const [next] = await tx.update(amendments).set({ number, status: "filed", filedAt: new Date(), filedBy: actor.user.id, version: a.version + 1, updatedAt: new Date() }).where(eq(amendments.id, a.id)).returning();
+    await recordAudit(tx, actor, { measureId: m.id, entity: "amendment", entityId: a.id, action: `filed ${amendmentKey(next)}`, version: next.version, before: snapshot(a), after: snapshot(next) });
+    const names = await legislatorNames(actor.chamber.id);
+    await queueReceipt(tx, actor, m, next, next.sponsors.map((s) => names.get(s) ?? s));
+  });
+  return getAmendment(actor, id);
+}
