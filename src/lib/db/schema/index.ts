@@ -6,3 +6,4 @@ export * from "./measures.ts";
 export * from "./rulebooks.ts";
 export * from "./floor.ts";
 export * from "./rulings.ts";
+export * from "./estimates.ts";
