@@ -19,25 +19,23 @@ export interface MajorityGraph {
 
 export function majorityGraph(profile: Profile, threshold: Threshold = "majority"): MajorityGraph {
   const n = profile.alternatives.length;
-  const support = Array.from({ length: n }, () => new Float64Array(n));
+  // One flat row-major table: support[x·n + y] = weight preferring x to y.
+  const support = new Float64Array(n * n);
   for (const m of profile.members) {
     const lv = m.level;
     const w = m.weight;
     for (let x = 0; x < n; x++) {
       const a = lv[x];
       if (a < 0) continue;
-      const row = support[x];
-      for (let y = 0; y < n; y++) {
-        const b = lv[y];
-        if (b > a) row[y] += w; // b < 0 (abstains) never exceeds a ≥ 0
-      }
+      const row = x * n;
+      for (let y = 0; y < n; y++) if (lv[y] > a) support[row + y] += w; // an abstention (−1) never exceeds a ≥ 0
     }
   }
   const margins: number[][] = [];
   const beats: boolean[][] = [];
   for (let x = 0; x < n; x++) {
-    margins.push(Array.from({ length: n }, (_, y) => support[x][y] - support[y][x]));
-    beats.push(Array.from({ length: n }, (_, y) => x !== y && adopts(support[x][y], support[y][x], profile.totalWeight, threshold)));
+    margins.push(Array.from({ length: n }, (_, y) => support[x * n + y] - support[y * n + x]));
+    beats.push(Array.from({ length: n }, (_, y) => x !== y && adopts(support[x * n + y], support[y * n + x], profile.totalWeight, threshold)));
   }
   return { alternatives: profile.alternatives, margins, beats, threshold };
 }

@@ -1,0 +1,212 @@
+/**
+ * Voting-engine benchmark (`npm run bench`): one core, seeded inputs, each figure beside a plain
+ * brute-force baseline where that finishes, as a ratio. Prints a table and writes
+ * bench/results/voting.json. Not a test: nothing here fails the build.
+ *
+ * Targets (issue 5): majority graph of 650 weighted ballots over 64 alternatives < 50 ms; exact sincere
+ * and sophisticated outcome counts over all orders of 14 unconstrained alternatives < 5 s; Banks set
+ * of a 16-alternative random tournament < 2 s. Tournaments are seeded and drawn again until the top
+ * cycle holds every alternative, so no row is an easy Condorcet-winner instance.
+ */
+import { mkdirSync, writeFileSync } from "node:fs";
+import { cpus } from "node:os";
+import { dirname, join } from "node:path";
+import { fileURLToPath } from "node:url";
+import { shepsleWeingast, sincereAmendment } from "../src/lib/voting/amendment-agenda.ts";
+import { sincereCounts, sophisticatedCounts } from "../src/lib/voting/agenda-counts.ts";
+import { banksSet } from "../src/lib/voting/banks-set.ts";
+import { graphFromMargins, majorityGraph, type MajorityGraph } from "../src/lib/voting/majority-graph.ts";
+import { precedence } from "../src/lib/voting/precedence.ts";
+import { profileFromRankings } from "../src/lib/voting/profile.ts";
+import { topCycle } from "../src/lib/voting/top-cycle.ts";
+
+function mulberry32(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+function shuffled(n: number, rnd: () => number): number[] {
+  const a = Array.from({ length: n }, (_, i) => i);
+  for (let i = n - 1; i > 0; i--) {
+    const j = Math.floor(rnd() * (i + 1));
+    [a[i], a[j]] = [a[j], a[i]];
+  }
+  return a;
+}
+
+/** The first seeded random tournament from `seed` on whose top cycle is every alternative (no easy instance). */
+function randomTournament(n: number, seed: number): MajorityGraph {
+  for (let s = seed; ; s++) {
+    const g = tournamentFromSeed(n, s);
+    if (topCycle(g).length === n) return g;
+  }
+}
+
+function tournamentFromSeed(n: number, seed: number): MajorityGraph {
+  const rnd = mulberry32(seed);
+  const m = Array.from({ length: n }, () => new Array<number>(n).fill(0));
+  for (let i = 0; i < n; i++)
+    for (let j = i + 1; j < n; j++) {
+      const v = rnd() < 0.5 ? 1 : -1;
+      m[i][j] = v;
+      m[j][i] = -v;
+    }
+  return graphFromMargins(Array.from({ length: n }, (_, i) => `x${i}`), m);
+}
+
+/** Median wall time in ms over `runs` runs (after one warm-up unless the job is slow). */
+function time<T>(fn: () => T, runs = 5): { ms: number; result: T } {
+  let result = fn();
+  const t: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const s = performance.now();
+    result = fn();
+    t.push(performance.now() - s);
+  }
+  t.sort((a, b) => a - b);
+  return { ms: t[Math.floor(t.length / 2)], result };
+}
+
+function once<T>(fn: () => T): { ms: number; result: T } {
+  const s = performance.now();
+  const result = fn();
+  return { ms: performance.now() - s, result };
+}
+
+function* permutations(n: number): Generator<number[]> {
+  const a = Array.from({ length: n }, (_, i) => i);
+  const c = new Array<number>(n).fill(0);
+  yield a.slice();
+  let i = 0;
+  while (i < n) {
+    if (c[i] < i) {
+      const j = i % 2 === 0 ? 0 : c[i];
+      [a[j], a[i]] = [a[i], a[j]];
+      yield a;
+      c[i]++;
+      i = 0;
+    } else {
+      c[i] = 0;
+      i++;
+    }
+  }
+}
+
+interface Row {
+  task: string;
+  size: string;
+  engineMs: number;
+  baselineMs: number | null;
+  ratio: number | null;
+  target?: string;
+  meetsTarget?: boolean;
+  note?: string;
+}
+const rows: Row[] = [];
+const round = (x: number) => Math.round(x * 100) / 100;
+
+// 1. Majority graph: 650 weighted ballots over 64 alternatives.
+{
+  const rnd = mulberry32(650);
+  const names = Array.from({ length: 64 }, (_, i) => `v${i}`);
+  const ballots = Array.from({ length: 650 }, () => ({ ranking: shuffled(64, rnd), weight: 1 + Math.floor(rnd() * 5) }));
+  const engine = time(() => majorityGraph(profileFromRankings(names, ballots, "abstain")), 9);
+  // Baseline: for each ordered pair, scan every ballot and look both alternatives up in the ranking.
+  const base = time(() => {
+    const m: number[][] = names.map(() => new Array<number>(64).fill(0));
+    for (let x = 0; x < 64; x++)
+      for (let y = 0; y < 64; y++) if (x !== y) for (const b of ballots) m[x][y] += b.ranking.indexOf(x) < b.ranking.indexOf(y) ? b.weight : -b.weight;
+    return m;
+  }, 3);
+  const agree = engine.result.margins.every((row, x) => row.every((v, y) => x === y || v === base.result[x][y]));
+  if (!agree) throw new Error("majority graph disagrees with the baseline");
+  rows.push({ task: "majority graph", size: "650 weighted ballots × 64 alternatives", engineMs: round(engine.ms), baselineMs: round(base.ms), ratio: round(base.ms / engine.ms), target: "< 50 ms", meetsTarget: engine.ms < 50 });
+}
+
+// 2. Exact sincere + sophisticated outcome counts over all orders (amendment procedure), random tournaments.
+for (const n of [8, 9, 10, 14]) {
+  const g = randomTournament(n, 1400 + n);
+  const prec = precedence(n, []);
+  const engine = n >= 14 ? once(() => [sincereCounts(g, prec, "amendment", null), sophisticatedCounts(g, prec, "amendment")]) : time(() => [sincereCounts(g, prec, "amendment", null), sophisticatedCounts(g, prec, "amendment")], 3);
+  let baselineMs: number | null = null;
+  let note: string | undefined;
+  if (n <= 10) {
+    const b = once(() => {
+      const s = new Array<number>(n).fill(0);
+      const o = new Array<number>(n).fill(0);
+      for (const p of permutations(n)) {
+        s[sincereAmendment(g, p)]++;
+        o[shepsleWeingast(g, p).outcome]++;
+      }
+      return [s, o];
+    });
+    baselineMs = b.ms;
+    if (JSON.stringify(b.result) !== JSON.stringify(engine.result.map((c) => c.map(Number)))) throw new Error(`counts disagree with enumeration at n=${n}`);
+  } else note = `enumeration of ${n}! orders not run (extrapolated from n=10: ~${Math.round((rows.at(-1)!.baselineMs! * 11 * 12 * 13 * 14) / 1000 / 60)} min)`;
+  rows.push({
+    task: "outcome counts, all orders",
+    size: `${n} alternatives, unconstrained`,
+    engineMs: round(engine.ms),
+    baselineMs: baselineMs === null ? null : round(baselineMs),
+    ratio: baselineMs === null ? null : round(baselineMs / engine.ms),
+    ...(n === 14 ? { target: "< 5000 ms", meetsTarget: engine.ms < 5000 } : {}),
+    ...(note ? { note } : {}),
+  });
+}
+
+// 3. Banks set of seeded random tournaments.
+function bruteBanks(g: MajorityGraph): number[] {
+  const n = g.alternatives.length;
+  const out = new Array<number>(n).fill(0);
+  const into = new Array<number>(n).fill(0);
+  for (let x = 0; x < n; x++) for (let y = 0; y < n; y++) if (g.beats[x][y]) ((out[x] |= 1 << y), (into[y] |= 1 << x));
+  const tops = new Set<number>();
+  for (let mask = 1; mask < 1 << n; mask++) {
+    // A transitive chain: its members' out-degrees within it are 0..k−1.
+    const seen = new Set<number>();
+    let top = -1;
+    let k = 0;
+    for (let m = mask; m; m &= m - 1) k++;
+    let ok = true;
+    for (let m = mask; m && ok; m &= m - 1) {
+      const x = 31 - Math.clz32(m & -m);
+      let d = 0;
+      for (let w = out[x] & mask; w; w &= w - 1) d++;
+      if (seen.has(d)) ok = false;
+      seen.add(d);
+      if (d === k - 1) top = x;
+    }
+    if (!ok) continue;
+    let maximal = true;
+    for (let z = 0; z < n && maximal; z++) if (!(mask & (1 << z)) && (mask & ~out[z]) === 0) maximal = false;
+    if (maximal) tops.add(top);
+  }
+  return [...tops].sort((a, b) => a - b);
+}
+for (const n of [10, 12, 14, 16]) {
+  const g = randomTournament(n, 1985 + n);
+  const engine = time(() => banksSet(g), 5);
+  const base = once(() => bruteBanks(g));
+  if (JSON.stringify(engine.result.members) !== JSON.stringify(base.result) || !engine.result.complete) throw new Error(`Banks set disagrees with brute force at n=${n}`);
+  rows.push({ task: "Banks set", size: `${n}-alternative random tournament (|BA| = ${engine.result.members.length})`, engineMs: round(engine.ms), baselineMs: round(base.ms), ratio: round(base.ms / engine.ms), ...(n === 16 ? { target: "< 2000 ms", meetsTarget: engine.ms < 2000 } : {}) });
+}
+
+const header = ["task", "size", "engine ms", "baseline ms", "baseline/engine", "target"];
+const lines = rows.map((r) => [r.task, r.size, String(r.engineMs), r.baselineMs === null ? "—" : String(r.baselineMs), r.ratio === null ? "—" : `${r.ratio}×`, r.target ? `${r.target} ${r.meetsTarget ? "met" : "MISSED"}` : ""]);
+const widths = header.map((h, i) => Math.max(h.length, ...lines.map((l) => l[i].length)));
+const fmt = (l: string[]) => l.map((c, i) => c.padEnd(widths[i])).join("  ");
+console.log(fmt(header));
+console.log(widths.map((w) => "-".repeat(w)).join("  "));
+for (const l of lines) console.log(fmt(l));
+for (const r of rows) if (r.note) console.log(`note: ${r.size}: ${r.note}`);
+
+const out = join(dirname(fileURLToPath(import.meta.url)), "results", "voting.json");
+mkdirSync(dirname(out), { recursive: true });
+writeFileSync(out, JSON.stringify({ node: process.version, cpu: cpus()[0]?.model ?? "unknown", date: new Date().toISOString(), rows }, null, 2) + "\n");
+console.log(`\nwrote ${out}`);
