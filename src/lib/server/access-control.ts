@@ -5,20 +5,28 @@
  */
 import { createAccessControl } from "better-auth/plugins/access";
 import { defaultStatements } from "better-auth/plugins/organization/access";
-import { can, CHAMBER_ROLES, type ChamberRole } from "../permissions.ts";
+import { can, type ChamberRole } from "../permissions.ts";
 
 export const ac = createAccessControl({ ...defaultStatements });
 
-function statementsFor(role: ChamberRole) {
+type Statements = Parameters<typeof ac.newRole>[0];
+
+function statementsFor(role: ChamberRole): Statements {
   const admin = can(role, "people:assign-role");
   const invite = can(role, "people:invite");
   return {
-    organization: admin ? (["update"] as const) : ([] as const),
-    member: admin ? (["create", "update", "delete"] as const) : ([] as const),
-    invitation: invite ? (["create", "cancel"] as const) : ([] as const),
-    team: [] as const,
-    ac: admin ? (["read"] as const) : ([] as const),
+    organization: admin ? ["update"] : [],
+    member: admin ? ["create", "update", "delete"] : [],
+    invitation: invite ? ["create", "cancel"] : [],
+    team: [],
+    ac: admin ? ["read"] : [],
   };
 }
 
-export const roles = Object.fromEntries(CHAMBER_ROLES.map((r) => [r, ac.newRole(statementsFor(r) as never)])) as Record<ChamberRole, ReturnType<typeof ac.newRole>>;
+export const roles = {
+  "chief-clerk": ac.newRole(statementsFor("chief-clerk")),
+  clerk: ac.newRole(statementsFor("clerk")),
+  member: ac.newRole(statementsFor("member")),
+  staff: ac.newRole(statementsFor("staff")),
+  observer: ac.newRole(statementsFor("observer")),
+} satisfies Record<ChamberRole, unknown>;
