@@ -12,7 +12,7 @@
  *    See docs/decisions/0003-amendment-trees-as-voting-trees.md.
  * Version ids: `Q`, the measure id, and `<measure>+<adopted amendment ids in tree order>`; tree order is
  * the first-degree amendments in input order, each followed by its own second-degree amendments.
- * Third-degree amendments are out of order (Robert's Rules of Order Revised, 1915, §33 [PD]).
+ * Third-degree amendments are out of order (Robert's Rules of Order Revised, 1915 [PD]; DOMAIN §3).
  */
 import { GavelError, parseWith } from "../errors.ts";
 import { amendmentSchema, measureSchema, type Amendment, type Measure } from "../amendments/case-schema.ts";

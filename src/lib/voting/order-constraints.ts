@@ -2,7 +2,7 @@
  * The precedence constraints a rulebook's `voting.constraints` impose on the questions of an
  * amendment tree (ORDER_CONSTRAINTS in src/lib/procedure/voting-section.ts):
  *  - secondary-before-primary: a second-degree amendment before the amendment it amends
- *    (Robert's Rules of Order Revised, 1915, §33 [PD]: vote the secondary, then the primary as amended);
+ *    (Robert's Rules of Order Revised, 1915 [PD], DOMAIN §3: vote the secondary, then the primary as amended);
  *  - perfecting-before-substitute: every amendment perfecting text a substitute would replace
  *    (and its own amendments) before that substitute;
  *  - furthest-first: of two mutually exclusive amendments with a `distance`, the larger first

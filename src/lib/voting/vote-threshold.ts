@@ -1,8 +1,8 @@
 /**
  * Whether a motion is adopted, given the weight for it, against it, and of all members.
  *
- * Thresholds follow general parliamentary law (Robert's Rules of Order Revised, 1915, §46 and
- * §48 [PD]): a majority of the votes cast; two-thirds of the votes cast; a majority of all members.
+ * Thresholds follow general parliamentary law (Robert's Rules of Order Revised, 1915 [PD]; DOMAIN §3):
+ * a majority of the votes cast; two-thirds of the votes cast; a majority of all members.
  * A tie defeats the motion under every threshold, so the later-listed alternative survives.
  * Weights are integers, so every comparison below is exact.
  */

@@ -23,7 +23,7 @@ const amendments = [
 ];
 
 describe("invalid trees", () => {
-  it("a third-degree amendment is unprocessable (Robert's Rules of Order Revised 1915, §33)", () => {
+  it("a third-degree amendment is unprocessable (Robert's Rules of Order Revised 1915, §33 — section number from memory; DOMAIN §3)", () => {
     expect(() => amendmentTreeModel({ measure, amendments: [...amendments, { id: "A3", target: "A2", form: "insert" }] })).toThrow(expect.objectContaining({ code: "unprocessable" }));
   });
   it("an unknown target and a duplicate id are invalid-input", () => {

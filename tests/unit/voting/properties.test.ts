@@ -150,3 +150,30 @@ describe("the counting DP equals brute-force enumeration (DOMAIN §2)", () => {
     );
   });
 });
+
+describe("Banks set limits (banks-set.ts)", () => {
+  it("with a tiny search budget the result is marked incomplete unless proven, and lists only true members", () => {
+    fc.assert(
+      fc.property(tournament(6, 10), ([n, cells]) => {
+        const g = graphFromPairs(n, cells);
+        const r = banksSet(g, { maxNodes: 1 });
+        const truth = bruteBanks(g);
+        expect(r.members.every((x) => truth.includes(x))).toBe(true);
+        if (r.complete) expect(r.members).toEqual(truth);
+      }),
+      { numRuns: 100 },
+    );
+  });
+  it("a top cycle above the exact limit falls back to greedy witnesses inside the uncovered set", () => {
+    fc.assert(
+      fc.property(tournament(32, 32), ([n, cells]) => {
+        const g = graphFromPairs(n, cells);
+        const r = banksSet(g);
+        const uc = uncoveredSet(g);
+        expect(r.members.every((x) => uc.includes(x))).toBe(true);
+        if (topCycle(g).length > 30) expect(r.complete).toBe(r.members.length === topCycle(g).length);
+      }),
+      { numRuns: 10 },
+    );
+  });
+});
