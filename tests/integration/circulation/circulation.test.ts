@@ -1,0 +1,317 @@
+// Circulation through the transactional outbox: distribution lists, sending a ruling, what the
+// fake SMTP server receives, SMTP outages (queued, then delivered exactly once), abandoned
+// sends, unsubscribes, the floor-day digest, and every route's role / anonymous /
+// other-chamber checks. Product contract (common practice, no source) unless named.
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
+import { eq, inArray, sql as dsql } from "drizzle-orm";
+import { db } from "../../../src/lib/server/db.ts";
+import { deliverOutbox } from "../../../src/lib/server/mail.ts";
+import { outbox, caughtMail } from "../../../src/lib/db/schema/mail.ts";
+import { rulings } from "../../../src/lib/db/schema/rulings.ts";
+import { startMailCatcher, type CaughtMessage, type MailCatcher } from "../../../src/lib/server/dev/mail-catcher.ts";
+import { DEMO_ACCOUNTS } from "../../../src/lib/server/seed/demo-data.ts";
+import * as rulingIndex from "../../../src/pages/api/rulings/index.ts";
+import * as rulingOne from "../../../src/pages/api/rulings/[id].ts";
+import * as issue from "../../../src/pages/api/rulings/[id]/issue.ts";
+import * as lists from "../../../src/pages/api/circulation/lists/index.ts";
+import * as listOne from "../../../src/pages/api/circulation/lists/[id].ts";
+import * as send from "../../../src/pages/api/circulation/index.ts";
+import * as circulationOne from "../../../src/pages/api/circulation/[id].ts";
+import * as retry from "../../../src/pages/api/circulation/messages/[id]/retry.ts";
+import * as digest from "../../../src/pages/api/circulation/digest.ts";
+import * as unsubscribe from "../../../src/pages/api/circulation/unsubscribe.ts";
+import * as devMail from "../../../src/pages/api/dev/mail.ts";
+import { call, type Session } from "../../support/app.ts";
+import { tableCounts } from "../../support/db.ts";
+import { seedChambers, type Seeded } from "../../support/fixtures.ts";
+import { harrowmereLegislators, rulingBody } from "../rulings/helpers.ts";
+
+const PORT = Number(process.env.SMTP_PORT);
+let catcher: MailCatcher | null = null;
+const inbox: CaughtMessage[] = [];
+let s: Seeded;
+let raiserId: string;
+
+async function openCatcher() {
+  catcher = await startMailCatcher({ port: PORT, onMessage: (m) => void inbox.push(m) });
+}
+async function closeCatcher() {
+  await catcher?.close();
+  catcher = null;
+}
+const emailOf = (role: string) => DEMO_ACCOUNTS.find((a) => a.chamber === "harrowmere" && a.role === role)!.email;
+const addresses = (ms: CaughtMessage[]) => ms.map((m) => /<([^>]+)>/.exec(m.to)?.[1] ?? m.to).sort();
+
+/** Deliver until nothing is due (a few rounds; each stops at the first transient failure). */
+async function drain() {
+  for (let i = 0; i < 10; i++) {
+    const r = await deliverOutbox(50);
+    if (r.sent === 0 && r.failed === 0) return;
+  }
+}
+
+async function issuedRuling(over: Record<string, unknown> = {}) {
+  const d = await call(rulingIndex.POST, "POST", "/api/rulings", { as: s.as.clerk, body: rulingBody(raiserId, over) });
+  expect(d.status).toBe(201);
+  const r = await call(issue.POST, "POST", `/api/rulings/${d.body.id}/issue`, { as: s.as.clerk, params: { id: d.body.id }, body: { version: d.body.version } });
+  expect(r.status).toBe(200);
+  return r.body.ruling as { id: string; number: number; version: number };
+}
+
+async function makeList(as: Session, body: Record<string, unknown>) {
+  const r = await call(lists.POST, "POST", "/api/circulation/lists", { as, body });
+  expect(r.status).toBe(201);
+  return r.body as { id: string; version: number; name: string };
+}
+
+beforeAll(async () => {
+  await openCatcher();
+  s = await seedChambers();
+  [{ id: raiserId }] = await harrowmereLegislators(s.chambers.harrowmere);
+});
+afterAll(async () => {
+  await closeCatcher();
+});
+beforeEach(async () => {
+  if (!catcher) await openCatcher();
+  await drain();
+  inbox.length = 0;
+});
+
+describe("distribution lists", () => {
+  it("validates entries path by path and writes nothing on bad input", async () => {
+    const before = await tableCounts();
+    const bad = await call(lists.POST, "POST", "/api/circulation/lists", { as: s.as.staff, body: { name: "", entries: [{ kind: "address", email: "not-mail" }, { kind: "role", role: "speaker" }] } });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.issues.map((i: { path: string }) => i.path).sort()).toEqual(["entries.0.email", "entries.1.role", "name"]);
+    const stranger = await call(lists.POST, "POST", "/api/circulation/lists", { as: s.as.staff, body: { name: "Odd", entries: [{ kind: "user", userId: s.outsider.userId }] } });
+    expect(stranger.status).toBe(422);
+    expect(stranger.body.error.issues[0].path).toBe("entries.0.userId");
+    expect(await tableCounts()).toEqual(before);
+  });
+
+  it("lets staff and clerks keep lists; members and observers 403; anonymous 401; other chamber 404", async () => {
+    const before = await tableCounts();
+    for (const role of ["member", "observer"] as const) {
+      expect((await call(lists.POST, "POST", "/api/circulation/lists", { as: s.as[role], body: { name: "Nope" } })).status, role).toBe(403);
+      expect((await call(lists.GET, "GET", "/api/circulation/lists", { as: s.as[role] })).status, role).toBe(403);
+    }
+    expect((await call(lists.POST, "POST", "/api/circulation/lists", { as: null, body: { name: "Nope" } })).status).toBe(401);
+    expect((await call(lists.GET, "GET", "/api/circulation/lists", { as: null })).status).toBe(401);
+    expect(await tableCounts()).toEqual(before);
+    const l = await makeList(s.as.staff, { name: "Whips", entries: [{ kind: "role", role: "member" }, { kind: "user", userId: s.as.observer.userId }] });
+    const dup = await call(lists.POST, "POST", "/api/circulation/lists", { as: s.as.clerk, body: { name: "Whips" } });
+    expect(dup.status).toBe(409);
+    const p = { id: l.id };
+    const got = await call(listOne.GET, "GET", `/api/circulation/lists/${l.id}`, { as: s.as.clerk, params: p });
+    expect(got.body.recipients.map((r: { email: string }) => r.email).sort()).toEqual([emailOf("member"), emailOf("observer")].sort());
+    const upd = await call(listOne.PUT, "PUT", `/api/circulation/lists/${l.id}`, { as: s.as["chief-clerk"], params: p, body: { version: l.version, name: "Whips' office", entries: [] } });
+    expect(upd.status).toBe(200);
+    expect((await call(listOne.PUT, "PUT", `/api/circulation/lists/${l.id}`, { as: s.as.staff, params: p, body: { version: l.version, name: "Stale", entries: [] } })).status).toBe(409);
+    for (const role of ["member", "observer"] as const) expect((await call(listOne.DELETE, "DELETE", `/api/circulation/lists/${l.id}`, { as: s.as[role], params: p })).status, role).toBe(403);
+    expect((await call(listOne.GET, "GET", `/api/circulation/lists/${l.id}`, { as: s.outsider, params: p })).status).toBe(404);
+    expect((await call(listOne.PUT, "PUT", `/api/circulation/lists/${l.id}`, { as: s.outsider, params: p, body: { version: 2, name: "Mine", entries: [] } })).status).toBe(404);
+    expect((await call(listOne.DELETE, "DELETE", `/api/circulation/lists/${l.id}`, { as: s.outsider, params: p })).status).toBe(404);
+    expect((await call(lists.GET, "GET", "/api/circulation/lists", { as: s.outsider })).body.lists).toEqual([]);
+    expect((await call(listOne.DELETE, "DELETE", `/api/circulation/lists/${l.id}`, { as: s.as.staff, params: p })).status).toBe(200);
+    expect((await call(listOne.GET, "GET", `/api/circulation/lists/${l.id}`, { as: s.as.staff, params: p })).status).toBe(404);
+  });
+});
+
+describe("sending a ruling", () => {
+  let clerksDesk: { id: string };
+  let press: { id: string };
+  beforeAll(async () => {
+    clerksDesk = await makeList(s.as.clerk, { name: "Clerks' desk", purpose: "clerks", entries: [{ kind: "role", role: "chief-clerk" }, { kind: "role", role: "clerk" }] });
+    press = await makeList(s.as.staff, { name: "Press gallery", entries: [{ kind: "address", email: "desk@courier.example.org", name: "Courier" }, { kind: "address", email: "wire@fenland.example.org" }, { kind: "role", role: "staff" }] });
+  });
+
+  it("only staff and clerks send; anonymous 401; the other chamber 404; drafts are not sent", async () => {
+    const r = await issuedRuling();
+    const before = await tableCounts();
+    for (const role of ["member", "observer"] as const) expect((await call(send.POST, "POST", "/api/circulation", { as: s.as[role], body: { rulingId: r.id, listId: press.id } })).status, role).toBe(403);
+    expect((await call(send.POST, "POST", "/api/circulation", { as: null, body: { rulingId: r.id, listId: press.id } })).status).toBe(401);
+    expect((await call(send.POST, "POST", "/api/circulation", { as: s.outsider, body: { rulingId: r.id, listId: press.id } })).status).toBe(404);
+    const draft = await call(rulingIndex.POST, "POST", "/api/rulings", { as: s.as.clerk, body: rulingBody(raiserId) });
+    const afterDraft = await tableCounts();
+    expect((await call(send.POST, "POST", "/api/circulation", { as: s.as.staff, body: { rulingId: draft.body.id, listId: press.id } })).status).toBe(409);
+    expect((await call(send.POST, "POST", "/api/circulation", { as: s.as.staff, body: { rulingId: r.id, listId: "9d3a3a52-58f3-4c1e-9a53-3f2b2c3c8d11" } })).status).toBe(404);
+    expect(await tableCounts()).toEqual(afterDraft);
+    expect(afterDraft.rulings).toBe(before.rulings + 1);
+    for (const role of ["staff", "clerk", "chief-clerk"] as const) expect((await call(send.POST, "POST", "/api/circulation", { as: s.as[role], body: { rulingId: r.id, listId: clerksDesk.id } })).status, role).toBe(201);
+  });
+
+  it("delivers HTML and plain text to exactly the list's recipients, user text escaped", async () => {
+    const r = await issuedRuling({ question: 'Is <script>alert("x")</script> & co. in order?', reasoning: "The chair finds the <b>bold</b> words out of order." });
+    const sent = await call(send.POST, "POST", "/api/circulation", { as: s.as.staff, body: { rulingId: r.id, listId: press.id } });
+    expect(sent.status).toBe(201);
+    expect(sent.body.queued).toBe(3);
+    await drain();
+    const mine = inbox.filter((m) => m.subject.includes(`Ruling ${r.number}`));
+    expect(addresses(mine)).toEqual(["desk@courier.example.org", emailOf("staff"), "wire@fenland.example.org"].sort());
+    for (const m of mine) {
+      expect(m.subject).toContain("Harrowmere County Assembly");
+      expect(m.text).toContain('Is <script>alert("x")</script> & co. in order?');
+      expect(m.text).toContain("RONR (1915) §29");
+      expect(m.html).not.toContain("<script>");
+      expect(m.html).toContain("&lt;script&gt;");
+      expect(m.html).toContain("&lt;b&gt;bold&lt;/b&gt;");
+      expect(m.text).toMatch(/\/unsubscribe\?token=/);
+      expect(m.parsed.headerLines.find((h) => h.key === "list-unsubscribe")?.line).toMatch(/unsubscribe\?token=/);
+    }
+    const status = await call(circulationOne.GET, "GET", `/api/circulation/${sent.body.id}`, { as: s.as.clerk, params: { id: sent.body.id } });
+    expect(status.body.messages.map((m: { status: string }) => m.status)).toEqual(["sent", "sent", "sent"]);
+    const page = await call(rulingOne.GET, "GET", `/api/rulings/${r.id}`, { as: s.as.staff, params: { id: r.id } });
+    expect(page.body.circulations[0].messages).toHaveLength(3);
+    const asMember = await call(rulingOne.GET, "GET", `/api/rulings/${r.id}`, { as: s.as.member, params: { id: r.id } });
+    expect(asMember.body.circulations).toEqual([]);
+    for (const role of ["member", "observer"] as const) expect((await call(circulationOne.GET, "GET", `/api/circulation/${sent.body.id}`, { as: s.as[role], params: { id: sent.body.id } })).status, role).toBe(403);
+    expect((await call(circulationOne.GET, "GET", `/api/circulation/${sent.body.id}`, { as: s.outsider, params: { id: sent.body.id } })).status).toBe(404);
+    expect((await call(circulationOne.GET, "GET", `/api/circulation/${sent.body.id}`, { as: null, params: { id: sent.body.id } })).status).toBe(401);
+    const recent = await call(send.GET, "GET", "/api/circulation", { as: s.as.staff });
+    expect(recent.body.circulations[0]).toMatchObject({ id: sent.body.id, status: { sent: 3 } });
+    expect((await call(send.GET, "GET", "/api/circulation", { as: s.outsider })).body.circulations).toEqual([]);
+  });
+
+  it("issues and queues together: a bad list leaves the ruling a draft and queues nothing", async () => {
+    const d = await call(rulingIndex.POST, "POST", "/api/rulings", { as: s.as.clerk, body: rulingBody(raiserId) });
+    const before = await tableCounts();
+    const bad = await call(issue.POST, "POST", `/api/rulings/${d.body.id}/issue`, { as: s.as.clerk, params: { id: d.body.id }, body: { version: d.body.version, circulateTo: [press.id, "9d3a3a52-58f3-4c1e-9a53-3f2b2c3c8d11"] } });
+    expect(bad.status).toBe(404);
+    expect(await tableCounts()).toEqual(before);
+    const [row] = await db.select().from(rulings).where(eq(rulings.id, d.body.id));
+    expect(row.status).toBe("draft");
+    const ok = await call(issue.POST, "POST", `/api/rulings/${d.body.id}/issue`, { as: s.as.clerk, params: { id: d.body.id }, body: { version: d.body.version, circulateTo: [press.id] } });
+    expect(ok.status).toBe(200);
+    expect(ok.body.circulations[0].queued).toBe(3);
+  });
+
+  it("with SMTP down keeps every message queued, then delivers each exactly once when it is back", async () => {
+    await closeCatcher();
+    const r = await issuedRuling();
+    const sent = await call(send.POST, "POST", "/api/circulation", { as: s.as.staff, body: { rulingId: r.id, listId: press.id } });
+    const first = await deliverOutbox(50);
+    expect(first.sent).toBe(0);
+    expect(first.failed).toBe(1);
+    const rows = await db.select().from(outbox).where(eq(outbox.circulationId, sent.body.id));
+    expect(rows.map((m) => m.status)).toEqual(["queued", "queued", "queued"]);
+    expect(rows.some((m) => m.attempts === 1 && m.lastError)).toBe(true);
+    expect(rows.every((m) => m.nextAttemptAt.getTime() > Date.now() - 1000)).toBe(true);
+    // Backoff: nothing is due yet, so another round sends nothing even with SMTP back.
+    await openCatcher();
+    const early = await deliverOutbox(50);
+    expect(early.sent).toBe(rows.filter((m) => m.attempts === 0).length);
+    // Time passes: make everything due, deliver, then try again — nothing more is sent.
+    await db.update(outbox).set({ nextAttemptAt: new Date(Date.now() - 1000) }).where(eq(outbox.circulationId, sent.body.id));
+    await drain();
+    await drain();
+    const mine = inbox.filter((m) => m.subject.includes(`Ruling ${r.number}`));
+    expect(addresses(mine)).toEqual(["desk@courier.example.org", emailOf("staff"), "wire@fenland.example.org"].sort());
+    const ids = mine.map((m) => m.messageId);
+    expect(new Set(ids).size).toBe(3);
+    const after = await db.select().from(outbox).where(eq(outbox.circulationId, sent.body.id));
+    expect(after.map((m) => m.status)).toEqual(["sent", "sent", "sent"]);
+    expect(after.map((m) => m.messageId).sort()).toEqual(ids.sort());
+  });
+
+  it("never resends blindly after a crash between send and record: the message becomes uncertain until a person requeues it", async () => {
+    const r = await issuedRuling();
+    const sent = await call(send.POST, "POST", "/api/circulation", { as: s.as.staff, body: { rulingId: r.id, listId: clerksDesk.id } });
+    const [victim] = await db.select().from(outbox).where(eq(outbox.circulationId, sent.body.id)).limit(1);
+    // Simulate a worker that claimed the message and died: status sending, lease already expired.
+    await db.update(outbox).set({ status: "sending", claimToken: "00000000-0000-4000-8000-000000000001", leaseUntil: dsql`now() - interval '1 second'`, attempts: 1 }).where(eq(outbox.id, victim.id));
+    const round = await deliverOutbox(50);
+    expect(round.uncertain).toBe(1);
+    await drain();
+    const [u] = await db.select().from(outbox).where(eq(outbox.id, victim.id));
+    expect(u.status).toBe("uncertain");
+    expect(inbox.filter((m) => m.messageId === victim.messageId)).toHaveLength(0);
+    for (const role of ["member", "observer"] as const) expect((await call(retry.POST, "POST", `/api/circulation/messages/${victim.id}/retry`, { as: s.as[role], params: { id: victim.id } })).status, role).toBe(403);
+    expect((await call(retry.POST, "POST", `/api/circulation/messages/${victim.id}/retry`, { as: s.outsider, params: { id: victim.id } })).status).toBe(404);
+    expect((await call(retry.POST, "POST", `/api/circulation/messages/${victim.id}/retry`, { as: null, params: { id: victim.id } })).status).toBe(401);
+    const ok = await call(retry.POST, "POST", `/api/circulation/messages/${victim.id}/retry`, { as: s.as.staff, params: { id: victim.id } });
+    expect(ok.status).toBe(200);
+    await drain();
+    expect(inbox.filter((m) => m.messageId === victim.messageId)).toHaveLength(1);
+    const again = await call(retry.POST, "POST", `/api/circulation/messages/${victim.id}/retry`, { as: s.as.staff, params: { id: victim.id } });
+    expect(again.status).toBe(409);
+  });
+
+  it("honours an unsubscribe link for later sends to that list", async () => {
+    const r1 = await issuedRuling();
+    await call(send.POST, "POST", "/api/circulation", { as: s.as.staff, body: { rulingId: r1.id, listId: press.id } });
+    await drain();
+    const mail = inbox.find((m) => m.to.includes("wire@fenland.example.org"))!;
+    const token = decodeURIComponent(/unsubscribe\?token=([^\s"&]+)/.exec(mail.text!)![1]);
+    const bad = await call(unsubscribe.POST, "POST", "/api/circulation/unsubscribe", { as: null, body: { token: token.slice(0, -3) + "AAA" } });
+    expect(bad.status).toBe(400);
+    const info = await call(unsubscribe.GET, "GET", "/api/circulation/unsubscribe", { as: null, query: { token } });
+    expect(info.body).toMatchObject({ email: "wire@fenland.example.org", listName: "Press gallery", unsubscribed: false });
+    const done = await call(unsubscribe.POST, "POST", "/api/circulation/unsubscribe", { as: null, body: { token } });
+    expect(done.status).toBe(200);
+    expect((await call(unsubscribe.POST, "POST", "/api/circulation/unsubscribe", { as: null, body: { token } })).status).toBe(200);
+    inbox.length = 0;
+    const r2 = await issuedRuling();
+    const second = await call(send.POST, "POST", "/api/circulation", { as: s.as.staff, body: { rulingId: r2.id, listId: press.id } });
+    expect(second.body.queued).toBe(2);
+    expect(second.body.skipped).toEqual([{ email: "wire@fenland.example.org", reason: "unsubscribed" }]);
+    await drain();
+    expect(addresses(inbox)).toEqual(["desk@courier.example.org", emailOf("staff")].sort());
+    const list = await call(listOne.GET, "GET", `/api/circulation/lists/${press.id}`, { as: s.as.staff, params: { id: press.id } });
+    expect(list.body.recipients.find((x: { email: string }) => x.email === "wire@fenland.example.org").unsubscribed).toBe(true);
+  });
+});
+
+describe("floor-day digest", () => {
+  it("goes to the clerks' list with the findings and the proposed order; only staff and clerks may send it", async () => {
+    const body = {
+      sitting: "Sixth sitting",
+      date: "2026-04-08",
+      measure: "HB 7 — Harbour Dredging Levy",
+      findings: [{ severity: "error", code: "degree-exceeded", subject: "Amendment 4", message: "A third-degree amendment is out of order <per §33>." }],
+      proposedOrder: [{ label: "Amendment 2 to Amendment 1" }, { label: "Amendment 1 as amended" }, { label: "Passage" }],
+    };
+    const before = await tableCounts();
+    for (const role of ["member", "observer"] as const) expect((await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as[role], body })).status, role).toBe(403);
+    expect((await call(digest.POST, "POST", "/api/circulation/digest", { as: null, body })).status).toBe(401);
+    const bad = await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as.clerk, body: { ...body, date: "soon", findings: [{ severity: "fatal", message: "" }] } });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.issues.map((i: { path: string }) => i.path).sort()).toEqual(["date", "findings.0.message", "findings.0.severity"]);
+    expect(await tableCounts()).toEqual(before);
+    const ok = await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as.staff, body });
+    expect(ok.status).toBe(201);
+    expect(ok.body.listName).toBe("Clerks' desk");
+    await drain();
+    const got = inbox.filter((m) => m.subject.includes("floor-day digest"));
+    expect(addresses(got)).toEqual([emailOf("chief-clerk"), emailOf("clerk")].sort());
+    expect(got[0].text).toContain("1. Amendment 2 to Amendment 1");
+    expect(got[0].text).toContain("[degree-exceeded] Amendment 4");
+    expect(got[0].html).toContain("&lt;per §33&gt;");
+    const other = await call(digest.POST, "POST", "/api/circulation/digest", { as: s.outsider, body });
+    expect(other.status).toBe(201);
+    expect(other.body.listName).toBe("Clerks (chief clerk and clerks)");
+    await drain();
+    expect(addresses(inbox.filter((m) => m.subject.includes("Saltreach")))).toEqual(["chief.clerk@saltreach.example"]);
+  });
+});
+
+describe("caught mail (development view)", () => {
+  it("is for the chief clerk only, and only with the development mailbox on", async () => {
+    await db.insert(caughtMail).values({ from: "a@example.org", to: "b@example.org", subject: "Hello", text: "Hi" });
+    const prev = process.env.GAVELWRIGHT_DEV_MAILBOX;
+    try {
+      delete process.env.GAVELWRIGHT_DEV_MAILBOX;
+      expect((await call(devMail.GET, "GET", "/api/dev/mail", { as: s.as["chief-clerk"] })).status).toBe(404);
+      process.env.GAVELWRIGHT_DEV_MAILBOX = "1";
+      const r = await call(devMail.GET, "GET", "/api/dev/mail", { as: s.as["chief-clerk"] });
+      expect(r.status).toBe(200);
+      expect(r.body.messages.map((m: { subject: string }) => m.subject)).toContain("Hello");
+      for (const role of ["clerk", "member", "staff", "observer"] as const) expect((await call(devMail.GET, "GET", "/api/dev/mail", { as: s.as[role] })).status, role).toBe(403);
+      expect((await call(devMail.GET, "GET", "/api/dev/mail", { as: null })).status).toBe(401);
+    } finally {
+      if (prev === undefined) delete process.env.GAVELWRIGHT_DEV_MAILBOX;
+      else process.env.GAVELWRIGHT_DEV_MAILBOX = prev;
+    }
+    await db.delete(caughtMail).where(inArray(caughtMail.subject, ["Hello"]));
+  });
+});
