@@ -1,0 +1,259 @@
+import { useCallback, useEffect, useMemo, useRef, useState, type KeyboardEvent } from "react";
+import { Background, Controls, MiniMap, ReactFlow, ReactFlowProvider, useReactFlow, type Edge } from "@xyflow/react";
+import "@xyflow/react/dist/style.css";
+import { treeViewSchema, type FindingView, type TreeView as TreeData } from "../../lib/server/measure-schemas.ts";
+import { ApiError, apiCall } from "../measures/api.ts";
+import { layoutTree } from "./layout.ts";
+import TreeLegend from "./TreeLegend.tsx";
+import TreeNodeCard, { type TreeFlowNode } from "./TreeNodeCard.tsx";
+import { z } from "zod";
+
+interface Props {
+  measureId: string;
+  initial: TreeData;
+  canOverride: boolean;
+}
+
+const nodeTypes = { tree: TreeNodeCard };
+const SEVERITY_CHIP: Record<string, string> = { error: "border-verdict-bar bg-verdict-bar-tint text-verdict-bar", warning: "border-verdict-query bg-verdict-query-tint text-verdict-query", info: "border-chamber bg-chamber-tint text-chamber-dark" };
+const LARGE = 40;
+
+function Drawing({ data, selected, onSelect }: { data: TreeData; selected: string; onSelect: (key: string) => void }) {
+  const flow = useReactFlow();
+  const byAmendment = useMemo(() => {
+    const m = new Map<string, FindingView[]>();
+    for (const f of data.findings) m.set(f.amendment, [...(m.get(f.amendment) ?? []), f]);
+    return m;
+  }, [data.findings]);
+  const boxes = useMemo(() => layoutTree(data.nodes), [data.nodes]);
+  const nodes: TreeFlowNode[] = useMemo(
+    () =>
+      data.nodes.map((n) => {
+        const b = boxes.get(n.key)!;
+        return { id: n.key, type: "tree", position: { x: b.x, y: b.y }, width: b.width, height: b.height, data: { node: n, findings: byAmendment.get(n.key) ?? [], selected: n.key === selected }, ariaLabel: `${n.kind} ${n.label}${n.title ? `: ${n.title}` : ""}`, draggable: false, connectable: false } as TreeFlowNode;
+      }),
+    [data.nodes, boxes, byAmendment, selected],
+  );
+  const edges: Edge[] = useMemo(() => data.nodes.filter((n) => n.parent).map((n) => ({ id: `${n.parent}->${n.key}`, source: n.parent!, target: n.key, type: "smoothstep", style: { stroke: "#44574f" } })), [data.nodes]);
+  const large = data.nodes.length > LARGE;
+
+  useEffect(() => {
+    const b = boxes.get(selected);
+    if (b && large) void flow.setCenter(b.x + b.width / 2, b.y + b.height / 2, { zoom: Math.max(flow.getZoom(), 0.7), duration: 200 });
+  }, [selected, boxes, flow, large]);
+
+  return (
+    <ReactFlow
+      nodes={nodes}
+      edges={edges}
+      nodeTypes={nodeTypes}
+      onNodeClick={(_, n) => onSelect(n.id)}
+      fitView={!large}
+      defaultViewport={large ? { x: 40, y: 40, zoom: 0.7 } : undefined}
+      minZoom={0.05}
+      maxZoom={2}
+      nodesDraggable={false}
+      nodesConnectable={false}
+      onlyRenderVisibleElements={large}
+      proOptions={{ hideAttribution: true }}
+    >
+      <Background gap={24} color="#d9d2c3" />
+      <Controls showInteractive={false} />
+      {large && <MiniMap pannable zoomable nodeColor={(n) => ((n as TreeFlowNode).data.findings.some((f) => !f.overridden && f.severity === "error") ? "#a4262c" : "#1d4f47")} />}
+    </ReactFlow>
+  );
+}
+
+function OverrideForm({ measureId, finding, version, onDone }: { measureId: string; finding: FindingView; version: number; onDone: (msg: string) => void }) {
+  const [ref, setRef] = useState("");
+  const [note, setNote] = useState("");
+  const [error, setError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+  const id = `ov-${finding.amendment}-${finding.code}`;
+  async function submit() {
+    setBusy(true);
+    setError(null);
+    try {
+      await apiCall(z.object({ id: z.string() }), `/api/measures/${measureId}/overrides`, { method: "POST", body: { amendmentId: finding.amendmentId, code: finding.code, version, rulingRef: ref, note: note || null } });
+      onDone(`Override of ${finding.code} on ${finding.amendment} recorded.`);
+    } catch (e) {
+      setError(e instanceof ApiError ? e.message : "Could not record the override.");
+    } finally {
+      setBusy(false);
+    }
+  }
+  return (
+    <form
+      className="mt-2 space-y-2 rounded border border-rule bg-vellum p-2"
+      onSubmit={(e) => {
+        e.preventDefault();
+        void submit();
+      }}
+    >
+      <div>
+        <label htmlFor={`${id}-ref`} className="gw-label">Ruling relied on</label>
+        <input id={`${id}-ref`} className="gw-input" value={ref} onChange={(e) => setRef(e.target.value)} required maxLength={500} placeholder="e.g. Ruling 14 of the Presiding Officer, 3 March" />
+      </div>
+      <div>
+        <label htmlFor={`${id}-note`} className="gw-label">Note (optional)</label>
+        <input id={`${id}-note`} className="gw-input" value={note} onChange={(e) => setNote(e.target.value)} maxLength={2000} />
+      </div>
+      {error && <p className="gw-error" role="alert">{error}</p>}
+      <button type="submit" className="gw-btn" disabled={busy || !ref.trim()}>Record override</button>
+    </form>
+  );
+}
+
+export default function TreeView({ measureId, initial, canOverride }: Props) {
+  const [data, setData] = useState<TreeData>(initial);
+  const [selected, setSelected] = useState<string>(() => "measure");
+  const [message, setMessage] = useState<string | null>(null);
+  const [loadError, setLoadError] = useState<string | null>(null);
+  const [openForm, setOpenForm] = useState<string | null>(null);
+  const wrapper = useRef<HTMLDivElement>(null);
+
+  useEffect(() => {
+    const h = decodeURIComponent(window.location.hash.slice(1));
+    if (h && initial.nodes.some((n) => n.key === h)) setSelected(h);
+  }, [initial.nodes]);
+
+  const reload = useCallback(async () => {
+    try {
+      setData(await apiCall(treeViewSchema, `/api/measures/${measureId}/tree`));
+      setLoadError(null);
+    } catch (e) {
+      setLoadError(e instanceof ApiError ? e.message : "Could not reload the tree.");
+    }
+  }, [measureId]);
+
+  const byKey = useMemo(() => new Map(data.nodes.map((n) => [n.key, n])), [data.nodes]);
+  const children = useMemo(() => {
+    const m = new Map<string, string[]>();
+    for (const n of data.nodes) if (n.parent) m.set(n.parent, [...(m.get(n.parent) ?? []), n.key]);
+    return m;
+  }, [data.nodes]);
+
+  function onKeyDown(e: KeyboardEvent<HTMLDivElement>) {
+    const cur = byKey.get(selected);
+    if (!cur) return;
+    const siblings = cur.parent ? (children.get(cur.parent) ?? []) : [cur.key];
+    const i = siblings.indexOf(cur.key);
+    let next: string | undefined;
+    if (e.key === "ArrowLeft") next = cur.parent ?? undefined;
+    else if (e.key === "ArrowRight") next = children.get(cur.key)?.[0];
+    else if (e.key === "ArrowDown") next = siblings[i + 1];
+    else if (e.key === "ArrowUp") next = siblings[i - 1];
+    else if (e.key === "Home") next = "measure";
+    else return;
+    e.preventDefault();
+    if (next) setSelected(next);
+  }
+
+  const node = byKey.get(selected);
+  const findings = data.findings.filter((f) => f.amendment === selected);
+
+  return (
+    <div className="space-y-4">
+      <div className="flex flex-wrap items-center gap-2" data-testid="tree-counts">
+        <span className={`gw-chip ${SEVERITY_CHIP.error}`}>{data.counts.error} errors</span>
+        <span className={`gw-chip ${SEVERITY_CHIP.warning}`}>{data.counts.warning} warnings</span>
+        <span className={`gw-chip ${SEVERITY_CHIP.info}`}>{data.counts.info} notes</span>
+        <span className="gw-chip border-verdict-ok bg-verdict-ok-tint text-verdict-ok">{data.counts.overridden} overridden</span>
+        <span className="text-sm text-ink-soft">
+          Rulebook: {data.rulebook.title} — {data.rulebook.source}
+        </span>
+      </div>
+      {message && <p className="gw-card border-verdict-ok bg-verdict-ok-tint text-sm" role="status">{message}</p>}
+      {loadError && <p className="gw-error" role="alert">{loadError}</p>}
+      <div className="grid gap-4 xl:grid-cols-[1fr_22rem]">
+        <div
+          ref={wrapper}
+          tabIndex={0}
+          role="application"
+          aria-roledescription="amendment tree"
+          aria-label={`Amendment tree of ${data.measure.number}. Selected: ${node ? `${node.label}${node.title ? `, ${node.title}` : ""}` : "none"}. Arrow keys move between nodes.`}
+          onKeyDown={onKeyDown}
+          className="gw-card h-[640px] p-0 focus-visible:outline-4"
+          data-testid="tree-drawing"
+        >
+          <ReactFlowProvider>
+            <Drawing data={data} selected={selected} onSelect={(k) => { setSelected(k); wrapper.current?.focus(); }} />
+          </ReactFlowProvider>
+        </div>
+        <aside className="space-y-4">
+          <section className="gw-card" aria-live="polite" data-testid="tree-details">
+            {node ? (
+              <>
+                <h3 className="text-step-1">
+                  {node.kind === "amendment" ? `Amendment ${node.label}` : node.kind === "section" ? `Section ${node.label}` : node.label}
+                </h3>
+                {node.title && <p className="font-semibold">{node.title}</p>}
+                <dl className="mt-2 grid grid-cols-[7rem_1fr] gap-x-2 gap-y-1 text-sm">
+                  {node.kind === "amendment" && (
+                    <>
+                      <dt className="text-ink-soft">Degree</dt><dd>{node.degree ?? "unknown"}</dd>
+                      <dt className="text-ink-soft">Form</dt><dd>{node.form}</dd>
+                      <dt className="text-ink-soft">Amends</dt><dd>{node.parent ?? "(missing target)"}{node.lines ? `, lines ${node.lines[0]}–${node.lines[1]}` : ""}</dd>
+                      <dt className="text-ink-soft">Status</dt><dd>{node.status}</dd>
+                      <dt className="text-ink-soft">Filed</dt><dd>{node.filedAt ? new Date(node.filedAt).toLocaleString("en-GB") : "not yet"}</dd>
+                      <dt className="text-ink-soft">Sponsors</dt><dd>{node.sponsors.join(", ") || "none"}</dd>
+                    </>
+                  )}
+                  <dt className="text-ink-soft">Subjects</dt><dd>{node.subjects.join(", ") || "none"}</dd>
+                </dl>
+                {node.text && <p className="mt-2 whitespace-pre-line border-l-2 border-rule pl-2 text-sm">{node.text}</p>}
+                {node.kind === "amendment" && (
+                  <div className="mt-3">
+                    <h4 className="font-semibold">Findings</h4>
+                    {findings.length === 0 && <p className="text-sm text-verdict-ok">No findings: nothing in the rulebook's tests stands against it.</p>}
+                    <ul className="space-y-2">
+                      {findings.map((f) => (
+                        <li key={f.code} className="rounded border border-rule p-2 text-sm" data-testid={`finding-${f.amendment}-${f.code}`}>
+                          <span className={`gw-chip ${f.overridden ? "border-verdict-ok bg-verdict-ok-tint text-verdict-ok" : SEVERITY_CHIP[f.severity]}`}>{f.overridden ? "overridden" : f.severity}</span> <code>{f.code}</code>
+                          <p className="mt-1">{f.message}</p>
+                          <p className="text-xs text-ink-soft">{f.citation}</p>
+                          {f.overridden && <p className="text-xs font-semibold text-verdict-ok">Ruling: {f.ruling}</p>}
+                          {canOverride && !f.overridden && f.amendmentId && (
+                            openForm === `${f.amendment}/${f.code}` ? (
+                              <OverrideForm measureId={measureId} finding={f} version={node.version ?? 1} onDone={(msg) => { setMessage(msg); setOpenForm(null); void reload(); }} />
+                            ) : (
+                              <button type="button" className="gw-btn-quiet mt-1" onClick={() => setOpenForm(`${f.amendment}/${f.code}`)}>Override with a ruling…</button>
+                            )
+                          )}
+                        </li>
+                      ))}
+                    </ul>
+                  </div>
+                )}
+              </>
+            ) : (
+              <p>Select a node.</p>
+            )}
+          </section>
+          <TreeLegend />
+        </aside>
+      </div>
+      <p className="gw-advisory">These findings apply the chamber's rulebook mechanically. The presiding officer's ruling, the chamber's own rules and its counsel prevail; an override records such a ruling.</p>
+      <section className="gw-card overflow-x-auto">
+        <h3 className="text-step-1">All findings</h3>
+        <table className="gw-table mt-2" data-testid="findings-table">
+          <thead>
+            <tr><th>Amendment</th><th>Severity</th><th>Code</th><th>Message</th><th>Rule</th></tr>
+          </thead>
+          <tbody>
+            {data.findings.map((f) => (
+              <tr key={`${f.amendment}/${f.code}`}>
+                <td><button type="button" className="font-semibold text-chamber underline" onClick={() => { setSelected(f.amendment); wrapper.current?.focus(); }}>{f.amendment}</button></td>
+                <td><span className={`gw-chip ${f.overridden ? "border-verdict-ok bg-verdict-ok-tint text-verdict-ok" : SEVERITY_CHIP[f.severity]}`}>{f.overridden ? "overridden" : f.severity}</span></td>
+                <td><code>{f.code}</code></td>
+                <td>{f.message}{f.overridden && <span className="block text-xs text-verdict-ok">Ruling: {f.ruling}</span>}</td>
+                <td className="text-xs text-ink-soft">{f.citation}</td>
+              </tr>
+            ))}
+            {data.findings.length === 0 && <tr><td colSpan={5}>No findings.</td></tr>}
+          </tbody>
+        </table>
+      </section>
+    </div>
+  );
+}

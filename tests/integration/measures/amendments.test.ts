@@ -1,0 +1,229 @@
+// Amendments and trees through the API: filing (numbers, receipts), drafts, edits with versions,
+// the validated tree with overrides, and chamber isolation. Product contract (common practice,
+// no source) unless a test names a rule.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { and, eq } from "drizzle-orm";
+import { db } from "../../../src/lib/server/db.ts";
+import { deliverOutbox } from "../../../src/lib/server/mail.ts";
+import { outbox } from "../../../src/lib/db/schema/mail.ts";
+import { amendments } from "../../../src/lib/db/schema/measures.ts";
+import { startMailCatcher, type CaughtMessage, type MailCatcher } from "../../../src/lib/server/dev/mail-catcher.ts";
+import { seedMeasures } from "../../../src/lib/server/seed/measures.ts";
+import * as measuresRoute from "../../../src/pages/api/measures/index.ts";
+import * as filing from "../../../src/pages/api/measures/[id]/amendments.ts";
+import * as treeRoute from "../../../src/pages/api/measures/[id]/tree.ts";
+import * as overrides from "../../../src/pages/api/measures/[id]/overrides/index.ts";
+import * as overrideOne from "../../../src/pages/api/measures/[id]/overrides/[oid].ts";
+import * as auditRoute from "../../../src/pages/api/measures/[id]/audit.ts";
+import * as amendment from "../../../src/pages/api/amendments/[id]/index.ts";
+import * as fileDraft from "../../../src/pages/api/amendments/[id]/file.ts";
+import { call } from "../../support/app.ts";
+import { tableCounts } from "../../support/db.ts";
+import { seedChambers, type Seeded } from "../../support/fixtures.ts";
+import { legislatorIds, multipart, multipartBody, pdfBytes } from "./helpers.ts";
+
+let s: Seeded;
+let L: string[];
+let catcher: MailCatcher;
+const inbox: CaughtMessage[] = [];
+const ROLES = ["chief-clerk", "clerk", "member", "staff", "observer"] as const;
+
+async function newMeasure(number: string, extra: Record<string, unknown> = {}) {
+  const r = await call(measuresRoute.POST, "POST", "/api/measures", { as: s.as.clerk, body: { number, title: `Measure ${number}`, subjects: ["harbour"], text: "## Section 1\nSubjects: lighting\nOne.\nTwo.\nThree.\n## Section 2\nSubjects: finance\nFour.", ...extra } });
+  expect(r.status).toBe(201);
+  return r.body as { id: string; version: number };
+}
+
+function file(measureId: string, body: Record<string, unknown>, as = s.as.member) {
+  return call(filing.POST, "POST", `/api/measures/${measureId}/amendments`, { as, params: { id: measureId }, body: { form: "insert", target: "s1", sponsors: [L[0], L[1]], subjects: ["lighting"], text: "Add a line.", ...body } });
+}
+
+beforeAll(async () => {
+  catcher = await startMailCatcher({ port: Number(process.env.SMTP_PORT), onMessage: (m) => void inbox.push(m) });
+  s = await seedChambers();
+  L = await legislatorIds(s.chambers.harrowmere);
+});
+afterAll(async () => {
+  await catcher.close();
+});
+
+describe("filing amendments", () => {
+  it("lets chief clerk, clerk and member file; refuses staff, observer (403), anonymous (401) and the other chamber (404), changing nothing", async () => {
+    const m = await newMeasure("HCA 100");
+    for (const role of ["chief-clerk", "clerk", "member"] as const) expect((await file(m.id, {}, s.as[role])).status, role).toBe(201);
+    const before = await tableCounts();
+    for (const role of ["staff", "observer"] as const) expect((await file(m.id, {}, s.as[role])).status, role).toBe(403);
+    expect((await file(m.id, {}, null as never)).status).toBe(401);
+    expect((await file(m.id, {}, s.outsider)).status).toBe(404);
+    expect(await tableCounts()).toEqual(before);
+    for (const role of ROLES) expect((await call(filing.GET, "GET", "/x", { as: s.as[role], params: { id: m.id } })).body.amendments.map((a: { key: string }) => a.key), role).toEqual(["A1", "A2", "A3"]);
+    expect((await call(filing.GET, "GET", "/x", { as: s.outsider, params: { id: m.id } })).status).toBe(404);
+  });
+
+  it("rejects bad filings with path-precise issues and writes nothing", async () => {
+    const m = await newMeasure("HCA 101");
+    const before = await tableCounts();
+    const bad = await file(m.id, { form: "rewrite", target: "", sponsors: ["x"] });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.issues.map((i: { path: string }) => i.path).sort()).toEqual(["form", "sponsors.0", "target"]);
+    expect((await file(m.id, { target: "s9" })).body.error.issues[0].path).toBe("target");
+    expect((await file(m.id, { target: "A77" })).status).toBe(422);
+    expect((await file(m.id, { target: "measure", lines: [1, 2] })).body.error.issues[0].path).toBe("lines");
+    expect((await file(m.id, { target: "s1", lines: [2, 9] })).body.error.issues[0].path).toBe("lines");
+    expect((await file(m.id, { sponsors: ["00000000-0000-4000-8000-000000000000"] })).body.error.issues[0].path).toBe("sponsors.0");
+    expect((await file(m.id, { sponsors: [L[0], L[0]] })).status).toBe(400);
+    expect(await tableCounts()).toEqual(before);
+  });
+
+  it("numbers twenty concurrent filings 1..20 with no gaps or repeats", async () => {
+    const m = await newMeasure("HCA 102");
+    const results = await Promise.all(Array.from({ length: 20 }, (_, i) => file(m.id, { title: `Concurrent ${i}` }, i % 2 ? s.as.member : s.as.clerk)));
+    expect(results.map((r) => r.status)).toEqual(Array(20).fill(201));
+    expect(results.map((r) => r.body.number).sort((a: number, b: number) => a - b)).toEqual(Array.from({ length: 20 }, (_, i) => i + 1));
+    const failed = await file(m.id, { target: "nowhere" });
+    expect(failed.status).toBe(422);
+    expect((await file(m.id, {})).body.number).toBe(21);
+  });
+
+  it("queues the filing receipt in the same transaction and delivers it to the filer", async () => {
+    const m = await newMeasure("HCA 103");
+    const r = await file(m.id, { title: "Receipt please" });
+    const [queued] = await db.select().from(outbox).where(and(eq(outbox.ref, r.body.id), eq(outbox.kind, "amendment-receipt")));
+    expect(queued.to).toBe("member@harrowmere.example");
+    const before = (await db.select().from(outbox)).length;
+    expect((await file(m.id, { target: "s7" })).status).toBe(422);
+    expect((await db.select().from(outbox)).length).toBe(before);
+    await deliverOutbox(100);
+    const mail = inbox.find((x) => x.subject === "Filing receipt: Amendment A1 to HCA 103");
+    expect(mail?.to).toContain("member@harrowmere.example");
+    expect(mail?.text).toContain(`HCA 103/A1/${r.body.id}`);
+  });
+
+  it("files from an uploaded document, keeping it and using its text", async () => {
+    const m = await newMeasure("HCA 104");
+    const body = await multipartBody(multipart({ form: "strike-and-insert", target: "s1", lines: "2-3", sponsors: `${L[2]},${L[3]}`, subjects: "lighting" }, { name: "amendment.pdf", bytes: pdfBytes("Replace lines two and three.") }));
+    const r = await call(filing.POST, "POST", "/x", { as: s.as.member, params: { id: m.id }, ...body });
+    expect(r.status).toBe(201);
+    expect(r.body.text).toContain("Replace lines two and three.");
+    expect(r.body.lines).toEqual([2, 3]);
+    expect(r.body.attachmentId).toBeTruthy();
+    const before = await tableCounts();
+    const wrong = await call(filing.POST, "POST", "/x", { as: s.as.member, params: { id: m.id }, ...(await multipartBody(multipart({ form: "insert", target: "s1" }, { name: "a.pdf", bytes: Buffer.from("GIF89a....") }))) });
+    expect(wrong.status).toBe(400);
+    expect(wrong.body.error.issues[0].path).toBe("file");
+    expect(await tableCounts()).toEqual(before);
+  });
+
+  it("saves a draft without a number or receipt, and files it later with the next number", async () => {
+    const m = await newMeasure("HCA 105");
+    const d = await file(m.id, { draft: true });
+    expect(d.body.status).toBe("draft");
+    expect(d.body.number).toBeNull();
+    expect(await db.select().from(outbox).where(eq(outbox.ref, d.body.id))).toEqual([]);
+    await file(m.id, {});
+    expect((await call(fileDraft.POST, "POST", "/x", { as: s.as.staff, params: { id: d.body.id }, body: { version: 1 } })).status).toBe(403);
+    expect((await call(fileDraft.POST, "POST", "/x", { as: s.outsider, params: { id: d.body.id }, body: { version: 1 } })).status).toBe(404);
+    const filed = await call(fileDraft.POST, "POST", "/x", { as: s.as.member, params: { id: d.body.id }, body: { version: 1 } });
+    expect(filed.status).toBe(200);
+    expect(filed.body.key).toBe("A2");
+    expect((await db.select().from(outbox).where(eq(outbox.ref, d.body.id))).length).toBe(1);
+    expect((await call(fileDraft.POST, "POST", "/x", { as: s.as.member, params: { id: d.body.id }, body: { version: 2 } })).status).toBe(409);
+  });
+});
+
+describe("editing amendments", () => {
+  it("lets a clerk change status and the filer edit while filed; refuses others", async () => {
+    const m = await newMeasure("HCA 110");
+    const a = (await file(m.id, {})).body;
+    const params = { id: a.id };
+    expect((await call(amendment.GET, "GET", "/x", { as: s.as.observer, params })).body.key).toBe("A1");
+    expect((await call(amendment.GET, "GET", "/x", { as: s.outsider, params })).status).toBe(404);
+    expect((await call(amendment.GET, "GET", "/x", { as: null, params })).status).toBe(401);
+    const before = await tableCounts();
+    expect((await call(amendment.PATCH, "PATCH", "/x", { as: s.as.staff, params, body: { version: 1, status: "pending" } })).status).toBe(403);
+    expect((await call(amendment.PATCH, "PATCH", "/x", { as: s.as.member, params, body: { version: 1, status: "adopted" } })).status).toBe(403);
+    expect((await call(amendment.PATCH, "PATCH", "/x", { as: s.outsider, params, body: { version: 1, status: "pending" } })).status).toBe(404);
+    expect((await call(amendment.PATCH, "PATCH", "/x", { as: s.as.clerk, params, body: { version: 1, target: a.id } })).status).toBe(422);
+    expect(await tableCounts()).toEqual(before);
+    const edited = await call(amendment.PATCH, "PATCH", "/x", { as: s.as.member, params, body: { version: 1, text: "Better words." } });
+    expect(edited.status).toBe(200);
+    const pending = await call(amendment.PATCH, "PATCH", "/x", { as: s.as.clerk, params, body: { version: 2, status: "pending" } });
+    expect(pending.body.status).toBe("pending");
+    expect((await call(amendment.PATCH, "PATCH", "/x", { as: s.as.member, params, body: { version: 3, status: "withdrawn" } })).status).toBe(403);
+  });
+
+  it("answers a stale edit with 409 saying who changed which fields", async () => {
+    const m = await newMeasure("HCA 111");
+    const a = (await file(m.id, {})).body;
+    const params = { id: a.id };
+    await call(amendment.PATCH, "PATCH", "/x", { as: s.as.clerk, params, body: { version: 1, text: "Clerk's text", subjects: ["lighting", "safety"] } });
+    const before = await tableCounts();
+    const stale = await call(amendment.PATCH, "PATCH", "/x", { as: s.as["chief-clerk"], params, body: { version: 1, status: "pending" } });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.details).toMatchObject({ entity: "amendment", basedOn: 1, current: 2 });
+    expect(stale.body.error.details.changes[0]).toMatchObject({ by: "Tamsin Abernethy", fields: ["subjects", "text"] });
+    expect(await tableCounts()).toEqual(before);
+    const log = await call(auditRoute.GET, "GET", "/x", { as: s.as.member, params: { id: m.id } });
+    const entry = log.body.entries.find((e: { action: string }) => e.action === "edited A1");
+    expect(entry.before.text).toBe("Add a line.");
+    expect(entry.after.text).toBe("Clerk's text");
+  });
+});
+
+describe("the tree", () => {
+  let demo: string;
+  beforeAll(async () => {
+    demo = (await seedMeasures())!.measureId;
+  });
+
+  it("validates the demo tree under the chamber's rulebook and links findings to amendments", async () => {
+    for (const role of ROLES) expect((await call(treeRoute.GET, "GET", "/x", { as: s.as[role], params: { id: demo } })).status, role).toBe(200);
+    expect((await call(treeRoute.GET, "GET", "/x", { as: null, params: { id: demo } })).status).toBe(401);
+    expect((await call(treeRoute.GET, "GET", "/x", { as: s.outsider, params: { id: demo } })).status).toBe(404);
+    const t = (await call(treeRoute.GET, "GET", "/x", { as: s.as.member, params: { id: demo } })).body;
+    const codes = t.findings.map((f: { amendment: string; code: string }) => `${f.amendment}:${f.code}`);
+    // Seeded to show each kind of finding the issue lists (demo-chamber rulebook: maxDegree 2, two sponsors, 48 h deadline).
+    for (const c of ["A4:not-germane", "A5:filed-late", "A6:sponsors-missing", "A8:degree-exceeded", "A1:conflicts-with", "A7:conflicts-with"]) expect(codes).toContain(c);
+    const rows = await db.select({ id: amendments.id, number: amendments.number }).from(amendments).where(eq(amendments.measureId, demo));
+    const a4 = t.findings.find((f: { code: string }) => f.code === "not-germane");
+    expect(a4.amendmentId).toBe(rows.find((r) => r.number === 4)!.id);
+    expect(t.nodes.find((n: { key: string }) => n.key === "A2").degree).toBe(2);
+    expect(t.nodes.find((n: { key: string }) => n.key === "A8").degree).toBe(3);
+  });
+
+  it("records an override resting on a ruling (clerks only), refuses stale or unknown findings, and can revoke it", async () => {
+    const t = (await call(treeRoute.GET, "GET", "/x", { as: s.as.clerk, params: { id: demo } })).body;
+    const f = t.findings.find((x: { code: string }) => x.code === "not-germane");
+    const node = t.nodes.find((n: { key: string }) => n.key === f.amendment);
+    const body = { amendmentId: f.amendmentId, code: "not-germane", version: node.version, rulingRef: "Ruling 3 of the Presiding Officer" };
+    const before = await tableCounts();
+    for (const role of ["member", "staff", "observer"] as const) expect((await call(overrides.POST, "POST", "/x", { as: s.as[role], params: { id: demo }, body })).status, role).toBe(403);
+    expect((await call(overrides.POST, "POST", "/x", { as: null, params: { id: demo }, body })).status).toBe(401);
+    expect((await call(overrides.POST, "POST", "/x", { as: s.outsider, params: { id: demo }, body })).status).toBe(404);
+    expect((await call(overrides.POST, "POST", "/x", { as: s.as.clerk, params: { id: demo }, body: { ...body, code: "cycle" } })).status).toBe(422);
+    expect((await call(overrides.POST, "POST", "/x", { as: s.as.clerk, params: { id: demo }, body: { ...body, version: node.version + 5 } })).status).toBe(409);
+    expect((await call(overrides.POST, "POST", "/x", { as: s.as.clerk, params: { id: demo }, body: { ...body, rulingRef: "" } })).status).toBe(400);
+    expect((await call(overrides.POST, "POST", "/x", { as: s.as.clerk, params: { id: demo }, body: { ...body, rulingId: "00000000-0000-4000-8000-000000000000" } })).status).toBe(422);
+    expect(await tableCounts()).toEqual(before);
+    const ok = await call(overrides.POST, "POST", "/x", { as: s.as["chief-clerk"], params: { id: demo }, body });
+    expect(ok.status).toBe(201);
+    expect((await call(overrides.POST, "POST", "/x", { as: s.as.clerk, params: { id: demo }, body })).status).toBe(409);
+    const after = (await call(treeRoute.GET, "GET", "/x", { as: s.as.observer, params: { id: demo } })).body;
+    const same = after.findings.find((x: { code: string; amendment: string }) => x.code === "not-germane" && x.amendment === f.amendment);
+    expect(same).toMatchObject({ overridden: true, ruling: "Ruling 3 of the Presiding Officer", overrideId: ok.body.id });
+    expect(after.counts.overridden).toBe(t.counts.overridden + 1);
+    const log = (await call(auditRoute.GET, "GET", "/x", { as: s.as.observer, params: { id: demo } })).body.entries;
+    expect(log[0]).toMatchObject({ entity: "override", action: `overrode not-germane on ${f.amendment}`, actorName: "Odile Fenwright" });
+    const p = { id: demo, oid: ok.body.id };
+    expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.as.member, params: p })).status).toBe(403);
+    expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.outsider, params: p })).status).toBe(404);
+    expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.as.clerk, params: p })).status).toBe(200);
+    expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.as.clerk, params: p })).status).toBe(404);
+  });
+
+  it("re-running the seed changes nothing", async () => {
+    const before = await tableCounts();
+    await seedMeasures();
+    expect(await tableCounts()).toEqual(before);
+  });
+});
