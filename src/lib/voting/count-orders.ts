@@ -28,7 +28,8 @@ export interface RunControl {
   maxStates?: number;
 }
 
-export const DEFAULT_MAX_STATES = 20_000_000;
+/** About 300–600 MB of maps at the peak; beyond it a count stops with limit-exceeded instead of exhausting memory. */
+export const DEFAULT_MAX_STATES = 4_000_000;
 
 /**
  * Count, for every final state, the legal orders that reach it. `direction: "backward"` places the
@@ -64,12 +65,11 @@ export function countOrders<S extends number | string>(prec: Precedence, machine
           const prev = target.get(s2);
           if (prev === undefined) {
             target.set(s2, count);
-            states++;
+            if (++states > maxStates) throw new GavelError("limit-exceeded", `the count needs more than ${maxStates} states in one position`, { details: { states } });
           } else target.set(s2, (prev as number) + (count as number));
         }
       }
     }
-    if (states > maxStates) throw new GavelError("limit-exceeded", `the count needs more than ${maxStates} states`, { details: { states } });
     layer = next;
     control.onProgress?.((pos + 1) / n);
   }

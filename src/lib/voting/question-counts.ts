@@ -6,6 +6,7 @@
  *    i.e. the backward-induction outcome for every possible adopted set of the questions before it.
  *    Tables are interned, so orders whose suffixes induce the same table are merged.
  */
+import { GavelError } from "../errors.ts";
 import { countOrders, type OrderMachine, type RunControl } from "./count-orders.ts";
 import type { Count } from "./count-json.ts";
 import type { Precedence } from "./precedence.ts";
@@ -29,17 +30,23 @@ function compress(a: number, bitsOfC: readonly number[]): number {
   return r;
 }
 
+/** Total entries of all interned value tables; beyond it the count stops with limit-exceeded. */
+export const MAX_TABLE_ENTRIES = 30_000_000;
+
 export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence, control?: RunControl): Count[] {
   const n = qa.k + 1;
   const full = (2 ** n - 1) | 0;
   const bitsOf = (c: number) => [...Array(n).keys()].filter((i) => c & (1 << i));
   const tables: Array<{ c: number; bits: number[]; values: Int32Array }> = [];
   const ids = new Map<string, number>();
+  let entries = 0;
   const intern = (c: number, bits: number[], values: Int32Array): number => {
     const key = `${c}|${values.join(",")}`;
     let id = ids.get(key);
     if (id === undefined) {
       id = tables.length;
+      entries += values.length;
+      if (entries > MAX_TABLE_ENTRIES) throw new GavelError("limit-exceeded", `the sophisticated count needs more than ${MAX_TABLE_ENTRIES} table entries`, { details: { tables: tables.length } });
       tables.push({ c, bits, values });
       ids.set(key, id);
     }
