@@ -1,0 +1,256 @@
+import { useCallback, useEffect, useRef, useState } from "react";
+import { ApiError, getJson, sendJson, when } from "../rulebooks/api.ts";
+import LegalMovesList from "./LegalMovesList.tsx";
+import { recordedSchema, sittingSchema, type Sitting } from "./schemas.ts";
+
+interface Props {
+  sittingId: string;
+  canRecord: boolean;
+}
+
+const STAGE_LABELS = { made: "Moved", seconded: "Seconded", stated: "Stated by the chair" } as const;
+
+/** The live board of one sitting: pending stack, floor facts, legal moves, history; clerks record events here. */
+export default function FloorBoard({ sittingId, canRecord }: Props) {
+  const [data, setData] = useState<Sitting | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const [live, setLive] = useState<"connecting" | "live" | "offline">("connecting");
+  const [busy, setBusy] = useState(false);
+  const [notice, setNotice] = useState<string | null>(null);
+  const [outOfOrder, setOutOfOrder] = useState<string | null>(null);
+  const [motion, setMotion] = useState("");
+  const [text, setText] = useState("");
+  const [mover, setMover] = useState("");
+  const [admitted, setAdmitted] = useState(false);
+  const [result, setResult] = useState<"adopted" | "rejected">("adopted");
+  const [tally, setTally] = useState({ yes: "", no: "", abstain: "" });
+  const [disposesBelow, setDisposesBelow] = useState(false);
+  const [speaker, setSpeaker] = useState("");
+  const latest = useRef(0);
+
+  const load = useCallback(async () => {
+    try {
+      const d = await getJson(`/api/floor/sittings/${sittingId}`, sittingSchema);
+      if (d.sitting.revision >= latest.current) {
+        latest.current = d.sitting.revision;
+        setData(d);
+      }
+      setError(null);
+    } catch (e) {
+      setError(e instanceof Error ? e.message : "Could not load the floor.");
+    }
+  }, [sittingId]);
+
+  useEffect(() => {
+    void load();
+    const es = new EventSource(`/api/floor/sittings/${sittingId}/stream`);
+    es.addEventListener("ready", () => {
+      setLive("live");
+      void load();
+    });
+    es.addEventListener("floor", () => void load());
+    es.onerror = () => setLive(es.readyState === EventSource.CLOSED ? "offline" : "connecting");
+    return () => es.close();
+  }, [sittingId, load]);
+
+  async function record(event: Record<string, unknown>) {
+    if (!data) return;
+    setBusy(true);
+    setNotice(null);
+    setOutOfOrder(null);
+    try {
+      const r = await sendJson(`/api/floor/sittings/${sittingId}/events`, "POST", { revision: data.sitting.revision, event }, recordedSchema);
+      setNotice(`Recorded: ${r.summary}`);
+      await load();
+      return true;
+    } catch (e) {
+      if (e instanceof ApiError && e.code === "unprocessable" && e.details?.reasons) setOutOfOrder(e.message);
+      else setNotice(e instanceof Error ? e.message : "Not recorded.");
+      if (e instanceof ApiError && e.status === 409) await load();
+      return false;
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  if (error && !data) return <p className="gw-error" role="alert">{error}</p>;
+  if (!data) return <p className="text-ink-soft">Loading the floor…</p>;
+  const { board, sitting } = data;
+  const top = board.pending[board.pending.length - 1];
+  const open = sitting.status === "open";
+  const stack = [...board.pending].reverse();
+
+  return (
+    <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1.1fr)]">
+      <div className="space-y-5">
+        <div className="flex flex-wrap items-center gap-2 text-sm">
+          <span className={`gw-chip ${live === "live" ? "border-verdict-ok text-verdict-ok" : "border-brass text-brass-text"}`} data-testid="live-status">
+            {live === "live" ? "● Live" : live === "connecting" ? "Connecting…" : "Offline — reload to reconnect"}
+          </span>
+          <span className="text-ink-soft">
+            {open ? "Open" : "Closed"} · judged by rulebook version {data.rulebook.number} ({data.rulebook.title}) · revision {sitting.revision}
+          </span>
+        </div>
+
+        <section aria-labelledby="stack-h" className="gw-card">
+          <h2 id="stack-h" className="text-step-1">Pending questions</h2>
+          {stack.length === 0 ? (
+            <p className="mt-2 text-ink-soft" data-testid="stack-empty">No question is pending.</p>
+          ) : (
+            <ol className="mt-2 space-y-2" data-testid="pending-stack">
+              {stack.map((p, i) => (
+                <li key={p.key} className={`rounded-md border px-3 py-2 ${i === 0 ? "border-chamber bg-chamber-tint" : "border-rule bg-white"}`} data-motion={p.motion}>
+                  <div className="flex flex-wrap items-center gap-2">
+                    {i === 0 && <span className="gw-chip border-chamber text-chamber-dark">Immediately pending</span>}
+                    <span className="font-semibold">{p.name}</span>
+                    {p.degree !== null && <span className="text-sm text-ink-soft">degree {p.degree}</span>}
+                    <span className="gw-chip border-rule text-ink-soft">{STAGE_LABELS[p.stage]}</span>
+                    {p.debateBegun && <span className="gw-chip border-brass text-brass-text">In debate</span>}
+                  </div>
+                  {p.text && <p className="mt-1 font-serif">{p.text}</p>}
+                  {p.mover && <p className="text-sm text-ink-soft">Moved by {p.mover}</p>}
+                  {canRecord && open && (
+                    <button type="button" className="gw-btn-quiet mt-1" disabled={busy} onClick={() => void record({ kind: "withdrawn", key: p.key })}>
+                      Withdrawn{i > 0 ? " (with those above)" : ""}
+                    </button>
+                  )}
+                </li>
+              ))}
+            </ol>
+          )}
+          <dl className="mt-3 grid grid-cols-2 gap-x-4 gap-y-1 text-sm">
+            <dt className="text-ink-soft">Has the floor</dt>
+            <dd data-testid="speaker">{board.speaker ?? "No one"}</dd>
+            <dt className="text-ink-soft">Debate begun</dt>
+            <dd>{top ? (top.debateBegun ? "Yes" : "Not yet") : "—"}</dd>
+            <dt className="text-ink-soft">Chair has just ruled</dt>
+            <dd>{board.chairHasRuled ? "Yes (an appeal lies)" : "No"}</dd>
+            <dt className="text-ink-soft">On the table</dt>
+            <dd>{board.tabled}</dd>
+            <dt className="text-ink-soft">Last vote</dt>
+            <dd>
+              {board.lastVote
+                ? `${board.lastVote.name}: ${board.lastVote.result}${board.lastVote.tally ? ` (${board.lastVote.tally.yes}–${board.lastVote.tally.no}${board.lastVote.tally.abstain ? `, ${board.lastVote.tally.abstain} abstaining` : ""})` : ""}`
+                : "None yet"}
+            </dd>
+          </dl>
+        </section>
+
+        {canRecord && open && (
+          <section aria-labelledby="record-h" className="gw-card space-y-4">
+            <h2 id="record-h" className="text-step-1">Record the floor</h2>
+            {notice && <p role="status" className="text-sm" data-testid="record-notice">{notice}</p>}
+            {outOfOrder && <p role="alert" className="gw-error">{outOfOrder}</p>}
+            <form
+              className="space-y-2"
+              onSubmit={async (e) => {
+                e.preventDefault();
+                if (!motion) return;
+                if (await record({ kind: "made", motion, text, mover, overrule: admitted })) {
+                  setText("");
+                  setAdmitted(false);
+                }
+              }}
+            >
+              <h3 className="text-step-0 font-semibold">A motion is made</h3>
+              <label className="gw-label" htmlFor="rec-motion">Motion</label>
+              <select id="rec-motion" className="gw-input" value={motion} onChange={(e) => setMotion(e.target.value)} required>
+                <option value="">Choose a motion…</option>
+                <optgroup label="In order now">
+                  {data.moves.filter((m) => m.inOrder).map((m) => <option key={m.motion} value={m.motion}>{m.name}</option>)}
+                </optgroup>
+                <optgroup label="Out of order now">
+                  {data.moves.filter((m) => !m.inOrder).map((m) => <option key={m.motion} value={m.motion}>{m.name}</option>)}
+                </optgroup>
+              </select>
+              <label className="gw-label" htmlFor="rec-text">Wording (optional)</label>
+              <input id="rec-text" className="gw-input" value={text} maxLength={2000} onChange={(e) => setText(e.target.value)} />
+              <label className="gw-label" htmlFor="rec-mover">Moved by (optional)</label>
+              <input id="rec-mover" className="gw-input" value={mover} maxLength={200} onChange={(e) => setMover(e.target.value)} />
+              <label className="flex items-center gap-2 text-sm">
+                <input type="checkbox" checked={admitted} onChange={(e) => setAdmitted(e.target.checked)} /> The chair admitted it although the rulebook finds it out of order
+              </label>
+              <button className="gw-btn" disabled={busy || !motion}>Record motion made</button>
+            </form>
+
+            {top && (
+              <div className="space-y-2 border-t border-rule pt-3">
+                <h3 className="text-step-0 font-semibold">On the immediately pending question: {top.name}</h3>
+                <div className="flex flex-wrap gap-2">
+                  <button type="button" className="gw-btn-quiet" disabled={busy || top.stage !== "made"} onClick={() => void record({ kind: "seconded" })}>Seconded</button>
+                  <button type="button" className="gw-btn-quiet" disabled={busy || top.stage === "stated"} onClick={() => void record({ kind: "stated" })}>Stated by the chair</button>
+                  <button type="button" className="gw-btn-quiet" disabled={busy} onClick={() => void record({ kind: "floor", debateBegun: !top.debateBegun })}>{top.debateBegun ? "Debate not begun" : "Debate begun"}</button>
+                </div>
+                <form
+                  className="flex flex-wrap items-end gap-2"
+                  onSubmit={async (e) => {
+                    e.preventDefault();
+                    const n = (v: string) => (v === "" ? 0 : Math.max(0, Math.floor(Number(v)) || 0));
+                    const hasTally = tally.yes !== "" || tally.no !== "";
+                    if (await record({ kind: "voted", result, tally: hasTally ? { yes: n(tally.yes), no: n(tally.no), abstain: n(tally.abstain) } : null, disposesBelow })) {
+                      setTally({ yes: "", no: "", abstain: "" });
+                      setDisposesBelow(false);
+                    }
+                  }}
+                >
+                  <label className="text-sm">
+                    <span className="gw-label">Result</span>
+                    <select className="gw-input" value={result} onChange={(e) => setResult(e.target.value === "rejected" ? "rejected" : "adopted")}>
+                      <option value="adopted">Adopted</option>
+                      <option value="rejected">Rejected</option>
+                    </select>
+                  </label>
+                  {(["yes", "no", "abstain"] as const).map((k) => (
+                    <label key={k} className="w-20 text-sm">
+                      <span className="gw-label">{k === "yes" ? "Ayes" : k === "no" ? "Noes" : "Abstaining"}</span>
+                      <input className="gw-input" inputMode="numeric" value={tally[k]} onChange={(e) => setTally({ ...tally, [k]: e.target.value.replace(/\D/g, "") })} />
+                    </label>
+                  ))}
+                  <label className="flex items-center gap-2 text-sm">
+                    <input type="checkbox" checked={disposesBelow} onChange={(e) => setDisposesBelow(e.target.checked)} /> Adopting it disposes of the questions below (tabled, referred, postponed)
+                  </label>
+                  <button className="gw-btn" disabled={busy}>Record vote</button>
+                </form>
+              </div>
+            )}
+
+            <div className="space-y-2 border-t border-rule pt-3">
+              <h3 className="text-step-0 font-semibold">The floor</h3>
+              <form
+                className="flex flex-wrap items-end gap-2"
+                onSubmit={async (e) => {
+                  e.preventDefault();
+                  if (await record({ kind: "floor", speaker: speaker.trim() || null })) setSpeaker("");
+                }}
+              >
+                <label className="min-w-48 flex-1 text-sm">
+                  <span className="gw-label">Member recognised (blank: no one)</span>
+                  <input className="gw-input" value={speaker} maxLength={200} onChange={(e) => setSpeaker(e.target.value)} />
+                </label>
+                <button className="gw-btn-quiet" disabled={busy}>Set who has the floor</button>
+              </form>
+              <div className="flex flex-wrap gap-2">
+                <button type="button" className="gw-btn-quiet" disabled={busy} onClick={() => void record({ kind: "floor", chairHasRuled: !board.chairHasRuled })}>{board.chairHasRuled ? "Appeal time over" : "The chair has ruled"}</button>
+                <button type="button" className="gw-btn-danger" disabled={busy} onClick={() => { if (confirm("Close this sitting? Nothing more can be recorded in it.")) void record({ kind: "close" }); }}>Close the sitting</button>
+              </div>
+            </div>
+          </section>
+        )}
+
+        <section aria-labelledby="hist-h" className="gw-card">
+          <h2 id="hist-h" className="text-step-1">History of the sitting</h2>
+          <ol className="mt-2 space-y-1 text-sm" data-testid="history">
+            {data.history.map((h) => (
+              <li key={h.seq}>
+                <span className="text-ink-soft">{when(h.at)}</span> {h.summary}
+                {h.by ? <span className="text-ink-soft"> · recorded by {h.by}</span> : null}
+              </li>
+            ))}
+            {data.history.length === 0 && <li className="text-ink-soft">Nothing recorded yet.</li>}
+          </ol>
+        </section>
+      </div>
+      <LegalMovesList moves={data.moves} caption={`revision ${sitting.revision}`} />
+    </div>
+  );
+}

@@ -1,0 +1,56 @@
+/** Shapes of the legal-moves and floor APIs' answers, parsed in the browser. */
+import { z } from "zod";
+import { VOTE_THRESHOLDS } from "../../lib/procedure/voting-section.ts";
+import { MOTION_CLASSES } from "../../lib/procedure/rulebook-schema.ts";
+
+export const verdictSchema = z.object({
+  motion: z.string(),
+  name: z.string(),
+  class: z.enum(MOTION_CLASSES),
+  rank: z.number().nullable(),
+  inOrder: z.boolean(),
+  reasons: z.array(z.object({ rule: z.string(), citation: z.string(), message: z.string() })),
+  second: z.boolean(),
+  debatable: z.boolean(),
+  amendable: z.boolean(),
+  vote: z.enum(VOTE_THRESHOLDS),
+  interrupt: z.boolean(),
+  degree: z.number().optional(),
+});
+export type Verdict = z.output<typeof verdictSchema>;
+
+export const rulebookRefSchema = z.object({ versionId: z.string(), number: z.number(), title: z.string() });
+export const movesAnswerSchema = z.object({ rulebook: rulebookRefSchema, moves: z.array(verdictSchema) });
+
+export const pendingItemSchema = z.object({ key: z.string(), motion: z.string(), name: z.string(), degree: z.number().nullable(), text: z.string(), mover: z.string(), stage: z.enum(["made", "seconded", "stated"]), debateBegun: z.boolean() });
+export type PendingItem = z.output<typeof pendingItemSchema>;
+
+export const boardSchema = z.object({
+  pending: z.array(pendingItemSchema),
+  speaker: z.string().nullable(),
+  chairHasRuled: z.boolean(),
+  voteTaken: z.boolean(),
+  tabled: z.number(),
+  lastVote: z.object({ motion: z.string(), name: z.string(), result: z.enum(["adopted", "rejected"]), tally: z.object({ yes: z.number(), no: z.number(), abstain: z.number() }).nullable() }).nullable(),
+});
+
+export const sittingSummarySchema = z.object({ id: z.string(), title: z.string(), status: z.enum(["open", "closed"]), revision: z.number(), openedAt: z.string(), closedAt: z.string().nullable() });
+export const sittingsSchema = z.object({ sittings: z.array(sittingSummarySchema) });
+
+export const sittingSchema = z.object({
+  sitting: sittingSummarySchema,
+  rulebook: rulebookRefSchema,
+  board: boardSchema,
+  moves: z.array(verdictSchema),
+  history: z.array(z.object({ seq: z.number(), kind: z.string(), summary: z.string(), by: z.string().nullable(), at: z.string() })),
+});
+export type Sitting = z.output<typeof sittingSchema>;
+
+export const recordedSchema = z.object({ revision: z.number(), summary: z.string() });
+
+export const VOTE_LABELS: Record<(typeof VOTE_THRESHOLDS)[number], string> = {
+  majority: "Majority of those voting",
+  "two-thirds": "Two-thirds",
+  "majority-of-members": "Majority of the members",
+  none: "No vote (chair decides)",
+};

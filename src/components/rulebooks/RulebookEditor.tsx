@@ -1,0 +1,434 @@
+import { useEffect, useMemo, useState } from "react";
+import { z } from "zod";
+import { AMENDMENT_FORMS } from "../../lib/amendments/case-schema.ts";
+import { isGavelError } from "../../lib/errors.ts";
+import { parseRulebook } from "../../lib/procedure/parse-rulebook.ts";
+import { FINDING_SEVERITIES, MOTION_CLASSES, rulebookSchema, type MotionInput, type RulebookInput } from "../../lib/procedure/rulebook-schema.ts";
+import { RULE_SCOPES } from "../../lib/procedure/rule-vocabulary.ts";
+import { ORDER_CONSTRAINTS, VOTE_THRESHOLDS } from "../../lib/procedure/voting-section.ts";
+import { ApiError, day, getJson, sendJson, when, type Issue } from "./api.ts";
+import ConditionBuilder, { OperatorList } from "./ConditionBuilder.tsx";
+import { CheckField, issueLookup, Messages, NumberField, SelectField, TextField, type IssueLookup } from "./fields.tsx";
+import { adoptedSchema, documentSchema, librarySchema, savedSchema, staleSchema, templateSchema, versionSchema } from "./schemas.ts";
+
+type Rule = RulebookInput["rules"][number];
+type Tab = "motions" | "rules" | "sections" | "raw";
+
+interface Props {
+  /** Open this version… */
+  versionId?: string;
+  /** …or start a new version from this template. */
+  template?: string;
+  canEdit: boolean;
+  canAdopt: boolean;
+}
+
+interface Loaded {
+  doc: RulebookInput;
+  basedOn: string | null;
+  meta: z.output<typeof versionSchema> | null;
+  latest: { id: string; number: number } | null;
+}
+
+const VOTE_LABELS: Record<(typeof VOTE_THRESHOLDS)[number], string> = { majority: "Majority", "two-thirds": "Two-thirds", "majority-of-members": "Majority of members", none: "None" };
+
+/** Validation with the core's own parser, run as the clerk types; the server runs the same on save. */
+function validate(doc: unknown): Issue[] {
+  try {
+    parseRulebook(doc);
+    return [];
+  } catch (e) {
+    if (isGavelError(e)) return e.issues.length ? e.issues : [{ path: "(root)", message: e.message }];
+    return [{ path: "(root)", message: "could not be checked" }];
+  }
+}
+
+export default function RulebookEditor({ versionId, template, canEdit, canAdopt }: Props) {
+  const [loaded, setLoaded] = useState<Loaded | null>(null);
+  const [doc, setDoc] = useState<RulebookInput | null>(null);
+  const [rev, setRev] = useState(0);
+  const [tab, setTab] = useState<Tab>("motions");
+  const [note, setNote] = useState("");
+  const [serverIssues, setServerIssues] = useState<Issue[]>([]);
+  const [message, setMessage] = useState<{ kind: "ok" | "error"; text: string } | null>(null);
+  const [stale, setStale] = useState<z.output<typeof staleSchema> | null>(null);
+  const [busy, setBusy] = useState(false);
+  const [effective, setEffective] = useState(() => new Date().toISOString().slice(0, 10));
+  const [adoptNote, setAdoptNote] = useState("");
+  const [loadError, setLoadError] = useState<string | null>(null);
+
+  useEffect(() => {
+    (async () => {
+      try {
+        if (versionId) {
+          const v = await getJson(`/api/rulebooks/${versionId}`, versionSchema);
+          const d = documentSchema.parse(v.document);
+          setLoaded({ doc: d, basedOn: v.id, meta: v, latest: v.latest });
+          setDoc(d);
+        } else {
+          const lib = await getJson("/api/rulebooks", librarySchema);
+          let d: RulebookInput;
+          if (template) d = documentSchema.parse((await getJson(`/api/rulebooks/templates/${encodeURIComponent(template)}`, templateSchema)).document);
+          else if (lib.latest) d = documentSchema.parse((await getJson(`/api/rulebooks/${lib.latest.id}`, versionSchema)).document);
+          else throw new Error("Choose a template to start from.");
+          setLoaded({ doc: d, basedOn: lib.latest?.id ?? null, meta: null, latest: lib.latest });
+          setDoc(d);
+          if (template) setNote(`Started from the template ${template}`);
+        }
+      } catch (e) {
+        setLoadError(e instanceof Error ? e.message : "Could not load the rulebook.");
+      }
+    })();
+  }, [versionId, template]);
+
+  const liveIssues = useMemo(() => (doc ? validate(doc) : []), [doc]);
+  const issues = liveIssues.length ? liveIssues : serverIssues;
+  const at = useMemo(() => issueLookup(issues), [issues]);
+  const dirty = loaded !== null && doc !== null && JSON.stringify(doc) !== JSON.stringify(loaded.doc);
+
+  if (loadError) return <p className="gw-error" role="alert">{loadError}</p>;
+  if (!loaded || !doc) return <p className="text-ink-soft">Loading the rulebook…</p>;
+  const readOnly = !canEdit;
+  const meta = loaded.meta;
+  const notLatest = meta && loaded.latest && loaded.latest.id !== meta.id;
+
+  const update = (patch: Partial<RulebookInput>) => {
+    setDoc({ ...doc, ...patch });
+    setServerIssues([]);
+    setMessage(null);
+  };
+  const setMotion = (i: number, patch: Partial<MotionInput>) => update({ motions: doc.motions.map((m, j) => (j === i ? { ...m, ...patch } : m)) });
+  const setRule = (i: number, patch: Partial<Rule>) => update({ rules: doc.rules.map((r, j) => (j === i ? { ...r, ...patch } : r)) });
+
+  async function save() {
+    if (!doc || !loaded) return;
+    setBusy(true);
+    setMessage(null);
+    setStale(null);
+    try {
+      const r = await sendJson("/api/rulebooks", "POST", { basedOn: loaded.basedOn, note, document: doc, ...(template ? { template } : {}) }, savedSchema);
+      window.location.assign(`/rulebooks/${r.id}?saved=${r.number}`);
+    } catch (e) {
+      if (e instanceof ApiError) {
+        setServerIssues(e.issues.filter((i) => i.path !== "basedOn"));
+        const s = staleSchema.safeParse(e.details);
+        if (e.status === 409 && s.success) setStale(s.data);
+        setMessage({ kind: "error", text: e.message });
+      } else setMessage({ kind: "error", text: "Not saved: the server could not be reached." });
+      setBusy(false);
+    }
+  }
+
+  async function adopt() {
+    if (!meta) return;
+    setBusy(true);
+    try {
+      const r = await sendJson(`/api/rulebooks/${meta.id}/adopt`, "POST", { effectiveFrom: effective, note: adoptNote }, adoptedSchema);
+      setMessage({ kind: "ok", text: `Version ${r.number} adopted with effect from ${day(r.effectiveFrom)}${r.inForce ? "; it is now in force." : "; it comes into force on that date."}` });
+      const v = await getJson(`/api/rulebooks/${meta.id}`, versionSchema);
+      setLoaded({ ...loaded!, meta: v });
+    } catch (e) {
+      setMessage({ kind: "error", text: e instanceof Error ? e.message : "Not adopted." });
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  const tabButton = (t: Tab, label: string, prefixes: string[]) => {
+    const n = issues.filter((i) => prefixes.some((p) => i.path === p || i.path.startsWith(`${p}.`))).length;
+    return (
+      <button type="button" role="tab" aria-selected={tab === t} onClick={() => setTab(t)} className={`rounded-t-md border border-b-0 px-3 py-1.5 text-sm font-semibold ${tab === t ? "border-rule bg-white text-chamber-dark" : "border-transparent text-ink-soft hover:text-ink"}`}>
+        {label}
+        {n > 0 && <span className="ml-1.5 rounded-full bg-verdict-bar px-1.5 text-xs text-white">{n}</span>}
+      </button>
+    );
+  };
+
+  return (
+    <div className="space-y-4">
+      <OperatorList />
+      <header className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <h1>{doc.title}</h1>
+          <p className="mt-1 text-sm text-ink-soft">
+            {meta ? (
+              <>
+                Version {meta.number} · saved {when(meta.createdAt)} by {meta.author ?? "unknown"}
+                {meta.note ? ` · “${meta.note}”` : ""}
+                {meta.inForce && <span className="gw-chip ml-2 border-verdict-ok bg-verdict-ok-tint text-verdict-ok">In force</span>}
+                {meta.adoptions.length > 0 && !meta.inForce && <span className="gw-chip ml-2 border-brass text-brass-text">Adopted {meta.adoptions.map((a) => day(a.effectiveFrom)).join(", ")}</span>}
+              </>
+            ) : (
+              <>New version{template ? ` from the template “${template}”` : ""}, based on {loaded.latest ? `version ${loaded.latest.number}` : "nothing (the chamber's first rulebook)"}</>
+            )}
+          </p>
+        </div>
+        <div className="flex flex-wrap gap-2">
+          {meta && <a className="gw-btn-quiet no-underline" href={`/api/rulebooks/${meta.id}/export`} download>Export JSON</a>}
+          {meta && loaded.latest && loaded.latest.id !== meta.id && <a className="gw-btn-quiet no-underline" href={`/rulebooks/compare?from=${meta.id}&to=${loaded.latest.id}`}>Compare with latest</a>}
+        </div>
+      </header>
+
+      {notLatest && canEdit && (
+        <p className="gw-advisory">
+          This is not the latest version (version {loaded.latest!.number} is). A save based on it would be refused as stale.{" "}
+          <button type="button" className="font-semibold underline" onClick={() => setLoaded({ ...loaded, basedOn: loaded.latest!.id })}>Use this text as the next version after {loaded.latest!.number}</button>
+        </p>
+      )}
+      {!canEdit && <p className="gw-hint">You can read this rulebook; clerks edit and adopt it.</p>}
+      {message && <p role={message.kind === "error" ? "alert" : "status"} className={message.kind === "error" ? "gw-error" : "font-semibold text-verdict-ok"} data-testid="editor-message">{message.text}</p>}
+      {stale && (
+        <div className="gw-card border-verdict-bar" data-testid="stale">
+          <h2 className="text-step-1">Someone saved first</h2>
+          <p className="text-sm">Saved since you started: {stale.savedSince.map((v) => `version ${v.number} by ${v.author ?? "someone"}${v.note ? ` (“${v.note}”)` : ""}`).join("; ")}. What changed:</p>
+          <ul className="mt-1 list-disc pl-5 text-sm">{stale.changes.summary.map((s) => <li key={s}>{s}</li>)}</ul>
+          <p className="mt-2 text-sm">Your edits are still here. <a href={`/rulebooks/${stale.latest.id}`} target="_blank" rel="noreferrer">Open version {stale.latest.number}</a> to merge by hand, or <button type="button" className="font-semibold underline" onClick={() => { setLoaded({ ...loaded, basedOn: stale.latest.id }); setStale(null); setMessage(null); }}>save over it as the next version</button>.</p>
+        </div>
+      )}
+
+      <div role="tablist" className="flex flex-wrap gap-1 border-b border-rule">
+        {tabButton("motions", "Motion catalogue", ["motions", "precedence"])}
+        {tabButton("rules", "Rules", ["rules"])}
+        {tabButton("sections", "Amendments, voting & chamber", ["amendments", "voting", "chamber", "source", "title", "id", "version"])}
+        {tabButton("raw", "Raw JSON", ["(root)", "format", "formatVersion"])}
+      </div>
+
+      <div key={rev}>
+        {tab === "motions" && <MotionTable doc={doc} at={at} readOnly={readOnly} setMotion={setMotion} update={update} />}
+        {tab === "rules" && <RulesPanel doc={doc} at={at} readOnly={readOnly} setRule={setRule} update={update} />}
+        {tab === "sections" && <SectionsPanel doc={doc} at={at} readOnly={readOnly} update={update} />}
+        {tab === "raw" && <RawPanel doc={doc} readOnly={readOnly} onApply={(d) => { setDoc(d); setRev(rev + 1); setServerIssues([]); }} />}
+      </div>
+
+      {issues.length > 0 && (
+        <section className="gw-card border-verdict-bar" aria-labelledby="issues-h" data-testid="issues">
+          <h2 id="issues-h" className="text-step-1">{issues.length} problem{issues.length === 1 ? "" : "s"} to fix before saving</h2>
+          <ul className="mt-1 list-disc pl-5 text-sm">{issues.slice(0, 30).map((i, n) => <li key={n}><code>{i.path}</code>: {i.message}</li>)}</ul>
+        </section>
+      )}
+
+      {canEdit && (
+        <section className="gw-card flex flex-wrap items-end gap-3" aria-label="Save">
+          <div className="min-w-64 flex-1">
+            <TextField path="(note)" label="Note for this version" at={() => []} value={note} maxLength={1000} onChange={setNote} hint="Saving adds a new version; earlier versions are kept." />
+          </div>
+          <button type="button" className="gw-btn" disabled={busy || issues.length > 0 || (!dirty && !!meta && loaded.basedOn === meta.id)} onClick={() => void save()}>
+            Save as new version
+          </button>
+        </section>
+      )}
+
+      {canAdopt && meta && (
+        <section className="gw-card flex flex-wrap items-end gap-3" aria-label="Adopt">
+          <div>
+            <label htmlFor="adopt-date" className="gw-label">Effective from</label>
+            <input id="adopt-date" type="date" className="gw-input" value={effective} onChange={(e) => setEffective(e.target.value)} />
+          </div>
+          <div className="min-w-64 flex-1">
+            <label htmlFor="adopt-note" className="gw-label">Adoption note (e.g. the resolution)</label>
+            <input id="adopt-note" className="gw-input" value={adoptNote} maxLength={1000} onChange={(e) => setAdoptNote(e.target.value)} />
+          </div>
+          <button type="button" className="gw-btn" disabled={busy || dirty} onClick={() => void adopt()}>Adopt version {meta.number}</button>
+          {dirty && <p className="gw-hint w-full">Save your edits first; an adoption applies to a saved version.</p>}
+        </section>
+      )}
+    </div>
+  );
+}
+
+function MotionTable({ doc, at, readOnly, setMotion, update }: { doc: RulebookInput; at: IssueLookup; readOnly: boolean; setMotion: (i: number, p: Partial<MotionInput>) => void; update: (p: Partial<RulebookInput>) => void }) {
+  const flag = (i: number, m: MotionInput, k: "second" | "debatable" | "amendable" | "interrupt" | "reconsiderable", label: string) => (
+    <td className="text-center">
+      <input type="checkbox" aria-label={`${label}: ${m.name}`} checked={Boolean(m[k])} disabled={readOnly} onChange={(e) => setMotion(i, { [k]: e.target.checked })} aria-invalid={at(`motions.${i}.${k}`).length > 0 || undefined} />
+      <Messages path={`motions.${i}.${k}`} at={at} />
+    </td>
+  );
+  return (
+    <div className="space-y-3">
+      <div className="overflow-x-auto rounded-md border border-rule bg-white">
+        <table className="gw-table" data-testid="motion-table">
+          <thead>
+            <tr>
+              <th>Id</th><th>Name</th><th>Class</th><th>Rank</th><th>Second</th><th>Debatable</th><th>Amendable</th><th>Vote</th><th>Interrupts</th><th>Reconsiderable</th><th>Citation</th>{!readOnly && <th><span className="sr-only">Actions</span></th>}
+            </tr>
+          </thead>
+          <tbody>
+            {doc.motions.map((m, i) => (
+              <tr key={i} data-motion={m.id}>
+                <td className="w-40"><TextField hideLabel path={`motions.${i}.id`} label={`Id of motion ${i + 1}`} at={at} disabled={readOnly} value={m.id} onChange={(v) => setMotion(i, { id: v })} /></td>
+                <td className="min-w-48"><TextField hideLabel path={`motions.${i}.name`} label={`Name of ${m.id}`} at={at} disabled={readOnly} value={m.name} onChange={(v) => setMotion(i, { name: v })} /></td>
+                <td><SelectField hideLabel path={`motions.${i}.class`} label={`Class of ${m.id}`} at={at} disabled={readOnly} value={m.class} options={MOTION_CLASSES} onChange={(v) => setMotion(i, { class: v })} /></td>
+                <td className="w-20"><NumberField hideLabel nullable path={`motions.${i}.rank`} label={`Rank of ${m.id}`} at={at} disabled={readOnly} value={m.rank} min={0} max={1000} onChange={(v) => setMotion(i, { rank: v })} /></td>
+                {flag(i, m, "second", "Needs a second")}
+                {flag(i, m, "debatable", "Debatable")}
+                {flag(i, m, "amendable", "Amendable")}
+                <td><SelectField hideLabel path={`motions.${i}.vote`} label={`Vote required for ${m.id}`} at={at} disabled={readOnly} value={m.vote} options={VOTE_THRESHOLDS} labels={VOTE_LABELS} onChange={(v) => setMotion(i, { vote: v })} /></td>
+                {flag(i, m, "interrupt", "May interrupt a speaker")}
+                {flag(i, m, "reconsiderable", "Reconsiderable")}
+                <td className="min-w-48"><TextField hideLabel path={`motions.${i}.citation`} label={`Citation for ${m.id}`} at={at} disabled={readOnly} value={m.citation} onChange={(v) => setMotion(i, { citation: v })} /></td>
+                {!readOnly && (
+                  <td>
+                    <button type="button" className="gw-btn-quiet" aria-label={`Remove ${m.id}`} onClick={() => update({ motions: doc.motions.filter((_, j) => j !== i) })}>Remove</button>
+                  </td>
+                )}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      {!readOnly && (
+        <button type="button" className="gw-btn-quiet" onClick={() => update({ motions: [...doc.motions, { id: `new-motion-${doc.motions.length + 1}`, name: "New motion", class: "incidental", rank: null, second: true, debatable: false, amendable: false, vote: "majority", interrupt: false, reconsiderable: false, citation: "Standing orders" }] })}>
+          + Add a motion
+        </button>
+      )}
+      {doc.precedence && <p className="gw-hint">Ranks of some motions come from precedence chains ({doc.precedence.length}); edit those in the raw JSON view.</p>}
+      <Messages path="motions" at={at} />
+    </div>
+  );
+}
+
+function RulesPanel({ doc, at, readOnly, setRule, update }: { doc: RulebookInput; at: IssueLookup; readOnly: boolean; setRule: (i: number, p: Partial<Rule>) => void; update: (p: Partial<RulebookInput>) => void }) {
+  return (
+    <div className="space-y-3">
+      <p className="gw-hint">Each rule names the conditions under which a motion is out of order (motion scope) or an amendment draws a finding (amendment scope), with the citation and the message shown to members. Messages may name facts in braces, e.g. {"{motion.name}"}.</p>
+      {doc.rules.map((r, i) => {
+        const n = (p: string) => at(p).length;
+        const bad = [`rules.${i}`].some(() => false) || Object.keys(r).some((k) => n(`rules.${i}.${k}`) > 0);
+        return (
+          <details key={i} className="gw-card" data-rule={r.id} open={bad || undefined}>
+            <summary className="cursor-pointer font-semibold">
+              <code>{r.id}</code> <span className="font-normal text-ink-soft">· {r.scope} · {r.citation}</span>
+            </summary>
+            <div className="mt-3 grid gap-3 md:grid-cols-3">
+              <TextField path={`rules.${i}.id`} label="Rule id" at={at} disabled={readOnly} value={r.id} onChange={(v) => setRule(i, { id: v })} />
+              <SelectField path={`rules.${i}.scope`} label="Scope" at={at} disabled={readOnly} value={r.scope} options={RULE_SCOPES} onChange={(v) => setRule(i, { scope: v })} />
+              <TextField path={`rules.${i}.citation`} label="Citation" at={at} disabled={readOnly} value={r.citation} onChange={(v) => setRule(i, { citation: v })} />
+              <TextField className="md:col-span-3" multiline path={`rules.${i}.message`} label="Message when the rule applies" at={at} disabled={readOnly} value={r.message} onChange={(v) => setRule(i, { message: v })} />
+              {r.scope === "amendment" && (
+                <>
+                  <TextField path={`rules.${i}.code`} label="Finding code" at={at} disabled={readOnly} value={r.code} onChange={(v) => setRule(i, { code: v || undefined })} />
+                  <SelectField path={`rules.${i}.severity`} label="Severity" at={at} disabled={readOnly} value={r.severity} options={FINDING_SEVERITIES} onChange={(v) => setRule(i, { severity: v })} />
+                </>
+              )}
+            </div>
+            <p className="gw-label mt-3">Conditions</p>
+            <ConditionBuilder node={r.conditions} path={`rules.${i}.conditions`} scope={r.scope} at={at} readOnly={readOnly} onChange={(c) => setRule(i, { conditions: c })} />
+            {!readOnly && <button type="button" className="gw-btn-danger mt-3" onClick={() => update({ rules: doc.rules.filter((_, j) => j !== i) })}>Remove this rule</button>}
+          </details>
+        );
+      })}
+      {!readOnly && (
+        <button type="button" className="gw-btn-quiet" onClick={() => update({ rules: [...doc.rules, { id: `new-rule-${doc.rules.length + 1}`, scope: "motion", citation: "Standing orders", message: "{motion.name} is out of order here.", conditions: { all: [{ fact: "motion", path: "$.id", operator: "equal", value: doc.motions[0]?.id ?? "main" }] } }] })}>
+          + Add a rule
+        </button>
+      )}
+    </div>
+  );
+}
+
+function SectionsPanel({ doc, at, readOnly, update }: { doc: RulebookInput; at: IssueLookup; readOnly: boolean; update: (p: Partial<RulebookInput>) => void }) {
+  const a = doc.amendments;
+  const v = doc.voting;
+  const setA = (p: Partial<RulebookInput["amendments"]>) => update({ amendments: { ...a, ...p } });
+  const setV = (p: Partial<RulebookInput["voting"]>) => update({ voting: { ...v, ...p } });
+  const quorum = v.quorum ?? { kind: "majority-of-members" as const };
+  return (
+    <div className="grid gap-4 lg:grid-cols-2">
+      <fieldset className="gw-card space-y-3">
+        <legend className="px-1 font-serif text-step-1 font-semibold text-chamber-dark">Amendments</legend>
+        <SelectField path="amendments.motion" label="Catalogue motion to amend" at={at} disabled={readOnly} value={a.motion ?? "amend"} options={doc.motions.map((m) => m.id)} onChange={(x) => setA({ motion: x })} />
+        <div>
+          <p className="gw-label">Forms allowed</p>
+          <div className="flex flex-wrap gap-3">
+            {AMENDMENT_FORMS.map((f) => (
+              <label key={f} className="flex items-center gap-1.5 text-sm">
+                <input type="checkbox" disabled={readOnly} checked={a.forms.includes(f)} onChange={(e) => setA({ forms: e.target.checked ? [...a.forms, f] : a.forms.filter((x) => x !== f) })} /> {f}
+              </label>
+            ))}
+          </div>
+          <Messages path="amendments.forms" at={at} />
+        </div>
+        <div className="grid grid-cols-2 gap-3">
+          <NumberField path="amendments.maxDegree" label="Maximum degree" at={at} disabled={readOnly} value={a.maxDegree} min={1} max={10} onChange={(x) => setA({ maxDegree: x ?? 1 })} />
+          <NumberField nullable path="amendments.pendingPerSlot" label="Pending per slot" at={at} disabled={readOnly} value={a.pendingPerSlot} min={1} onChange={(x) => setA({ pendingPerSlot: x })} />
+          <NumberField nullable path="amendments.maxPending" label="Pending on a measure at most" at={at} disabled={readOnly} value={a.maxPending} min={1} onChange={(x) => setA({ maxPending: x })} />
+          <NumberField path="amendments.minSponsors" label="Minimum sponsors" at={at} disabled={readOnly} value={a.minSponsors ?? 1} min={0} onChange={(x) => setA({ minSponsors: x ?? 0 })} />
+        </div>
+        <CheckField path="amendments.substituteSlot" label="A substitute has its own slot beside the perfecting amendment (four-amendment tree)" at={at} disabled={readOnly} checked={a.substituteSlot ?? false} onChange={(x) => setA({ substituteSlot: x })} />
+        <div className="grid grid-cols-2 gap-3">
+          <SelectField path="amendments.germaneness.test" label="Germaneness test" at={at} disabled={readOnly} value={a.germaneness.test} options={["subjects", "section", "committee", "none"] as const} onChange={(x) => setA({ germaneness: { ...a.germaneness, test: x } })} />
+          <TextField path="amendments.germaneness.citation" label="Germaneness citation" at={at} disabled={readOnly} value={a.germaneness.citation} onChange={(x) => setA({ germaneness: { ...a.germaneness, citation: x } })} />
+          <NumberField nullable path="amendments.filingDeadline.hoursBefore" label="Filing deadline (hours before the sitting)" at={at} disabled={readOnly} value={a.filingDeadline?.hoursBefore ?? null} min={0} onChange={(x) => setA({ filingDeadline: x === null ? null : { hoursBefore: x, citation: a.filingDeadline?.citation ?? "Standing orders" } })} />
+          {a.filingDeadline && <TextField path="amendments.filingDeadline.citation" label="Filing deadline citation" at={at} disabled={readOnly} value={a.filingDeadline.citation} onChange={(x) => setA({ filingDeadline: { ...a.filingDeadline!, citation: x } })} />}
+        </div>
+        <TextField path="amendments.citation" label="Citation for the amendment rules" at={at} disabled={readOnly} value={a.citation} onChange={(x) => setA({ citation: x })} />
+      </fieldset>
+      <fieldset className="gw-card space-y-3">
+        <legend className="px-1 font-serif text-step-1 font-semibold text-chamber-dark">Voting</legend>
+        <SelectField path="voting.procedure" label="Procedure" at={at} disabled={readOnly} value={v.procedure} options={["amendment", "successive"] as const} labels={{ amendment: "Amendment procedure (pairwise)", successive: "Successive procedure" }} onChange={(x) => setV({ procedure: x })} />
+        <div>
+          <p className="gw-label">Ordering constraints</p>
+          {ORDER_CONSTRAINTS.map((c) => (
+            <label key={c} className="flex items-center gap-1.5 text-sm">
+              <input type="checkbox" disabled={readOnly} checked={(v.constraints ?? []).includes(c)} onChange={(e) => setV({ constraints: e.target.checked ? [...(v.constraints ?? []), c] : (v.constraints ?? []).filter((x) => x !== c) })} /> {c}
+            </label>
+          ))}
+          <Messages path="voting.constraints" at={at} />
+        </div>
+        <div className="grid grid-cols-2 gap-3">
+          <SelectField path="voting.tieRule" label="Tie rule" at={at} disabled={readOnly} value={v.tieRule ?? "motion-fails"} options={["motion-fails"] as const} labels={{ "motion-fails": "A tie defeats the motion" }} onChange={(x) => setV({ tieRule: x })} />
+          <SelectField path="voting.amendmentThreshold" label="Threshold to adopt an amendment" at={at} disabled={readOnly} value={v.amendmentThreshold ?? "majority"} options={VOTE_THRESHOLDS} labels={VOTE_LABELS} onChange={(x) => setV({ amendmentThreshold: x })} />
+          <SelectField path="voting.quorum.kind" label="Quorum" at={at} disabled={readOnly} value={quorum.kind} options={["majority-of-members", "number", "none"] as const} onChange={(x) => setV({ quorum: { ...quorum, kind: x } })} />
+          {quorum.kind === "number" && <NumberField path="voting.quorum.value" label="Quorum (members)" at={at} disabled={readOnly} value={quorum.value ?? null} nullable min={1} onChange={(x) => setV({ quorum: { ...quorum, value: x ?? undefined } })} />}
+        </div>
+        <TextField path="voting.citation" label="Citation for the voting rules" at={at} disabled={readOnly} value={v.citation} onChange={(x) => setV({ citation: x })} />
+      </fieldset>
+      <fieldset className="gw-card space-y-3 lg:col-span-2">
+        <legend className="px-1 font-serif text-step-1 font-semibold text-chamber-dark">Rulebook and chamber</legend>
+        <div className="grid gap-3 md:grid-cols-3">
+          <TextField path="title" label="Title" at={at} disabled={readOnly} value={doc.title} onChange={(x) => update({ title: x })} />
+          <TextField path="id" label="Rulebook id" at={at} disabled={readOnly} value={doc.id} onChange={(x) => update({ id: x })} />
+          <TextField path="version" label="Edition label" at={at} disabled={readOnly} value={doc.version} onChange={(x) => update({ version: x || undefined })} />
+          <TextField path="chamber.name" label="Chamber name" at={at} disabled={readOnly} value={doc.chamber.name} onChange={(x) => update({ chamber: { ...doc.chamber, name: x } })} />
+          <NumberField nullable path="chamber.members" label="Members" at={at} disabled={readOnly} value={doc.chamber.members ?? null} min={1} onChange={(x) => update({ chamber: { ...doc.chamber, members: x ?? undefined } })} />
+          <TextField path="source.title" label="Source" at={at} disabled={readOnly} value={doc.source.title} onChange={(x) => update({ source: { ...doc.source, title: x } })} />
+        </div>
+      </fieldset>
+    </div>
+  );
+}
+
+function RawPanel({ doc, readOnly, onApply }: { doc: RulebookInput; readOnly: boolean; onApply: (d: RulebookInput) => void }) {
+  const [text, setText] = useState(() => JSON.stringify(doc, null, 2));
+  const [problems, setProblems] = useState<Issue[]>([]);
+  const apply = () => {
+    let value: unknown;
+    try {
+      value = JSON.parse(text);
+    } catch (e) {
+      setProblems([{ path: "(root)", message: `not valid JSON: ${(e as Error).message}` }]);
+      return;
+    }
+    const r = rulebookSchema.safeParse(value);
+    if (!r.success) {
+      setProblems(r.error.issues.map((i) => ({ path: i.path.join(".") || "(root)", message: i.message })));
+      return;
+    }
+    setProblems([]);
+    onApply(documentSchema.parse(value));
+  };
+  return (
+    <div className="space-y-2">
+      <label htmlFor="raw-json" className="gw-label">The rulebook as JSON</label>
+      <textarea id="raw-json" className="gw-input h-[32rem] font-mono text-xs" spellCheck={false} readOnly={readOnly} value={text} onChange={(e) => setText(e.target.value)} />
+      {problems.length > 0 && (
+        <div role="alert" className="gw-error">
+          Not applied:
+          <ul className="list-disc pl-5">{problems.slice(0, 20).map((p, i) => <li key={i}><code>{p.path}</code>: {p.message}</li>)}</ul>
+        </div>
+      )}
+      {!readOnly && <button type="button" className="gw-btn" onClick={apply}>Apply to the forms</button>}
+      <p className="gw-hint">The format is described in docs/rulebook-format.md. Applying checks the shape; the tabs then show any remaining problem at its field.</p>
+    </div>
+  );
+}

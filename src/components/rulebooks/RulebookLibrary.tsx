@@ -1,0 +1,151 @@
+import { useEffect, useState } from "react";
+import { ApiError, day, getJson, sendForm, when, type Issue } from "./api.ts";
+import { librarySchema, savedSchema, type Library } from "./schemas.ts";
+
+/** The chamber's rulebook versions, adoptions, templates, import and compare. */
+export default function RulebookLibrary({ canEdit }: { canEdit: boolean }) {
+  const [lib, setLib] = useState<Library | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const [from, setFrom] = useState("");
+  const [to, setTo] = useState("");
+  const [file, setFile] = useState<File | null>(null);
+  const [note, setNote] = useState("");
+  const [importError, setImportError] = useState<{ message: string; issues: Issue[] } | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  useEffect(() => {
+    getJson("/api/rulebooks", librarySchema).then(
+      (l) => {
+        setLib(l);
+        setTo(l.versions[0]?.id ?? "");
+        setFrom(l.versions[1]?.id ?? l.versions[0]?.id ?? "");
+      },
+      (e) => setError(e instanceof Error ? e.message : "Could not load the rulebooks."),
+    );
+  }, []);
+
+  if (error) return <p className="gw-error" role="alert">{error}</p>;
+  if (!lib) return <p className="text-ink-soft">Loading…</p>;
+  const adoptedNumbers = new Map<string, string[]>();
+  for (const a of lib.adoptions) adoptedNumbers.set(a.versionId, [...(adoptedNumbers.get(a.versionId) ?? []), day(a.effectiveFrom)]);
+
+  async function upload(e: React.FormEvent) {
+    e.preventDefault();
+    if (!file || !lib) return;
+    setBusy(true);
+    setImportError(null);
+    const form = new FormData();
+    form.set("file", file);
+    form.set("basedOn", lib.latest?.id ?? "");
+    form.set("note", note);
+    try {
+      const r = await sendForm("/api/rulebooks/import", form, savedSchema);
+      window.location.assign(`/rulebooks/${r.id}?saved=${r.number}`);
+    } catch (err) {
+      setImportError(err instanceof ApiError ? { message: err.message, issues: err.issues } : { message: "The upload failed.", issues: [] });
+      setBusy(false);
+    }
+  }
+
+  return (
+    <div className="space-y-6">
+      <section className="gw-card" aria-labelledby="inforce-h">
+        <h2 id="inforce-h" className="text-step-1">In force</h2>
+        {lib.inForce ? (
+          <p className="mt-1" data-testid="in-force">
+            <a href={`/rulebooks/${lib.inForce.versionId}`}>Version {lib.inForce.number}: {lib.inForce.title}</a>, in force from {day(lib.inForce.effectiveFrom)}.
+          </p>
+        ) : (
+          <p className="mt-1 text-ink-soft">No rulebook has been adopted yet.{canEdit ? " Start from a template below, save it, then adopt it." : ""}</p>
+        )}
+      </section>
+
+      <section aria-labelledby="versions-h">
+        <h2 id="versions-h" className="text-step-1">Versions</h2>
+        {lib.versions.length === 0 ? (
+          <p className="mt-1 text-ink-soft">No versions saved yet.</p>
+        ) : (
+          <div className="mt-2 overflow-x-auto rounded-md border border-rule bg-white">
+            <table className="gw-table" data-testid="versions">
+              <thead>
+                <tr><th>No.</th><th>Title</th><th>Note</th><th>Saved</th><th>By</th><th>Adopted</th><th><span className="sr-only">Actions</span></th></tr>
+              </thead>
+              <tbody>
+                {lib.versions.map((v) => (
+                  <tr key={v.id}>
+                    <td className="font-semibold">{v.number}</td>
+                    <td><a href={`/rulebooks/${v.id}`}>{v.title}</a>{v.origin !== "edit" && <span className="ml-1 text-xs text-ink-soft">({v.origin.replace("template:", "from template ")})</span>}</td>
+                    <td className="max-w-xs">{v.note}</td>
+                    <td className="whitespace-nowrap">{when(v.createdAt)}</td>
+                    <td>{v.author ?? "—"}</td>
+                    <td>
+                      {lib.inForce?.versionId === v.id && <span className="gw-chip border-verdict-ok bg-verdict-ok-tint text-verdict-ok">In force</span>}{" "}
+                      {adoptedNumbers.get(v.id)?.map((d) => <span key={d} className="block text-xs text-ink-soft">effective {d}</span>)}
+                    </td>
+                    <td className="whitespace-nowrap"><a href={`/api/rulebooks/${v.id}/export`} download>Export</a></td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        )}
+        {lib.versions.length > 1 && (
+          <form className="mt-3 flex flex-wrap items-end gap-2" action="/rulebooks/compare" method="get">
+            <label className="text-sm"><span className="gw-label">Compare</span>
+              <select name="from" className="gw-input" value={from} onChange={(e) => setFrom(e.target.value)}>{lib.versions.map((v) => <option key={v.id} value={v.id}>Version {v.number}</option>)}</select>
+            </label>
+            <label className="text-sm"><span className="gw-label">with</span>
+              <select name="to" className="gw-input" value={to} onChange={(e) => setTo(e.target.value)}>{lib.versions.map((v) => <option key={v.id} value={v.id}>Version {v.number}</option>)}</select>
+            </label>
+            <button className="gw-btn-quiet">Compare</button>
+          </form>
+        )}
+      </section>
+
+      {lib.adoptions.length > 0 && (
+        <section aria-labelledby="adoptions-h">
+          <h2 id="adoptions-h" className="text-step-1">Adoptions</h2>
+          <ul className="mt-1 space-y-1 text-sm">
+            {lib.adoptions.map((a) => (
+              <li key={a.id}>Version {a.number}, effective {day(a.effectiveFrom)} — adopted {when(a.adoptedAt)} by {a.adoptedBy ?? "—"}{a.note ? `: ${a.note}` : ""}</li>
+            ))}
+          </ul>
+        </section>
+      )}
+
+      {canEdit && (
+        <div className="grid gap-4 lg:grid-cols-2">
+          <section className="gw-card" aria-labelledby="tpl-h">
+            <h2 id="tpl-h" className="text-step-1">Start from a template</h2>
+            <p className="gw-hint">Opens the template in the editor; saving it adds a new version of this chamber's rulebook.</p>
+            <ul className="mt-2 space-y-2">
+              {lib.templates.map((t) => (
+                <li key={t.id} className="flex flex-wrap items-center justify-between gap-2">
+                  <span><span className="font-semibold">{t.title}</span> <span className="text-sm text-ink-soft">— {t.chamber}</span></span>
+                  <a className="gw-btn-quiet no-underline" href={`/rulebooks/new?template=${encodeURIComponent(t.id)}`}>Start from this</a>
+                </li>
+              ))}
+            </ul>
+            {lib.latest && <p className="mt-3"><a href="/rulebooks/new">Or edit the latest version (no. {lib.latest.number}) →</a></p>}
+          </section>
+          <section className="gw-card" aria-labelledby="imp-h">
+            <h2 id="imp-h" className="text-step-1">Import a rulebook file</h2>
+            <form className="mt-2 space-y-2" onSubmit={upload}>
+              <label htmlFor="import-file" className="gw-label">Rulebook file (.json, up to 2 MB)</label>
+              <input id="import-file" type="file" accept=".json,application/json" className="block text-sm" onChange={(e) => setFile(e.target.files?.[0] ?? null)} />
+              <label htmlFor="import-note" className="gw-label">Note</label>
+              <input id="import-note" className="gw-input" value={note} maxLength={1000} onChange={(e) => setNote(e.target.value)} />
+              <button className="gw-btn" disabled={!file || busy}>Import as a new version</button>
+              {importError && (
+                <div role="alert" className="gw-error" data-testid="import-error">
+                  {importError.message}
+                  {importError.issues.length > 0 && <ul className="list-disc pl-5">{importError.issues.slice(0, 20).map((i, n) => <li key={n}><code>{i.path}</code>: {i.message}</li>)}</ul>}
+                </div>
+              )}
+            </form>
+          </section>
+        </div>
+      )}
+    </div>
+  );
+}
