@@ -1,0 +1,29 @@
+/**
+ * Downloadable CSV templates: the header, a comment-free example per roster bloc (or member), so a
+ * clerk can fill in a spreadsheet and upload it back. Cells are quoted by papaparse when needed.
+ */
+import Papa from "papaparse";
+
+export interface RosterEntry {
+  name: string;
+  bloc: string;
+}
+
+/** Ballot template: one row per bloc (weight = its size), each ranking the versions in listed order. */
+export function ballotTemplate(versionIds: readonly string[], roster: readonly RosterEntry[], perMember = false): string {
+  const example = versionIds.join(" > ");
+  const rows: string[][] = [];
+  if (perMember) for (const r of roster) rows.push([r.name, r.bloc, "1", example]);
+  else {
+    const blocs = new Map<string, number>();
+    for (const r of roster) blocs.set(r.bloc, (blocs.get(r.bloc) ?? 0) + 1);
+    for (const [bloc, n] of blocs) rows.push([bloc, bloc, String(n), example]);
+    if (rows.length === 0) rows.push(["Member name", "Bloc", "1", example]);
+  }
+  return Papa.unparse({ fields: ["member", "bloc", "weight", "ranking"], data: rows }) + "\r\n";
+}
+
+export function idealTemplate(dimensions: readonly string[], roster: readonly RosterEntry[]): string {
+  const rows = roster.length ? roster.map((r) => [r.name, r.bloc, "1", ...dimensions.map(() => "0")]) : [["Member name", "Bloc", "1", ...dimensions.map(() => "0")]];
+  return Papa.unparse({ fields: ["member", "bloc", "weight", ...dimensions], data: rows }) + "\r\n";
+}

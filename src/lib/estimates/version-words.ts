@@ -1,0 +1,48 @@
+/**
+ * Plain-language names for the alternatives of an amendment tree (DOMAIN §1: versions of the text,
+ * Q the status quo). Version ids come from the voting engine: "Q", the measure's key, and
+ * "<measure>+<amendment keys>" (src/lib/voting/amendment-versions.ts).
+ */
+export interface TreeLabels {
+  /** The measure's key in version ids (e.g. "measure") and its public label (e.g. "HCA 12"). */
+  measureKey: string;
+  measureLabel: string;
+  amendments: Record<string, { title?: string | null; form?: string; target?: string; targetLabel?: string; lines?: [number, number] | null; degree?: 1 | 2 }>;
+}
+
+export const STATUS_QUO_ID = "Q";
+
+export function listInWords(items: readonly string[]): string {
+  if (items.length <= 1) return items.join("");
+  return `${items.slice(0, -1).join(", ")} and ${items[items.length - 1]}`;
+}
+
+export function amendmentName(key: string, labels: TreeLabels): string {
+  const t = labels.amendments[key]?.title;
+  return t ? `${key} (${t})` : key;
+}
+
+export function versionInWords(id: string, labels: TreeLabels): string {
+  if (id === STATUS_QUO_ID) return `No change: ${labels.measureLabel} fails and current law stands`;
+  if (id === labels.measureKey) return `${labels.measureLabel} as introduced, without amendment`;
+  const keys = id.startsWith(`${labels.measureKey}+`) ? id.slice(labels.measureKey.length + 1).split("+") : [id];
+  return `${labels.measureLabel} as amended by ${listInWords(keys.map((k) => amendmentName(k, labels)))}`;
+}
+
+/** Short label for charts: "Q (no change)", "HCA 12", "HCA 12 + A1 + A2". */
+export function versionShort(id: string, labels: TreeLabels): string {
+  if (id === STATUS_QUO_ID) return "Q (no change)";
+  if (id === labels.measureKey) return labels.measureLabel;
+  return id.startsWith(`${labels.measureKey}+`) ? `${labels.measureLabel} + ${id.slice(labels.measureKey.length + 1).split("+").join(" + ")}` : id;
+}
+
+const THRESHOLD_WORDS: Record<string, string> = {
+  majority: "a majority of the votes cast (a tie defeats the question)",
+  "two-thirds": "two-thirds of the votes cast",
+  "majority-of-members": "a majority of all members",
+  none: "a majority of the votes cast (a tie defeats the question)",
+};
+
+export function thresholdInWords(t: string): string {
+  return THRESHOLD_WORDS[t] ?? t;
+}

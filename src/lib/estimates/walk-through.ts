@@ -1,0 +1,161 @@
+/**
+ * The vote-by-vote walk-through of one question order for an amendment tree: the questions put (or
+ * falling), the two versions each vote compares, the projected tally, and which later questions fall
+ * on adoption and on rejection — along the sincere path and along the sophisticated path
+ * (backward induction, Farquharson 1969; McKelvey & Niemi 1978, J. Econ. Theory 18:1–22).
+ * The rules of the vote are the voting engine's (questionAgenda in src/lib/voting/question-agenda.ts);
+ * this only follows one order through them and tallies each vote from the estimate's profile.
+ * Input: the same object analyseOrders reads, plus the order as question ids (amendment keys and
+ * "passage"). An order that breaks the rulebook's constraints is refused (unprocessable).
+ */
+import { z } from "zod";
+import { GavelError, parseWith } from "../errors.ts";
+import { votingSectionSchema } from "../procedure/voting-section.ts";
+import { amendmentTreeModel } from "../voting/amendment-versions.ts";
+import { ordersInputSchema, PASSAGE } from "../voting/analyse-orders.ts";
+import { rankingsToIndices } from "../voting/majority-input.ts";
+import { majorityGraph } from "../voting/majority-graph.ts";
+import { questionConstraints } from "../voting/order-constraints.ts";
+import { pairSupport, profileFromRankings, type Profile } from "../voting/profile.ts";
+import { questionAgenda, sincereQuestionPath, sophisticatedQuestionOutcome } from "../voting/question-agenda.ts";
+import { scaleSpatial, spatialProfile, versionPosition } from "../voting/spatial-profile.ts";
+import { toThreshold } from "../voting/vote-threshold.ts";
+
+export interface WalkStep {
+  question: string;
+  put: boolean;
+  /** Versions the vote compares: the version if adopted (motion) and if rejected (base). */
+  motion?: string;
+  base?: string;
+  for?: number;
+  against?: number;
+  adopted?: boolean;
+  /** Later questions that fall if this one is adopted / rejected. */
+  fallsIfAdopted?: string[];
+  fallsIfRejected?: string[];
+}
+
+export interface WalkThrough {
+  order: string[];
+  procedure: "amendment" | "successive";
+  threshold: string;
+  totalWeight: number;
+  sincere: { outcome: string; steps: WalkStep[] };
+  sophisticated: { outcome: string; steps: WalkStep[] };
+}
+
+export const walkOrderSchema = z.array(z.string().min(1).max(40)).min(1).max(40);
+
+function buildProfile(input: z.output<typeof ordersInputSchema>, names: string[], versions: Array<{ amendments: string[] }>): Profile {
+  if ("ballots" in input.profile) {
+    const index = new Map(names.map((n, i) => [n, i]));
+    return profileFromRankings(names, rankingsToIndices(input.profile.ballots, index, "profile.ballots"), input.profile.partial);
+  }
+  const s = scaleSpatial(input.profile.spatial, "profile.spatial");
+  const positions = versions.map((v, i) => (i === 0 ? s.statusQuo : versionPosition(s, v.amendments)));
+  return spatialProfile(s, names, positions);
+}
+
+export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
+  const input = parseWith(ordersInputSchema, raw, "orders input");
+  const orderIds = parseWith(walkOrderSchema, rawOrder, "order");
+  const voting = parseWith(votingSectionSchema, input.rulebook.voting, "rulebook voting section", "rulebook.voting");
+  const model = amendmentTreeModel({ measure: input.measure, amendments: input.amendments ?? [] });
+  const names = model.versions.map((v) => v.id);
+  const profile = buildProfile(input, names, model.versions);
+  const g = majorityGraph(profile, toThreshold(voting.amendmentThreshold));
+  const qa = questionAgenda(model, g, profile, voting.procedure);
+  const qids = [...model.amendments.map((a) => a.id), PASSAGE];
+  const order = orderIds.map((id, i) => {
+    const x = qids.indexOf(id);
+    if (x < 0) throw new GavelError("invalid-input", `order.${i}: unknown question "${id}"`, { issues: [{ path: `order.${i}`, message: `unknown question "${id}"; the questions are ${qids.join(", ")}` }] });
+    return x;
+  });
+  if (new Set(order).size !== order.length || order.length !== qids.length)
+    throw new GavelError("invalid-input", `order: list each of the ${qids.length} questions exactly once`, { issues: [{ path: "order", message: `list each of ${qids.join(", ")} exactly once` }] });
+  const pos = new Map(order.map((x, i) => [x, i]));
+  for (const [a, b] of questionConstraints(model, voting.constraints))
+    if (pos.get(a)! > pos.get(b)!) throw new GavelError("unprocessable", `order: ${qids[a]} must be put before ${qids[b]} under the rulebook`, { issues: [{ path: "order", message: `${qids[a]} must come before ${qids[b]}` }] });
+
+  const tally = (yes: number, no: number) => {
+    if (voting.procedure === "successive") return {};
+    const s = pairSupport(profile, yes, no);
+    return { for: s.forX, against: s.forY };
+  };
+  const fallsAfter = (i: number, decided: number, adopted: number) => order.slice(i + 1).filter((y) => qa.falls(y, decided, adopted)).map((y) => qids[y]);
+
+  const sincerePath = sincereQuestionPath(qa, order);
+  const sincereSteps: WalkStep[] = [];
+  {
+    let decided = 0;
+    let adopted = 0;
+    sincerePath.steps.forEach((s, i) => {
+      const x = s.question;
+      if (!s.put) sincereSteps.push({ question: qids[x], put: false });
+      else {
+        const v = qa.vote(x, adopted);
+        const before = new Set(fallsAfter(i, decided, adopted));
+        const d2 = decided | (1 << x);
+        sincereSteps.push({
+          question: qids[x],
+          put: true,
+          motion: names[v.yesVersion],
+          base: names[v.noVersion],
+          ...tally(v.yesVersion, v.noVersion),
+          adopted: s.adopted,
+          fallsIfAdopted: fallsAfter(i, d2, v.yesState).filter((q) => !before.has(q)),
+          fallsIfRejected: fallsAfter(i, d2, v.noState).filter((q) => !before.has(q)),
+        });
+        if (s.adopted) adopted = v.yesState;
+      }
+      decided |= 1 << x;
+    });
+  }
+
+  // Sophisticated path: at each vote members compare the outcomes the two branches lead to.
+  const memo = new Map<string, number>();
+  const value = (i: number, decided: number, adopted: number): number => {
+    if (i === order.length) return qa.outcome(adopted);
+    const key = `${i}:${adopted}`;
+    const hit = memo.get(key);
+    if (hit !== undefined) return hit;
+    const x = order[i];
+    let r: number;
+    if (qa.falls(x, decided, adopted)) r = value(i + 1, decided | (1 << x), adopted);
+    else {
+      const v = qa.vote(x, adopted);
+      const yes = value(i + 1, decided | (1 << x), v.yesState);
+      const no = value(i + 1, decided | (1 << x), v.noState);
+      r = qa.beats(yes, no) ? yes : no;
+    }
+    memo.set(key, r);
+    return r;
+  };
+  const sophSteps: WalkStep[] = [];
+  {
+    let decided = 0;
+    let adopted = 0;
+    order.forEach((x, i) => {
+      if (qa.falls(x, decided, adopted)) sophSteps.push({ question: qids[x], put: false });
+      else {
+        const v = qa.vote(x, adopted);
+        const d2 = decided | (1 << x);
+        const yes = value(i + 1, d2, v.yesState);
+        const no = value(i + 1, d2, v.noState);
+        const ok = qa.beats(yes, no);
+        const before = new Set(fallsAfter(i, decided, adopted));
+        sophSteps.push({ question: qids[x], put: true, motion: names[yes], base: names[no], ...(voting.procedure === "successive" ? {} : { for: pairSupport(profile, yes, no).forX, against: pairSupport(profile, yes, no).forY }), adopted: ok, fallsIfAdopted: fallsAfter(i, d2, v.yesState).filter((q) => !before.has(q)), fallsIfRejected: fallsAfter(i, d2, v.noState).filter((q) => !before.has(q)) });
+        if (ok) adopted = v.yesState;
+      }
+      decided |= 1 << x;
+    });
+  }
+  return {
+    order: orderIds,
+    procedure: voting.procedure,
+    threshold: voting.amendmentThreshold,
+    totalWeight: profile.totalWeight,
+    sincere: { outcome: names[sincerePath.outcome], steps: sincereSteps },
+    sophisticated: { outcome: names[sophisticatedQuestionOutcome(qa, order)], steps: sophSteps },
+  };
+}

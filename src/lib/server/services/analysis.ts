@@ -1,0 +1,190 @@
+/**
+ * Order analyses of an estimate: started off the request path (src/lib/server/analysis/runner.ts),
+ * answered from the cache when the same (tree, rulebook voting section, estimate) was analysed
+ * before, and read back as the page needs them: the summary with plain-language findings, the
+ * orders (paginated, filtered by outcome, or as CSV), the walk-through of one order and the chair's
+ * script. Every read checks that the actor may see the estimate the run belongs to.
+ */
+import { createHash } from "node:crypto";
+import { and, desc, eq } from "drizzle-orm";
+import Papa from "papaparse";
+import { z } from "zod";
+import { db } from "../db.ts";
+import { analysisCache, analysisRuns } from "../../db/schema/estimates.ts";
+import { GavelError } from "../../errors.ts";
+import type { Actor } from "../http.ts";
+import { toOrdersProfile, type EstimateContent } from "../../estimates/estimate-content.ts";
+import { buildFindings } from "../../estimates/findings.ts";
+import { walkThrough } from "../../estimates/walk-through.ts";
+import { chairScript, scriptMarkdown } from "../../estimates/chair-script.ts";
+import { versionInWords, versionShort, type TreeLabels } from "../../estimates/version-words.ts";
+import type { JobResult } from "../analysis/analysis-job.ts";
+import { activeCount, cancelActive, isActive, launchRun, MAX_WORKERS } from "../analysis/runner.ts";
+import { adoptedRulebookOf } from "../measure-rulebook.ts";
+import { loadRulebook } from "./rulebooks.ts";
+import { estimateRow, treeFor, versionRow } from "./estimates.ts";
+
+/** Bump when the engine's output changes meaning, so old cache rows are not reused. */
+export const ENGINE_VERSION = 1;
+
+export const startSchema = z.object({ estimateId: z.string().min(1).max(100), version: z.number().int().min(1).optional(), rulebookVersionId: z.string().min(1).max(100).nullable().optional() });
+export const ordersQuerySchema = z.object({
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(20),
+  outcome: z.string().max(200).optional(),
+  mode: z.enum(["sincere", "sophisticated"]).default("sincere"),
+  format: z.enum(["json", "csv"]).default("json"),
+});
+export const orderQuerySchema = z.object({ order: z.string().min(1).max(800), format: z.enum(["json", "md"]).default("json") });
+
+interface CachedResult extends JobResult {
+  input: Record<string, unknown>;
+  labels: TreeLabels;
+  passageThreshold: string;
+  rulebook: { label: string; versionId: string | null };
+  versions: Array<{ id: string; short: string; words: string }>;
+}
+
+/** Canonical JSON (keys sorted) so equal content always hashes alike. */
+function canonical(v: unknown): string {
+  if (Array.isArray(v)) return `[${v.map(canonical).join(",")}]`;
+  if (v && typeof v === "object") return `{${Object.keys(v).sort().filter((k) => (v as Record<string, unknown>)[k] !== undefined).map((k) => `${JSON.stringify(k)}:${canonical((v as Record<string, unknown>)[k])}`).join(",")}}`;
+  return JSON.stringify(v);
+}
+
+export function contentHash(parts: unknown): string {
+  return createHash("sha256").update(canonical(parts)).digest("hex");
+}
+
+async function runRow(actor: Actor, id: string) {
+  if (!/^[0-9a-f-]{36}$/i.test(id)) throw new GavelError("not-found", "No such analysis in this chamber.");
+  const [run] = await db.select().from(analysisRuns).where(and(eq(analysisRuns.id, id), eq(analysisRuns.chamberId, actor.chamber.id)));
+  if (!run) throw new GavelError("not-found", "No such analysis in this chamber.");
+  const estimate = await estimateRow(actor, run.estimateId); // not-found when the actor may not see it
+  return { run, estimate };
+}
+
+export async function startAnalysis(actor: Actor, input: z.output<typeof startSchema>) {
+  const e = await estimateRow(actor, input.estimateId);
+  const v = await versionRow(e, input.version);
+  const rb = input.rulebookVersionId ? await loadRulebook(actor.chamber.id, input.rulebookVersionId).then((r) => ({ rulebook: r.rulebook, source: `version ${r.number}: ${r.title}`, versionId: r.versionId })) : await adoptedRulebookOf(actor.chamber.id);
+  const tree = await treeFor(actor.chamber.id, e.measureId, v.scope);
+  const content = v.content as EstimateContent;
+  const ordersInput = { rulebook: { voting: rb.rulebook.voting }, measure: tree.case.measure, amendments: tree.case.amendments, profile: toOrdersProfile(content) };
+  const hash = contentHash({ engine: ENGINE_VERSION, ...ordersInput });
+  const [hit] = await db.select({ hash: analysisCache.hash }).from(analysisCache).where(and(eq(analysisCache.chamberId, actor.chamber.id), eq(analysisCache.hash, hash)));
+  const base = { chamberId: actor.chamber.id, estimateId: e.id, estimateVersion: v.number, rulebookVersionId: rb.versionId, rulebookLabel: rb.source, hash, requestedBy: actor.user.id };
+  if (hit) {
+    const [run] = await db.insert(analysisRuns).values({ ...base, status: "done", cached: 1, progress: 1, phase: "done", finishedAt: new Date() }).returning();
+    return { runId: run.id, status: run.status, cached: true };
+  }
+  if (activeCount() >= MAX_WORKERS) throw new GavelError("rate-limited", `${MAX_WORKERS} analyses are already running on this server; try again when one has finished.`);
+  const [run] = await db.insert(analysisRuns).values({ ...base, status: "running" }).returning();
+  const main = rb.rulebook.motions.find((m) => m.class === "main");
+  void launchRun({ id: run.id, chamberId: actor.chamber.id, hash }, ordersInput, {
+    input: ordersInput,
+    labels: tree.labels,
+    passageThreshold: main?.vote ?? "majority",
+    rulebook: { label: rb.source, versionId: rb.versionId },
+    versions: tree.versions.map(({ id, short, words }) => ({ id, short, words })),
+  });
+  return { runId: run.id, status: run.status, cached: false };
+}
+
+async function cached(run: { chamberId: string; hash: string }): Promise<CachedResult> {
+  const [row] = await db.select({ result: analysisCache.result }).from(analysisCache).where(and(eq(analysisCache.chamberId, run.chamberId), eq(analysisCache.hash, run.hash)));
+  if (!row) throw new GavelError("conflict", "This analysis has no stored result (it did not finish). Run it again.");
+  return row.result as CachedResult;
+}
+
+function runView(run: typeof analysisRuns.$inferSelect) {
+  const interrupted = run.status === "running" && !isActive(run.id);
+  return {
+    id: run.id,
+    estimateId: run.estimateId,
+    estimateVersion: run.estimateVersion,
+    rulebook: run.rulebookLabel,
+    status: interrupted ? ("failed" as const) : run.status,
+    cached: run.cached === 1,
+    phase: run.phase,
+    progress: run.progress,
+    error: interrupted ? { code: "internal", message: "The analysis was interrupted (the server restarted). Run it again." } : run.error,
+    createdAt: run.createdAt.toISOString(),
+  };
+}
+
+export async function getRun(actor: Actor, id: string) {
+  const { run, estimate } = await runRow(actor, id);
+  const view = runView(run);
+  if (view.status !== "done") return { run: view };
+  const r = await cached(run);
+  const findings = buildFindings(r.analysis, r.listing, r.labels, estimate.title);
+  return {
+    run: view,
+    estimate: { id: estimate.id, title: estimate.title },
+    versions: r.versions,
+    analysis: r.analysis,
+    listed: { count: r.listing.orders.length, complete: r.listing.complete },
+    findings,
+    labels: r.labels,
+  };
+}
+
+export async function latestRun(actor: Actor, estimateId: string) {
+  const e = await estimateRow(actor, estimateId);
+  const [run] = await db.select().from(analysisRuns).where(and(eq(analysisRuns.chamberId, actor.chamber.id), eq(analysisRuns.estimateId, e.id))).orderBy(desc(analysisRuns.createdAt)).limit(1);
+  return { run: run ? runView(run) : null };
+}
+
+export async function cancelRun(actor: Actor, id: string) {
+  const { run } = await runRow(actor, id);
+  if (run.requestedBy !== actor.user.id) throw new GavelError("forbidden", "Only the person who started an analysis can cancel it.");
+  const wait = cancelActive(run.id);
+  if (!wait) return { run: runView(run) };
+  await wait;
+  const { run: after } = await runRow(actor, id);
+  return { run: runView(after) };
+}
+
+export async function listOrders(actor: Actor, id: string, q: z.output<typeof ordersQuerySchema>) {
+  const { run } = await runRow(actor, id);
+  if (runView(run).status !== "done") throw new GavelError("conflict", "The analysis has not finished.");
+  const r = await cached(run);
+  const known = new Set(r.analysis.alternatives.map((a) => a.id));
+  if (q.outcome && !known.has(q.outcome)) throw new GavelError("invalid-input", `outcome: unknown version ${q.outcome}`, { issues: [{ path: "outcome", message: "not a version of this analysis" }] });
+  const rows = q.outcome ? r.listing.orders.filter((o) => o[q.mode] === q.outcome) : r.listing.orders;
+  if (q.format === "csv") {
+    const text = Papa.unparse({ fields: ["rank", "order", "sincere outcome", "sophisticated outcome", "sincere (in words)", "sophisticated (in words)"], data: rows.map((o) => [o.rank, o.questions.join(" "), o.sincere, o.sophisticated, versionInWords(o.sincere, r.labels), versionInWords(o.sophisticated, r.labels)]) });
+    return new Response(text + "\r\n", { headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="voting-orders-${run.id.slice(0, 8)}.csv"`, "cache-control": "no-store" } });
+  }
+  const start = (q.page - 1) * q.pageSize;
+  return {
+    total: rows.length,
+    complete: r.listing.complete,
+    page: q.page,
+    pageSize: q.pageSize,
+    orders: rows.slice(start, start + q.pageSize).map((o) => ({ ...o, sincereShort: versionShort(o.sincere, r.labels), sophisticatedShort: versionShort(o.sophisticated, r.labels) })),
+  };
+}
+
+function orderOf(text: string): string[] {
+  return text.split(/[\s,]+/).filter(Boolean);
+}
+
+export async function walkOrder(actor: Actor, id: string, order: string) {
+  const { run } = await runRow(actor, id);
+  if (runView(run).status !== "done") throw new GavelError("conflict", "The analysis has not finished.");
+  const r = await cached(run);
+  const walk = walkThrough(r.input, orderOf(order));
+  return { walk, versions: r.versions };
+}
+
+export async function scriptFor(actor: Actor, id: string, order: string, format: "json" | "md") {
+  const { run, estimate } = await runRow(actor, id);
+  if (runView(run).status !== "done") throw new GavelError("conflict", "The analysis has not finished.");
+  const r = await cached(run);
+  const script = chairScript(walkThrough(r.input, orderOf(order)), r.labels, r.passageThreshold, estimate.title);
+  if (format === "md") return new Response(scriptMarkdown(script), { headers: { "content-type": "text/markdown; charset=utf-8", "content-disposition": `attachment; filename="chairs-script-${r.labels.measureLabel.replace(/\W+/g, "-")}.md"`, "cache-control": "no-store" } });
+  return { script, rulebook: r.rulebook.label };
+}
+
