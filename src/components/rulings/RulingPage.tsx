@@ -1,0 +1,303 @@
+import { useCallback, useEffect, useState } from "react";
+import { DECISION_LABELS } from "../../lib/rulings/ruling-content.ts";
+import { APPEAL_OUTCOME_LABELS } from "../../lib/rulings/appeal-outcome.ts";
+import { api, listsView, rulingDetail, STATUS_CHIP, STATUS_LABEL, type ListView, type RulingDetail, type RulingView } from "./api.ts";
+import RulingEditor from "./RulingEditor.tsx";
+import { z } from "zod";
+
+interface Props {
+  initial: RulingDetail;
+  can: { draft: boolean; issue: boolean; send: boolean };
+}
+
+function fmt(iso: string | null): string {
+  return iso ? new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" }) : "—";
+}
+
+export function RulingBody({ r }: { r: RulingView }) {
+  return (
+    <div className="space-y-4">
+      <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[10rem_1fr]">
+        <dt className="font-semibold text-ink-soft">Sitting</dt>
+        <dd>{[r.sitting, r.sittingDate].filter(Boolean).join(", ") || "—"}</dd>
+        <dt className="font-semibold text-ink-soft">Raised by</dt>
+        <dd>{r.raisedByName}</dd>
+        <dt className="font-semibold text-ink-soft">Against</dt>
+        <dd>
+          {r.target.label}
+          {r.measureLabel && <span className="text-ink-soft"> · {r.measureLabel}</span>}
+          {r.motion && <span className="gw-chip ml-2 border-rule text-ink-soft">{r.motion}</span>}
+        </dd>
+        <dt className="font-semibold text-ink-soft">Question</dt>
+        <dd>{r.question}</dd>
+        <dt className="font-semibold text-ink-soft">Decision</dt>
+        <dd>
+          {r.decision ? (
+            <span className={`gw-chip ${r.decision === "sustained" ? "border-verdict-bar bg-verdict-bar-tint text-verdict-bar" : r.decision === "not-sustained" ? "border-verdict-ok bg-verdict-ok-tint text-verdict-ok" : "border-verdict-query bg-verdict-query-tint text-verdict-query"}`}>{DECISION_LABELS[r.decision]}</span>
+          ) : (
+            <span className="text-ink-soft">Not yet decided</span>
+          )}
+          {r.decisionNote && <span className="ml-2">{r.decisionNote}</span>}
+        </dd>
+      </dl>
+      <section>
+        <h3>Reasoning</h3>
+        {r.reasoning ? (
+          r.reasoning.split(/\n{2,}/).map((p, i) => (
+            <p key={i} className="mt-2 whitespace-pre-line font-serif">
+              {p}
+            </p>
+          ))
+        ) : (
+          <p className="mt-2 text-ink-soft">None recorded yet.</p>
+        )}
+      </section>
+      {r.citations.length > 0 && (
+        <section>
+          <h3>Citations</h3>
+          <ul className="mt-2 list-disc pl-5 text-sm">
+            {r.citations.map((c, i) => (
+              <li key={i}>
+                {c.kind === "rule" ? (
+                  <>
+                    {c.citation}
+                    {c.ruleId && <span className="text-ink-soft"> (rule {c.ruleId})</span>}
+                  </>
+                ) : (
+                  <a href={`/rulings/${c.rulingId}`}>{c.label ?? "Earlier ruling"}</a>
+                )}
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
+      {r.appeal && (
+        <section>
+          <h3>Appeal</h3>
+          <p className="mt-2 text-sm">
+            {r.appeal.appellant && <>Appealed by {r.appeal.appellant}. </>}
+            {r.appeal.ayes} to sustain the chair, {r.appeal.noes} against{r.appeal.abstentions ? `, ${r.appeal.abstentions} abstaining` : ""}. <strong>{APPEAL_OUTCOME_LABELS[r.appeal.outcome]}</strong>
+            {r.appeal.ayes === r.appeal.noes && " — a tie sustains the chair (Robert's Rules of Order Revised, 1915, §21)"}.
+          </p>
+        </section>
+      )}
+    </div>
+  );
+}
+
+const sentView = z.object({ id: z.string(), queued: z.number(), skipped: z.array(z.object({ email: z.string() })).catch([]) });
+const issuedView = z.object({ ruling: z.object({ id: z.string() }) });
+
+export default function RulingPage({ initial, can }: Props) {
+  const [data, setData] = useState(initial);
+  const [mode, setMode] = useState<"view" | "edit" | "revise">("view");
+  const [lists, setLists] = useState<ListView[]>([]);
+  const [listId, setListId] = useState("");
+  const [message, setMessage] = useState<{ kind: "ok" | "error"; text: string } | null>(null);
+  const [busy, setBusy] = useState(false);
+  const r = data.ruling;
+
+  const reload = useCallback(async () => {
+    setData(await api(`/api/rulings/${r.id}`, rulingDetail));
+  }, [r.id]);
+
+  useEffect(() => {
+    if (can.send) api("/api/circulation/lists", listsView).then((l) => setLists(l.lists), () => setLists([]));
+  }, [can.send]);
+
+  const pending = data.circulations.some((c) => c.messages.some((m) => m.status === "queued" || m.status === "sending"));
+  useEffect(() => {
+    if (!pending) return;
+    const t = setInterval(() => void reload().catch(() => {}), 2500);
+    return () => clearInterval(t);
+  }, [pending, reload]);
+
+  async function act(fn: () => Promise<string>) {
+    setBusy(true);
+    setMessage(null);
+    try {
+      const text = await fn();
+      await reload();
+      setMessage({ kind: "ok", text });
+    } catch (e) {
+      setMessage({ kind: "error", text: (e as Error).message });
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  const issue = () =>
+    act(async () => {
+      await api(`/api/rulings/${r.id}/issue`, issuedView, { method: "POST", body: { version: r.version } });
+      return `Ruling ${r.number} is issued.`;
+    });
+  const send = () =>
+    act(async () => {
+      const s = await api("/api/circulation", sentView, { method: "POST", body: { rulingId: r.id, listId } });
+      return `Queued ${s.queued} message${s.queued === 1 ? "" : "s"}${s.skipped.length ? `; ${s.skipped.length} unsubscribed address${s.skipped.length === 1 ? "" : "es"} left out` : ""}.`;
+    });
+  const retry = (id: string) =>
+    act(async () => {
+      await api(`/api/circulation/messages/${id}/retry`, z.object({ id: z.string() }), { method: "POST" });
+      return "The message is queued again.";
+    });
+
+  if (mode !== "view")
+    return (
+      <RulingEditor
+        mode={mode}
+        initial={r}
+        onCancel={() => setMode("view")}
+        onSaved={() => {
+          setMode("view");
+          void reload();
+          setMessage({ kind: "ok", text: mode === "edit" ? "Draft saved." : "Correction issued as a new revision." });
+        }}
+      />
+    );
+
+  return (
+    <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
+      <div className="space-y-6">
+        <article className="gw-card" aria-labelledby="ruling-h">
+          <div className="flex flex-wrap items-center justify-between gap-2">
+            <h2 id="ruling-h">
+              Ruling {r.number}
+              {r.revision > 1 && <span className="ml-2 text-step-0 text-ink-soft">revision {r.revision}</span>}
+            </h2>
+            <span className={`gw-chip ${r.status === "issued" ? "border-chamber bg-chamber-tint text-chamber-dark" : "border-brass bg-brass-tint text-brass-text"}`}>{r.status === "issued" ? `Issued ${fmt(r.issuedAt)}` : "Draft"}</span>
+          </div>
+          <div className="mt-4">
+            <RulingBody r={r} />
+          </div>
+          <div className="mt-6 flex flex-wrap gap-2">
+            {r.status === "draft" && can.draft && (
+              <button type="button" className="gw-btn-quiet" onClick={() => setMode("edit")}>
+                Edit draft
+              </button>
+            )}
+            {r.status === "draft" && can.issue && (
+              <button type="button" className="gw-btn" onClick={issue} disabled={busy}>
+                Issue ruling
+              </button>
+            )}
+            {r.status === "issued" && can.issue && (
+              <button type="button" className="gw-btn-quiet" onClick={() => setMode("revise")}>
+                Record a correction
+              </button>
+            )}
+          </div>
+          {message && (
+            <p role={message.kind === "error" ? "alert" : "status"} className={message.kind === "error" ? "gw-error mt-3" : "mt-3 text-sm font-semibold text-verdict-ok"}>
+              {message.text}
+            </p>
+          )}
+        </article>
+
+        <section aria-labelledby="history-h" className="gw-card">
+          <h2 id="history-h" className="text-step-1">
+            History
+          </h2>
+          {data.revisions.length === 0 ? (
+            <p className="mt-2 text-sm text-ink-soft">Not issued yet: a draft may be edited until it is issued; after that, only corrections as new revisions.</p>
+          ) : (
+            <ol className="mt-2 space-y-3">
+              {data.revisions.map((v) => {
+                const content = z.object({ question: z.string(), reasoning: z.string() }).safeParse(v.content);
+                return (
+                  <li key={v.revision} className="border-l-4 border-rule pl-3 text-sm">
+                    <p>
+                      <strong>Revision {v.revision}</strong> · {v.note} · {v.issuedByName}, {fmt(v.issuedAt)}
+                    </p>
+                    {content.success && v.revision !== r.revision && (
+                      <details className="mt-1">
+                        <summary className="cursor-pointer text-chamber">Text of revision {v.revision}</summary>
+                        <p className="mt-1">
+                          <em>Question:</em> {content.data.question}
+                        </p>
+                        <p className="mt-1 whitespace-pre-line">
+                          <em>Reasoning:</em> {content.data.reasoning}
+                        </p>
+                      </details>
+                    )}
+                  </li>
+                );
+              })}
+            </ol>
+          )}
+        </section>
+      </div>
+
+      {can.send && (
+        <aside aria-labelledby="circ-h" className="space-y-4">
+          <section className="gw-card">
+            <h2 id="circ-h" className="text-step-1">
+              Circulate
+            </h2>
+            {r.status !== "issued" ? (
+              <p className="gw-hint">Only issued rulings are circulated.</p>
+            ) : (
+              <div className="mt-2 space-y-2">
+                <label htmlFor="circ-list" className="gw-label">
+                  Distribution list
+                </label>
+                <select id="circ-list" className="gw-input" value={listId} onChange={(e) => setListId(e.target.value)}>
+                  <option value="">Choose a list…</option>
+                  {lists.map((l) => (
+                    <option key={l.id} value={l.id}>
+                      {l.name} ({l.recipientCount ?? "?"} recipients)
+                    </option>
+                  ))}
+                </select>
+                <button type="button" className="gw-btn" onClick={send} disabled={!listId || busy}>
+                  Send by e-mail
+                </button>
+                <p className="gw-hint">Sent as HTML and plain text, with an unsubscribe link. Messages are queued and delivered with retries.</p>
+              </div>
+            )}
+          </section>
+          {data.circulations.map((c) => (
+            <section key={c.id} className="gw-card" aria-label={`Sent to ${c.listName}`}>
+              <h3 className="text-step-0">
+                {c.listName} <span className="font-sans text-sm font-normal text-ink-soft">· revision {c.rulingRevision} · {c.sentByName}, {fmt(c.createdAt)}</span>
+              </h3>
+              <table className="gw-table mt-2" data-testid="delivery">
+                <thead>
+                  <tr>
+                    <th scope="col">Recipient</th>
+                    <th scope="col">Status</th>
+                  </tr>
+                </thead>
+                <tbody>
+                  {c.messages.map((m) => (
+                    <tr key={m.id}>
+                      <td className="break-all">{m.to.replace(/^"([^"]*)" </, "$1 <")}</td>
+                      <td>
+                        <span className={`gw-chip ${STATUS_CHIP[m.status]}`}>{STATUS_LABEL[m.status]}</span>
+                        {m.attempts > 1 && <span className="block text-xs text-ink-soft">{m.attempts} attempts</span>}
+                        {m.lastError && m.status !== "sent" && <span className="block text-xs text-ink-soft">{m.lastError}</span>}
+                        {(m.status === "failed" || m.status === "uncertain") && (
+                          <button type="button" className="gw-btn-quiet mt-1" onClick={() => retry(m.id)} disabled={busy}>
+                            Send again
+                          </button>
+                        )}
+                      </td>
+                    </tr>
+                  ))}
+                  {c.skipped.map((x) => (
+                    <tr key={x.email}>
+                      <td className="break-all">{x.email}</td>
+                      <td>
+                        <span className="gw-chip border-rule text-ink-soft">Unsubscribed — not sent</span>
+                      </td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </section>
+          ))}
+        </aside>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,114 @@
+// Browser: a clerk records and issues a ruling, a staff member circulates it to a list, the
+// messages arrive at the local mail catcher (/dev/mail), and a search finds the ruling.
+// Product contract (common practice, no source).
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { BrowserContext, Page } from "playwright-core";
+import { BASE_URL, launch, shot, signInAs } from "./browser.ts";
+
+let browser: Awaited<ReturnType<typeof launch>>;
+let context: BrowserContext;
+let page: Page;
+const stamp = Date.now().toString(36);
+const marker = `quillmark${stamp}`;
+const target = `Motion to refer the Quayside Bins Order (${stamp})`;
+const citation = `Standing Order 44(${stamp})`;
+let rulingUrl = "";
+let rulingNumber = "";
+
+beforeAll(async () => {
+  browser = await launch();
+  context = browser.context;
+  page = await context.newPage();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function switchTo(role: string) {
+  await context.clearCookies();
+  await signInAs(page, role);
+}
+
+describe("rulings in the browser", () => {
+  it("a clerk records a ruling as a draft and issues it", async () => {
+    await switchTo("clerk");
+    await page.goto(`${BASE_URL}/rulings`);
+    await page.getByRole("link", { name: "Record a ruling" }).click();
+    await page.waitForURL(/\/rulings\/new$/);
+    const raisedBy = page.getByLabel("Raised by");
+    await expect.poll(async () => raisedBy.locator("option").count()).toBeGreaterThan(1);
+    await raisedBy.selectOption({ index: 3 });
+    await page.getByLabel("What it was raised against").fill(target);
+    await page.getByLabel("Motion concerned (rulebook id, optional)").fill("commit");
+    await page.getByLabel("Question put to the chair").fill("Is a motion to refer in order while the previous question is pending?");
+    await page.getByLabel("Point of order sustained").check();
+    await page.getByLabel("Reasoning").fill(`The previous question outranks the motion to commit; while it is pending, a motion to refer cannot be made. The ${marker} test phrase marks this ruling.`);
+    await page.getByLabel("Or a citation as printed").fill(citation);
+    await page.getByRole("button", { name: "Add rule citation" }).click();
+    await page.getByLabel("The decision was appealed").check();
+    await page.getByLabel("To sustain the chair").fill("17");
+    await page.getByLabel("Against", { exact: true }).fill("17");
+    await expect.poll(() => page.getByText("a tie sustains the chair").count()).toBe(1);
+    await page.getByLabel("Sitting", { exact: true }).fill("Demo sitting");
+    await shot(page, "rulings-1-draft-form");
+    await page.getByRole("button", { name: "Save draft" }).click();
+    await page.waitForURL(/\/rulings\/[0-9a-f-]{36}$/);
+    rulingUrl = page.url();
+    await expect.poll(() => page.getByText("Draft", { exact: true }).count()).toBeGreaterThan(0);
+    await page.getByRole("button", { name: "Issue ruling" }).click();
+    await expect.poll(() => page.getByText(/is issued\./).count()).toBe(1);
+    const h1 = (await page.locator("h1").textContent()) ?? "";
+    rulingNumber = /Ruling (\d+)/.exec(h1)?.[1] ?? "";
+    expect(rulingNumber).not.toBe("");
+    await expect.poll(() => page.getByText("Revision 1").count()).toBe(1);
+    await shot(page, "rulings-2-issued");
+  });
+
+  it("a staff member circulates it to a list and sees per-recipient delivery", async () => {
+    await switchTo("staff");
+    await page.goto(rulingUrl);
+    expect(await page.getByRole("button", { name: "Issue ruling" }).count()).toBe(0);
+    const list = page.getByLabel("Distribution list");
+    await expect.poll(async () => list.locator("option").count()).toBeGreaterThan(1);
+    await list.selectOption({ label: await list.locator("option", { hasText: "Press gallery" }).first().innerText() });
+    await page.getByRole("button", { name: "Send by e-mail" }).click();
+    await expect.poll(() => page.getByText(/Queued \d+ messages?/).count()).toBe(1);
+    const table = page.getByTestId("delivery").first();
+    await expect.poll(async () => (await table.innerText()).match(/Delivered to mail server/g)?.length ?? 0, { timeout: 30_000 }).toBeGreaterThanOrEqual(2);
+    expect(await table.innerText()).not.toMatch(/Queued|Failed/);
+    await shot(page, "rulings-3-circulated");
+    await page.goto(`${BASE_URL}/circulation`);
+    await expect.poll(() => page.getByText(`Ruling ${rulingNumber} —`, { exact: false }).count()).toBeGreaterThan(0);
+    await shot(page, "rulings-4-circulation-desk");
+  });
+
+  it("the messages appear in the local mail catcher", async () => {
+    await switchTo("chief-clerk");
+    await page.goto(`${BASE_URL}/dev/mail`);
+    const caught = page.getByTestId("caught");
+    const subject = `Ruling ${rulingNumber} — ${target}`;
+    await expect.poll(async () => caught.locator("li", { hasText: subject }).count(), { timeout: 20_000 }).toBeGreaterThanOrEqual(2);
+    const first = caught.locator("li", { hasText: subject }).first();
+    await first.locator("summary").click();
+    expect(await first.innerText()).toContain(marker);
+    await shot(page, "rulings-5-caught-mail");
+  });
+
+  it("a later search finds it by a word of its reasoning and by its citation", async () => {
+    await switchTo("member");
+    await page.goto(`${BASE_URL}/rulings`);
+    await page.getByLabel("Search rulings").fill(marker);
+    await page.getByRole("button", { name: "Search", exact: true }).click();
+    const results = page.getByTestId("results");
+    await expect.poll(async () => results.locator("li").count()).toBe(1);
+    expect(await results.innerText()).toContain(target);
+    await shot(page, "rulings-6-search");
+    await page.getByLabel("Search rulings").fill(`"${citation}"`);
+    await page.getByRole("button", { name: "Search", exact: true }).click();
+    await expect.poll(async () => (await results.innerText()).includes(target)).toBe(true);
+    await results.getByRole("link", { name: new RegExp(`Ruling ${rulingNumber}:`) }).click();
+    await page.waitForURL(rulingUrl);
+    expect(await page.getByText("a tie sustains the chair").count()).toBeGreaterThan(0);
+    expect(await page.getByRole("heading", { name: "Circulate" }).count()).toBe(0);
+  });
+});
