@@ -83,6 +83,7 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1.1fr)]">
       <div className="space-y-5">
+        <h2 className="text-step-2" data-testid="sitting-title">{sitting.title}</h2>
         <div className="flex flex-wrap items-center gap-2 text-sm">
           <span className={`gw-chip ${live === "live" ? "border-verdict-ok text-verdict-ok" : "border-brass text-brass-text"}`} data-testid="live-status">
             {live === "live" ? "● Live" : live === "connecting" ? "Connecting…" : "Offline — reload to reconnect"}
@@ -147,6 +148,8 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
                 e.preventDefault();
                 if (!motion) return;
                 if (await record({ kind: "made", motion, text, mover, overrule: admitted })) {
+                  setMotion("");
+                  setMover("");
                   setText("");
                   setAdmitted(false);
                 }

@@ -245,8 +245,8 @@ function MotionTable({ doc, at, readOnly, setMotion, update }: { doc: RulebookIn
   );
   return (
     <div className="space-y-3">
-      <div className="overflow-x-auto rounded-md border border-rule bg-white">
-        <table className="gw-table" data-testid="motion-table">
+      <div className="relative overflow-x-auto rounded-md border border-rule bg-white">
+        <table className="gw-table min-w-[84rem]" data-testid="motion-table">
           <thead>
             <tr>
               <th>Id</th><th>Name</th><th>Class</th><th>Rank</th><th>Second</th><th>Debatable</th><th>Amendable</th><th>Vote</th><th>Interrupts</th><th>Reconsiderable</th><th>Citation</th>{!readOnly && <th><span className="sr-only">Actions</span></th>}
@@ -255,17 +255,17 @@ function MotionTable({ doc, at, readOnly, setMotion, update }: { doc: RulebookIn
           <tbody>
             {doc.motions.map((m, i) => (
               <tr key={i} data-motion={m.id}>
-                <td className="w-40"><TextField hideLabel path={`motions.${i}.id`} label={`Id of motion ${i + 1}`} at={at} disabled={readOnly} value={m.id} onChange={(v) => setMotion(i, { id: v })} /></td>
-                <td className="min-w-48"><TextField hideLabel path={`motions.${i}.name`} label={`Name of ${m.id}`} at={at} disabled={readOnly} value={m.name} onChange={(v) => setMotion(i, { name: v })} /></td>
-                <td><SelectField hideLabel path={`motions.${i}.class`} label={`Class of ${m.id}`} at={at} disabled={readOnly} value={m.class} options={MOTION_CLASSES} onChange={(v) => setMotion(i, { class: v })} /></td>
-                <td className="w-20"><NumberField hideLabel nullable path={`motions.${i}.rank`} label={`Rank of ${m.id}`} at={at} disabled={readOnly} value={m.rank} min={0} max={1000} onChange={(v) => setMotion(i, { rank: v })} /></td>
+                <td><TextField className="min-w-[11rem]" hideLabel path={`motions.${i}.id`} label={`Id of motion ${i + 1}`} at={at} disabled={readOnly} value={m.id} onChange={(v) => setMotion(i, { id: v })} /></td>
+                <td><TextField className="min-w-[14rem]" hideLabel path={`motions.${i}.name`} label={`Name of ${m.id}`} at={at} disabled={readOnly} value={m.name} onChange={(v) => setMotion(i, { name: v })} /></td>
+                <td><SelectField className="min-w-[8.5rem]" hideLabel path={`motions.${i}.class`} label={`Class of ${m.id}`} at={at} disabled={readOnly} value={m.class} options={MOTION_CLASSES} onChange={(v) => setMotion(i, { class: v })} /></td>
+                <td><NumberField className="w-20" hideLabel nullable path={`motions.${i}.rank`} label={`Rank of ${m.id}`} at={at} disabled={readOnly} value={m.rank} min={0} max={1000} onChange={(v) => setMotion(i, { rank: v })} /></td>
                 {flag(i, m, "second", "Needs a second")}
                 {flag(i, m, "debatable", "Debatable")}
                 {flag(i, m, "amendable", "Amendable")}
-                <td><SelectField hideLabel path={`motions.${i}.vote`} label={`Vote required for ${m.id}`} at={at} disabled={readOnly} value={m.vote} options={VOTE_THRESHOLDS} labels={VOTE_LABELS} onChange={(v) => setMotion(i, { vote: v })} /></td>
+                <td><SelectField className="min-w-[11rem]" hideLabel path={`motions.${i}.vote`} label={`Vote required for ${m.id}`} at={at} disabled={readOnly} value={m.vote} options={VOTE_THRESHOLDS} labels={VOTE_LABELS} onChange={(v) => setMotion(i, { vote: v })} /></td>
                 {flag(i, m, "interrupt", "May interrupt a speaker")}
                 {flag(i, m, "reconsiderable", "Reconsiderable")}
-                <td className="min-w-48"><TextField hideLabel path={`motions.${i}.citation`} label={`Citation for ${m.id}`} at={at} disabled={readOnly} value={m.citation} onChange={(v) => setMotion(i, { citation: v })} /></td>
+                <td><TextField className="min-w-[18rem]" hideLabel path={`motions.${i}.citation`} label={`Citation for ${m.id}`} at={at} disabled={readOnly} value={m.citation} onChange={(v) => setMotion(i, { citation: v })} /></td>
                 {!readOnly && (
                   <td>
                     <button type="button" className="gw-btn-quiet" aria-label={`Remove ${m.id}`} onClick={() => update({ motions: doc.motions.filter((_, j) => j !== i) })}>Remove</button>
