@@ -37,9 +37,10 @@ function Drawing({ data, selected, onSelect }: { data: TreeData; selected: strin
   const edges: Edge[] = useMemo(() => data.nodes.filter((n) => n.parent).map((n) => ({ id: `${n.parent}->${n.key}`, source: n.parent!, target: n.key, type: "smoothstep", style: { stroke: "#44574f" } })), [data.nodes]);
   const large = data.nodes.length > LARGE;
 
+  // Large trees open at a readable zoom on the selected node (the measure at first) and follow the selection.
   useEffect(() => {
     const b = boxes.get(selected);
-    if (b && large) void flow.setCenter(b.x + b.width / 2, b.y + b.height / 2, { zoom: Math.max(flow.getZoom(), 0.7), duration: 200 });
+    if (b && large) void flow.setCenter(b.x + b.width / 2 + 300, b.y + b.height / 2, { zoom: Math.max(flow.getZoom(), 0.75), duration: 150 });
   }, [selected, boxes, flow, large]);
 
   return (
@@ -49,7 +50,7 @@ function Drawing({ data, selected, onSelect }: { data: TreeData; selected: strin
       nodeTypes={nodeTypes}
       onNodeClick={(_, n) => onSelect(n.id)}
       fitView={!large}
-      defaultViewport={large ? { x: 40, y: 40, zoom: 0.7 } : undefined}
+      fitViewOptions={{ padding: 0.08, maxZoom: 1.1 }}
       minZoom={0.05}
       maxZoom={2}
       nodesDraggable={false}
@@ -165,7 +166,7 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
       </div>
       {message && <p className="gw-card border-verdict-ok bg-verdict-ok-tint text-sm" role="status">{message}</p>}
       {loadError && <p className="gw-error" role="alert">{loadError}</p>}
-      <div className="grid gap-4 xl:grid-cols-[1fr_22rem]">
+      <div className="grid gap-4 2xl:grid-cols-[1fr_22rem]">
         <div
           ref={wrapper}
           tabIndex={0}
@@ -173,14 +174,14 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
           aria-roledescription="amendment tree"
           aria-label={`Amendment tree of ${data.measure.number}. Selected: ${node ? `${node.label}${node.title ? `, ${node.title}` : ""}` : "none"}. Arrow keys move between nodes.`}
           onKeyDown={onKeyDown}
-          className="gw-card h-[640px] p-0 focus-visible:outline-4"
+          className="gw-card h-[560px] p-0 focus-visible:outline-4"
           data-testid="tree-drawing"
         >
           <ReactFlowProvider>
             <Drawing data={data} selected={selected} onSelect={(k) => { setSelected(k); wrapper.current?.focus(); }} />
           </ReactFlowProvider>
         </div>
-        <aside className="space-y-4">
+        <aside className="grid gap-4 lg:grid-cols-2 2xl:grid-cols-1 2xl:content-start">
           <section className="gw-card" aria-live="polite" data-testid="tree-details">
             {node ? (
               <>
@@ -215,7 +216,7 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
                           {f.overridden && <p className="text-xs font-semibold text-verdict-ok">Ruling: {f.ruling}</p>}
                           {canOverride && !f.overridden && f.amendmentId && (
                             openForm === `${f.amendment}/${f.code}` ? (
-                              <OverrideForm measureId={measureId} finding={f} version={node.version ?? 1} onDone={(msg) => { setMessage(msg); setOpenForm(null); void reload(); }} />
+                              <OverrideForm measureId={measureId} finding={f} version={node.version ?? 1} onDone={(msg) => { setOpenForm(null); void reload().then(() => setMessage(msg)); }} />
                             ) : (
                               <button type="button" className="gw-btn-quiet mt-1" onClick={() => setOpenForm(`${f.amendment}/${f.code}`)}>Override with a ruling…</button>
                             )
@@ -234,8 +235,8 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
         </aside>
       </div>
       <p className="gw-advisory">These findings apply the chamber's rulebook mechanically. The presiding officer's ruling, the chamber's own rules and its counsel prevail; an override records such a ruling.</p>
-      <section className="gw-card overflow-x-auto">
-        <h3 className="text-step-1">All findings</h3>
+      <details className="gw-card overflow-x-auto" open={data.findings.length <= 30}>
+        <summary className="cursor-pointer font-serif text-step-1 font-semibold text-chamber-dark">All findings ({data.findings.length})</summary>
         <table className="gw-table mt-2" data-testid="findings-table">
           <thead>
             <tr><th>Amendment</th><th>Severity</th><th>Code</th><th>Message</th><th>Rule</th></tr>
@@ -253,7 +254,7 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
             {data.findings.length === 0 && <tr><td colSpan={5}>No findings.</td></tr>}
           </tbody>
         </table>
-      </section>
+      </details>
     </div>
   );
 }

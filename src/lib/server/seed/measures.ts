@@ -30,7 +30,9 @@ export async function seedMeasures(now = new Date()): Promise<{ measureId: strin
   if (!actor) return null;
   const [existing] = await db.select({ id: measures.id }).from(measures).where(and(eq(measures.chamberId, actor.chamber.id), eq(measures.number, "HCA 12")));
   if (existing) return { measureId: existing.id };
-  const roster = await db.select({ id: legislators.id }).from(legislators).where(eq(legislators.chamberId, actor.chamber.id)).orderBy(asc(legislators.createdAt), asc(legislators.name));
+  // The generated roster repeats some names; sponsors are drawn from distinct names so the demo reads clearly.
+  const everyone = await db.select({ id: legislators.id, name: legislators.name }).from(legislators).where(eq(legislators.chamberId, actor.chamber.id)).orderBy(asc(legislators.name), asc(legislators.id));
+  const roster = everyone.filter((r, i) => i === 0 || everyone[i - 1].name !== r.name);
   const L = (i: number) => roster[i % roster.length].id;
   const sittingAt = new Date(now.getTime() + 4 * DAY);
 
