@@ -2,7 +2,7 @@
  * `gavelwright check CASE.json`: validate a measure's amendment tree against a rulebook.
  * CASE = {"rulebook": path | template id | object, "measure": {…}, "amendments": […],
  * "asOf"?: ISO time, "overrides"?: […]}; prints {"findings": […]} and exits 0 even with
- * findings (docs/cli-procedure.md). Malformed input exits 2 naming the path.
+ * findings (README.md, "Command line"). Malformed input exits 2 naming the path.
  */
 import { dirname, resolve } from "node:path";
 import { z } from "zod";

@@ -1,7 +1,7 @@
 /**
  * `gavelwright moves CASE.json`: which motions are in order for a floor state.
  * CASE = {"rulebook": path | template id | object, "pending": [{"motion", "degree"?}…] (bottom
- * first), "floor"?: {…}}; prints one verdict per catalogue motion (docs/cli-procedure.md).
+ * first), "floor"?: {…}}; prints one verdict per catalogue motion (README.md, "Command line").
  */
 import { dirname, resolve } from "node:path";
 import { z } from "zod";

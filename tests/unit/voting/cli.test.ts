@@ -1,4 +1,4 @@
-// CLI contracts of `majority`, `agendas` and `orders` (docs/cli-voting.md), through main() with temp files.
+// CLI contracts of `majority`, `agendas` and `orders` (README.md, "Command line"), through main() with temp files.
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
