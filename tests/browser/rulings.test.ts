@@ -14,6 +14,7 @@ const target = `Motion to refer the Quayside Bins Order (${stamp})`;
 const citation = `Standing Order 44(${stamp})`;
 let rulingUrl = "";
 let rulingNumber = "";
+let unsubscribeLink = "";
 
 beforeAll(async () => {
   browser = await launch();
@@ -92,6 +93,17 @@ describe("rulings in the browser", () => {
     await first.locator("summary").click();
     expect(await first.innerText()).toContain(marker);
     await shot(page, "rulings-5-caught-mail");
+    unsubscribeLink = /(http\S+\/unsubscribe\?token=\S+)/.exec(await first.locator("pre").innerText())?.[1] ?? "";
+    expect(unsubscribeLink).not.toBe("");
+  });
+
+  it("a recipient unsubscribes through the signed link, without signing in", async () => {
+    await context.clearCookies();
+    await page.goto(unsubscribeLink);
+    expect(await page.getByText("Press gallery").count()).toBeGreaterThan(0);
+    await page.getByRole("button", { name: "Unsubscribe" }).click();
+    await expect.poll(() => page.getByText("You are unsubscribed.").count()).toBe(1);
+    await shot(page, "rulings-7-unsubscribed");
   });
 
   it("a later search finds it by a word of its reasoning and by its citation", async () => {
@@ -110,5 +122,21 @@ describe("rulings in the browser", () => {
     await page.waitForURL(rulingUrl);
     expect(await page.getByText("a tie sustains the chair").count()).toBeGreaterThan(0);
     expect(await page.getByRole("heading", { name: "Circulate" }).count()).toBe(0);
+  });
+
+  it("a clerk corrects the issued ruling as a new revision, keeping the history", async () => {
+    await switchTo("clerk");
+    await page.goto(rulingUrl);
+    await page.getByRole("button", { name: "Record a correction" }).click();
+    await page.getByLabel("What does this correction change?").fill("Names the standing order in the reasoning");
+    const reasoning = page.getByLabel("Reasoning");
+    await reasoning.fill(`${await reasoning.inputValue()} See ${citation}.`);
+    await page.getByRole("button", { name: "Issue correction" }).click();
+    await expect.poll(() => page.getByText("Correction issued as a new revision.").count()).toBe(1);
+    const history = page.getByRole("region", { name: "History" });
+    await expect.poll(async () => (await history.innerText()).includes("Revision 2")).toBe(true);
+    expect(await history.innerText()).toContain("Revision 1");
+    await history.getByText("Text of revision 1").click();
+    await shot(page, "rulings-8-revision");
   });
 });
