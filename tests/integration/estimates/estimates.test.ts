@@ -28,7 +28,7 @@ let seeded: { ballotsId: string; spatialId: string };
 
 const content = (rows = [{ member: "Moorland Union", bloc: "Moorland Union", weight: 14, ranking: V }]) => ({ kind: "ballots" as const, partial: "abstain" as const, rows });
 const create = (as: keyof Seeded["as"], extra: Record<string, unknown> = {}) => call(list.POST, "POST", "/api/estimates", { as: s.as[as], body: { measureId, title: `Estimate by ${as}`, scope: SCOPE, content: content(), ...extra } });
-const csv = (text: string | Uint8Array, query: Record<string, string>, as = s.as.clerk) => call(importRoute.POST, "POST", "/api/estimates/import", { as, rawBody: text, headers: { "content-type": "text/csv" }, query: { measureId, scope: SCOPE.join(","), ...query } });
+const csv = (text: string | Uint8Array<ArrayBuffer>, query: Record<string, string>, as = s.as.clerk) => call(importRoute.POST, "POST", "/api/estimates/import", { as, rawBody: text, headers: { "content-type": "text/csv" }, query: { measureId, scope: SCOPE.join(","), ...query } });
 
 beforeAll(async () => {
   s = await seedChambers();
@@ -146,7 +146,7 @@ describe("CSV template and upload", () => {
     expect(body.version.content.rows[0].ranking).toEqual(["measure+A1", ["measure+A7", "Q"]]);
 
     const before = await tableCounts();
-    const cases: Array<[string, string | Uint8Array, string]> = [
+    const cases: Array<[string, string | Uint8Array<ArrayBuffer>, string]> = [
       ["wrong columns", "name,ranking\nA,Q\n", "header"],
       ["unknown version", "member,weight,ranking\na,1,Q\nb,1,Q\nc,1,Q\nd,1,Q\ne,1,Q\nf,1,measure+Z > Q\n", "rows.7.ranking"],
       ["bad weight", "member,weight,ranking\na,x,Q\n", "rows.2.weight"],

@@ -1,0 +1,57 @@
+/** Sharing (author only) and duplicating an estimate. */
+import { useEffect, useState } from "react";
+import { z } from "zod";
+import { ApiError, apiCall } from "./api.ts";
+
+const ROLE_NAMES: Record<string, string> = { "chief-clerk": "Chief clerk", clerk: "Clerks", member: "Members", staff: "Staff", observer: "Observers" };
+const optionsSchema = z.object({ people: z.array(z.object({ id: z.string(), name: z.string(), role: z.string() })), roles: z.array(z.string()) });
+
+export default function EstimateTools({ estimateId, canEdit, canDuplicate, sharedRoles, sharedUsers }: { estimateId: string; canEdit: boolean; canDuplicate: boolean; sharedRoles: string[]; sharedUsers: string[] }) {
+  const [opts, setOpts] = useState<z.output<typeof optionsSchema> | null>(null);
+  const [roles, setRoles] = useState(sharedRoles);
+  const [users, setUsers] = useState(sharedUsers);
+  const [msg, setMsg] = useState<string | null>(null);
+  useEffect(() => {
+    if (canEdit) apiCall(optionsSchema, "/api/estimates/options").then(setOpts, () => null);
+  }, [canEdit]);
+  const share = async () => {
+    try {
+      await apiCall(z.object({ id: z.string() }).passthrough(), `/api/estimates/${estimateId}/sharing`, { method: "PUT", body: { sharedRoles: roles, sharedUsers: users } });
+      setMsg(roles.length || users.length ? "Sharing saved." : "Sharing saved: only you can see this estimate.");
+    } catch (e) {
+      setMsg(e instanceof ApiError ? e.message : "Could not save the sharing.");
+    }
+  };
+  const duplicate = async () => {
+    try {
+      const r = await apiCall(z.object({ id: z.string() }), `/api/estimates/${estimateId}/duplicate`, { method: "POST", body: {} });
+      window.location.href = `/orders/${r.id}`;
+    } catch (e) {
+      setMsg(e instanceof ApiError ? e.message : "Could not duplicate.");
+    }
+  };
+  return (
+    <div className="flex flex-wrap items-start gap-4">
+      {canEdit && opts && (
+        <details className="gw-card">
+          <summary className="cursor-pointer font-semibold">Share…</summary>
+          <fieldset className="mt-2">
+            <legend className="gw-label">Roles that may read it</legend>
+            {opts.roles.map((r) => (
+              <label key={r} className="mr-3 inline-flex items-center gap-1 text-sm"><input type="checkbox" checked={roles.includes(r)} onChange={(e) => setRoles(e.target.checked ? [...roles, r] : roles.filter((x) => x !== r))} />{ROLE_NAMES[r] ?? r}</label>
+            ))}
+          </fieldset>
+          <fieldset className="mt-2">
+            <legend className="gw-label">People who may read it</legend>
+            {opts.people.map((p) => (
+              <label key={p.id} className="mr-3 inline-flex items-center gap-1 text-sm"><input type="checkbox" checked={users.includes(p.id)} onChange={(e) => setUsers(e.target.checked ? [...users, p.id] : users.filter((x) => x !== p.id))} />{p.name}</label>
+            ))}
+          </fieldset>
+          <button className="gw-btn mt-2" onClick={() => void share()}>Save sharing</button>
+        </details>
+      )}
+      {canDuplicate && <button className="gw-btn-quiet" onClick={() => void duplicate()}>Duplicate as my own what-if</button>}
+      {msg && <p className="text-sm" role="status">{msg}</p>}
+    </div>
+  );
+}

@@ -1,0 +1,108 @@
+/**
+ * Build an estimate from a CSV file: choose the measure and the amendments to consider, download the
+ * template, pick the filled-in file, preview it (row-precise errors), then save it as a new estimate.
+ */
+import { useEffect, useState } from "react";
+import { z } from "zod";
+import { ApiError, apiCall, versionSchema } from "./api.ts";
+
+const optionsSchema = z.object({ measures: z.array(z.object({ id: z.string(), number: z.string(), title: z.string() })) });
+const versionsSchema = z.object({ pending: z.array(z.object({ key: z.string(), title: z.string().nullable(), target: z.string(), form: z.string() })), versions: z.array(versionSchema.extend({ amendments: z.array(z.string()) })) });
+const previewSchema = z.object({ preview: z.literal(true), content: z.object({ kind: z.string(), rows: z.array(z.object({ member: z.string(), bloc: z.string(), weight: z.number(), ranking: z.array(z.union([z.string(), z.array(z.string())])) })).optional(), members: z.array(z.object({ member: z.string(), bloc: z.string(), weight: z.number(), ideal: z.array(z.number()) })).optional() }) });
+
+export default function NewEstimate() {
+  const [measures, setMeasures] = useState<z.output<typeof optionsSchema>["measures"]>([]);
+  const [measureId, setMeasureId] = useState("");
+  const [tree, setTree] = useState<z.output<typeof versionsSchema> | null>(null);
+  const [scope, setScope] = useState<string[]>([]);
+  const [title, setTitle] = useState("");
+  const [file, setFile] = useState<File | null>(null);
+  const [preview, setPreview] = useState<z.output<typeof previewSchema> | null>(null);
+  const [issues, setIssues] = useState<Array<{ path: string; message: string }>>([]);
+  const [error, setError] = useState<string | null>(null);
+
+  useEffect(() => {
+    apiCall(optionsSchema, "/api/estimates/options").then((o) => {
+      setMeasures(o.measures);
+      if (o.measures[0]) setMeasureId(o.measures[0].id);
+    }, () => setError("Could not load the measures."));
+  }, []);
+  useEffect(() => {
+    if (!measureId) return;
+    apiCall(versionsSchema, `/api/estimates/versions?measureId=${measureId}&scope=${scope.join(",")}`).then(
+      (t) => { setTree(t); setError(null); },
+      (e) => setError(e instanceof ApiError ? e.message : "Could not list the versions."),
+    );
+    setPreview(null);
+  }, [measureId, scope]);
+
+  const query = (extra: Record<string, string>) => new URLSearchParams({ measureId, scope: scope.join(","), kind: "ballots", ...extra }).toString();
+  const send = async (previewOnly: boolean) => {
+    setIssues([]);
+    setError(null);
+    if (!file) return setError("Choose a CSV file first.");
+    try {
+      if (previewOnly) setPreview(await apiCall(previewSchema, `/api/estimates/import?${query({ preview: "1" })}`, { method: "POST", raw: file, type: "text/csv" }));
+      else {
+        const r = await apiCall(z.object({ id: z.string() }), `/api/estimates/import?${query({ title: title.trim() })}`, { method: "POST", raw: file, type: "text/csv" });
+        window.location.href = `/orders/${r.id}`;
+      }
+    } catch (e) {
+      setPreview(null);
+      if (e instanceof ApiError) {
+        setError(e.message);
+        setIssues(e.issues);
+      } else setError("The upload failed. Nothing was saved.");
+    }
+  };
+
+  return (
+    <div className="gw-card space-y-4">
+      <h2 className="text-lg font-semibold">New estimate from a spreadsheet</h2>
+      <div className="grid gap-4 md:grid-cols-2">
+        <label className="gw-label">Measure
+          <select className="gw-input" value={measureId} onChange={(e) => { setMeasureId(e.target.value); setScope([]); }}>
+            {measures.map((m) => <option key={m.id} value={m.id}>{m.number} — {m.title}</option>)}
+          </select>
+        </label>
+        <label className="gw-label">Title of the estimate
+          <input className="gw-input" value={title} onChange={(e) => setTitle(e.target.value)} placeholder="e.g. Whips' count, Monday" maxLength={200} />
+        </label>
+      </div>
+      {tree && (
+        <fieldset>
+          <legend className="gw-label">Pending amendments to consider</legend>
+          <p className="gw-hint">A second-degree amendment needs the amendment it amends. Third-degree amendments are out of order.</p>
+          <div className="mt-1 flex flex-wrap gap-3">
+            {tree.pending.map((p) => (
+              <label key={p.key} className="inline-flex items-center gap-1 text-sm">
+                <input type="checkbox" checked={scope.includes(p.key)} onChange={(e) => setScope(e.target.checked ? [...scope, p.key] : scope.filter((k) => k !== p.key))} />
+                {p.key}{p.title ? ` (${p.title})` : ""}
+              </label>
+            ))}
+          </div>
+          <p className="mt-2 text-sm">Versions to rank: {tree.versions.map((v) => <code key={v.id} className="mr-2 rounded bg-vellum px-1">{v.id}</code>)}</p>
+        </fieldset>
+      )}
+      <div className="flex flex-wrap items-end gap-3">
+        <a className="gw-btn-quiet" href={`/api/estimates/template?${query({})}`} download>Download the CSV template</a>
+        <label className="gw-label">CSV file
+          <input className="gw-input" type="file" accept=".csv,text/csv" onChange={(e) => { setFile(e.target.files?.[0] ?? null); setPreview(null); setIssues([]); }} />
+        </label>
+        <button className="gw-btn-quiet" onClick={() => void send(true)} disabled={!file}>Preview</button>
+        <button className="gw-btn" onClick={() => void send(false)} disabled={!file || !title.trim() || !preview}>Save estimate</button>
+      </div>
+      <p className="gw-hint">Columns: member, bloc, weight, ranking. Write the ranking best first with "&gt;" between places and "=" for equal ones, e.g. <code>measure+A1 &gt; measure = Q</code>. Save the file as CSV UTF-8.</p>
+      {error && <div role="alert"><p className="gw-error">{error}</p>{issues.length > 1 && <ul className="list-disc pl-6 text-sm text-verdict-bar">{issues.map((i, k) => <li key={k}>{i.message}</li>)}</ul>}</div>}
+      {preview?.content.rows && (
+        <div>
+          <h3 className="font-semibold">Preview: {preview.content.rows.length} row{preview.content.rows.length === 1 ? "" : "s"}, {preview.content.rows.reduce((a, r) => a + r.weight, 0)} votes in all</h3>
+          <table className="gw-table mt-1">
+            <thead><tr><th scope="col">Member or bloc</th><th scope="col">Bloc</th><th scope="col">Weight</th><th scope="col">Ranking, best first</th></tr></thead>
+            <tbody>{preview.content.rows.slice(0, 50).map((r, i) => <tr key={i}><td>{r.member}</td><td>{r.bloc}</td><td>{r.weight}</td><td className="font-mono text-xs">{r.ranking.map((x) => (typeof x === "string" ? x : x.join(" = "))).join(" > ")}</td></tr>)}</tbody>
+          </table>
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,136 @@
+/**
+ * The spatial view of an estimate: members' ideal points by bloc (drag them, or focus one and use the
+ * arrow keys), the positions of the versions, the status quo's win set drawn exactly — the union, over
+ * minimal winning coalitions, of the intersections of their members' open discs through the status
+ * quo (win-set.ts) — and the majority cycle among the versions when there is one. Everything is
+ * recomputed in the browser with the voting engine's pure functions as points move.
+ */
+import { useMemo, useRef, useState } from "react";
+import { z } from "zod";
+import { mergedIdealPoints, spatialInput, type EstimateContent } from "../../lib/estimates/estimate-content.ts";
+import { majorityGraph } from "../../lib/voting/majority-graph.ts";
+import { majorityReport } from "../../lib/voting/majority-report.ts";
+import { scaleSpatial, spatialProfile, spatialSchema, versionPosition } from "../../lib/voting/spatial-profile.ts";
+import { winSet } from "../../lib/voting/win-set.ts";
+import { unscale } from "../../lib/voting/exact-decimal.ts";
+import { ApiError, apiCall } from "../orders/api.ts";
+
+type Spatial = Extract<EstimateContent, { kind: "spatial" }>;
+const BLOC_COLOURS = ["#1f4e79", "#8a4b08", "#2f6b3a", "#6b2f5f", "#5a5a5a", "#0f6470"];
+const STEP = 0.5;
+
+export default function SpatialView({ estimateId, content: initial, versions, scope, basedOn, canEdit }: { estimateId: string; content: Spatial; versions: Array<{ id: string; amendments: string[]; short: string }>; scope: string[]; basedOn: number; canEdit: boolean }) {
+  const [content, setContent] = useState<Spatial>(initial);
+  const [dirty, setDirty] = useState(false);
+  const [message, setMessage] = useState<string | null>(null);
+  const svgRef = useRef<SVGSVGElement>(null);
+  const dragging = useRef<number | null>(null);
+  const groups = useMemo(() => mergedIdealPoints(content.members), [content]);
+
+  const model = useMemo(() => {
+    const s = scaleSpatial(spatialSchema.parse(spatialInput(content)));
+    const positions = versions.map((v) => (v.id === "Q" ? s.statusQuo : versionPosition(s, v.amendments)));
+    const g = majorityGraph(spatialProfile(s, versions.map((v) => v.id), positions));
+    return { positions: positions.map((p) => p.map((c) => unscale(c, s.scale))), report: majorityReport(g), win: winSet(s, s.statusQuo) };
+  }, [content, versions]);
+
+  if (content.dimensions.length !== 2) return <p className="gw-hint">The plot shows estimates in two dimensions; this one has {content.dimensions.length}.</p>;
+
+  const all = [...groups.map((g) => g.ideal), ...model.positions];
+  const xs = all.map((p) => p[0]);
+  const ys = all.map((p) => p[1]);
+  const pad = 2;
+  const [x0, x1, y0, y1] = [Math.min(...xs) - pad, Math.max(...xs) + pad, Math.min(...ys) - pad, Math.max(...ys) + pad];
+  const span = Math.max(x1 - x0, y1 - y0);
+  const W = 560;
+  const k = (W - 60) / span;
+  const X = (x: number) => 40 + (x - x0) * k;
+  const Y = (y: number) => W - 30 - (y - y0) * k;
+  const fromScreen = (px: number, py: number) => [Math.round(((px - 40) / k + x0) * 10) / 10, Math.round(((W - 30 - py) / k + y0) * 10) / 10];
+
+  const moveGroup = (gi: number, to: number[]) => {
+    const from = groups[gi].ideal.join(",");
+    setContent((c) => ({ ...c, members: c.members.map((m) => (m.ideal.join(",") === from ? { ...m, ideal: to } : m)) }));
+    setDirty(true);
+  };
+  const onPointerMove = (e: React.PointerEvent) => {
+    if (dragging.current === null || !svgRef.current) return;
+    const r = svgRef.current.getBoundingClientRect();
+    const scale = W / r.width;
+    moveGroup(dragging.current, fromScreen((e.clientX - r.left) * scale, (e.clientY - r.top) * scale));
+  };
+  const onKey = (gi: number) => (e: React.KeyboardEvent) => {
+    const d: Record<string, [number, number]> = { ArrowLeft: [-STEP, 0], ArrowRight: [STEP, 0], ArrowUp: [0, STEP], ArrowDown: [0, -STEP] };
+    const v = d[e.key];
+    if (!v) return;
+    e.preventDefault();
+    const p = groups[gi].ideal;
+    moveGroup(gi, [Math.round((p[0] + v[0]) * 10) / 10, Math.round((p[1] + v[1]) * 10) / 10]);
+  };
+  const save = async () => {
+    try {
+      await apiCall(z.object({ version: z.number() }), `/api/estimates/${estimateId}/versions`, { method: "POST", body: { basedOn, scope, content, note: "Ideal points moved on the plot" } });
+      window.location.reload();
+    } catch (e) {
+      setMessage(e instanceof ApiError ? e.message : "Could not save.");
+    }
+  };
+
+  const sqIndex = versions.findIndex((v) => v.id === "Q");
+  const cycle = model.report.condorcetWinner ? [] : model.report.topCycle;
+  const idx = (id: string) => versions.findIndex((v) => v.id === id);
+  const blocs = [...new Set(content.members.map((m) => m.bloc || m.member))];
+  const colour = (g: (typeof groups)[number]) => BLOC_COLOURS[blocs.indexOf(g.blocs[0] ?? g.members[0]) % BLOC_COLOURS.length];
+  const discs = model.win.discs;
+
+  return (
+    <div className="grid gap-4 lg:grid-cols-[minmax(0,560px)_1fr]">
+      <svg ref={svgRef} viewBox={`0 0 ${W} ${W}`} className="w-full touch-none rounded border border-rule bg-white" role="group" aria-label={`Spatial plot: ${content.dimensions[0]} across, ${content.dimensions[1]} up`} onPointerMove={onPointerMove} onPointerUp={() => (dragging.current = null)} onPointerLeave={() => (dragging.current = null)}>
+        <defs>
+          {discs.map((d, i) => <clipPath key={i} id={`gw-disc-${i}`}><circle cx={X(d.center[0])} cy={Y(d.center[1])} r={Math.sqrt(d.radiusSquared) * k} /></clipPath>)}
+          <marker id="gw-cyc" viewBox="0 0 10 10" refX="9" refY="5" markerWidth="7" markerHeight="7" orient="auto"><path d="M0,0 L10,5 L0,10 z" className="fill-brass-text" /></marker>
+        </defs>
+        <line x1={40} y1={W - 30} x2={W - 10} y2={W - 30} className="stroke-rule" />
+        <line x1={40} y1={10} x2={40} y2={W - 30} className="stroke-rule" />
+        <text x={W / 2} y={W - 8} textAnchor="middle" fontSize="12" className="fill-ink-soft">{content.dimensions[0]} →</text>
+        <text x={14} y={W / 2} textAnchor="middle" fontSize="12" className="fill-ink-soft" transform={`rotate(-90 14 ${W / 2})`}>{content.dimensions[1]} →</text>
+        {discs.map((d, i) => <circle key={i} cx={X(d.center[0])} cy={Y(d.center[1])} r={Math.sqrt(d.radiusSquared) * k} fill="none" className="stroke-ink-soft" strokeDasharray="3 4" strokeWidth="0.8" />)}
+        <g opacity="0.45" data-testid="win-set">
+          {(model.win.coalitions ?? []).map((c, ci) => {
+            const [last, ...outer] = [...c].reverse();
+            const d = discs[last];
+            return outer.reduce<React.ReactNode>((inner, m) => <g clipPath={`url(#gw-disc-${m})`}>{inner}</g>, <circle cx={X(d.center[0])} cy={Y(d.center[1])} r={Math.sqrt(d.radiusSquared) * k} className="fill-chamber" key={ci} />);
+          }).map((n, i) => <g key={i}>{n}</g>)}
+        </g>
+        {cycle.map((id, i) => {
+          const a = model.positions[idx(id)];
+          const b = model.positions[idx(cycle.find((y) => (model.report.margins[id]?.[y] ?? 0) > 0) ?? cycle[(i + 1) % cycle.length])];
+          return <line key={id} x1={X(a[0])} y1={Y(a[1])} x2={X(a[0] + (b[0] - a[0]) * 0.85)} y2={Y(a[1] + (b[1] - a[1]) * 0.85)} className="stroke-brass-text" strokeWidth="2" markerEnd="url(#gw-cyc)" />;
+        })}
+        {versions.map((v, i) => (
+          <g key={v.id}>
+            <rect x={X(model.positions[i][0]) - 5} y={Y(model.positions[i][1]) - 5} width="10" height="10" className={i === sqIndex ? "fill-verdict-bar" : "fill-brass"} transform={`rotate(45 ${X(model.positions[i][0])} ${Y(model.positions[i][1])})`} />
+            <text x={X(model.positions[i][0]) + 9} y={Y(model.positions[i][1]) - 7} fontSize="11" className="fill-ink">{v.id === "Q" ? "Q" : v.id.replace(/^measure/, "M")}</text>
+          </g>
+        ))}
+        {groups.map((g, gi) => (
+          <g key={gi} tabIndex={0} role="button" aria-label={`${g.blocs.join(", ") || g.members.join(", ")}: ${g.weight} vote${g.weight === 1 ? "" : "s"} at (${g.ideal.join(", ")}). Arrow keys move it.`} onKeyDown={onKey(gi)} onPointerDown={(e) => { dragging.current = gi; (e.target as Element).setPointerCapture?.(e.pointerId); }} className="cursor-grab focus:outline-none [&:focus>circle]:stroke-[4]">
+            <circle cx={X(g.ideal[0])} cy={Y(g.ideal[1])} r={6 + Math.sqrt(g.weight) * 2} fill={colour(g)} fillOpacity="0.85" stroke="#111" strokeWidth="1.5" />
+            <text x={X(g.ideal[0])} y={Y(g.ideal[1]) + 4} fontSize="11" textAnchor="middle" fill="white" className="pointer-events-none font-semibold">{g.weight}</text>
+          </g>
+        ))}
+      </svg>
+      <div className="space-y-3 text-sm">
+        <p className="gw-advisory">Positions are estimates. The shaded region is the status quo's win set: the points a majority prefers to Q. The presiding officer's rulings, the chamber's own rules and its counsel prevail.</p>
+        <ul className="space-y-1">
+          {groups.map((g, gi) => <li key={gi}><span className="mr-2 inline-block h-3 w-3 rounded-full align-middle" style={{ background: colour(g) }} />{g.blocs.join(", ") || g.members.join(", ")} — {g.weight} vote{g.weight === 1 ? "" : "s"} at ({g.ideal.join(", ")})</li>)}
+        </ul>
+        <p><span className="mr-1 inline-block h-3 w-3 rotate-45 bg-verdict-bar align-middle" /> Q (no change) · <span className="mr-1 inline-block h-3 w-3 rotate-45 bg-brass align-middle" /> versions of the measure</p>
+        <p>{model.win.coalitions === null ? "The win set is drawn only for up to 16 distinct ideal points; the dashed circles show each member's indifference circle through Q." : model.win.coalitions.length === 0 ? "No coalition can beat the status quo: its win set is empty." : `Win set of Q: union of ${model.win.coalitions.length} coalition lens${model.win.coalitions.length === 1 ? "" : "es"}.`}</p>
+        <p>{model.report.condorcetWinner ? `Among the versions, ${versions[idx(model.report.condorcetWinner)].short} beats every other.` : `Majority cycle among the versions: ${cycle.map((id) => versions[idx(id)].short).join(" → ")} → …`}</p>
+        {canEdit && <button className="gw-btn" disabled={!dirty} onClick={() => void save()}>Save these positions as a new version</button>}
+        {message && <p className="gw-error" role="alert">{message}</p>}
+      </div>
+    </div>
+  );
+}
