@@ -113,8 +113,21 @@ export async function loadRulebook(chamberId: string, versionId?: string | null)
     if (!f) throw new GavelError("not-found", "This chamber has not adopted a rulebook yet. A clerk can adopt one on the Rulebooks page.");
     id = f.versionId;
   }
+  const cached = parsedVersions.get(id);
+  if (cached && cached.chamberId === chamberId) return cached.value;
   const row = await versionRow(chamberId, id);
-  return { versionId: row.id, number: row.number, title: row.title, rulebook: parseRulebook(row.document) };
+  const value = { versionId: row.id, number: row.number, title: row.title, rulebook: parseRulebook(row.document) };
+  rememberParsed(id, chamberId, value);
+  return value;
+}
+
+// A saved version never changes, so its parsed form can be kept: parsing and checking a
+// rulebook costs far more than answering a legal-moves question with it. Bounded, oldest out.
+const PARSED_CACHE_SIZE = 64;
+const parsedVersions = new Map<string, { chamberId: string; value: { versionId: string; number: number; title: string; rulebook: Rulebook } }>();
+function rememberParsed(id: string, chamberId: string, value: { versionId: string; number: number; title: string; rulebook: Rulebook }) {
+  parsedVersions.set(id, { chamberId, value });
+  if (parsedVersions.size > PARSED_CACHE_SIZE) parsedVersions.delete(parsedVersions.keys().next().value!);
 }
 
 // Serialises saves per chamber, so two saves based on the same version cannot both win.
