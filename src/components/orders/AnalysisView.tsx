@@ -127,9 +127,9 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
           <MajorityGraph versions={versions} margins={m.margins} highlight={m.condorcetWinner ? [] : m.topCycle} />
         </div>
         <dl className="space-y-3 text-sm">
-          <div><dt className="font-semibold">Condorcet winner</dt><dd>{m.condorcetWinner ? `${short(m.condorcetWinner)} — beats every other version head to head.` : `None: the majority preferences cycle (${m.topCycle.map(short).join(" → ")} → …).`}</dd></div>
+          <div><dt className="font-semibold">Condorcet winner</dt><dd>{m.condorcetWinner ? `${short(m.condorcetWinner)} — beats every other version head to head.` : `None: no version beats all the others; the majorities cycle among ${m.topCycle.map(short).join(", ")}.`}</dd></div>
           <div><dt className="font-semibold">Top cycle: {m.topCycle.map(short).join(", ")}</dt><dd className="text-ink-soft">The smallest group of versions that each beat or tie every version outside it; sincere voting can end only here.</dd></div>
-          <div><dt className="font-semibold">Uncovered set: {m.uncoveredSet.map(short).join(", ")}</dt><dd className="text-ink-soft">Versions not "covered" — no other version beats them and everything they beat (Gillies' definition).</dd></div>
+          <div><dt className="font-semibold">Uncovered set: {m.uncoveredSet.map(short).join(", ")}</dt><dd className="text-ink-soft">Versions no other version covers: y covers x when y beats x and every version that beats y also beats x (Gillies' variant on ties).</dd></div>
           <div><dt className="font-semibold">Banks set: {m.banksSet.map(short).join(", ")}{m.banksComplete ? "" : " (search stopped early; may be incomplete)"}</dt><dd className="text-ink-soft">Winners of strategic (sophisticated) voting under some order of pairwise votes: the tops of maximal chains of beating.</dd></div>
           <div><dt className="font-semibold">Legal orders of questions: {String(a.orders)}</dt><dd className="text-ink-soft">Orders allowed by the rulebook's voting constraints ({a.constraints.map(([x, y]) => `${x} before ${y}`).join("; ") || "none"}).</dd></div>
         </dl>

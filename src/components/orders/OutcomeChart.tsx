@@ -12,7 +12,7 @@ export default function OutcomeChart({ versions, sincere, sophisticated, total }
   const barW = W - label - 60;
   const rowH = 44;
   return (
-    <svg viewBox={`0 0 ${W} ${rows.length * rowH + 30}`} role="img" aria-label={rows.map((v) => `${v.short}: ${sincere[v.id] ?? 0} orders sincere, ${sophisticated[v.id] ?? 0} sophisticated`).join("; ")} className="w-full max-w-2xl">
+    <svg viewBox={`0 0 ${W} ${rows.length * rowH + 48}`} role="img" aria-label={rows.map((v) => `${v.short}: ${sincere[v.id] ?? 0} orders sincere, ${sophisticated[v.id] ?? 0} sophisticated`).join("; ")} className="w-full max-w-2xl">
       <defs>
         <pattern id="gw-hatch" width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)"><rect width="6" height="6" className="fill-brass-tint" /><line x1="0" y1="0" x2="0" y2="6" className="stroke-brass" strokeWidth="3" /></pattern>
       </defs>
@@ -33,7 +33,7 @@ export default function OutcomeChart({ versions, sincere, sophisticated, total }
       <g transform={`translate(${label}, ${rows.length * rowH + 14})`} fontSize="11">
         <rect width="12" height="10" className="fill-chamber" /><text x="16" y="9" className="fill-ink">sincere voting</text>
         <rect x="120" width="12" height="10" fill="url(#gw-hatch)" /><text x="136" y="9" className="fill-ink">sophisticated voting</text>
-        <text x="290" y="9" className="fill-ink-soft">out of {String(total)} legal orders</text>
+        <text x="0" y="26" className="fill-ink-soft">out of {String(total)} legal order{String(total) === "1" ? "" : "s"}</text>
       </g>
     </svg>
   );

@@ -57,7 +57,7 @@ function stepFor(s: WalkStep, n: number, labels: TreeLabels, amendThreshold: str
   const wording = isPassage
     ? [`The question now before the Assembly is on the passage of ${labels.measureLabel}${s.motion && s.motion !== labels.measureKey ? ", as amended" : ""}.`, "Is there any further debate? [Pause.] Members in favour of passage will vote Aye; those against, No.", "The clerk will record the vote."]
     : [
-        `The question is on ${a.degree === 2 ? `the amendment to amendment ${a.target}` : "the amendment"} ${name}, ${FORM_WORDS[a.form ?? ""] ?? "to amend"} ${a.form === "substitute" || a.form === "in-nature-of-substitute" ? `for ${whereIn(a)}` : `in ${whereIn(a)}`}.`,
+        `The question is on amendment ${name}${a.degree === 2 ? ` to amendment ${a.target}` : ""}, ${FORM_WORDS[a.form ?? ""] ?? "to amend"} ${a.form === "substitute" || a.form === "in-nature-of-substitute" ? `for ${whereIn(a)}` : `in ${whereIn(a)}`}.`,
         `Is there any further debate on ${name}? [Pause.] Members in favour of the amendment will vote Aye; those against, No.`,
         "The clerk will record the vote.",
       ];
@@ -69,8 +69,16 @@ function stepFor(s: WalkStep, n: number, labels: TreeLabels, amendThreshold: str
     heading,
     wording,
     voteRequired: thresholdInWords(isPassage ? passageThreshold : amendThreshold),
-    onAdoption: isPassage ? `${labels.measureLabel} is passed in the form: ${versionInWords(s.motion ?? labels.measureKey, labels)}.` : `The amendment is agreed to; the text becomes: ${versionInWords(s.motion ?? labels.measureKey, labels)}.${falls(s.fallsIfAdopted, labels)}`,
-    onRejection: isPassage ? `${labels.measureLabel} is not passed; current law stands.` : `The amendment is not agreed to; the text remains: ${versionInWords(s.base ?? labels.measureKey, labels)}.${falls(s.fallsIfRejected, labels)}`,
+    onAdoption: isPassage
+      ? `${labels.measureLabel} is passed in the form: ${versionInWords(s.motion ?? labels.measureKey, labels)}.`
+      : a.degree === 2
+        ? `Amendment ${a.target} is amended; if ${a.target} is then agreed to, the text becomes: ${versionInWords(s.motion ?? labels.measureKey, labels)}.${falls(s.fallsIfAdopted, labels)}`
+        : `The amendment is agreed to; the text becomes: ${versionInWords(s.motion ?? labels.measureKey, labels)}.${falls(s.fallsIfAdopted, labels)}`,
+    onRejection: isPassage
+      ? `${labels.measureLabel} is not passed; current law stands.`
+      : a.degree === 2
+        ? `Amendment ${a.target} stays as filed; if it is then agreed to, the text becomes: ${versionInWords(s.base ?? labels.measureKey, labels)}.${falls(s.fallsIfRejected, labels)}`
+        : `The amendment is not agreed to; the text remains: ${versionInWords(s.base ?? labels.measureKey, labels)}.${falls(s.fallsIfRejected, labels)}`,
     projection: `Projected: ${s.adopted ? "adopted" : "rejected"} (${tally}).`,
   };
 }
