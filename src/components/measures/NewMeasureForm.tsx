@@ -1,11 +1,12 @@
 import { useState, type FormEvent } from "react";
 import { z } from "zod";
+import { MEASURE_STATUSES } from "../../lib/server/measure-schemas.ts";
 import { ApiError, apiCall, issuesByField } from "./api.ts";
 
 const created = z.object({ id: z.string(), number: z.string() });
 
 /** Clerks introduce a measure: its text typed in (split into sections at headings) or uploaded. */
-export default function NewMeasureForm() {
+export default function NewMeasureForm({ legislators = [] }: { legislators?: Array<{ id: string; name: string; bloc: string }> }) {
   const [mode, setMode] = useState<"text" | "upload">("text");
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [failure, setFailure] = useState<string | null>(null);
@@ -23,7 +24,8 @@ export default function NewMeasureForm() {
       let out;
       if (mode === "upload") {
         const form = new FormData();
-        for (const k of ["number", "title", "committee", "subjects"]) form.set(k, String(fd.get(k) ?? ""));
+        for (const k of ["number", "title", "committee", "subjects", "status"]) form.set(k, String(fd.get(k) ?? ""));
+        form.set("sponsors", fd.getAll("sponsors").map(String).join(","));
         if (sittingAt) form.set("sittingAt", sittingAt);
         const file = fd.get("file");
         if (file instanceof File && file.size > 0) form.set("file", file);
@@ -31,7 +33,7 @@ export default function NewMeasureForm() {
       } else {
         out = await apiCall(created, "/api/measures", {
           method: "POST",
-          body: { number: fd.get("number"), title: fd.get("title"), committee: String(fd.get("committee") ?? "").trim() || null, subjects: String(fd.get("subjects") ?? "").split(",").map((s) => s.trim()).filter(Boolean), sittingAt, text: String(fd.get("text") ?? "") },
+          body: { number: fd.get("number"), title: fd.get("title"), committee: String(fd.get("committee") ?? "").trim() || null, status: fd.get("status"), subjects: String(fd.get("subjects") ?? "").split(",").map((s) => s.trim()).filter(Boolean), sponsors: fd.getAll("sponsors").map(String), sittingAt, text: String(fd.get("text") ?? "") },
         });
       }
       window.location.href = `/measures/${out.id}`;
@@ -52,6 +54,20 @@ export default function NewMeasureForm() {
         <div><label htmlFor="nm-committee" className="gw-label">Committee of jurisdiction</label><input id="nm-committee" name="committee" className="gw-input" /></div>
         <div><label htmlFor="nm-subjects" className="gw-label">Subject tags</label><input id="nm-subjects" name="subjects" className="gw-input" placeholder="harbour, safety" /></div>
         <div><label htmlFor="nm-sitting" className="gw-label">On the floor at</label><input id="nm-sitting" name="sittingAt" type="datetime-local" className="gw-input" />{err("sittingAt")}</div>
+        <div>
+          <label htmlFor="nm-status" className="gw-label">Status</label>
+          <select id="nm-status" name="status" className="gw-input" defaultValue="introduced">{MEASURE_STATUSES.map((s) => <option key={s} value={s}>{s}</option>)}</select>
+        </div>
+        {legislators.length > 0 && (
+          <div className="sm:col-span-2">
+            <label htmlFor="nm-sponsors" className="gw-label">Sponsors</label>
+            <select id="nm-sponsors" name="sponsors" multiple size={4} className="gw-input">
+              {legislators.map((l) => <option key={l.id} value={l.id}>{l.name} ({l.bloc})</option>)}
+            </select>
+            <p className="gw-hint">Ctrl/⌘-click to choose several.</p>
+            {err("sponsors")}
+          </div>
+        )}
       </div>
       <fieldset className="flex gap-4 text-sm">
         <legend className="gw-label">Text</legend>

@@ -6,7 +6,58 @@ import { ApiError, apiCall } from "./api.ts";
 const ROLE_NAMES: Record<string, string> = { "chief-clerk": "Chief clerk", clerk: "Clerks", member: "Members", staff: "Staff", observer: "Observers" };
 const optionsSchema = z.object({ people: z.array(z.object({ id: z.string(), name: z.string(), role: z.string() })), roles: z.array(z.string()) });
 
-export default function EstimateTools({ estimateId, canEdit, canDuplicate, sharedRoles, sharedUsers }: { estimateId: string; canEdit: boolean; canDuplicate: boolean; sharedRoles: string[]; sharedUsers: string[] }) {
+interface UploadTarget {
+  kind: "ballots" | "spatial";
+  scope: string[];
+  basedOn: number;
+  /** Dimension names of a spatial estimate (the CSV's coordinate columns). */
+  dimensions: string[];
+}
+
+/** Upload a filled-in CSV as the next version of this estimate (same measure, amendments and kind). */
+function UploadVersion({ estimateId, target }: { estimateId: string; target: UploadTarget }) {
+  const [file, setFile] = useState<File | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const [issues, setIssues] = useState<Array<{ path: string; message: string }>>([]);
+  const [busy, setBusy] = useState(false);
+  const query = new URLSearchParams({ estimateId, basedOn: String(target.basedOn), scope: target.scope.join(","), kind: target.kind, ...(target.kind === "spatial" ? { dimensions: target.dimensions.join(",") } : {}) });
+  const upload = async () => {
+    if (!file) return;
+    setBusy(true);
+    setError(null);
+    setIssues([]);
+    try {
+      await apiCall(z.object({ id: z.string(), version: z.number() }), `/api/estimates/import?${query}`, { method: "POST", raw: file, type: "text/csv" });
+      window.location.href = `/orders/${estimateId}`;
+    } catch (e) {
+      if (e instanceof ApiError) {
+        setError(e.message);
+        setIssues(e.issues);
+      } else setError("The upload failed. Nothing was saved.");
+    } finally {
+      setBusy(false);
+    }
+  };
+  return (
+    <details className="gw-card" data-testid="upload-version">
+      <summary className="cursor-pointer font-semibold">Upload a CSV as version {target.basedOn + 1}…</summary>
+      <p className="gw-hint mt-2">
+        {target.kind === "ballots" ? "Columns: member, bloc, weight, ranking." : `Columns: member, bloc, weight, ${target.dimensions.join(", ")}.`} The amendments considered stay as they are.</p>
+      <label className="gw-label mt-2">CSV file
+        <input className="gw-input" type="file" accept=".csv,text/csv" onChange={(e) => { setFile(e.target.files?.[0] ?? null); setError(null); setIssues([]); }} />
+      </label>
+      <button type="button" className="gw-btn mt-2" disabled={!file || busy} onClick={() => void upload()}>Upload as a new version</button>
+      {error && (
+        <div role="alert" className="mt-2">
+          <p className="gw-error">{error}</p>
+          {issues.length > 1 && <ul className="list-disc pl-6 text-sm text-verdict-bar">{issues.map((i, k) => <li key={k}>{i.message}</li>)}</ul>}
+        </div>
+      )}
+    </details>
+  );
+}
+
+export default function EstimateTools({ estimateId, canEdit, canDuplicate, sharedRoles, sharedUsers, upload }: { estimateId: string; canEdit: boolean; canDuplicate: boolean; sharedRoles: string[]; sharedUsers: string[]; upload?: UploadTarget | null }) {
   const [opts, setOpts] = useState<z.output<typeof optionsSchema> | null>(null);
   const [roles, setRoles] = useState(sharedRoles);
   const [users, setUsers] = useState(sharedUsers);
@@ -50,6 +101,7 @@ export default function EstimateTools({ estimateId, canEdit, canDuplicate, share
           <button className="gw-btn mt-2" onClick={() => void share()}>Save sharing</button>
         </details>
       )}
+      {canEdit && upload && <UploadVersion estimateId={estimateId} target={upload} />}
       {canDuplicate && <button className="gw-btn-quiet" onClick={() => void duplicate()}>Duplicate as my own what-if</button>}
       {msg && <p className="text-sm" role="status">{msg}</p>}
     </div>

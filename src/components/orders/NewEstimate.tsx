@@ -20,6 +20,8 @@ export default function NewEstimate() {
   const [preview, setPreview] = useState<z.output<typeof previewSchema> | null>(null);
   const [issues, setIssues] = useState<Array<{ path: string; message: string }>>([]);
   const [error, setError] = useState<string | null>(null);
+  const [kind, setKind] = useState<"ballots" | "spatial">("ballots");
+  const [dimensions, setDimensions] = useState("economy, environment");
 
   useEffect(() => {
     apiCall(optionsSchema, "/api/estimates/options").then((o) => {
@@ -36,7 +38,24 @@ export default function NewEstimate() {
     setPreview(null);
   }, [measureId, scope]);
 
-  const query = (extra: Record<string, string>) => new URLSearchParams({ measureId, scope: scope.join(","), kind: "ballots", ...extra }).toString();
+  const query = (extra: Record<string, string>) => new URLSearchParams({ measureId, scope: scope.join(","), kind, ...(kind === "spatial" ? { dimensions } : {}), ...extra }).toString();
+  /** Start from the roster instead of a file: the template (one row per bloc) saved as version 1, then edited on the estimate's page. */
+  const startBlank = async () => {
+    setIssues([]);
+    setError(null);
+    if (!title.trim()) return setError("Give the estimate a title first.");
+    try {
+      const res = await fetch(`/api/estimates/template?${query({ per: "bloc" })}`);
+      if (!res.ok) throw new ApiError(res.status, "internal", "Could not get the roster template.");
+      const r = await apiCall(z.object({ id: z.string() }), `/api/estimates/import?${query({ title: title.trim() })}`, { method: "POST", raw: await res.text(), type: "text/csv" });
+      window.location.href = `/orders/${r.id}`;
+    } catch (e) {
+      if (e instanceof ApiError) {
+        setError(e.message);
+        setIssues(e.issues);
+      } else setError("Could not start the estimate. Nothing was saved.");
+    }
+  };
   const send = async (previewOnly: boolean) => {
     setIssues([]);
     setError(null);
@@ -58,7 +77,7 @@ export default function NewEstimate() {
 
   return (
     <div className="gw-card space-y-4">
-      <h2 className="text-lg font-semibold">New estimate from a spreadsheet</h2>
+      <h2 className="text-lg font-semibold">New estimate</h2>
       <div className="grid gap-4 md:grid-cols-2">
         <label className="gw-label">Measure
           <select className="gw-input" value={measureId} onChange={(e) => { setMeasureId(e.target.value); setScope([]); }}>
@@ -68,6 +87,18 @@ export default function NewEstimate() {
         <label className="gw-label">Title of the estimate
           <input className="gw-input" value={title} onChange={(e) => setTitle(e.target.value)} placeholder="e.g. Whips' count, Monday" maxLength={200} />
         </label>
+        <label className="gw-label">Kind
+          <select className="gw-input" value={kind} onChange={(e) => { setKind(e.target.value as "ballots" | "spatial"); setPreview(null); }}>
+            <option value="ballots">Ranked ballots over the versions</option>
+            <option value="spatial">Spatial: members' ideal points</option>
+          </select>
+        </label>
+        {kind === "spatial" && (
+          <label className="gw-label">Policy dimensions
+            <input className="gw-input" value={dimensions} onChange={(e) => { setDimensions(e.target.value); setPreview(null); }} maxLength={800} />
+            <span className="gw-hint block">Comma-separated names; the plot draws two.</span>
+          </label>
+        )}
       </div>
       {tree && (
         <fieldset>
@@ -91,9 +122,14 @@ export default function NewEstimate() {
         </label>
         <button className="gw-btn-quiet" onClick={() => void send(true)} disabled={!file}>Preview</button>
         <button className="gw-btn" onClick={() => void send(false)} disabled={!file || !title.trim() || !preview}>Save estimate</button>
+        <span className="text-sm text-ink-soft">or</span>
+        <button className="gw-btn-quiet" onClick={() => void startBlank()} disabled={!measureId || !title.trim()}>Start from the roster and fill it in on the page</button>
       </div>
-      <p className="gw-hint">Columns: member, bloc, weight, ranking. Write the ranking best first with "&gt;" between places and "=" for equal ones, e.g. <code>measure+A1 &gt; measure = Q</code>. Save the file as CSV UTF-8.</p>
+      <p className="gw-hint">{kind === "spatial" ? `Columns: member, bloc, weight, then one per dimension (${dimensions}). ` : ""}Ballots' columns: member, bloc, weight, ranking. Write the ranking best first with "&gt;" between places and "=" for equal ones, e.g. <code>measure+A1 &gt; measure = Q</code>. Save the file as CSV UTF-8.</p>
       {error && <div role="alert"><p className="gw-error">{error}</p>{issues.length > 1 && <ul className="list-disc pl-6 text-sm text-verdict-bar">{issues.map((i, k) => <li key={k}>{i.message}</li>)}</ul>}</div>}
+      {preview?.content.members && (
+        <p className="font-semibold">Preview: {preview.content.members.length} ideal point{preview.content.members.length === 1 ? "" : "s"}, {preview.content.members.reduce((a, r) => a + r.weight, 0)} votes in all.</p>
+      )}
       {preview?.content.rows && (
         <div>
           <h3 className="font-semibold">Preview: {preview.content.rows.length} row{preview.content.rows.length === 1 ? "" : "s"}, {preview.content.rows.reduce((a, r) => a + r.weight, 0)} votes in all</h3>

@@ -34,13 +34,15 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
     return { positions: positions.map((p) => p.map((c) => unscale(c, s.scale))), report: majorityReport(g), win: winSet(s, s.statusQuo) };
   }, [content, versions]);
 
-  if (content.dimensions.length !== 2) return <p className="gw-hint">The plot shows estimates in two dimensions; this one has {content.dimensions.length}.</p>;
+
 
   const all = [...groups.map((g) => g.ideal), ...model.positions];
   const xs = all.map((p) => p[0]);
   const ys = all.map((p) => p[1]);
-  const pad = 2;
-  const [x0, x1, y0, y1] = [Math.min(...xs) - pad, Math.max(...xs) + pad, Math.min(...ys) - pad, Math.max(...ys) + pad];
+  // The dimensions' own scale when given (widened if a point lies outside it); otherwise the points' extent.
+  const pad = content.ranges ? 0.5 : 2;
+  const r = content.ranges;
+  const [x0, x1, y0, y1] = [Math.min(...xs, ...(r ? [r[0][0] + pad] : [])) - pad, Math.max(...xs, ...(r ? [r[0][1] - pad] : [])) + pad, Math.min(...ys, ...(r ? [r[1][0] + pad] : [])) - pad, Math.max(...ys, ...(r ? [r[1][1] - pad] : [])) + pad];
   const span = Math.max(x1 - x0, y1 - y0);
   const W = 560;
   const k = (W - 60) / span;
@@ -48,6 +50,10 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
   const Y = (y: number) => W - 30 - (y - y0) * k;
   const fromScreen = (px: number, py: number) => [Math.round(((px - 40) / k + x0) * 10) / 10, Math.round(((W - 30 - py) / k + y0) * 10) / 10];
 
+  const edit = (f: (c: Spatial) => Spatial) => {
+    setContent(f);
+    setDirty(true);
+  };
   const moveGroup = (gi: number, to: number[]) => {
     const from = groups[gi].ideal.join(",");
     setContent((c) => ({ ...c, members: c.members.map((m) => (m.ideal.join(",") === from ? { ...m, ideal: to } : m)) }));
@@ -69,13 +75,22 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
   };
   const save = async () => {
     try {
-      await apiCall(z.object({ version: z.number() }), `/api/estimates/${estimateId}/versions`, { method: "POST", body: { basedOn, scope, content, note: "Ideal points moved on the plot" } });
+      await apiCall(z.object({ version: z.number() }), `/api/estimates/${estimateId}/versions`, { method: "POST", body: { basedOn, scope, content, note: "Positions edited on the plot" } });
       window.location.reload();
     } catch (e) {
       setMessage(e instanceof ApiError ? e.message : "Could not save.");
     }
   };
 
+  if (content.dimensions.length !== 2)
+    return (
+      <div className="space-y-4">
+        <p className="gw-hint">The plot shows estimates in two dimensions; this one has {content.dimensions.length}.</p>
+        {canEdit && <PositionsEditor content={content} scope={scope} onChange={edit} />}
+        {canEdit && <button className="gw-btn" disabled={!dirty} onClick={() => void save()}>Save as version {basedOn + 1}</button>}
+        {message && <p className="gw-error" role="alert">{message}</p>}
+      </div>
+    );
   const sqIndex = versions.findIndex((v) => v.id === "Q");
   const cycle = model.report.condorcetWinner ? [] : model.report.topCycle;
   const idx = (id: string) => versions.findIndex((v) => v.id === id);
@@ -84,6 +99,7 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
   const discs = model.win.discs;
 
   return (
+    <div className="space-y-4">
     <div className="grid gap-4 lg:grid-cols-[minmax(0,560px)_1fr]">
       <svg ref={svgRef} viewBox={`0 0 ${W} ${W}`} className="w-full touch-none rounded border border-rule bg-white" role="group" aria-label={`Spatial plot: ${content.dimensions[0]} across, ${content.dimensions[1]} up`} onPointerMove={onPointerMove} onPointerUp={() => (dragging.current = null)} onPointerLeave={() => (dragging.current = null)}>
         <defs>
@@ -128,9 +144,121 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
         <p><span className="mr-1 inline-block h-3 w-3 rotate-45 bg-verdict-bar align-middle" /> Q (no change) · <span className="mr-1 inline-block h-3 w-3 rotate-45 bg-brass align-middle" /> versions of the measure</p>
         <p>{model.win.coalitions === null ? "The win set is drawn only for up to 16 distinct ideal points; the dashed circles show each member's indifference circle through Q." : model.win.coalitions.length === 0 ? "No coalition can beat the status quo: its win set is empty." : `Win set of Q: union of ${model.win.coalitions.length} coalition lens${model.win.coalitions.length === 1 ? "" : "es"}.`}</p>
         <p>{model.report.condorcetWinner ? `Among the versions, ${versions[idx(model.report.condorcetWinner)].short} beats every other.` : `No version beats all the others: the majorities cycle among ${cycle.map((id) => versions[idx(id)].short).join(", ")} (arrows point from a winner to a version it beats).`}</p>
-        {canEdit && <button className="gw-btn" disabled={!dirty} onClick={() => void save()}>Save these positions as a new version</button>}
+        {canEdit && <button className="gw-btn" disabled={!dirty} onClick={() => void save()}>Save as version {basedOn + 1}</button>}
         {message && <p className="gw-error" role="alert">{message}</p>}
       </div>
     </div>
+    {canEdit && <PositionsEditor content={content} scope={scope} onChange={edit} />}
+    </div>
+  );
+}
+
+/** A number box that commits only valid numbers (a half-typed "-" or "" keeps the last value). */
+function NumberBox({ value, label, onChange }: { value: number; label: string; onChange: (v: number) => void }) {
+  const [text, setText] = useState(String(value));
+  const [shown, setShown] = useState(value);
+  if (shown !== value) {
+    setShown(value);
+    if (Number(text) !== value) setText(String(value));
+  }
+  return (
+    <input
+      className="gw-input mt-0 w-20"
+      aria-label={label}
+      inputMode="decimal"
+      value={text}
+      onChange={(e) => {
+        setText(e.target.value);
+        const t = e.target.value.trim();
+        if (/^[-+]?(\d+(\.\d*)?|\.\d+)$/.test(t) && Math.abs(Number(t)) <= 1e6) onChange(Number(t));
+      }}
+    />
+  );
+}
+
+/**
+ * Dimensions (names and scales) and the positions of the status quo, the measure and each
+ * amendment's effect (a new position, or a shift of the text it amends), edited as numbers; the
+ * plot above follows every change.
+ */
+function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope: string[]; onChange: (f: (c: Spatial) => Spatial) => void }) {
+  const dims = content.dimensions;
+  const ranges = content.ranges ?? dims.map(() => [0, 10] as [number, number]);
+  const setAt = (xs: number[], i: number, v: number) => xs.map((x, j) => (j === i ? v : x));
+  const setRange = (i: number, end: 0 | 1, v: number) =>
+    onChange((c) => {
+      const next = ranges.map((r, j) => (j === i ? ((end === 0 ? [v, r[1]] : [r[0], v]) as [number, number]) : r));
+      return next.every(([a, b]) => a < b) ? { ...c, ranges: next } : c;
+    });
+  const effect = (k: string) => content.effects[k] ?? {};
+  const effectKind = (k: string): "position" | "shift" | "none" => (effect(k).position ? "position" : effect(k).shift ? "shift" : "none");
+  const setEffect = (k: string, kind: "position" | "shift" | "none") =>
+    onChange((c) => {
+      const effects = { ...c.effects };
+      if (kind === "none") delete effects[k];
+      else effects[k] = kind === "position" ? { position: c.effects[k]?.position ?? [...c.measure] } : { shift: c.effects[k]?.shift ?? dims.map(() => 0) };
+      return { ...c, effects };
+    });
+  return (
+    <details className="gw-card" data-testid="positions-editor" open>
+      <summary className="cursor-pointer font-semibold">Dimensions and positions</summary>
+      <div className="mt-2 grid gap-4 lg:grid-cols-2">
+        <div>
+          <h3 className="font-semibold">Dimensions</h3>
+          <table className="gw-table mt-1">
+            <thead><tr><th scope="col">#</th><th scope="col">Name</th><th scope="col">Low end</th><th scope="col">High end</th></tr></thead>
+            <tbody>
+              {dims.map((d, i) => (
+                <tr key={i}>
+                  <td>{i + 1}</td>
+                  <td><input className="gw-input mt-0" aria-label={`Name of dimension ${i + 1}`} defaultValue={d} maxLength={80} onChange={(e) => { const v = e.target.value.trim(); if (v) onChange((c) => ({ ...c, dimensions: c.dimensions.map((x, j) => (j === i ? v : x)) })); }} /></td>
+                  <td><NumberBox label={`Low end of ${d}`} value={ranges[i][0]} onChange={(v) => setRange(i, 0, v)} /></td>
+                  <td><NumberBox label={`High end of ${d}`} value={ranges[i][1]} onChange={(v) => setRange(i, 1, v)} /></td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          <p className="gw-hint">The scale frames the plot; a point may lie outside it. Members' points move by dragging, or by the arrow keys.</p>
+        </div>
+        <div>
+          <h3 className="font-semibold">Positions</h3>
+          <table className="gw-table mt-1">
+            <thead><tr><th scope="col">Text</th><th scope="col">Given as</th>{dims.map((d, i) => <th key={i} scope="col">{d}</th>)}</tr></thead>
+            <tbody>
+              <tr>
+                <th scope="row">Q (no change)</th><td>position</td>
+                {dims.map((d, i) => <td key={i}><NumberBox label={`Status quo on ${d}`} value={content.statusQuo[i]} onChange={(v) => onChange((c) => ({ ...c, statusQuo: setAt(c.statusQuo, i, v) }))} /></td>)}
+              </tr>
+              <tr>
+                <th scope="row">The measure</th><td>position</td>
+                {dims.map((d, i) => <td key={i}><NumberBox label={`Measure on ${d}`} value={content.measure[i]} onChange={(v) => onChange((c) => ({ ...c, measure: setAt(c.measure, i, v) }))} /></td>)}
+              </tr>
+              {scope.map((k) => {
+                const kind = effectKind(k);
+                const vals = kind === "position" ? effect(k).position! : kind === "shift" ? effect(k).shift! : null;
+                return (
+                  <tr key={k}>
+                    <th scope="row">{k}</th>
+                    <td>
+                      <select className="gw-input mt-0" aria-label={`How ${k} moves the text`} value={kind} onChange={(e) => setEffect(k, e.target.value as "position" | "shift" | "none")}>
+                        <option value="none">no change</option>
+                        <option value="position">new position</option>
+                        <option value="shift">shift by</option>
+                      </select>
+                    </td>
+                    {dims.map((d, i) => (
+                      <td key={i}>
+                        {vals ? <NumberBox label={`${k} ${kind === "shift" ? "shift" : "position"} on ${d}`} value={vals[i] ?? 0} onChange={(v) => onChange((c) => ({ ...c, effects: { ...c.effects, [k]: kind === "position" ? { position: setAt(c.effects[k]?.position ?? [...c.measure], i, v) } : { shift: setAt(c.effects[k]?.shift ?? dims.map(() => 0), i, v) } } }))} /> : "—"}
+                      </td>
+                    ))}
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+          <p className="gw-hint">A shift moves the text it amends (the measure, or the amendment it perfects) by that much on each dimension.</p>
+        </div>
+      </div>
+    </details>
   );
 }

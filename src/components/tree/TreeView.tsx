@@ -2,7 +2,7 @@ import { useCallback, useEffect, useMemo, useRef, useState, type KeyboardEvent }
 import { Background, Controls, MiniMap, ReactFlow, ReactFlowProvider, useReactFlow, type Edge } from "@xyflow/react";
 import "@xyflow/react/dist/style.css";
 import { treeViewSchema, type FindingView, type TreeView as TreeData } from "../../lib/server/measure-schemas.ts";
-import { ApiError, apiCall } from "../measures/api.ts";
+import { ApiError, apiCall, conflictText } from "../measures/api.ts";
 import { layoutTree } from "./layout.ts";
 import TreeLegend from "./TreeLegend.tsx";
 import TreeNodeCard, { type TreeFlowNode } from "./TreeNodeCard.tsx";
@@ -65,20 +65,83 @@ function Drawing({ data, selected, onSelect }: { data: TreeData; selected: strin
   );
 }
 
+const rulingHitSchema = z.object({ id: z.string(), number: z.number(), question: z.string(), decision: z.string().nullable(), sittingDate: z.string().nullable(), status: z.string() });
+type RulingHit = z.output<typeof rulingHitSchema>;
+const rulingListSchema = z.object({ results: z.array(rulingHitSchema) });
+const DECISION_WORDS: Record<string, string> = { sustained: "sustained", "not-sustained": "not sustained", other: "decided" };
+const rulingLabel = (r: RulingHit) => `Ruling ${r.number}${r.decision ? ` (${DECISION_WORDS[r.decision] ?? r.decision})` : ""}: ${r.question}`;
+
+/** Issued rulings matching a number ("14") or words; numbers are matched on the chamber's issued list. */
+async function findRulings(query: string): Promise<RulingHit[]> {
+  const q = query.trim();
+  const n = /^(?:ruling\s*)?(\d{1,6})$/i.exec(q);
+  if (n) {
+    const { results } = await apiCall(rulingListSchema, "/api/rulings?status=issued&limit=100");
+    return results.filter((r) => String(r.number).startsWith(n[1])).slice(0, 8);
+  }
+  const { results } = await apiCall(rulingListSchema, `/api/rulings?${new URLSearchParams({ status: "issued", limit: "8", ...(q ? { q } : {}) })}`);
+  return results;
+}
+
+/** Issued precedents related to a finding (same rule, or sharing words with its message). */
+function RelatedPrecedents({ finding }: { finding: FindingView }) {
+  const [hits, setHits] = useState<RulingHit[] | null>(null);
+  useEffect(() => {
+    let live = true;
+    const q = new URLSearchParams({ text: finding.message, citation: finding.citation, rule: finding.rule, limit: "3" });
+    apiCall(rulingListSchema, `/api/rulings/related?${q}`).then((r) => live && setHits(r.results), () => live && setHits([]));
+    return () => {
+      live = false;
+    };
+  }, [finding.message, finding.citation, finding.rule]);
+  if (!hits || hits.length === 0) return null;
+  return (
+    <div className="mt-1 text-xs" data-testid={`related-${finding.amendment}-${finding.code}`}>
+      <span className="text-ink-soft">Related precedents: </span>
+      {hits.map((r, i) => (
+        <span key={r.id}>
+          {i > 0 && " · "}
+          <a href={`/rulings/${r.id}`} className="text-chamber underline">{rulingLabel(r).slice(0, 90)}</a>
+        </span>
+      ))}
+    </div>
+  );
+}
+
 function OverrideForm({ measureId, finding, version, onDone }: { measureId: string; finding: FindingView; version: number; onDone: (msg: string) => void }) {
   const [ref, setRef] = useState("");
   const [note, setNote] = useState("");
+  const [search, setSearch] = useState("");
+  const [hits, setHits] = useState<RulingHit[]>([]);
+  const [picked, setPicked] = useState<RulingHit | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
   const id = `ov-${finding.amendment}-${finding.code}`;
+
+  useEffect(() => {
+    let live = true;
+    const t = setTimeout(() => {
+      findRulings(search).then((r) => live && setHits(r), () => live && setHits([]));
+    }, 250);
+    return () => {
+      live = false;
+      clearTimeout(t);
+    };
+  }, [search]);
+
+  function pick(r: RulingHit) {
+    setPicked(r);
+    setRef(rulingLabel(r).slice(0, 500));
+  }
+
   async function submit() {
     setBusy(true);
     setError(null);
     try {
-      await apiCall(z.object({ id: z.string() }), `/api/measures/${measureId}/overrides`, { method: "POST", body: { amendmentId: finding.amendmentId, code: finding.code, version, rulingRef: ref, note: note || null } });
-      onDone(`Override of ${finding.code} on ${finding.amendment} recorded.`);
+      await apiCall(z.object({ id: z.string() }), `/api/measures/${measureId}/overrides`, { method: "POST", body: { amendmentId: finding.amendmentId, code: finding.code, version, rulingRef: ref, rulingId: picked?.id ?? null, note: note || null } });
+      onDone(`Override of ${finding.code} on ${finding.amendment} recorded${picked ? `, resting on Ruling ${picked.number}` : ""}.`);
     } catch (e) {
-      setError(e instanceof ApiError ? e.message : "Could not record the override.");
+      setError(conflictText(e, "Could not record the override."));
     } finally {
       setBusy(false);
     }
@@ -92,8 +155,28 @@ function OverrideForm({ measureId, finding, version, onDone }: { measureId: stri
       }}
     >
       <div>
+        <label htmlFor={`${id}-find`} className="gw-label">Find an issued ruling (number or words)</label>
+        <input id={`${id}-find`} type="search" className="gw-input" value={search} onChange={(e) => setSearch(e.target.value)} placeholder="e.g. 12, or germane lighting" aria-controls={`${id}-hits`} />
+        <ul id={`${id}-hits`} className="mt-1 max-h-40 space-y-1 overflow-y-auto" aria-label="Matching rulings">
+          {hits.map((r) => (
+            <li key={r.id}>
+              <button type="button" className={`w-full rounded border px-2 py-1 text-left text-xs ${picked?.id === r.id ? "border-chamber bg-chamber-tint" : "border-rule bg-white hover:bg-chamber-tint"}`} aria-pressed={picked?.id === r.id} onClick={() => pick(r)}>
+                <span className="font-semibold">Ruling {r.number}</span>{r.sittingDate ? ` · ${r.sittingDate}` : ""} — {r.question.slice(0, 140)}
+              </button>
+            </li>
+          ))}
+          {hits.length === 0 && <li className="gw-hint">No issued ruling matches; describe the ruling below instead.</li>}
+        </ul>
+      </div>
+      {picked && (
+        <p className="text-xs" role="status">
+          Linked to <a className="text-chamber underline" href={`/rulings/${picked.id}`}>Ruling {picked.number}</a>.{" "}
+          <button type="button" className="underline" onClick={() => setPicked(null)}>Unlink</button>
+        </p>
+      )}
+      <div>
         <label htmlFor={`${id}-ref`} className="gw-label">Ruling relied on</label>
-        <input id={`${id}-ref`} className="gw-input" value={ref} onChange={(e) => setRef(e.target.value)} required maxLength={500} placeholder="e.g. Ruling 14 of the Presiding Officer, 3 March" />
+        <input id={`${id}-ref`} className="gw-input" value={ref} onChange={(e) => setRef(e.target.value)} required maxLength={500} placeholder="Pick one above, or e.g. Ruling of the Presiding Officer, 3 March" />
       </div>
       <div>
         <label htmlFor={`${id}-note`} className="gw-label">Note (optional)</label>
@@ -102,6 +185,30 @@ function OverrideForm({ measureId, finding, version, onDone }: { measureId: stri
       {error && <p className="gw-error" role="alert">{error}</p>}
       <button type="submit" className="gw-btn" disabled={busy || !ref.trim()}>Record override</button>
     </form>
+  );
+}
+
+function RevokeButton({ measureId, finding, onDone }: { measureId: string; finding: FindingView; onDone: (msg: string) => void }) {
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  async function revoke() {
+    if (!window.confirm(`Revoke the override of ${finding.code} on ${finding.amendment}? The finding will count again.`)) return;
+    setBusy(true);
+    setError(null);
+    try {
+      await apiCall(z.object({ revoked: z.string() }), `/api/measures/${measureId}/overrides/${finding.overrideId}`, { method: "DELETE" });
+      onDone(`Override of ${finding.code} on ${finding.amendment} revoked.`);
+    } catch (e) {
+      setError(e instanceof ApiError ? e.message : "Could not revoke the override.");
+    } finally {
+      setBusy(false);
+    }
+  }
+  return (
+    <span className="mt-1 block">
+      <button type="button" className="gw-btn-danger" disabled={busy} onClick={() => void revoke()}>Revoke override</button>
+      {error && <span className="gw-error block" role="alert">{error}</span>}
+    </span>
   );
 }
 
@@ -214,6 +321,8 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
                           <p className="mt-1">{f.message}</p>
                           <p className="text-xs text-ink-soft">{f.citation}</p>
                           {f.overridden && <p className="text-xs font-semibold text-verdict-ok">Ruling: {f.ruling}</p>}
+                          <RelatedPrecedents finding={f} />
+                          {canOverride && f.overridden && f.overrideId && <RevokeButton measureId={measureId} finding={f} onDone={(msg) => void reload().then(() => setMessage(msg))} />}
                           {canOverride && !f.overridden && f.amendmentId && (
                             openForm === `${f.amendment}/${f.code}` ? (
                               <OverrideForm measureId={measureId} finding={f} version={node.version ?? 1} onDone={(msg) => { setOpenForm(null); void reload().then(() => setMessage(msg)); }} />

@@ -23,7 +23,18 @@ export function ballotTemplate(versionIds: readonly string[], roster: readonly R
   return Papa.unparse({ fields: ["member", "bloc", "weight", "ranking"], data: rows }) + "\r\n";
 }
 
-export function idealTemplate(dimensions: readonly string[], roster: readonly RosterEntry[]): string {
-  const rows = roster.length ? roster.map((r) => [r.name, r.bloc, "1", ...dimensions.map(() => "0")]) : [["Member name", "Bloc", "1", ...dimensions.map(() => "0")]];
+/**
+ * Ideal-point template: one row per member at the origin, or one row per bloc (weight = its size)
+ * spread along the first dimension (0, 1, 2 …) so that each bloc is a separate point to move.
+ */
+export function idealTemplate(dimensions: readonly string[], roster: readonly RosterEntry[], perMember = true): string {
+  let rows: string[][];
+  if (perMember) rows = roster.map((r) => [r.name, r.bloc, "1", ...dimensions.map(() => "0")]);
+  else {
+    const blocs = new Map<string, number>();
+    for (const r of roster) blocs.set(r.bloc, (blocs.get(r.bloc) ?? 0) + 1);
+    rows = [...blocs].map(([bloc, n], i) => [bloc, bloc, String(n), ...dimensions.map((_, d) => (d === 0 ? String(i) : "0"))]);
+  }
+  if (rows.length === 0) rows = [["Member name", "Bloc", "1", ...dimensions.map(() => "0")]];
   return Papa.unparse({ fields: ["member", "bloc", "weight", ...dimensions], data: rows }) + "\r\n";
 }

@@ -36,6 +36,8 @@ export type IdealRow = z.output<typeof idealRowSchema>;
 export const spatialContentSchema = z.object({
   kind: z.literal("spatial"),
   dimensions: z.array(z.string().trim().min(1).max(80)).min(1).max(MAX_DIMENSIONS),
+  /** Optional scale of each dimension, [low, high], for drawing (points may lie outside it). */
+  ranges: z.array(z.tuple([coord, coord]).refine(([a, b]) => a < b, "a range is [low, high] with low < high")).max(MAX_DIMENSIONS).optional(),
   statusQuo: z.array(coord),
   measure: z.array(coord),
   /** Amendment key → its effect: a new position, or shifts per dimension (in order of dimensions). */

@@ -134,6 +134,7 @@ function checkContent(content: EstimateContent, versionIds: string[], scope: str
     const dim = (v: number[], p: string) => {
       if (v.length !== d) throw new GavelError("invalid-input", `${p}: needs ${d} coordinates`, { issues: [{ path: p, message: `needs ${d} coordinates, one per dimension` }] });
     };
+    if (content.ranges && content.ranges.length !== d) throw new GavelError("invalid-input", `content.ranges: needs ${d} ranges`, { issues: [{ path: "content.ranges", message: `needs ${d} ranges, one per dimension` }] });
     dim(content.statusQuo, "content.statusQuo");
     dim(content.measure, "content.measure");
     content.members.forEach((m, i) => dim(m.ideal, `content.members.${i}.ideal`));
@@ -267,7 +268,7 @@ export async function csvTemplate(actor: Actor, q: z.output<typeof templateQuery
   const people = await roster(actor.chamber.id);
   if (q.kind === "ballots") return { filename: `${tree.measure.number.replace(/\W+/g, "-")}-ballots-template.csv`, text: ballotTemplate(tree.versions.map((v) => v.id), people, q.per === "member") };
   const dims = parseDimensions(q.dimensions);
-  return { filename: `${tree.measure.number.replace(/\W+/g, "-")}-ideal-points-template.csv`, text: idealTemplate(dims, people) };
+  return { filename: `${tree.measure.number.replace(/\W+/g, "-")}-ideal-points-template.csv`, text: idealTemplate(dims, people, q.per === "member") };
 }
 
 function parseDimensions(text: string | undefined): string[] {
@@ -302,7 +303,7 @@ export async function importCsv(actor: Actor, request: Request, query: z.output<
     const members = parseIdealCsv(text, dims);
     const prev = existing ? ((await versionRow(existing)).content as EstimateContent) : null;
     const base = prev?.kind === "spatial" && prev.dimensions.length === dims.length ? prev : null;
-    content = { kind: "spatial", dimensions: dims, members, statusQuo: base?.statusQuo ?? dims.map(() => 0), measure: base?.measure ?? dims.map(() => 1), effects: base ? Object.fromEntries(Object.entries(base.effects).filter(([k]) => scope.includes(k))) : {} };
+    content = { kind: "spatial", dimensions: dims, ...(base?.ranges ? { ranges: base.ranges } : {}), members, statusQuo: base?.statusQuo ?? dims.map(() => 0), measure: base?.measure ?? dims.map(() => 1), effects: base ? Object.fromEntries(Object.entries(base.effects).filter(([k]) => scope.includes(k))) : {} };
   }
   content = parseWith(estimateContentSchema, content, "estimate content", "content");
   checkContent(content, tree.versions.map((v) => v.id), scope);

@@ -1,0 +1,175 @@
+import { useEffect, useRef, useState, type FormEvent } from "react";
+import { z } from "zod";
+import { AMENDMENT_FORMS } from "../../lib/amendments/case-schema.ts";
+import { FORM_LABELS } from "../../lib/server/measure-schemas.ts";
+import { apiCall, conflictText, issuesByField } from "./api.ts";
+
+export interface EditableAmendment {
+  id: string;
+  key: string;
+  status: string;
+  form: (typeof AMENDMENT_FORMS)[number];
+  target: string;
+  lines: [number, number] | null;
+  title: string | null;
+  text: string;
+  subjects: string[];
+  sponsors: string[];
+  version: number;
+}
+
+interface Props {
+  measureId: string;
+  /** The amendments this person may edit (clerks: any; a member: their own draft or filed ones). */
+  editable: EditableAmendment[];
+  sections: Array<{ id: string; heading: string; lines: number }>;
+  /** Filed amendments that may be targeted. */
+  targets: Array<{ key: string; title: string }>;
+  legislators: Array<{ id: string; name: string; bloc: string }>;
+}
+
+const saved = z.object({ id: z.string(), version: z.number() });
+
+/**
+ * Edit an amendment's text, target and lines, form, subjects and sponsors, sent with the version
+ * it was opened at. Rows of the amendments table link here with #edit-<key>.
+ */
+export default function AmendmentEditor({ measureId, editable, sections, targets, legislators }: Props) {
+  const [key, setKey] = useState(editable[0]?.key ?? "");
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [failure, setFailure] = useState<string | null>(null);
+  const [stale, setStale] = useState(false);
+  const [busy, setBusy] = useState(false);
+  const root = useRef<HTMLFormElement>(null);
+
+  useEffect(() => {
+    const pick = () => {
+      const m = /^#edit-(.+)$/.exec(decodeURIComponent(window.location.hash));
+      if (m && editable.some((a) => a.key === m[1])) {
+        setKey(m[1]);
+        setFailure(null);
+        setErrors({});
+        root.current?.scrollIntoView({ block: "start" });
+        root.current?.querySelector<HTMLElement>("#ae-text")?.focus();
+      }
+    };
+    pick();
+    window.addEventListener("hashchange", pick);
+    return () => window.removeEventListener("hashchange", pick);
+  }, [editable]);
+
+  const a = editable.find((x) => x.key === key);
+  if (!a) return null;
+
+  async function onSubmit(e: FormEvent<HTMLFormElement>) {
+    e.preventDefault();
+    if (!a) return;
+    const fd = new FormData(e.currentTarget);
+    const linesText = String(fd.get("lines") ?? "").trim();
+    const lm = /^(\d+)\s*(?:[-–]\s*(\d+))?$/.exec(linesText);
+    if (linesText && !lm) {
+      setErrors({ lines: "write a line or a range such as 3-7" });
+      return;
+    }
+    setBusy(true);
+    setErrors({});
+    setFailure(null);
+    setStale(false);
+    try {
+      await apiCall(saved, `/api/amendments/${a.id}`, {
+        method: "PATCH",
+        body: {
+          version: a.version,
+          form: fd.get("form"),
+          target: fd.get("target"),
+          lines: lm ? [Number(lm[1]), Number(lm[2] ?? lm[1])] : null,
+          title: String(fd.get("title") ?? "").trim() || null,
+          text: String(fd.get("text") ?? ""),
+          subjects: String(fd.get("subjects") ?? "").split(",").map((s) => s.trim()).filter(Boolean),
+          sponsors: fd.getAll("sponsors").map(String),
+        },
+      });
+      window.location.hash = a.key;
+      window.location.reload();
+    } catch (err) {
+      const byField = issuesByField(err);
+      setErrors(byField);
+      setStale("version" in byField);
+      setFailure(conflictText(err, "Could not save the amendment. Nothing was changed."));
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  const err = (k: string) => errors[k] && <p className="gw-error" id={`ae-${k}-err`}>{errors[k]}</p>;
+  return (
+    <form ref={root} key={a.id} id="edit-amendment" className="gw-card space-y-3" onSubmit={onSubmit} aria-labelledby="ae-h" data-testid="amendment-editor">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <h2 id="ae-h" className="text-step-2">Edit amendment {a.key}</h2>
+        {editable.length > 1 && (
+          <div>
+            <label htmlFor="ae-pick" className="gw-label">Amendment to edit</label>
+            <select id="ae-pick" className="gw-input" value={key} onChange={(e) => { setKey(e.target.value); setFailure(null); setErrors({}); }}>
+              {editable.map((x) => <option key={x.id} value={x.key}>{x.key}{x.title ? ` — ${x.title}` : ""} ({x.status})</option>)}
+            </select>
+          </div>
+        )}
+      </div>
+      <div className="grid gap-3 sm:grid-cols-3">
+        <div>
+          <label htmlFor="ae-form" className="gw-label">Form</label>
+          <select id="ae-form" name="form" className="gw-input" defaultValue={a.form}>
+            {AMENDMENT_FORMS.map((f) => <option key={f} value={f}>{FORM_LABELS[f]}</option>)}
+          </select>
+          {err("form")}
+        </div>
+        <div>
+          <label htmlFor="ae-target" className="gw-label">Amends</label>
+          <select id="ae-target" name="target" className="gw-input" defaultValue={a.target}>
+            <option value="measure">The whole measure</option>
+            <optgroup label="Sections">{sections.map((s) => <option key={s.id} value={s.id}>§ {s.id} {s.heading} ({s.lines} lines)</option>)}</optgroup>
+            {targets.some((t) => t.key !== a.key) && <optgroup label="Amendments">{targets.filter((t) => t.key !== a.key).map((t) => <option key={t.key} value={t.key}>{t.key} {t.title}</option>)}</optgroup>}
+          </select>
+          {err("target")}
+        </div>
+        <div>
+          <label htmlFor="ae-lines" className="gw-label">Lines (sections only)</label>
+          <input id="ae-lines" name="lines" className="gw-input" defaultValue={a.lines ? (a.lines[0] === a.lines[1] ? String(a.lines[0]) : `${a.lines[0]}-${a.lines[1]}`) : ""} placeholder="e.g. 2-3" />
+          {err("lines")}
+        </div>
+      </div>
+      <div>
+        <label htmlFor="ae-title" className="gw-label">Short title</label>
+        <input id="ae-title" name="title" className="gw-input" maxLength={500} defaultValue={a.title ?? ""} />
+      </div>
+      <div>
+        <label htmlFor="ae-text" className="gw-label">Text of the amendment</label>
+        <textarea id="ae-text" name="text" rows={4} className="gw-input" defaultValue={a.text} />
+        {err("text")}
+      </div>
+      <div className="grid gap-3 sm:grid-cols-2">
+        <div>
+          <label htmlFor="ae-subjects" className="gw-label">Subject tags</label>
+          <input id="ae-subjects" name="subjects" className="gw-input" defaultValue={a.subjects.join(", ")} />
+          <p className="gw-hint">Comma-separated. Germaneness is judged on these.</p>
+          {err("subjects")}
+        </div>
+        <div>
+          <label htmlFor="ae-sponsors" className="gw-label">Sponsors</label>
+          <select id="ae-sponsors" name="sponsors" multiple size={5} className="gw-input" defaultValue={a.sponsors}>
+            {legislators.map((l) => <option key={l.id} value={l.id}>{l.name} ({l.bloc})</option>)}
+          </select>
+          {err("sponsors")}
+        </div>
+      </div>
+      {failure && (
+        <div className="gw-card border-verdict-bar bg-verdict-bar-tint" role="alert" data-testid="amendment-editor-error">
+          <p className="text-sm text-verdict-bar">{failure}</p>
+          {stale && <button type="button" className="gw-btn-quiet mt-2" onClick={() => window.location.reload()}>Reload the current version</button>}
+        </div>
+      )}
+      <p className="gw-hint">Status ({a.status}) is changed in the table above. Saving is based on version {a.version}.</p>
+      <button type="submit" className="gw-btn" disabled={busy}>Save amendment {a.key}</button>
+    </form>
+  );
+}
