@@ -166,6 +166,9 @@ export function pgInit() {
 export function pgStart() {
   const c = pgInit();
   if (pgIsUp(c.bin)) {
+    // Something answers on our port: reuse it only if it is this checkout's cluster.
+    if (!existsSync(join(c.pgdata, "postmaster.pid")))
+      throw new SetupError(`port ${PG.port} on 127.0.0.1 is taken by another PostgreSQL server (not this checkout's cluster in ${c.pgdata}). Stop that server, or choose another port with GAVELWRIGHT_PG_PORT=<port>, or point DATABASE_URL at a server of your own.`);
     ensureDatabases(c);
     return c;
   }
