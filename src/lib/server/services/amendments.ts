@@ -59,6 +59,13 @@ async function resolveTarget(tx: Tx, m: MeasureRow, target: string, lines: [numb
   }
   if (!out) throw bad(`"${target}" is not this measure, one of its sections (${m.sections.map((s) => s.id).join(", ") || "none"}) or one of its amendments`);
   if (selfId && out.targetAmendmentId === selfId) throw bad("an amendment cannot amend itself");
+  if (selfId && out.targetAmendmentId) {
+    // Re-targeting onto one of its own descendants would store a cycle: walk up from the new target.
+    const rows = await tx.select({ id: amendments.id, target: amendments.targetAmendmentId }).from(amendments).where(eq(amendments.measureId, m.id));
+    const parent = new Map(rows.map((r) => [r.id, r.target]));
+    for (let at: string | null | undefined = out.targetAmendmentId, steps = 0; at && steps <= rows.length; at = parent.get(at), steps++)
+      if (at === selfId) throw bad(`"${target}" amends this amendment (directly or further down); amending it would make a cycle`);
+  }
   if (lines) {
     if (out.targetKind !== "section") throw bad("a line range applies to a section of the measure only", "lines");
     const section = m.sections.find((s) => s.id === out.targetSection)!;
