@@ -271,7 +271,9 @@ export async function fileDraft(actor: Actor, id: string, input: z.output<typeof
     const number = await nextNumber(tx, m.id);
     const [next] = await tx.update(amendments).set({ number, status: "filed", filedAt: new Date(), filedBy: actor.user.id, version: a.version + 1, updatedAt: new Date() }).where(eq(amendments.id, a.id)).returning();
     await recordAudit(tx, actor, { measureId: m.id, entity: "amendment", entityId: a.id, action: `filed ${amendmentKey(next)}`, version: next.version, before: snapshot(a), after: snapshot(next) });
-    const names = await legislatorNames(actor.chamber.id);
+    // On the transaction's own connection: a second pool connection here deadlocks the pool when
+    // as many filings as connections wait on the measure's row lock.
+    const names = await legislatorNames(actor.chamber.id, tx);
     await queueReceipt(tx, actor, m, next, next.sponsors.map((s) => names.get(s) ?? s));
   });
   return getAmendment(actor, id);

@@ -40,8 +40,8 @@ export async function checkLegislators(chamberId: string, ids: string[], path: s
   return found;
 }
 
-export async function legislatorNames(chamberId: string): Promise<Map<string, string>> {
-  const rows = await db.select({ id: legislators.id, name: legislators.name }).from(legislators).where(eq(legislators.chamberId, chamberId));
+export async function legislatorNames(chamberId: string, q: Tx | typeof db = db): Promise<Map<string, string>> {
+  const rows = await q.select({ id: legislators.id, name: legislators.name }).from(legislators).where(eq(legislators.chamberId, chamberId));
   return new Map(rows.map((r) => [r.id, r.name]));
 }
 
