@@ -17,7 +17,7 @@ import { rankingsToIndices } from "../voting/majority-input.ts";
 import { majorityGraph } from "../voting/majority-graph.ts";
 import { questionConstraints } from "../voting/order-constraints.ts";
 import { pairSupport, profileFromRankings, type Profile } from "../voting/profile.ts";
-import { questionAgenda, sincereQuestionPath, sophisticatedQuestionOutcome } from "../voting/question-agenda.ts";
+import { questionAgenda, sincereQuestionPath, sophisticatedValue } from "../voting/question-agenda.ts";
 import { scaleSpatial, spatialProfile, versionPosition } from "../voting/spatial-profile.ts";
 import { toThreshold } from "../voting/vote-threshold.ts";
 
@@ -113,24 +113,7 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
   }
 
   // Sophisticated path: at each vote members compare the outcomes the two branches lead to.
-  const memo = new Map<string, number>();
-  const value = (i: number, decided: number, adopted: number): number => {
-    if (i === order.length) return qa.outcome(adopted);
-    const key = `${i}:${adopted}`;
-    const hit = memo.get(key);
-    if (hit !== undefined) return hit;
-    const x = order[i];
-    let r: number;
-    if (qa.falls(x, decided, adopted)) r = value(i + 1, decided | (1 << x), adopted);
-    else {
-      const v = qa.vote(x, adopted);
-      const yes = value(i + 1, decided | (1 << x), v.yesState);
-      const no = value(i + 1, decided | (1 << x), v.noState);
-      r = qa.beats(yes, no) ? yes : no;
-    }
-    memo.set(key, r);
-    return r;
-  };
+  const value = sophisticatedValue(qa, order);
   const sophSteps: WalkStep[] = [];
   {
     let decided = 0;
@@ -156,6 +139,6 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
     threshold: voting.amendmentThreshold,
     totalWeight: profile.totalWeight,
     sincere: { outcome: names[sincerePath.outcome], steps: sincereSteps },
-    sophisticated: { outcome: names[sophisticatedQuestionOutcome(qa, order)], steps: sophSteps },
+    sophisticated: { outcome: names[value(0, 0, 0)], steps: sophSteps },
   };
 }

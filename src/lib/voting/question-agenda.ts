@@ -112,8 +112,12 @@ export function sincereQuestionPath(qa: QuestionAgenda, order: readonly number[]
   return { outcome: qa.outcome(adopted), steps };
 }
 
-/** Sophisticated outcome of one question order: backward induction, memoised on (position, state). */
-export function sophisticatedQuestionOutcome(qa: QuestionAgenda, order: readonly number[]): number {
+/**
+ * Backward induction over one question order: `value(i, decided, adopted)` is the outcome that
+ * sophisticated voters reach from question i on, given which questions are decided and which
+ * amendments are adopted. Memoised on (position, adopted state), which determine `decided`.
+ */
+export function sophisticatedValue(qa: QuestionAgenda, order: readonly number[]): (i: number, decided: number, adopted: number) => number {
   const memo = new Map<number, number>();
   const value = (i: number, decided: number, adopted: number): number => {
     if (i === order.length) return qa.outcome(adopted);
@@ -132,5 +136,10 @@ export function sophisticatedQuestionOutcome(qa: QuestionAgenda, order: readonly
     memo.set(key, r);
     return r;
   };
-  return value(0, 0, 0);
+  return value;
+}
+
+/** Sophisticated outcome of one question order: backward induction, memoised on (position, state). */
+export function sophisticatedQuestionOutcome(qa: QuestionAgenda, order: readonly number[]): number {
+  return sophisticatedValue(qa, order)(0, 0, 0);
 }
