@@ -34,7 +34,7 @@ export function isDatabaseUnavailable(e: unknown): boolean {
 }
 
 export function errorResponse(e: unknown): Response {
-  if (isGavelError(e)) return json(e.toJSON(), STATUS[e.code]);
+  if (isGavelError(e)) return json(e.toJSON(), STATUS[e.code], e.code === "unavailable" ? { "retry-after": "5" } : {});
   if (isDatabaseUnavailable(e)) {
     console.error("[api] database unavailable:", (e as Error).message);
     return json({ error: { code: "unavailable", message: "Gavelwright cannot reach its database just now. The request was not completed; try again in a moment." } }, 503, { "retry-after": "5" });
