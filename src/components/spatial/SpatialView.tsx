@@ -87,7 +87,7 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
       <div className="space-y-4">
         <p className="gw-hint">The plot shows estimates in two dimensions; this one has {content.dimensions.length}.</p>
         {canEdit && <PositionsEditor content={content} scope={scope} onChange={edit} />}
-        {canEdit && <button className="gw-btn" disabled={!dirty} onClick={() => void save()}>Save as version {basedOn + 1}</button>}
+        {canEdit && <button className="gw-btn" disabled={!dirty} onClick={() => void save()}>Save these positions as a new version</button>}
         {message && <p className="gw-error" role="alert">{message}</p>}
       </div>
     );
@@ -104,12 +104,14 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
       <svg ref={svgRef} viewBox={`0 0 ${W} ${W}`} className="w-full touch-none rounded border border-rule bg-white" role="group" aria-label={`Spatial plot: ${content.dimensions[0]} across, ${content.dimensions[1]} up`} onPointerMove={onPointerMove} onPointerUp={() => (dragging.current = null)} onPointerLeave={() => (dragging.current = null)}>
         <defs>
           {discs.map((d, i) => <clipPath key={i} id={`gw-disc-${i}`}><circle cx={X(d.center[0])} cy={Y(d.center[1])} r={Math.sqrt(d.radiusSquared) * k} /></clipPath>)}
+          <clipPath id="gw-plot-area"><rect x={40} y={10} width={W - 50} height={W - 40} /></clipPath>
           <marker id="gw-cyc" viewBox="0 0 10 10" refX="9" refY="5" markerWidth="7" markerHeight="7" orient="auto"><path d="M0,0 L10,5 L0,10 z" className="fill-brass-text" /></marker>
         </defs>
         <line x1={40} y1={W - 30} x2={W - 10} y2={W - 30} className="stroke-rule" />
         <line x1={40} y1={10} x2={40} y2={W - 30} className="stroke-rule" />
         <text x={W / 2} y={W - 8} textAnchor="middle" fontSize="12" className="fill-ink-soft">{content.dimensions[0]} →</text>
         <text x={14} y={W / 2} textAnchor="middle" fontSize="12" className="fill-ink-soft" transform={`rotate(-90 14 ${W / 2})`}>{content.dimensions[1]} →</text>
+        <g clipPath="url(#gw-plot-area)">
         {discs.map((d, i) => <circle key={i} cx={X(d.center[0])} cy={Y(d.center[1])} r={Math.sqrt(d.radiusSquared) * k} fill="none" className="stroke-ink-soft" strokeDasharray="3 4" strokeWidth="0.8" />)}
         <g opacity="0.45" data-testid="win-set">
           {(model.win.coalitions ?? []).map((c, ci) => {
@@ -117,6 +119,7 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
             const d = discs[last];
             return outer.reduce<React.ReactNode>((inner, m) => <g clipPath={`url(#gw-disc-${m})`}>{inner}</g>, <circle cx={X(d.center[0])} cy={Y(d.center[1])} r={Math.sqrt(d.radiusSquared) * k} className="fill-chamber" key={ci} />);
           }).map((n, i) => <g key={i}>{n}</g>)}
+        </g>
         </g>
         {cycle.map((id, i) => {
           const a = model.positions[idx(id)];
@@ -144,7 +147,7 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
         <p><span className="mr-1 inline-block h-3 w-3 rotate-45 bg-verdict-bar align-middle" /> Q (no change) · <span className="mr-1 inline-block h-3 w-3 rotate-45 bg-brass align-middle" /> versions of the measure</p>
         <p>{model.win.coalitions === null ? "The win set is drawn only for up to 16 distinct ideal points; the dashed circles show each member's indifference circle through Q." : model.win.coalitions.length === 0 ? "No coalition can beat the status quo: its win set is empty." : `Win set of Q: union of ${model.win.coalitions.length} coalition lens${model.win.coalitions.length === 1 ? "" : "es"}.`}</p>
         <p>{model.report.condorcetWinner ? `Among the versions, ${versions[idx(model.report.condorcetWinner)].short} beats every other.` : `No version beats all the others: the majorities cycle among ${cycle.map((id) => versions[idx(id)].short).join(", ")} (arrows point from a winner to a version it beats).`}</p>
-        {canEdit && <button className="gw-btn" disabled={!dirty} onClick={() => void save()}>Save as version {basedOn + 1}</button>}
+        {canEdit && <button className="gw-btn" disabled={!dirty} onClick={() => void save()}>Save these positions as a new version</button>}
         {message && <p className="gw-error" role="alert">{message}</p>}
       </div>
     </div>
@@ -226,11 +229,11 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
             <thead><tr><th scope="col">Text</th><th scope="col">Given as</th>{dims.map((d, i) => <th key={i} scope="col">{d}</th>)}</tr></thead>
             <tbody>
               <tr>
-                <th scope="row">Q (no change)</th><td>position</td>
+                <th scope="row">Q (no change)</th><td className="align-middle">position</td>
                 {dims.map((d, i) => <td key={i}><NumberBox label={`Status quo on ${d}`} value={content.statusQuo[i]} onChange={(v) => onChange((c) => ({ ...c, statusQuo: setAt(c.statusQuo, i, v) }))} /></td>)}
               </tr>
               <tr>
-                <th scope="row">The measure</th><td>position</td>
+                <th scope="row">The measure</th><td className="align-middle">position</td>
                 {dims.map((d, i) => <td key={i}><NumberBox label={`Measure on ${d}`} value={content.measure[i]} onChange={(v) => onChange((c) => ({ ...c, measure: setAt(c.measure, i, v) }))} /></td>)}
               </tr>
               {scope.map((k) => {
