@@ -1,24 +1,7 @@
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
-import { afterAll, describe, expect, it } from "vitest";
-import { main } from "../../../src/cli/main.ts";
+import { describe, expect, it } from "vitest";
+import { cliSandbox } from "../../support/cli.ts";
 
-const dir = mkdtempSync(join(tmpdir(), "gw-check-cli-"));
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-function file(name: string, content: unknown): string {
-  const p = join(dir, name);
-  writeFileSync(p, typeof content === "string" ? content : JSON.stringify(content));
-  return p;
-}
-
-async function run(...argv: string[]) {
-  let out = "";
-  let err = "";
-  const code = await main(argv, { stdout: (t) => (out += t), stderr: (t) => (err += t), cwd: dir });
-  return { code, out, err };
-}
+const { dir, file, run } = cliSandbox("check-cli");
 
 const measure = { id: "HB-12", subjects: ["water"], sections: [{ id: "s1", subjects: ["water"] }, { id: "s2", subjects: ["audit"] }] };
 

@@ -1,25 +1,9 @@
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { describe, expect, it } from "vitest";
 import { join } from "node:path";
-import { afterAll, describe, expect, it } from "vitest";
-import { main } from "../../../src/cli/main.ts";
+import { cliSandbox } from "../../support/cli.ts";
 import { rawTemplate, templatePath } from "./fixtures.ts";
 
-const dir = mkdtempSync(join(tmpdir(), "gw-procedure-cli-"));
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-function file(name: string, content: unknown): string {
-  const p = join(dir, name);
-  writeFileSync(p, typeof content === "string" ? content : JSON.stringify(content));
-  return p;
-}
-
-async function run(...argv: string[]) {
-  let out = "";
-  let err = "";
-  const code = await main(argv, { stdout: (t) => (out += t), stderr: (t) => (err += t), cwd: dir });
-  return { code, out, err };
-}
+const { dir, file, run } = cliSandbox("procedure-cli");
 
 describe("gavelwright rulebook check", () => {
   it("exits 2 on a missing file, a non-JSON file, and a wrong subcommand", async () => {

@@ -1,22 +1,13 @@
 // CLI contracts of `majority`, `agendas` and `orders` (README.md, "Command line"), through main() with temp files.
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
-import { afterAll, describe, expect, it } from "vitest";
-import { main } from "../../../src/cli/main.ts";
+import { describe, expect, it } from "vitest";
+import { cliSandbox } from "../../support/cli.ts";
 
-const dir = mkdtempSync(join(tmpdir(), "gavelwright-voting-"));
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
+const cli = cliSandbox("voting-cli");
 let fileNo = 0;
 async function run(cmd: string, content: unknown, extraFiles: Record<string, unknown> = {}) {
-  for (const [name, value] of Object.entries(extraFiles)) writeFileSync(join(dir, name), JSON.stringify(value));
-  const file = join(dir, `case-${fileNo++}.json`);
-  writeFileSync(file, typeof content === "string" ? content : JSON.stringify(content));
-  let out = "";
-  let err = "";
-  const code = await main([cmd, file], { stdout: (t) => void (out += t), stderr: (t) => void (err += t), cwd: dir });
-  return { code, out, err, json: code === 0 ? JSON.parse(out) : undefined };
+  for (const [name, value] of Object.entries(extraFiles)) cli.file(name, value);
+  const r = await cli.run(cmd, cli.file(`case-${fileNo++}.json`, content));
+  return { ...r, json: r.code === 0 ? JSON.parse(r.out) : undefined };
 }
 
 const condorcet = { alternatives: ["a", "b", "c"], ballots: [{ ranking: ["a", "b", "c"] }, { ranking: ["b", "c", "a"] }, { ranking: ["c", "a", "b"] }] };
