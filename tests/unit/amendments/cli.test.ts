@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { cliSandbox } from "../../support/cli.ts";
 
-const { dir, file, run } = cliSandbox("check-cli");
+const { file, run } = cliSandbox("check-cli");
 
 const measure = { id: "HB-12", subjects: ["water"], sections: [{ id: "s1", subjects: ["water"] }, { id: "s2", subjects: ["audit"] }] };
 
