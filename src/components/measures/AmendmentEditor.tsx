@@ -15,6 +15,7 @@ export interface EditableAmendment {
   text: string;
   subjects: string[];
   sponsors: string[];
+  committee: string | null;
   version: number;
 }
 
@@ -87,6 +88,7 @@ export default function AmendmentEditor({ measureId, editable, sections, targets
           text: String(fd.get("text") ?? ""),
           subjects: String(fd.get("subjects") ?? "").split(",").map((s) => s.trim()).filter(Boolean),
           sponsors: fd.getAll("sponsors").map(String),
+          committee: String(fd.get("committee") ?? "").trim() || null,
         },
       });
       window.location.hash = a.key;
@@ -138,9 +140,16 @@ export default function AmendmentEditor({ measureId, editable, sections, targets
           {err("lines")}
         </div>
       </div>
-      <div>
-        <label htmlFor="ae-title" className="gw-label">Short title</label>
-        <input id="ae-title" name="title" className="gw-input" maxLength={500} defaultValue={a.title ?? ""} />
+      <div className="grid gap-3 sm:grid-cols-2">
+        <div>
+          <label htmlFor="ae-title" className="gw-label">Short title</label>
+          <input id="ae-title" name="title" className="gw-input" maxLength={500} defaultValue={a.title ?? ""} />
+        </div>
+        <div>
+          <label htmlFor="ae-committee" className="gw-label">Committee of jurisdiction (if not the measure's)</label>
+          <input id="ae-committee" name="committee" className="gw-input" maxLength={200} defaultValue={a.committee ?? ""} />
+          {err("committee")}
+        </div>
       </div>
       <div>
         <label htmlFor="ae-text" className="gw-label">Text of the amendment</label>

@@ -40,7 +40,7 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
       let out;
       if (mode === "upload") {
         const form = new FormData();
-        for (const k of ["form", "target", "lines", "title", "subjects", "text"]) form.set(k, String(fd.get(k) ?? ""));
+        for (const k of ["form", "target", "lines", "title", "subjects", "text", "committee"]) form.set(k, String(fd.get(k) ?? ""));
         form.set("sponsors", sponsors.join(","));
         form.set("draft", String(draft));
         const file = fd.get("file");
@@ -57,6 +57,7 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
             text: String(fd.get("text") ?? ""),
             subjects: String(fd.get("subjects") ?? "").split(",").map((s) => s.trim()).filter(Boolean),
             sponsors,
+            committee: String(fd.get("committee") ?? "").trim() || null,
             draft,
           },
         });
@@ -103,9 +104,16 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
           {err("lines")}
         </div>
       </div>
-      <div>
-        <label htmlFor="fa-title" className="gw-label">Short title</label>
-        <input id="fa-title" name="title" className="gw-input" maxLength={500} />
+      <div className="grid gap-3 sm:grid-cols-2">
+        <div>
+          <label htmlFor="fa-title" className="gw-label">Short title</label>
+          <input id="fa-title" name="title" className="gw-input" maxLength={500} />
+        </div>
+        <div>
+          <label htmlFor="fa-committee" className="gw-label">Committee of jurisdiction (if not the measure's)</label>
+          <input id="fa-committee" name="committee" className="gw-input" maxLength={200} />
+          {err("committee")}
+        </div>
       </div>
       {mode === "form" ? (
         <div>

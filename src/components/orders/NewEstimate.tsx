@@ -22,6 +22,8 @@ export default function NewEstimate() {
   const [error, setError] = useState<string | null>(null);
   const [kind, setKind] = useState<"ballots" | "spatial">("ballots");
   const [dimensions, setDimensions] = useState("economy, environment");
+  const [partial, setPartial] = useState<"abstain" | "bottom">("abstain");
+  const [per, setPer] = useState<"bloc" | "member">("bloc");
 
   useEffect(() => {
     apiCall(optionsSchema, "/api/estimates/options").then((o) => {
@@ -38,14 +40,14 @@ export default function NewEstimate() {
     setPreview(null);
   }, [measureId, scope]);
 
-  const query = (extra: Record<string, string>) => new URLSearchParams({ measureId, scope: scope.join(","), kind, ...(kind === "spatial" ? { dimensions } : {}), ...extra }).toString();
+  const query = (extra: Record<string, string>) => new URLSearchParams({ measureId, scope: scope.join(","), kind, partial, per, ...(kind === "spatial" ? { dimensions } : {}), ...extra }).toString();
   /** Start from the roster instead of a file: the template (one row per bloc) saved as version 1, then edited on the estimate's page. */
   const startBlank = async () => {
     setIssues([]);
     setError(null);
     if (!title.trim()) return setError("Give the estimate a title first.");
     try {
-      const res = await fetch(`/api/estimates/template?${query({ per: "bloc" })}`);
+      const res = await fetch(`/api/estimates/template?${query({})}`);
       if (!res.ok) throw new ApiError(res.status, "internal", "Could not get the roster template.");
       const r = await apiCall(z.object({ id: z.string() }), `/api/estimates/import?${query({ title: title.trim() })}`, { method: "POST", raw: await res.text(), type: "text/csv" });
       window.location.href = `/orders/${r.id}`;
@@ -93,6 +95,20 @@ export default function NewEstimate() {
             <option value="spatial">Spatial: members' ideal points</option>
           </select>
         </label>
+        <label className="gw-label">Rows
+          <select className="gw-input" value={per} onChange={(e) => setPer(e.target.value as "bloc" | "member")}>
+            <option value="bloc">One per bloc (weight = its size)</option>
+            <option value="member">One per member</option>
+          </select>
+        </label>
+        {kind === "ballots" && (
+          <label className="gw-label">Versions a row leaves out
+            <select className="gw-input" value={partial} onChange={(e) => { setPartial(e.target.value as "abstain" | "bottom"); setPreview(null); }}>
+              <option value="abstain">abstain between them</option>
+              <option value="bottom">rank below every listed version</option>
+            </select>
+          </label>
+        )}
         {kind === "spatial" && (
           <label className="gw-label">Policy dimensions
             <input className="gw-input" value={dimensions} onChange={(e) => { setDimensions(e.target.value); setPreview(null); }} maxLength={800} />

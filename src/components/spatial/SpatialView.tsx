@@ -28,7 +28,8 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
   const groups = useMemo(() => mergedIdealPoints(content.members), [content]);
 
   const model = useMemo(() => {
-    const s = scaleSpatial(spatialSchema.parse(spatialInput(content)));
+    // Geometry does not depend on the dimensions' names; neutral ones keep a half-typed name from breaking the plot.
+    const s = scaleSpatial(spatialSchema.parse(spatialInput({ ...content, dimensions: content.dimensions.map((_, i) => `d${i + 1}`) })));
     const positions = versions.map((v) => (v.id === "Q" ? s.statusQuo : versionPosition(s, v.amendments)));
     const g = majorityGraph(spatialProfile(s, versions.map((v) => v.id), positions));
     return { positions: positions.map((p) => p.map((c) => unscale(c, s.scale))), report: majorityReport(g), win: winSet(s, s.statusQuo) };
@@ -214,7 +215,7 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
               {dims.map((d, i) => (
                 <tr key={i}>
                   <td>{i + 1}</td>
-                  <td><input className="gw-input mt-0" aria-label={`Name of dimension ${i + 1}`} defaultValue={d} maxLength={80} onChange={(e) => { const v = e.target.value.trim(); if (v) onChange((c) => ({ ...c, dimensions: c.dimensions.map((x, j) => (j === i ? v : x)) })); }} /></td>
+                  <td><input className="gw-input mt-0" aria-label={`Name of dimension ${i + 1}`} value={d} maxLength={80} onChange={(e) => { const v = e.target.value; onChange((c) => ({ ...c, dimensions: c.dimensions.map((x, j) => (j === i ? v : x)) })); }} /></td>
                   <td><NumberBox label={`Low end of ${d}`} value={ranges[i][0]} onChange={(v) => setRange(i, 0, v)} /></td>
                   <td><NumberBox label={`High end of ${d}`} value={ranges[i][1]} onChange={(v) => setRange(i, 1, v)} /></td>
                 </tr>
@@ -262,6 +263,26 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
           <p className="gw-hint">A shift moves the text it amends (the measure, or the amendment it perfects) by that much on each dimension.</p>
         </div>
       </div>
+      <details className="mt-4" data-testid="members-editor">
+        <summary className="cursor-pointer font-semibold">Members' ideal points ({content.members.length} rows, {content.members.reduce((a, m) => a + m.weight, 0)} votes)</summary>
+        <div className="mt-2 overflow-x-auto">
+          <table className="gw-table">
+            <thead><tr><th scope="col">Member or bloc</th><th scope="col">Bloc</th><th scope="col">Weight</th>{dims.map((d, i) => <th key={i} scope="col">{d}</th>)}<th scope="col"><span className="sr-only">Remove</span></th></tr></thead>
+            <tbody>
+              {content.members.map((m, r) => (
+                <tr key={r}>
+                  <td><input className="gw-input mt-0 min-w-[9rem]" aria-label={`Row ${r + 1}: member or bloc`} value={m.member} maxLength={200} onChange={(e) => { const v = e.target.value; onChange((c) => ({ ...c, members: c.members.map((x, j) => (j === r ? { ...x, member: v } : x)) })); }} /></td>
+                  <td><input className="gw-input mt-0 min-w-[8rem]" aria-label={`Row ${r + 1}: bloc`} value={m.bloc} maxLength={120} onChange={(e) => { const v = e.target.value; onChange((c) => ({ ...c, members: c.members.map((x, j) => (j === r ? { ...x, bloc: v } : x)) })); }} /></td>
+                  <td><NumberBox label={`Row ${r + 1}: weight`} value={m.weight} onChange={(v) => { if (Number.isInteger(v) && v >= 1 && v <= 1000) onChange((c) => ({ ...c, members: c.members.map((x, j) => (j === r ? { ...x, weight: v } : x)) })); }} /></td>
+                  {dims.map((d, i) => <td key={i}><NumberBox label={`Row ${r + 1}: ${d}`} value={m.ideal[i]} onChange={(v) => onChange((c) => ({ ...c, members: c.members.map((x, j) => (j === r ? { ...x, ideal: setAt(x.ideal, i, v) } : x)) }))} /></td>)}
+                  <td><button type="button" className="gw-btn-quiet px-2 py-0.5" aria-label={`Remove row ${r + 1}`} disabled={content.members.length === 1} onClick={() => onChange((c) => ({ ...c, members: c.members.filter((_, j) => j !== r) }))}>✕</button></td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+        <button type="button" className="gw-btn-quiet mt-2" onClick={() => onChange((c) => ({ ...c, members: [...c.members, { member: `Member ${c.members.length + 1}`, bloc: "", weight: 1, ideal: [...c.statusQuo] }] }))}>Add a row</button>
+      </details>
     </details>
   );
 }

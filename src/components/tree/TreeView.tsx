@@ -320,7 +320,12 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
                           <span className={`gw-chip ${f.overridden ? "border-verdict-ok bg-verdict-ok-tint text-verdict-ok" : SEVERITY_CHIP[f.severity]}`}>{f.overridden ? "overridden" : f.severity}</span> <code>{f.code}</code>
                           <p className="mt-1">{f.message}</p>
                           <p className="text-xs text-ink-soft">{f.citation}</p>
-                          {f.overridden && <p className="text-xs font-semibold text-verdict-ok">Ruling: {f.ruling}</p>}
+                          {f.overridden && (
+                            <p className="text-xs font-semibold text-verdict-ok">
+                              Ruling: {f.overrideRulingId ? <a className="underline" href={`/rulings/${f.overrideRulingId}`}>{f.ruling}</a> : f.ruling}
+                              {f.overrideNote && <span className="block font-normal text-ink-soft">Note: {f.overrideNote}</span>}
+                            </p>
+                          )}
                           <RelatedPrecedents finding={f} />
                           {canOverride && f.overridden && f.overrideId && <RevokeButton measureId={measureId} finding={f} onDone={(msg) => void reload().then(() => setMessage(msg))} />}
                           {canOverride && !f.overridden && f.amendmentId && (

@@ -141,6 +141,9 @@ export const findingViewSchema = z.object({
   overridden: z.boolean().optional(),
   ruling: z.string().optional(),
   overrideId: z.string().nullable().optional(),
+  /** The issued ruling the override rests on, when one was picked; and the clerk's note. */
+  overrideRulingId: z.string().nullable().optional(),
+  overrideNote: z.string().nullable().optional(),
 });
 export type FindingView = z.infer<typeof findingViewSchema>;
 

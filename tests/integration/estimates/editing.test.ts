@@ -70,7 +70,7 @@ describe("spatial dimensions and positions", () => {
     expect(v.version.content).toMatchObject({ dimensions: ["Lighting standard", "Spending"], ranges: [[0, 10], [-5, 5]], statusQuo: [1, 1], measure: [4, 3], effects: { A1: { position: [7, 2] }, A7: { shift: [0, -1] } } });
   });
 
-  it("refuses ranges that do not match the dimensions or run backwards, and effects of amendments outside the scope", async () => {
+  it("refuses ranges that do not match the dimensions or run backwards, dimensions named twice or not at all, and effects of amendments outside the scope", async () => {
     const id = await create("Spatial bad", spatial());
     const before = await tableCounts();
     const one = await save(id, { basedOn: 1, content: spatial({ ranges: [[0, 10]] }) });
@@ -79,6 +79,10 @@ describe("spatial dimensions and positions", () => {
     expect((await save(id, { basedOn: 1, content: spatial({ ranges: [[0, 10], [5, 5]] }) })).status).toBe(400);
     expect((await save(id, { basedOn: 1, content: spatial({ effects: { A3: { position: [1, 1] } } }) })).status).toBe(422);
     expect((await save(id, { basedOn: 1, content: spatial({ statusQuo: [1] }) })).status).toBe(400);
+    const twice = await save(id, { basedOn: 1, content: spatial({ dimensions: ["Cost", "cost"] }) });
+    expect(twice.status).toBe(400);
+    expect((twice.body as { error: { issues: Array<{ path: string }> } }).error.issues[0].path).toBe("content.dimensions.1");
+    expect((await save(id, { basedOn: 1, content: spatial({ dimensions: ["Cost", ""] }) })).status).toBe(400);
     expect(await tableCounts()).toEqual(before);
   });
 });

@@ -138,15 +138,16 @@ describe("overriding a finding with a picked ruling", () => {
     const byWords = await call(rulingsRoute.GET, "GET", "/api/rulings", { as: s.as.clerk, query: { status: "issued", q: word } });
     expect((byWords.body as { results: Array<{ id: string }> }).results.map((r) => r.id)).toContain(ruling.id);
 
-    const tree = (await call(treeRoute.GET, "GET", "/x", { as: s.as.clerk, params: { id: demo } })).body as { findings: Array<{ code: string; amendmentId: string | null; overridden?: boolean; overrideId?: string | null }>; nodes: Array<{ id: string | null; version: number | null }> };
+    const tree = (await call(treeRoute.GET, "GET", "/x", { as: s.as.clerk, params: { id: demo } })).body as { findings: Array<{ code: string; amendmentId: string | null; overridden?: boolean; overrideId?: string | null; overrideRulingId?: string | null; overrideNote?: string | null }>; nodes: Array<{ id: string | null; version: number | null }> };
     const f = tree.findings.find((x) => x.amendmentId && !x.overridden)!;
     const version = tree.nodes.find((n) => n.id === f.amendmentId)!.version!;
-    const made = await call(overrides.POST, "POST", "/x", { as: s.as.clerk, params: { id: demo }, body: { amendmentId: f.amendmentId, code: f.code, version, rulingRef: `Ruling ${ruling.number}`, rulingId: ruling.id } });
+    const made = await call(overrides.POST, "POST", "/x", { as: s.as.clerk, params: { id: demo }, body: { amendmentId: f.amendmentId, code: f.code, version, rulingRef: `Ruling ${ruling.number}`, rulingId: ruling.id, note: "Germane in substance." } });
     expect(made.status).toBe(201);
     expect((made.body as { rulingId: string }).rulingId).toBe(ruling.id);
     const after = (await call(treeRoute.GET, "GET", "/x", { as: s.as.clerk, params: { id: demo } })).body as typeof tree;
     const o = after.findings.find((x) => x.amendmentId === f.amendmentId && x.code === f.code)!;
     expect(o.overridden).toBe(true);
+    expect([o.overrideRulingId, o.overrideNote]).toEqual([ruling.id, "Germane in substance."]);
 
     expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.as.member, params: { id: demo, oid: o.overrideId! } })).status).toBe(403);
     expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.outsider, params: { id: demo, oid: o.overrideId! } })).status).toBe(404);

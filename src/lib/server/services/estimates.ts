@@ -14,10 +14,10 @@ import { amendments, measures } from "../../db/schema/measures.ts";
 import { estimates, estimateVersions } from "../../db/schema/estimates.ts";
 import { GavelError, parseWith } from "../../errors.ts";
 import { CHAMBER_ROLES, can } from "../../permissions.ts";
-import type { Actor } from "../http.ts";
+import { readBody, type Actor } from "../http.ts";
 import { amendmentTreeModel } from "../../voting/amendment-versions.ts";
 import { estimateContentSchema, type EstimateContent } from "../../estimates/estimate-content.ts";
-import { decodeCsv } from "../../estimates/csv-text.ts";
+import { decodeCsv, MAX_CSV_BYTES } from "../../estimates/csv-text.ts";
 import { parseBallotCsv } from "../../estimates/ballot-csv.ts";
 import { parseIdealCsv } from "../../estimates/ideal-csv.ts";
 import { ballotTemplate, idealTemplate } from "../../estimates/csv-template.ts";
@@ -134,6 +134,9 @@ function checkContent(content: EstimateContent, versionIds: string[], scope: str
     const dim = (v: number[], p: string) => {
       if (v.length !== d) throw new GavelError("invalid-input", `${p}: needs ${d} coordinates`, { issues: [{ path: p, message: `needs ${d} coordinates, one per dimension` }] });
     };
+    const names = content.dimensions.map((n) => n.trim().toLowerCase());
+    const twice = names.findIndex((n, i) => names.indexOf(n) !== i);
+    if (twice >= 0) throw new GavelError("invalid-input", `content.dimensions.${twice}: "${content.dimensions[twice]}" is named twice`, { issues: [{ path: `content.dimensions.${twice}`, message: "dimension names must be distinct" }] });
     if (content.ranges && content.ranges.length !== d) throw new GavelError("invalid-input", `content.ranges: needs ${d} ranges`, { issues: [{ path: "content.ranges", message: `needs ${d} ranges, one per dimension` }] });
     dim(content.statusQuo, "content.statusQuo");
     dim(content.measure, "content.measure");
@@ -284,7 +287,7 @@ function parseDimensions(text: string | undefined): string[] {
 export async function importCsv(actor: Actor, request: Request, query: z.output<typeof importQuerySchema>) {
   const type = request.headers.get("content-type") ?? "";
   if (!/^(text\/csv|text\/plain|application\/octet-stream)\b/i.test(type)) throw new GavelError("invalid-input", "send the CSV file itself with Content-Type: text/csv", { issues: [{ path: "(content-type)", message: `expected text/csv, got ${type || "nothing"}` }] });
-  const bytes = new Uint8Array(await request.arrayBuffer());
+  const bytes = await readBody(request, MAX_CSV_BYTES, "the file");
   const text = decodeCsv(bytes);
   let existing: EstimateRow | null = null;
   if (query.estimateId) {

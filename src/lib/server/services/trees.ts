@@ -71,7 +71,7 @@ export async function treeOf(actor: Actor, measureId: string): Promise<TreeView>
   const findings: FindingView[] = result.findings.map((f: Finding) => {
     const rowId = idOf.get(f.amendment) ?? null;
     const o = overrides.find((x) => x.amendmentId === rowId && x.code === f.code);
-    return { ...f, amendmentId: rowId, overrideId: o?.id ?? null };
+    return { ...f, amendmentId: rowId, overrideId: o?.id ?? null, overrideRulingId: o?.rulingId ?? null, overrideNote: o?.note ?? null };
   });
   const nodes: TreeNodeView[] = [
     { key: MEASURE_KEY, kind: "measure", id: m.id, label: m.number, title: m.title, parent: null, degree: 0, form: null, status: m.status, subjects: m.subjects, sponsors: m.sponsors.map((s) => names.get(s) ?? s), filedAt: null, text: null, lines: null, version: m.version },
