@@ -59,10 +59,7 @@ export function route(handler: (ctx: APIContext) => Promise<Response | unknown>)
 export async function readJson<S extends z.ZodType>(request: Request, schema: S, what = "request body", maxBytes = MAX_JSON_BYTES): Promise<z.output<S>> {
   const type = request.headers.get("content-type") ?? "";
   if (!/^application\/json\b/i.test(type)) throw new GavelError("invalid-input", `${what}: send JSON with the header Content-Type: application/json`, { issues: [{ path: "(content-type)", message: `expected application/json, got ${type || "nothing"}` }] });
-  const declared = Number(request.headers.get("content-length") ?? 0);
-  if (declared > maxBytes) throw new GavelError("too-large", `${what} is ${declared} bytes; the limit is ${maxBytes}`);
-  const text = await request.text();
-  if (text.length > maxBytes) throw new GavelError("too-large", `${what} is larger than ${maxBytes} bytes`);
+  const text = new TextDecoder().decode(await readBody(request, maxBytes, what));
   let value: unknown;
   try {
     value = JSON.parse(text);
@@ -70,6 +67,36 @@ export async function readJson<S extends z.ZodType>(request: Request, schema: S,
     throw new GavelError("invalid-input", `${what} is not valid JSON: ${(e as Error).message}`, { issues: [{ path: "(body)", message: "not valid JSON" }] });
   }
   return parseWith(schema, value, what) as z.output<S>;
+}
+
+/**
+ * Read a request body of at most `maxBytes`: refused from its declared length, else while it
+ * streams in (a chunked body without Content-Length is never buffered past the limit).
+ */
+export async function readBody(request: Request, maxBytes: number, what = "request body"): Promise<Uint8Array<ArrayBuffer>> {
+  const declared = Number(request.headers.get("content-length") ?? 0);
+  if (declared > maxBytes) throw new GavelError("too-large", `${what} is ${declared} bytes; the limit is ${maxBytes}`, { issues: [{ path: "(body)", message: "too large" }] });
+  if (!request.body) return new Uint8Array(new ArrayBuffer(0));
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > maxBytes) {
+      void reader.cancel().catch(() => {});
+      throw new GavelError("too-large", `${what} is larger than ${maxBytes} bytes`, { issues: [{ path: "(body)", message: "too large" }] });
+    }
+    chunks.push(value);
+  }
+  const out = new Uint8Array(size);
+  let at = 0;
+  for (const c of chunks) {
+    out.set(c, at);
+    at += c.byteLength;
+  }
+  return out;
 }
 
 export function parseQuery<S extends z.ZodType>(url: URL, schema: S): z.output<S> {

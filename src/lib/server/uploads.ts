@@ -4,7 +4,8 @@
  * alone), and extract its text with a well-known package (pdf-parse for PDF, mammoth for DOCX).
  */
 import { createHash } from "node:crypto";
-import { GavelError } from "../errors.ts";
+import { GavelError, isGavelError } from "../errors.ts";
+import { readBody } from "./http.ts";
 
 export const MAX_UPLOAD_BYTES = 5 * 1024 * 1024;
 /** Multipart framing and the small form fields sent beside the file. */
@@ -37,8 +38,13 @@ export async function readMultipart(request: Request, maxBytes = MAX_UPLOAD_BYTE
   if (!/^multipart\/form-data\b/i.test(type)) throw new GavelError("invalid-input", "upload: send the file as multipart/form-data", { issues: [{ path: "(content-type)", message: `expected multipart/form-data, got ${type || "nothing"}` }] });
   const declared = Number(request.headers.get("content-length") ?? 0);
   if (declared > maxBytes + MULTIPART_SLACK) throw new GavelError("too-large", `the upload is ${declared} bytes; the limit is ${maxBytes} bytes per file`, { issues: fileIssue("too large") });
-  const raw = Buffer.from(await request.arrayBuffer());
-  if (raw.length > maxBytes + MULTIPART_SLACK) throw new GavelError("too-large", `the upload is ${raw.length} bytes; the limit is ${maxBytes} bytes per file`, { issues: fileIssue("too large") });
+  let raw: Uint8Array<ArrayBuffer>;
+  try {
+    raw = await readBody(request, maxBytes + MULTIPART_SLACK, "the upload");
+  } catch (e) {
+    if (isGavelError(e) && e.code === "too-large") throw new GavelError("too-large", `the upload is larger than ${maxBytes} bytes per file`, { issues: fileIssue("too large") });
+    throw e;
+  }
   let form: FormData;
   try {
     form = await new Response(raw, { headers: { "content-type": type } }).formData();

@@ -8,12 +8,12 @@ import { z } from "zod";
 import { db, type Tx } from "../db.ts";
 import { user } from "../../db/schema/auth.ts";
 import { rulebookAdoptions, rulebookVersions } from "../../db/schema/rulebooks.ts";
-import { GavelError } from "../../errors.ts";
+import { GavelError, isGavelError } from "../../errors.ts";
 import { MAX_RULEBOOK_BYTES, parseRulebook, parseRulebookText } from "../../procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../procedure/rulebook-schema.ts";
 import { diffRulebooks, type RulebookDiff } from "../rulebook-diff.ts";
 import { rulebookTemplates, rulebookTemplate } from "../rulebook-templates.ts";
-import type { Actor } from "../http.ts";
+import { readBody, type Actor } from "../http.ts";
 
 export { MAX_RULEBOOK_BYTES };
 
@@ -193,8 +193,9 @@ export async function importVersion(actor: Actor, request: Request) {
   if (declared > MAX_RULEBOOK_BYTES + 64 * 1024) throw new GavelError("too-large", `The upload is ${declared} bytes; a rulebook file may be at most ${MAX_RULEBOOK_BYTES} bytes.`, { issues: [{ path: "file", message: "too large" }] });
   let form: FormData;
   try {
-    form = await request.formData();
-  } catch {
+    form = await new Response(await readBody(request, MAX_RULEBOOK_BYTES + 64 * 1024, "the upload"), { headers: { "content-type": type } }).formData();
+  } catch (e) {
+    if (isGavelError(e)) throw e;
     throw new GavelError("invalid-input", "The upload could not be read as a form.", { issues: [{ path: "(body)", message: "not a readable multipart form" }] });
   }
   const file = form.get("file");
