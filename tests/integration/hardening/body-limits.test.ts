@@ -1,0 +1,76 @@
+// Every route that reads a body has a size limit, enforced while the body streams in: a client
+// sending an endless chunked body (no Content-Length) gets 413 after at most the limit has been
+// read, never an unbounded buffer. Common practice (OWASP: limit request sizes), no source.
+import type { APIContext, APIRoute } from "astro";
+import { beforeAll, describe, expect, it } from "vitest";
+import { loadContext } from "../../../src/lib/server/context.ts";
+import { BASE, type Session } from "../../support/app.ts";
+import { tableCounts } from "../../support/db.ts";
+import type { Seeded } from "../../support/fixtures.ts";
+import { API_ROUTES, urlOf, type ApiRoute, type Samples } from "../../access/route-inventory.ts";
+import { seedSamples } from "../../access/samples.ts";
+
+let s: Seeded;
+let samples: Samples;
+beforeAll(async () => {
+  ({ s, samples } = await seedSamples());
+}, 120_000);
+
+// Routes that take no body at all.
+const NO_BODY = new Set(["api/circulation/messages/[id]/retry.ts"]);
+const readers = API_ROUTES.filter((r) => ["POST", "PUT", "PATCH"].includes(r.method) && r.audience !== "public" && !NO_BODY.has(r.file));
+const MULTIPART = new Set(["api/measures/upload.ts", "api/rulebooks/import.ts"]);
+const CHUNK = 64 * 1024;
+const CEILING = 8 * 1024 * 1024; // above every limit (uploads: 5 MB + framing)
+
+function endless(): { stream: ReadableStream<Uint8Array>; sent: () => number } {
+  let sent = 0;
+  const chunk = new Uint8Array(CHUNK).fill(0x20);
+  return {
+    sent: () => sent,
+    stream: new ReadableStream<Uint8Array>({
+      pull(c) {
+        if (sent > 64 * 1024 * 1024) return c.close(); // a hard stop so a missing limit fails instead of hanging
+        sent += CHUNK;
+        c.enqueue(chunk);
+      },
+    }),
+  };
+}
+
+function contentType(r: ApiRoute): string {
+  if (MULTIPART.has(r.file)) return "multipart/form-data; boundary=x";
+  if (r.file === "api/estimates/import.ts") return "text/csv";
+  return "application/json";
+}
+
+async function sendEndless(r: ApiRoute, as: Session) {
+  const mod = (await import(/* @vite-ignore */ `../../../src/pages/${r.file}`)) as Record<string, APIRoute>;
+  const url = new URL(urlOf(r, samples), BASE);
+  const headers = new Headers({ origin: BASE, cookie: as.cookie, "content-type": contentType(r) });
+  const body = endless();
+  const request = new Request(url, { method: r.method, headers, body: body.stream, duplex: "half" } as RequestInit);
+  const locals = { ...(await loadContext(headers)), requestId: "test" } as App.Locals;
+  const params = Object.fromEntries(Object.entries(r.params ?? {}).map(([k, key]) => [k, samples[key!]]));
+  const ctx = { request, url, params, locals, redirect: () => new Response(null, { status: 302 }) } as unknown as APIContext;
+  const res = await mod[r.method](ctx);
+  return { status: res.status, body: await res.json(), sent: body.sent() };
+}
+
+describe("request body limits", () => {
+  it("covers every route that reads a body", () => {
+    expect(readers.length).toBeGreaterThan(25);
+  });
+
+  it("an endless chunked body gets 413 on every such route, having read no more than the limit", async () => {
+    const before = await tableCounts();
+    for (const r of readers) {
+      const role = (r.audience as readonly string[])[0] as keyof Seeded["as"];
+      const res = await sendEndless(r, s.as[role]);
+      expect(res.status, `${r.method} ${r.path}: ${JSON.stringify(res.body).slice(0, 200)}`).toBe(413);
+      expect(res.body.error.code).toBe("too-large");
+      expect(res.sent, `${r.method} ${r.path} read ${res.sent} bytes`).toBeLessThan(CEILING);
+    }
+    expect(await tableCounts()).toEqual(before);
+  });
+});
