@@ -137,10 +137,17 @@ describe("measures and amendments on the pages", () => {
     await details.getByRole("button", { name: "Record override" }).click();
     expect(await textOf(page.getByRole("status").filter({ hasText: "Override of" }))).toContain(`resting on Ruling ${number}`);
     await visible(details.getByText(`Ruling: Ruling ${number}`));
+    expect(await details.getByRole("link", { name: new RegExp(`^Ruling ${number} \\(`) }).first().getAttribute("href")).toMatch(/^\/rulings\/[0-9a-f-]{36}$/);
     await shot(page, "workflows-override-recorded");
     await details.getByRole("button", { name: "Revoke override" }).click();
     expect(await textOf(page.getByRole("status").filter({ hasText: "revoked" }))).toMatch(/Override of .+ on A1 revoked/);
     expect(await details.getByRole("button", { name: "Revoke override" }).count()).toBe(0);
+
+    // A finding on the demo tree shows the issued precedents that cite the same rule.
+    const { measures } = (await api(page, "GET", "/api/measures")) as { measures: Array<{ id: string; number: string }> };
+    await page.goto(`${BASE_URL}/measures/${measures.find((m) => m.number === "HCA 12")!.id}/tree#A8`);
+    const related = page.getByTestId(/^related-A8-/);
+    expect(await textOf(related)).toMatch(/Related precedents: Ruling \d+/);
   });
 });
 
@@ -206,12 +213,15 @@ describe("estimates on the pages", () => {
     await editor.getByLabel("A1 position on Lighting standard").fill("6");
     await editor.getByLabel("How A7 moves the text").selectOption("shift");
     await editor.getByLabel("A7 shift on Cost").fill("-2");
+    await editor.getByText(/Members' ideal points \(3 rows, 7 votes\)/).click();
+    await editor.getByLabel("Row 1: weight").fill("4");
+    await visible(editor.getByText(/Members' ideal points \(3 rows, 8 votes\)/));
     await visible(page.getByRole("group", { name: /Lighting standard across/ }));
     await shot(page, "workflows-spatial-edit");
     await page.getByRole("button", { name: "Save these positions as a new version" }).click();
     await visible(page.getByText(/version 2 of 2/));
     const saved = (await api(page, "GET", `/api/estimates/${made.id}`)) as { version: { content: Record<string, unknown> } };
-    expect(saved.version.content).toMatchObject({ dimensions: ["Lighting standard", "Cost"], ranges: [[0, 12], [0, 10]], statusQuo: [3, 1], effects: { A1: { position: [6, 5] }, A7: { shift: [0, -2] } } });
+    expect(saved.version.content).toMatchObject({ dimensions: ["Lighting standard", "Cost"], ranges: [[0, 12], [0, 10]], statusQuo: [3, 1], effects: { A1: { position: [6, 5] }, A7: { shift: [0, -2] } }, members: [{ member: "North", weight: 4 }, { member: "South" }, { member: "East" }] });
     expect(await page.getByTestId("positions-editor").getByLabel("Status quo on Lighting standard").inputValue()).toBe("3");
   });
 });

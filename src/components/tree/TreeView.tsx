@@ -83,17 +83,18 @@ async function findRulings(query: string): Promise<RulingHit[]> {
   return results;
 }
 
-/** Issued precedents related to a finding (same rule, or sharing words with its message). */
+/** Issued precedents citing the rule a finding applies. */
 function RelatedPrecedents({ finding }: { finding: FindingView }) {
   const [hits, setHits] = useState<RulingHit[] | null>(null);
   useEffect(() => {
     let live = true;
-    const q = new URLSearchParams({ text: finding.message, citation: finding.citation, rule: finding.rule, limit: "3" });
+    // Same rule only: matching on the message's words would offer rulings that merely share "amendment".
+    const q = new URLSearchParams({ rule: finding.rule, limit: "3" });
     apiCall(rulingListSchema, `/api/rulings/related?${q}`).then((r) => live && setHits(r.results), () => live && setHits([]));
     return () => {
       live = false;
     };
-  }, [finding.message, finding.citation, finding.rule]);
+  }, [finding.rule]);
   if (!hits || hits.length === 0) return null;
   return (
     <div className="mt-1 text-xs" data-testid={`related-${finding.amendment}-${finding.code}`}>
