@@ -30,7 +30,7 @@ export function json(body: unknown, status = 200, headers: Record<string, string
 export function isDatabaseUnavailable(e: unknown): boolean {
   const err = (e as { cause?: unknown })?.cause ?? e;
   const code = String((err as { code?: unknown })?.code ?? "");
-  return ["ECONNREFUSED", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "CONNECTION_CLOSED", "CONNECT_TIMEOUT", "57P01", "57P02", "57P03"].includes(code) || code.startsWith("08");
+  return ["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "CONNECTION_CLOSED", "CONNECT_TIMEOUT", "57P01", "57P02", "57P03"].includes(code) || code.startsWith("08");
 }
 
 export function errorResponse(e: unknown): Response {
