@@ -9,7 +9,7 @@ process.env.GAVELWRIGHT_TEST_DATABASE_URL = databaseUrl;
 export default getViteConfig({
   test: {
     environment: "node",
-    include: ["tests/unit/**/*.test.ts", "tests/integration/**/*.test.ts", "tests/access/**/*.test.ts", "tests/bad-input/**/*.test.ts", "tests/faults/**/*.test.ts"],
+    include: ["tests/unit/**/*.test.ts", "tests/integration/**/*.test.ts", "tests/access/**/*.test.ts", "tests/bad-input/**/*.test.ts"],
     env: {
       DATABASE_URL: databaseUrl,
       BETTER_AUTH_SECRET: "test-secret-not-for-production-0123456789",

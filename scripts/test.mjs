@@ -1,6 +1,8 @@
 // npm test: the same set-up as npm start (dependencies, PostgreSQL), then every test:
 //  1. unit and integration tests (vitest) against a fresh test database built from drizzle/;
-//  2. browser tests (playwright-core + Debian's Chromium) against the built app, served on
+//  2. fault tests (tests/faults: a throwaway PostgreSQL cluster restarted under load, the server
+//     killed mid-analysis) against the built app;
+//  3. browser tests (playwright-core + Debian's Chromium) against the built app, served on
 //     127.0.0.1:4399 with a freshly seeded database and the local mail catcher.
 // TEST_DATABASE_URL / TEST_E2E_DATABASE_URL point at an external server instead.
 import { spawn } from "node:child_process";
@@ -69,6 +71,8 @@ try {
     runTs("scripts/migrate.ts", env);
     runTs("scripts/seed.ts", env);
     build(env);
+    log("fault tests (PostgreSQL restarted and crashed, the server killed mid-analysis) against the build…");
+    runNode([vitest, "run", "-c", "vitest.faults.config.ts"], { ...base, GAVELWRIGHT_SERVER_ENTRY: join(env.GAVELWRIGHT_OUT_DIR, "server", "entry.mjs") });
     const tsx = join(ROOT, "node_modules", "tsx", "dist", "cli.mjs");
     children.push(spawn(process.execPath, [tsx, "scripts/mail-catcher.ts"], { cwd: ROOT, env, stdio: ["ignore", "ignore", "inherit"] }));
     children.push(spawn(process.execPath, [join(env.GAVELWRIGHT_OUT_DIR, "server", "entry.mjs")], { cwd: ROOT, env, stdio: ["ignore", "ignore", "inherit"] }));
