@@ -20,7 +20,6 @@ export interface EditableAmendment {
 }
 
 interface Props {
-  measureId: string;
   /** The amendments this person may edit (clerks: any; a member: their own draft or filed ones). */
   editable: EditableAmendment[];
   sections: Array<{ id: string; heading: string; lines: number }>;
@@ -35,8 +34,9 @@ const saved = z.object({ id: z.string(), version: z.number() });
  * Edit an amendment's text, target and lines, form, subjects and sponsors, sent with the version
  * it was opened at. Rows of the amendments table link here with #edit-<key>.
  */
-export default function AmendmentEditor({ measureId, editable, sections, targets, legislators }: Props) {
-  const [key, setKey] = useState(editable[0]?.key ?? "");
+export default function AmendmentEditor({ editable, sections, targets, legislators }: Props) {
+  // Nothing open until an amendment is chosen (a row's Edit link, or the picker).
+  const [key, setKey] = useState("");
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [failure, setFailure] = useState<string | null>(null);
   const [stale, setStale] = useState(false);
@@ -60,7 +60,19 @@ export default function AmendmentEditor({ measureId, editable, sections, targets
   }, [editable]);
 
   const a = editable.find((x) => x.key === key);
-  if (!a) return null;
+  if (!a)
+    return (
+      <div className="gw-card flex flex-wrap items-end gap-3" id="edit-amendment" data-testid="amendment-editor">
+        <div>
+          <label htmlFor="ae-pick" className="gw-label">Edit an amendment</label>
+          <select id="ae-pick" className="gw-input" value="" onChange={(e) => setKey(e.target.value)}>
+            <option value="">Choose one…</option>
+            {editable.map((x) => <option key={x.id} value={x.key}>{x.key}{x.title ? ` — ${x.title}` : ""} ({x.status})</option>)}
+          </select>
+        </div>
+        <p className="gw-hint">Or use Edit on its row above. Text, target and lines, form, subjects and sponsors can be changed.</p>
+      </div>
+    );
 
   async function onSubmit(e: FormEvent<HTMLFormElement>) {
     e.preventDefault();
@@ -108,7 +120,7 @@ export default function AmendmentEditor({ measureId, editable, sections, targets
     <form ref={root} key={a.id} id="edit-amendment" className="gw-card space-y-3" onSubmit={onSubmit} aria-labelledby="ae-h" data-testid="amendment-editor">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <h2 id="ae-h" className="text-step-2">Edit amendment {a.key}</h2>
-        {editable.length > 1 && (
+        {editable.length > 0 && (
           <div>
             <label htmlFor="ae-pick" className="gw-label">Amendment to edit</label>
             <select id="ae-pick" className="gw-input" value={key} onChange={(e) => { setKey(e.target.value); setFailure(null); setErrors({}); }}>
