@@ -123,7 +123,7 @@ describe("filing", () => {
 
     const sql = postgres(process.env.DATABASE_URL!, { max: 1 });
     let subject: string | undefined;
-    for (let i = 0; i < 40 && !subject; i++) {
+    for (let i = 0; i < 120 && !subject; i++) {
       const rows = await sql`SELECT subject FROM caught_mail WHERE "to" LIKE ${"%" + account("member").email + "%"} AND subject = ${`Filing receipt: Amendment ${key} to HCA 12`}`;
       subject = rows[0]?.subject as string | undefined;
       if (!subject) await new Promise((r) => setTimeout(r, 500));

@@ -203,7 +203,8 @@ export function startOutboxWorker(intervalMs = 2_000): void {
   timer = setInterval(() => {
     if (running) return;
     running = true;
-    deliverOutbox()
+    // A tick drains a backlog (e.g. a burst of filing receipts) up to 500 messages, not just 20.
+    deliverOutbox(500)
       .catch((e) => console.error("[outbox]", (e as Error).message))
       .finally(() => {
         running = false;

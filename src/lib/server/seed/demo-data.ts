@@ -40,6 +40,7 @@ export function harrowmereRoster(): Array<{ name: string; bloc: string; constitu
   let i = 0;
   for (const b of BLOCS)
     for (let s = 0; s < b.seats; s++, i++)
-      out.push({ name: `${GIVEN[i % GIVEN.length]} ${FAMILY[(i * 7) % FAMILY.length]}`, bloc: b.name, constituency: `${WARDS[i % WARDS.length]} ${Math.floor(i / WARDS.length) + 1}`, office: OFFICES[i] ?? null });
+      // The family index shifts for the second pass through the given names, so all 40 names differ.
+      out.push({ name: `${GIVEN[i % GIVEN.length]} ${FAMILY[(i * 7 + Math.floor(i / GIVEN.length) * 3) % FAMILY.length]}`, bloc: b.name, constituency: `${WARDS[i % WARDS.length]} ${Math.floor(i / WARDS.length) + 1}`, office: OFFICES[i] ?? null });
   return out;
 }
