@@ -15,6 +15,7 @@ import { applyFloorEvent, boardSchema, EMPTY_BOARD, floorEventSchema, floorState
 import { notifyFloor } from "../floor-bus.ts";
 import { loadRulebook, versionIdSchema } from "./rulebooks.ts";
 import type { Actor } from "../http.ts";
+import { Memo, memoKey } from "../memo.ts";
 
 export const movesRequestSchema = z.object({
   /** A rulebook version of the chamber; the version in force when omitted. */
@@ -31,10 +32,14 @@ export const recordSchema = z.object({
   event: floorEventSchema,
 });
 
+// Legal moves depend only on the (immutable) rulebook version and the state asked about.
+const movesMemo = new Memo<Awaited<ReturnType<typeof legalMoves>>>(500);
+
 /** Legal moves for any floor state, real or hypothetical; stores nothing. */
 export async function legalMovesFor(actor: Actor, input: z.output<typeof movesRequestSchema>) {
   const rb = await loadRulebook(actor.chamber.id, input.version);
-  const moves = await legalMoves(rb.rulebook, input.state);
+  const key = memoKey(rb.versionId, input.state);
+  const moves = key === null ? await legalMoves(rb.rulebook, input.state) : await movesMemo.get(key, () => legalMoves(rb.rulebook, input.state));
   return { rulebook: { versionId: rb.versionId, number: rb.number, title: rb.title }, moves };
 }
 

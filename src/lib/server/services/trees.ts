@@ -12,6 +12,7 @@ import { validateTree, type Finding } from "../../amendments/validate-tree.ts";
 import type { AmendmentInput, MeasureInput } from "../../amendments/case-schema.ts";
 import { GavelError } from "../../errors.ts";
 import type { Actor } from "../http.ts";
+import { Memo, memoKey } from "../memo.ts";
 import { assertFresh, recordAudit } from "../measure-audit.ts";
 import { adoptedRulebookOf } from "../measure-rulebook.ts";
 import type { overrideCreateSchema, FindingView, TreeNodeView, TreeView } from "../measure-schemas.ts";
@@ -48,6 +49,8 @@ export function caseFromRows(m: MeasureRow, rows: AmendmentRow[]): { measure: Me
   };
 }
 
+const treeMemo = new Memo<Awaited<ReturnType<typeof validateTree>>>(200);
+
 async function loadTree(actor: Actor, measureId: string) {
   const m = await measureRow(actor.chamber.id, measureId);
   const rows = await db.select().from(amendments).where(and(eq(amendments.measureId, m.id), eq(amendments.chamberId, actor.chamber.id))).orderBy(asc(amendments.createdAt));
@@ -56,11 +59,11 @@ async function loadTree(actor: Actor, measureId: string) {
   const rb = await adoptedRulebookOf(actor.chamber.id);
   const keys = new Map(rows.map((r) => [r.id, amendmentKey(r)]));
   const c = caseFromRows(m, rows);
-  const result = await validateTree({
-    rulebook: rb.rulebook,
-    ...c,
-    overrides: overrides.filter((o) => keys.has(o.amendmentId)).map((o) => ({ code: o.code, amendment: keys.get(o.amendmentId)!, ruling: o.rulingRef })),
-  });
+  const input = { ...c, overrides: overrides.filter((o) => keys.has(o.amendmentId)).map((o) => ({ code: o.code, amendment: keys.get(o.amendmentId)!, ruling: o.rulingRef })) };
+  // The findings depend only on the rulebook version (immutable) and the case: read it once per change.
+  const key = memoKey(rb.versionId ?? rb.source, input);
+  const run = () => validateTree({ rulebook: rb.rulebook, ...input });
+  const result = key === null ? await run() : await treeMemo.get(key, run);
   return { m, rows, keys, overrides, rb, result };
 }
 
