@@ -4,6 +4,7 @@ import { ensureMigrated } from "./lib/server/db.ts";
 import { loadContext } from "./lib/server/context.ts";
 import { startOutboxWorker } from "./lib/server/mail.ts";
 import { errorResponse } from "./lib/server/http.ts";
+import { describeError } from "./lib/server/log-safe.ts";
 import { GavelError } from "./lib/errors.ts";
 
 const SECURITY_HEADERS: Record<string, string> = {
@@ -36,7 +37,7 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
       if (!path.startsWith("/api/auth/")) Object.assign(ctx.locals, await loadContext(ctx.request.headers));
       else Object.assign(ctx.locals, { user: null, session: null, chamber: null, role: null, chambers: [] });
     } catch (e) {
-      console.error("[request] database unavailable:", (e as Error).message);
+      console.error("[request] database unavailable:", describeError(e));
       if (path.startsWith("/api/")) return errorResponse(new GavelError("unavailable", "Gavelwright cannot reach its database just now. Nothing was changed; try again in a moment."));
       return new Response("Gavelwright cannot reach its database just now. Nothing was changed. Try again in a moment.", { status: 503, headers: { "content-type": "text/plain; charset=utf-8", "retry-after": "5" } });
     }

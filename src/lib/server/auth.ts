@@ -11,6 +11,7 @@ import { ac, roles } from "./access-control.ts";
 import { enqueueMail } from "./mail.ts";
 import { ROLE_LABELS, isChamberRole } from "../permissions.ts";
 import { escapeHtml } from "../text/escape-html.ts";
+import { describeError } from "./log-safe.ts";
 
 export function baseUrl(): string {
   return process.env.BETTER_AUTH_URL ?? `http://${process.env.HOST ?? "127.0.0.1"}:${process.env.PORT ?? 4321}`;
@@ -23,6 +24,8 @@ export const auth = betterAuth({
   trustedOrigins: [baseUrl()],
   database: drizzleAdapter(db, { provider: "pg", schema }),
   telemetry: { enabled: false },
+  // better-auth logs failed queries with their parameters (a session token, an e-mail): log them without.
+  logger: { log: (level, message, ...args) => console[level === "error" ? "error" : level === "warn" ? "warn" : "log"](`[auth] ${level}: ${message}`, ...args.map((a) => (a instanceof Error ? describeError(a) : a))) },
   emailAndPassword: {
     enabled: true,
     minPasswordLength: 10,

@@ -6,6 +6,7 @@ import type { APIContext, APIRoute } from "astro";
 import type { z } from "zod";
 import { GavelError, isGavelError, parseWith, type ErrorCode } from "../errors.ts";
 import { can, type ChamberRole, type Permission } from "../permissions.ts";
+import { describeError } from "./log-safe.ts";
 
 export const STATUS: Record<ErrorCode, number> = {
   "invalid-input": 400,
@@ -36,10 +37,10 @@ export function isDatabaseUnavailable(e: unknown): boolean {
 export function errorResponse(e: unknown): Response {
   if (isGavelError(e)) return json(e.toJSON(), STATUS[e.code], e.code === "unavailable" ? { "retry-after": "5" } : {});
   if (isDatabaseUnavailable(e)) {
-    console.error("[api] database unavailable:", (e as Error).message);
+    console.error("[api] database unavailable:", describeError(e));
     return json({ error: { code: "unavailable", message: "Gavelwright cannot reach its database just now. The request was not completed; try again in a moment." } }, 503, { "retry-after": "5" });
   }
-  console.error("[api] unexpected error:", e);
+  console.error("[api] unexpected error:", describeError(e));
   return json({ error: { code: "internal", message: "Something went wrong on the server. The request was not completed; nothing was saved." } }, 500);
 }
 
