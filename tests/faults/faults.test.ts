@@ -127,6 +127,13 @@ describe("PostgreSQL goes away while requests run", () => {
       const after = await fetch(`${server.base}/api/measures`, { method: "POST", headers: { cookie: clerk, origin: server.base, "content-type": "application/json" }, body: JSON.stringify({ number: `AFTER ${mode}`, title: "Filed after the outage" }) });
       expect(after.status).toBe(201);
       expect(server.output()).not.toMatch(/\[api\] unexpected error/);
+      // Secrets never reach the log: not the session tokens (a failed query's parameters), nor the auth secret.
+      for (const c of [cookie, clerk]) {
+        const token = /session_token=([^.;]+)/.exec(decodeURIComponent(c))?.[1];
+        expect(token && token.length > 10).toBe(true);
+        expect(server.output()).not.toContain(token);
+      }
+      expect(server.output()).not.toContain(env.BETTER_AUTH_SECRET);
     }, 90_000);
   }
 });
