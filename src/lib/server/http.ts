@@ -31,11 +31,19 @@ export function json(body: unknown, status = 200, headers: Record<string, string
 export function isDatabaseUnavailable(e: unknown): boolean {
   const err = (e as { cause?: unknown })?.cause ?? e;
   const code = String((err as { code?: unknown })?.code ?? "");
-  return ["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "CONNECTION_CLOSED", "CONNECT_TIMEOUT", "57P01", "57P02", "57P03"].includes(code) || code.startsWith("08");
+  if (["ECONNREFUSED", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "CONNECTION_CLOSED", "CONNECT_TIMEOUT", "57P01", "57P02", "57P03"].includes(code) || code.startsWith("08")) return true;
+  // A reset socket is the database's only under a query (a crashing server); a client hanging up resets too.
+  return ["ECONNRESET", "EPIPE", "ETIMEDOUT"].includes(code) && (err !== e || typeof (e as { query?: unknown }).query === "string");
+}
+
+/** The client closed the connection while its request was read: nobody waits for the answer. */
+export function isClientAbort(e: unknown): boolean {
+  return e instanceof Error && e.message === "aborted" && (e as { code?: unknown }).code === "ECONNRESET" && !(e as { cause?: unknown }).cause;
 }
 
 export function errorResponse(e: unknown): Response {
   if (isGavelError(e)) return json(e.toJSON(), STATUS[e.code], e.code === "unavailable" ? { "retry-after": "5" } : {});
+  if (isClientAbort(e)) return json({ error: { code: "invalid-input", message: "The request was cut off before it was complete." } }, 400);
   if (isDatabaseUnavailable(e)) {
     console.error("[api] database unavailable:", describeError(e));
     return json({ error: { code: "unavailable", message: "Gavelwright cannot reach its database just now. The request was not completed; try again in a moment." } }, 503, { "retry-after": "5" });
