@@ -4,6 +4,7 @@
 import type { APIContext, APIRoute } from "astro";
 import { beforeAll, describe, expect, it } from "vitest";
 import { loadContext } from "../../../src/lib/server/context.ts";
+import { errorResponse, isDatabaseUnavailable } from "../../../src/lib/server/http.ts";
 import { BASE, type Session } from "../../support/app.ts";
 import { tableCounts } from "../../support/db.ts";
 import type { Seeded } from "../../support/fixtures.ts";
@@ -72,5 +73,17 @@ describe("request body limits", () => {
       expect(res.sent, `${r.method} ${r.path} read ${res.sent} bytes`).toBeLessThan(CEILING);
     }
     expect(await tableCounts()).toEqual(before);
+  });
+});
+
+describe("a client that hangs up", () => {
+  it("is not a database outage: 400, not 503 (the socket reset of a client is not the database's)", async () => {
+    const abort = Object.assign(new Error("aborted"), { code: "ECONNRESET" });
+    expect(isDatabaseUnavailable(abort)).toBe(false);
+    expect(errorResponse(abort).status).toBe(400);
+    // The database's own reset arrives under a query (wrapped by the driver or Drizzle): 503.
+    const dbReset = Object.assign(new Error("Failed query: select 1\nparams: "), { query: "select 1", cause: Object.assign(new Error("read ECONNRESET"), { code: "ECONNRESET" }) });
+    expect(isDatabaseUnavailable(dbReset)).toBe(true);
+    expect(errorResponse(dbReset).status).toBe(503);
   });
 });
