@@ -1,4 +1,5 @@
 import { useState, type FormEvent } from "react";
+import { lineRangeFromText } from "../../lib/amendments/line-range-text.ts";
 import { z } from "zod";
 import { AMENDMENT_FORMS } from "../../lib/amendments/case-schema.ts";
 import { FORM_LABELS } from "../../lib/server/measure-schemas.ts";
@@ -26,9 +27,8 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
     const fd = new FormData(e.currentTarget);
     const draft = (e.nativeEvent as SubmitEvent).submitter?.getAttribute("value") === "draft";
     const sponsors = fd.getAll("sponsors").map(String);
-    const linesText = String(fd.get("lines") ?? "").trim();
-    const lm = /^(\d+)\s*(?:[-–]\s*(\d+))?$/.exec(linesText);
-    if (linesText && !lm) {
+    const lines = lineRangeFromText(String(fd.get("lines") ?? ""));
+    if (lines === "invalid") {
       setErrors({ lines: "write a line or a range such as 3-7" });
       return;
     }
@@ -52,7 +52,7 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
           body: {
             form: fd.get("form"),
             target: fd.get("target"),
-            lines: lm ? [Number(lm[1]), Number(lm[2] ?? lm[1])] : null,
+            lines,
             title: String(fd.get("title") ?? "").trim() || null,
             text: String(fd.get("text") ?? ""),
             subjects: String(fd.get("subjects") ?? "").split(",").map((s) => s.trim()).filter(Boolean),

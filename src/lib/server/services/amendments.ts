@@ -4,6 +4,7 @@
  * and the audit trail of each change.
  */
 import { and, asc, eq, sql as dsql } from "drizzle-orm";
+import { lineRangeFromText } from "../../amendments/line-range-text.ts";
 import type { z } from "zod";
 import { db, type Tx } from "../db.ts";
 import { user } from "../../db/schema/auth.ts";
@@ -193,10 +194,9 @@ export async function fileAmendment(actor: Actor, measureId: string, input: File
 }
 
 function parseLines(s: string | undefined): [number, number] | null {
-  if (!s?.trim()) return null;
-  const m = /^\s*(\d+)\s*(?:[-–]\s*(\d+))?\s*$/.exec(s);
-  if (!m) throw new GavelError("invalid-input", "lines: write a line or a range such as 3-7", { issues: [{ path: "lines", message: "expected N or N-M" }] });
-  return [Number(m[1]), Number(m[2] ?? m[1])];
+  const lines = lineRangeFromText(s ?? "");
+  if (lines === "invalid") throw new GavelError("invalid-input", "lines: write a line or a range such as 3-7", { issues: [{ path: "lines", message: "expected N or N-M" }] });
+  return lines;
 }
 
 /** File from an upload: the document is kept as the attachment; its text is the amendment's text unless typed. */
