@@ -42,23 +42,12 @@ export const PERMISSIONS = [
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 
-const CLERK: Permission[] = [
-  "chamber:read",
-  "rulebook:edit",
-  "rulebook:adopt",
-  "measure:edit",
-  "amendment:file",
-  "tree:override",
-  "floor:record",
-  "estimate:create",
-  "ruling:draft",
-  "ruling:issue",
-  "circulation:send",
-  "lists:edit",
-];
+/** What only the chief clerk may do; a clerk may do everything else. */
+const CHIEF_CLERK_ONLY: readonly Permission[] = ["people:invite", "people:assign-role", "mail:view-caught"];
+const CLERK: Permission[] = PERMISSIONS.filter((p) => !CHIEF_CLERK_ONLY.includes(p));
 
 export const ROLE_PERMISSIONS: Record<ChamberRole, readonly Permission[]> = {
-  "chief-clerk": [...CLERK, "people:invite", "people:assign-role", "mail:view-caught"],
+  "chief-clerk": PERMISSIONS,
   clerk: CLERK,
   member: ["chamber:read", "amendment:file", "estimate:create"],
   staff: ["chamber:read", "circulation:send", "lists:edit", "estimate:create"],
