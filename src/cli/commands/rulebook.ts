@@ -1,12 +1,13 @@
 /**
  * `gavelwright rulebook check FILE`: validate a rulebook file and print a short summary.
- * Also exports `loadRulebookRef`, which the `moves` and `check` commands use to read the
- * `rulebook` member of a case file (a path, a template id, or an inline object).
+ * Also exports `readCase` and `loadRulebookRef`, which the `moves` and `check` commands use to read
+ * a case file and its `rulebook` member (a path, a template id, or an inline object).
  */
 import { existsSync } from "node:fs";
 import { dirname, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
-import { GavelError } from "../../lib/errors.ts";
+import { z } from "zod";
+import { GavelError, parseWith } from "../../lib/errors.ts";
 import { parseRulebook } from "../../lib/procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../lib/procedure/rulebook-schema.ts";
 import { printJson, readJsonFile, type CliIO } from "../io.ts";
@@ -20,6 +21,16 @@ function prefixed(e: unknown, prefix: string): unknown {
   if (!(e instanceof GavelError)) return e;
   const issues = e.issues.map((i) => ({ path: i.path === "(root)" || i.path.startsWith("(") ? prefix : `${prefix}.${i.path}`, message: i.message }));
   return new GavelError(e.code, e.message, { issues, details: e.details });
+}
+
+/** A case file's `rulebook` member: a path, a template id, or the rulebook object itself. */
+export const rulebookRefSchema = z.union([z.string().min(1).max(1000), z.record(z.string(), z.unknown())]);
+
+/** Read a case file named on the command line, check it with `schema`, and load its rulebook. */
+export function readCase<S extends z.ZodType<{ rulebook: unknown }>>(file: string | undefined, io: CliIO, schema: S): { raw: z.output<S>; rulebook: Rulebook } {
+  const raw = parseWith(schema, readJsonFile(file, io, "case file"), "case file") as z.output<S>;
+  const caseDir = !file || file === "-" ? io.cwd : dirname(resolve(io.cwd, file));
+  return { raw, rulebook: loadRulebookRef(raw.rulebook, caseDir, io) };
 }
 
 /**
