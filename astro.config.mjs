@@ -12,7 +12,8 @@ export default defineConfig({
   // Separate build folders let several builds run side by side (tests, parallel work).
   outDir: process.env.GAVELWRIGHT_OUT_DIR ?? "./dist",
   cacheDir: process.env.GAVELWRIGHT_CACHE_DIR ?? "./node_modules/.astro",
-  adapter: node({ mode: "standalone" }),
+  // Middleware mode: scripts/serve.mjs is the HTTP server (static files, then the app).
+  adapter: node({ mode: "middleware" }),
   integrations: [react()],
   vite: { plugins: [tailwindcss()] },
   server: { host, port },

@@ -84,7 +84,7 @@ try {
   runTs("scripts/migrate.ts", env);
   runTs("scripts/seed.ts", env);
   if (process.env.BENCH_NO_BUILD !== "1") build(env);
-  children.push(spawn(process.execPath, [join(env.GAVELWRIGHT_OUT_DIR, "server", "entry.mjs")], { cwd: ROOT, env, stdio: ["ignore", "ignore", "inherit"] }));
+  children.push(spawn(process.execPath, [join(ROOT, "scripts", "serve.mjs")], { cwd: ROOT, env, stdio: ["ignore", "ignore", "inherit"] }));
   await waitFor(`${BASE}/sign-in`);
 
   const cookie = await signIn("member@harrowmere.example", "demo-member-pass");

@@ -44,7 +44,7 @@ try {
   if (!flags.includes("--no-build")) build(env);
   const tsx = join(ROOT, "node_modules", "tsx", "dist", "cli.mjs");
   const catcher = spawn(process.execPath, [tsx, "scripts/mail-catcher.ts"], { cwd: ROOT, env, stdio: "inherit" });
-  const server = spawn(process.execPath, [join(env.GAVELWRIGHT_OUT_DIR, "server", "entry.mjs")], { cwd: ROOT, env, stdio: "inherit" });
+  const server = spawn(process.execPath, [join(ROOT, "scripts", "serve.mjs")], { cwd: ROOT, env, stdio: "inherit" });
   const stop = () => {
     catcher.kill("SIGTERM");
     server.kill("SIGTERM");

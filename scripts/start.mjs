@@ -31,7 +31,7 @@ try {
     const catcher = spawn(process.execPath, [join(ROOT, "node_modules", "tsx", "dist", "cli.mjs"), "scripts/mail-catcher.ts"], { cwd: ROOT, env, stdio: "inherit" });
     children.push(catcher);
   }
-  const server = spawn(process.execPath, ["dist/server/entry.mjs"], { cwd: ROOT, env, stdio: "inherit" });
+  const server = spawn(process.execPath, ["scripts/serve.mjs"], { cwd: ROOT, env, stdio: "inherit" });
   children.push(server);
   server.on("exit", (code) => stopAll(code ?? 0));
   process.on("SIGINT", () => stopAll(0));

@@ -72,10 +72,10 @@ try {
     runTs("scripts/seed.ts", env);
     build(env);
     log("fault tests (PostgreSQL restarted and crashed, the server killed mid-analysis) against the build…");
-    runNode([vitest, "run", "-c", "vitest.faults.config.ts"], { ...base, GAVELWRIGHT_SERVER_ENTRY: join(env.GAVELWRIGHT_OUT_DIR, "server", "entry.mjs") });
+    runNode([vitest, "run", "-c", "vitest.faults.config.ts"], { ...base, GAVELWRIGHT_SERVER_BUILD: env.GAVELWRIGHT_OUT_DIR });
     const tsx = join(ROOT, "node_modules", "tsx", "dist", "cli.mjs");
     children.push(spawn(process.execPath, [tsx, "scripts/mail-catcher.ts"], { cwd: ROOT, env, stdio: ["ignore", "ignore", "inherit"] }));
-    children.push(spawn(process.execPath, [join(env.GAVELWRIGHT_OUT_DIR, "server", "entry.mjs")], { cwd: ROOT, env, stdio: ["ignore", "ignore", "inherit"] }));
+    children.push(spawn(process.execPath, [join(ROOT, "scripts", "serve.mjs")], { cwd: ROOT, env, stdio: ["ignore", "ignore", "inherit"] }));
     await waitForServer(`http://127.0.0.1:${PORT}/sign-in`);
     log(`browser tests against http://127.0.0.1:${PORT} (Chromium at ${CHROMIUM})…`);
     runNode([vitest, "run", "-c", "vitest.browser.config.ts"], { ...base, GAVELWRIGHT_TEST_URL: `http://127.0.0.1:${PORT}`, DATABASE_URL: e2eDb });

@@ -10,20 +10,20 @@
 import postgres from "postgres";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import demoAccounts from "../../src/lib/server/seed/demo-accounts.json";
-import { createDatabase, freePort, runScript, serverEntry, signIn, startCluster, startServer, type Cluster, type Server } from "./harness.ts";
+import { createDatabase, freePort, runScript, serverBuild, signIn, startCluster, startServer, type Cluster, type Server } from "./harness.ts";
 
 let cluster: Cluster;
 let server: Server;
 let sql: postgres.Sql;
 let env: Record<string, string>;
-let entry: string;
+let build: string;
 let port: number;
 let measureId: string;
 const account = (role: string) => demoAccounts.find((a) => a.role === role && a.chamber === "harrowmere")!;
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 beforeAll(async () => {
-  entry = serverEntry();
+  build = serverBuild();
   cluster = await startCluster();
   const url = createDatabase(cluster, "gavelwright_faults");
   env = { DATABASE_URL: url, SMTP_HOST: "127.0.0.1", SMTP_PORT: String(await freePort()), BETTER_AUTH_SECRET: "faults-test-secret-0123456789abcdef0123", DATABASE_POOL_SIZE: "10" };
@@ -31,7 +31,7 @@ beforeAll(async () => {
   runScript("scripts/seed.ts", env);
   sql = postgres(url, { max: 2, onnotice: () => {} });
   port = await freePort();
-  server = await startServer(entry, env, port);
+  server = await startServer(build, env, port);
   [{ id: measureId }] = await sql`SELECT m.id FROM measures m JOIN organization o ON o.id = m.chamber_id WHERE o.slug LIKE 'harrowmere%' ORDER BY m.number LIMIT 1`;
 }, 300_000);
 
@@ -159,7 +159,7 @@ describe("the server killed during an analysis", () => {
     expect((await sql`SELECT count(*)::int AS n FROM analysis_cache WHERE hash = ${hash}`)[0].n).toBe(0);
     for (const row of await sql`SELECT result FROM analysis_cache`) expect(typeof row.result.orders === "number" || typeof row.result.orders === "string").toBe(true);
 
-    server = await startServer(entry, env, port);
+    server = await startServer(build, env, port);
     const cookie = await signIn(server.base, account("clerk").email, account("clerk").password);
     const run = await (await fetch(`${server.base}/api/analysis/runs/${started.runId}`, { headers: { cookie } })).json();
     expect(run.run.status).toBe("failed");

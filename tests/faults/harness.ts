@@ -1,8 +1,8 @@
 /**
  * Fault-test harness: a throwaway PostgreSQL cluster on its own port (so restarting it disturbs
  * no other test), the built app served against it, and helpers to sign in and to kill things.
- * The server is GAVELWRIGHT_SERVER_ENTRY (scripts/test.mjs passes the build it made for the
- * browser tests) or, when unset, a build made here into .build/faults.
+ * The server is scripts/serve.mjs over the build in GAVELWRIGHT_SERVER_BUILD (scripts/test.mjs
+ * passes the build it made for the browser tests) or, when unset, a build made here into .build/faults.
  */
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import { chownSync, existsSync, mkdtempSync, rmSync, appendFileSync, chmodSync, mkdirSync, readdirSync } from "node:fs";
@@ -97,14 +97,14 @@ export function runScript(script: string, env: Record<string, string>): void {
   if (r.status !== 0) throw new Error(`${script} failed: ${r.stdout}\n${r.stderr}`);
 }
 
-/** The built server's entry: the one scripts/test.mjs built, or a fresh build into .build/faults. */
-export function serverEntry(): string {
-  const given = process.env.GAVELWRIGHT_SERVER_ENTRY;
+/** The build folder to serve: the one scripts/test.mjs built, or a fresh build into .build/faults. */
+export function serverBuild(): string {
+  const given = process.env.GAVELWRIGHT_SERVER_BUILD;
   if (given) return given;
   const out = join(ROOT, ".build", "faults");
   const r = spawnSync(process.execPath, [join(ROOT, "node_modules", "astro", "astro.js"), "build"], { cwd: ROOT, env: { ...process.env, ASTRO_TELEMETRY_DISABLED: "1", GAVELWRIGHT_OUT_DIR: out, GAVELWRIGHT_CACHE_DIR: join(ROOT, ".build", "faults-cache") }, encoding: "utf8" });
   if (r.status !== 0) throw new Error(`astro build failed: ${r.stdout}\n${r.stderr}`);
-  return join(out, "server", "entry.mjs");
+  return out;
 }
 
 export interface Server {
@@ -114,12 +114,12 @@ export interface Server {
   kill(signal?: NodeJS.Signals): Promise<void>;
 }
 
-export async function startServer(entry: string, env: Record<string, string>, port: number): Promise<Server> {
+export async function startServer(build: string, env: Record<string, string>, port: number): Promise<Server> {
   const base = `http://127.0.0.1:${port}`;
   const chunks: string[] = [];
-  const proc = spawn(process.execPath, [entry], {
+  const proc = spawn(process.execPath, [join(ROOT, "scripts", "serve.mjs")], {
     cwd: ROOT,
-    env: { ...process.env, NODE_ENV: "production", HOST: "127.0.0.1", PORT: String(port), BETTER_AUTH_URL: base, BETTER_AUTH_SECRET: "faults-test-secret-0123456789abcdef0123", GAVELWRIGHT_RATE_LIMIT: "off", ...env },
+    env: { ...process.env, NODE_ENV: "production", HOST: "127.0.0.1", PORT: String(port), BETTER_AUTH_URL: base, BETTER_AUTH_SECRET: "faults-test-secret-0123456789abcdef0123", GAVELWRIGHT_RATE_LIMIT: "off", GAVELWRIGHT_OUT_DIR: build, ...env },
     stdio: ["ignore", "pipe", "pipe"],
   });
   proc.stdout!.on("data", (d) => chunks.push(String(d)));
