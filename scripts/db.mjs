@@ -29,6 +29,9 @@ function restore(file, yes) {
   if (list.status !== 0) throw new SetupError(`${path} is not a pg_dump custom-format backup: ${list.stderr.trim()}`);
   const r = spawnSync(pgTool("pg_restore"), ["--clean", "--if-exists", "--no-owner", "--no-privileges", "--single-transaction", "--exit-on-error", `--dbname=${url}`, path], { encoding: "utf8" });
   if (r.status !== 0) throw new SetupError(`pg_restore failed (nothing was changed: it ran in one transaction): ${r.stderr.trim()}`);
+  // Running app servers keep a few facts in memory for seconds (who is signed in, rulebook
+  // adoptions): tell them to forget everything (drizzle/0006_change_notices.sql).
+  spawnSync(pgTool("psql"), [url, "-q", "-c", "NOTIFY gw_access, '*'", "-c", "NOTIFY gw_chamber, ''"], { encoding: "utf8" });
   log(`restored ${path} into ${redact(url)}`);
 }
 

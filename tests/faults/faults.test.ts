@@ -161,7 +161,12 @@ describe("the server killed during an analysis", () => {
 
     server = await startServer(build, env, port);
     const cookie = await signIn(server.base, account("clerk").email, account("clerk").password);
-    const run = await (await fetch(`${server.base}/api/analysis/runs/${started.runId}`, { headers: { cookie } })).json();
+    // The run's own server is gone: once its heartbeat is stale, any server reports it interrupted.
+    let run: any;
+    await until("the killed server's run to read as interrupted", async () => {
+      run = await (await fetch(`${server.base}/api/analysis/runs/${started.runId}`, { headers: { cookie } })).json();
+      return run.run.status !== "running";
+    });
     expect(run.run.status).toBe("failed");
     expect(run.run.error.message).toMatch(/interrupted/);
     const again = await (await fetch(`${server.base}/api/analysis/runs`, { method: "POST", headers: { cookie, origin: server.base, "content-type": "application/json" }, body: JSON.stringify({ estimateId: est.id }) })).json();

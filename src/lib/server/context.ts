@@ -4,6 +4,7 @@ import { auth } from "./auth.ts";
 import { db } from "./db.ts";
 import { member, organization, session as sessionTable } from "../db/schema/auth.ts";
 import { isChamberRole, type ChamberRole } from "../permissions.ts";
+import { isListening, onListenChange, onNotice } from "./notices.ts";
 
 export interface RequestContext {
   user: App.Locals["user"];
@@ -40,4 +41,67 @@ export async function loadContext(headers: Headers): Promise<RequestContext> {
     role: active?.role ?? null,
     chambers,
   };
+}
+
+/*
+ * Who is asking, remembered per session cookie for a few seconds, so that a busy desk does not
+ * ask PostgreSQL the same three questions on every call. Safe because it is forgotten as soon as
+ * anything it rests on changes: triggers on the session, member, user and organization tables
+ * send NOTIFY gw_access (drizzle/0006_change_notices.sql) to every server, and this process
+ * also forgets everything after any request that changes sign-ins or roles (forgetAccess). It is
+ * used only while LISTEN is in place (a server that might miss a notice keeps nothing), an entry
+ * loaded while a notice arrived is not kept, and nothing lives longer than ACCESS_TTL_MS or past
+ * its session's expiry. Set GAVELWRIGHT_ACCESS_CACHE_MS=0 to turn it off.
+ */
+export const ACCESS_CHANNEL = "gw_access";
+const ACCESS_TTL_MS = Math.max(0, Number(process.env.GAVELWRIGHT_ACCESS_CACHE_MS ?? 15_000) || 0);
+const ACCESS_MAX_ENTRIES = 10_000;
+const SESSION_COOKIES = new Set(["better-auth.session_token", "__Secure-better-auth.session_token"]);
+
+const remembered = new Map<string, { at: number; ctx: RequestContext }>();
+let generation = 0;
+let subscribed: Promise<unknown> | null = null;
+// Whatever was remembered while LISTEN was down may have missed a notice: forget it all.
+onListenChange(() => forgetAccess());
+
+/** The session cookie exactly as sent (name=value), or null when there is none. */
+export function sessionCookieOf(headers: Headers): string | null {
+  const header = headers.get("cookie");
+  if (!header) return null;
+  for (const part of header.split(";")) {
+    const eq = part.indexOf("=");
+    if (eq > 0 && SESSION_COOKIES.has(part.slice(0, eq).trim())) return part.trim();
+  }
+  return null;
+}
+
+/** Forget what was remembered of `userId`, or of everyone. */
+export function forgetAccess(userId?: string): void {
+  generation++;
+  if (!userId) return remembered.clear();
+  for (const [key, e] of remembered) if (e.ctx.user?.id === userId) remembered.delete(key);
+}
+
+function subscribe() {
+  subscribed ??= onNotice(ACCESS_CHANNEL, (payload) => forgetAccess(payload === "*" ? undefined : payload)).catch(() => {
+    subscribed = null; // the database is unreachable: try again on a later request
+  });
+}
+
+/** loadContext, answered from memory while that is known to be current (see above). */
+export async function contextFor(headers: Headers): Promise<RequestContext> {
+  const key = ACCESS_TTL_MS > 0 ? sessionCookieOf(headers) : null;
+  if (!key) return loadContext(headers);
+  subscribe();
+  const now = Date.now();
+  const hit = remembered.get(key);
+  if (hit && isListening() && now - hit.at < ACCESS_TTL_MS && hit.ctx.session && new Date(hit.ctx.session.expiresAt).getTime() > now) return { ...hit.ctx };
+  if (hit) remembered.delete(key);
+  const before = generation;
+  const ctx = await loadContext(headers);
+  if (ctx.user && before === generation && isListening()) {
+    if (remembered.size >= ACCESS_MAX_ENTRIES) remembered.delete(remembered.keys().next().value!);
+    remembered.set(key, { at: now, ctx });
+  }
+  return { ...ctx };
 }

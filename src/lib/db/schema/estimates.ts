@@ -82,6 +82,8 @@ export const analysisRuns = pgTable(
     requestedBy: text("requested_by").references(() => user.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     finishedAt: timestamp("finished_at", { withTimezone: true }),
+    /** Touched every few seconds by the server process running it: a stale one means that process is gone. */
+    heartbeatAt: timestamp("heartbeat_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("analysis_runs_estimate_idx").on(t.chamberId, t.estimateId)],
 );

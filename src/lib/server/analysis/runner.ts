@@ -3,7 +3,10 @@
  * them: progress in `analysis_runs`, the finished result in `analysis_cache`. The cache row is
  * written only when the worker reports success and no cancellation was asked for, in the same
  * transaction that marks the run done — a cancelled, failed or crashed run leaves no cache row.
- * Workers live in this process; a run whose process went away is reported as interrupted.
+ * Workers live in the process that started the run, which touches the run's heartbeat every
+ * HEARTBEAT_MS; any server reports a run whose heartbeat is older than STALE_MS as interrupted
+ * (its process went away). A run cancelled from another server (status no longer "running")
+ * is stopped here at the next heartbeat.
  */
 import path from "node:path";
 import { Worker } from "node:worker_threads";
@@ -14,6 +17,8 @@ import { analysisCache, analysisRuns } from "../../db/schema/estimates.ts";
 export const WORKER_FILE = path.resolve("src/lib/server/analysis/worker.mjs");
 export const MAX_WORKERS = 2;
 const PROGRESS_WRITE_MS = 250;
+export const HEARTBEAT_MS = 2000;
+export const STALE_MS = 8000;
 
 interface Active {
   worker: Worker;
@@ -44,6 +49,17 @@ export function launchRun(run: { id: string; chamberId: string; hash: string }, 
   const done = new Promise<void>((r) => (resolveDone = r));
   const entry: Active = { worker, cancel, cancelRequested: false, done };
   active.set(run.id, entry);
+  const heartbeat = setInterval(() => {
+    db.update(analysisRuns)
+      .set({ heartbeatAt: new Date() })
+      .where(and(eq(analysisRuns.id, run.id), eq(analysisRuns.status, "running")))
+      .returning({ id: analysisRuns.id })
+      .then((rows) => {
+        if (rows.length === 0 && !settled) void cancelActive(run.id); // cancelled from another server
+      })
+      .catch(() => {}); // the database is away: the next beat tries again
+  }, HEARTBEAT_MS);
+  heartbeat.unref();
 
   const finish = async (status: "failed" | "cancelled", error: Record<string, unknown> | null) => {
     await db.update(analysisRuns).set({ status, error, finishedAt: new Date() }).where(and(eq(analysisRuns.id, run.id), eq(analysisRuns.status, "running")));
@@ -56,6 +72,7 @@ export function launchRun(run: { id: string; chamberId: string; hash: string }, 
     } catch (e) {
       console.error("[analysis] could not record the end of run", run.id, e);
     } finally {
+      clearInterval(heartbeat);
       active.delete(run.id);
       void worker.terminate();
       resolveDone();
@@ -72,8 +89,9 @@ export function launchRun(run: { id: string; chamberId: string; hash: string }, 
       void settle(async () => {
         if (entry.cancelRequested) return finish("cancelled", { code: "cancelled", message: "The analysis was cancelled." });
         await db.transaction(async (tx) => {
-          await tx.insert(analysisCache).values({ chamberId: run.chamberId, hash: run.hash, result: { ...extra, ...(msg.result as object) }, durationMs: Date.now() - started }).onConflictDoNothing();
-          await tx.update(analysisRuns).set({ status: "done", progress: 1, phase: "done", finishedAt: new Date() }).where(eq(analysisRuns.id, run.id));
+          // Only a run still "running" (not cancelled meanwhile, here or on another server) is stored.
+          const [still] = await tx.update(analysisRuns).set({ status: "done", progress: 1, phase: "done", finishedAt: new Date() }).where(and(eq(analysisRuns.id, run.id), eq(analysisRuns.status, "running"))).returning({ id: analysisRuns.id });
+          if (still) await tx.insert(analysisCache).values({ chamberId: run.chamberId, hash: run.hash, result: { ...extra, ...(msg.result as object) }, durationMs: Date.now() - started }).onConflictDoNothing();
         });
       });
     } else if (msg.type === "error") {

@@ -88,7 +88,7 @@ function targetLabel(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow):
   return `Amendment ${keys.get(a.targetAmendmentId ?? "") ?? "(removed)"}`;
 }
 
-function view(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow, names: Map<string, string>) {
+function view(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow, names: ReadonlyMap<string, string>) {
   return {
     id: a.id,
     key: amendmentKey(a),

@@ -19,7 +19,7 @@ import { walkThrough } from "../../estimates/walk-through.ts";
 import { chairScript, scriptMarkdown } from "../../estimates/chair-script.ts";
 import { versionInWords, versionShort, type TreeLabels } from "../../estimates/version-words.ts";
 import type { JobResult } from "../analysis/analysis-job.ts";
-import { activeCount, cancelActive, isActive, launchRun, MAX_WORKERS } from "../analysis/runner.ts";
+import { activeCount, cancelActive, isActive, launchRun, MAX_WORKERS, STALE_MS } from "../analysis/runner.ts";
 import { adoptedRulebookOf } from "../measure-rulebook.ts";
 import { loadRulebook } from "./rulebooks.ts";
 import { estimateRow, treeFor, versionRow } from "./estimates.ts";
@@ -98,7 +98,8 @@ async function cached(run: { chamberId: string; hash: string }): Promise<CachedR
 }
 
 function runView(run: typeof analysisRuns.$inferSelect) {
-  const interrupted = run.status === "running" && !isActive(run.id);
+  // Running on no server: not here, and its own server has stopped touching the heartbeat.
+  const interrupted = run.status === "running" && !isActive(run.id) && Date.now() - run.heartbeatAt.getTime() > STALE_MS;
   return {
     id: run.id,
     estimateId: run.estimateId,
@@ -140,7 +141,11 @@ export async function cancelRun(actor: Actor, id: string) {
   const { run } = await runRow(actor, id);
   if (run.requestedBy !== actor.user.id) throw new GavelError("forbidden", "Only the person who started an analysis can cancel it.");
   const wait = cancelActive(run.id);
-  if (!wait) return { run: runView(run) };
+  if (!wait) {
+    // Running on another server (or on none): mark it; its server stops the worker at the next heartbeat.
+    const [after] = await db.update(analysisRuns).set({ status: "cancelled", error: { code: "cancelled", message: "The analysis was cancelled." }, finishedAt: new Date() }).where(and(eq(analysisRuns.id, run.id), eq(analysisRuns.status, "running"))).returning();
+    return { run: runView(after ?? run) };
+  }
   await wait;
   const { run: after } = await runRow(actor, id);
   return { run: runView(after) };

@@ -5,6 +5,7 @@
  */
 import { and, asc, count, eq, inArray } from "drizzle-orm";
 import type { z } from "zod";
+import { chamberMemory } from "../chamber-memory.ts";
 import { db, type Tx } from "../db.ts";
 import { legislators } from "../../db/schema/chamber.ts";
 import { amendments, measureAttachments, measures, type StoredSection } from "../../db/schema/measures.ts";
@@ -20,8 +21,13 @@ export type MeasureRow = typeof measures.$inferSelect;
 const uuidLike = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /** The measure, in the actor's chamber, or not-found (also for malformed ids). */
-export async function measureRow(chamberId: string, id: string, q: Tx | typeof db = db, lock = false): Promise<MeasureRow> {
+/** A measure id that cannot exist is simply not found (and never reaches PostgreSQL). */
+export function assertMeasureId(id: string): void {
   if (!uuidLike.test(id)) throw new GavelError("not-found", "No such measure in this chamber.");
+}
+
+export async function measureRow(chamberId: string, id: string, q: Tx | typeof db = db, lock = false): Promise<MeasureRow> {
+  assertMeasureId(id);
   const base = q.select().from(measures).where(and(eq(measures.id, id), eq(measures.chamberId, chamberId)));
   const [row] = lock ? await base.for("update") : await base;
   if (!row) throw new GavelError("not-found", "No such measure in this chamber.");
@@ -40,9 +46,15 @@ export async function checkLegislators(chamberId: string, ids: string[], path: s
   return found;
 }
 
-export async function legislatorNames(chamberId: string, q: Tx | typeof db = db): Promise<Map<string, string>> {
+async function readLegislatorNames(chamberId: string, q: Tx | typeof db = db): Promise<Map<string, string>> {
   const rows = await q.select({ id: legislators.id, name: legislators.name }).from(legislators).where(eq(legislators.chamberId, chamberId));
   return new Map(rows.map((r) => [r.id, r.name]));
+}
+const rememberedNames = chamberMemory((chamberId) => readLegislatorNames(chamberId));
+
+/** Legislators' names by id (read-only map); inside a transaction, read from it. */
+export function legislatorNames(chamberId: string, q?: Tx): Promise<ReadonlyMap<string, string>> {
+  return q ? readLegislatorNames(chamberId, q) : rememberedNames(chamberId);
 }
 
 export async function listLegislators(actor: Actor) {

@@ -14,6 +14,7 @@ import type { Rulebook } from "../../procedure/rulebook-schema.ts";
 import { diffRulebooks, type RulebookDiff } from "../rulebook-diff.ts";
 import { rulebookTemplates, rulebookTemplate } from "../rulebook-templates.ts";
 import { readBody, type Actor } from "../http.ts";
+import { chamberMemory, forgetChamber } from "../chamber-memory.ts";
 
 export { MAX_RULEBOOK_BYTES };
 
@@ -68,6 +69,23 @@ export async function rulebookInForce(chamberId: string, at = new Date(), q: Tx 
   return row ?? null;
 }
 
+// Every adoption of a chamber, newest in force first: the legal-moves question and the tree read
+// need the version in force on every call, and adoptions change rarely (see chamber-memory.ts).
+const adoptionsOf = chamberMemory((chamberId) =>
+  db
+    .select({ adoptionId: rulebookAdoptions.id, versionId: rulebookAdoptions.versionId, number: rulebookVersions.number, title: rulebookVersions.title, effectiveFrom: rulebookAdoptions.effectiveFrom })
+    .from(rulebookAdoptions)
+    .innerJoin(rulebookVersions, eq(rulebookAdoptions.versionId, rulebookVersions.id))
+    .where(eq(rulebookAdoptions.chamberId, chamberId))
+    .orderBy(desc(rulebookAdoptions.effectiveFrom), desc(rulebookAdoptions.adoptedAt)),
+);
+
+/** rulebookInForce(chamberId, now), answered from the remembered adoptions. */
+async function inForceNow(chamberId: string): Promise<InForce | null> {
+  const now = Date.now();
+  return (await adoptionsOf(chamberId)).find((a) => a.effectiveFrom.getTime() <= now) ?? null;
+}
+
 export async function listRulebooks(actor: Actor) {
   const versions = await db
     .select(versionColumns)
@@ -109,7 +127,7 @@ export async function getVersion(actor: Actor, id: string) {
 export async function loadRulebook(chamberId: string, versionId?: string | null): Promise<{ versionId: string; number: number; title: string; rulebook: Rulebook }> {
   let id = versionId ?? null;
   if (!id) {
-    const f = await rulebookInForce(chamberId);
+    const f = await inForceNow(chamberId);
     if (!f) throw new GavelError("not-found", "This chamber has not adopted a rulebook yet. A clerk can adopt one on the Rulebooks page.");
     id = f.versionId;
   }
@@ -237,6 +255,7 @@ export async function adoptVersion(actor: Actor, id: string, input: z.output<typ
   const row = await versionRow(actor.chamber.id, id);
   const effectiveFrom = effectiveDate(input.effectiveFrom);
   const [a] = await db.insert(rulebookAdoptions).values({ chamberId: actor.chamber.id, versionId: row.id, effectiveFrom, note: input.note, adoptedBy: actor.user.id }).returning();
+  forgetChamber(actor.chamber.id);
   return { id: a.id, versionId: row.id, number: row.number, effectiveFrom: a.effectiveFrom, inForce: (await rulebookInForce(actor.chamber.id))?.versionId === row.id };
 }
 

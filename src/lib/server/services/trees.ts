@@ -17,7 +17,7 @@ import { assertFresh, recordAudit } from "../measure-audit.ts";
 import { adoptedRulebookOf } from "../measure-rulebook.ts";
 import type { overrideCreateSchema, FindingView, TreeNodeView, TreeView } from "../measure-schemas.ts";
 import { amendmentKey, amendmentRow, type AmendmentRow } from "./amendments.ts";
-import { legislatorNames, measureRow, type MeasureRow } from "./measures.ts";
+import { assertMeasureId, legislatorNames, measureRow, type MeasureRow } from "./measures.ts";
 
 /** The measure's id inside the tree (sections and amendments have their own). */
 export const MEASURE_KEY = "measure";
@@ -52,11 +52,15 @@ export function caseFromRows(m: MeasureRow, rows: AmendmentRow[]): { measure: Me
 const treeMemo = new Memo<Awaited<ReturnType<typeof validateTree>>>(200);
 
 async function loadTree(actor: Actor, measureId: string) {
-  const m = await measureRow(actor.chamber.id, measureId);
-  const rows = await db.select().from(amendments).where(and(eq(amendments.measureId, m.id), eq(amendments.chamberId, actor.chamber.id))).orderBy(asc(amendments.createdAt));
+  assertMeasureId(measureId);
+  // Independent reads, asked together (each is scoped to the chamber, so none leaks before the measure is found).
+  const [m, rows, overrides, rb] = await Promise.all([
+    measureRow(actor.chamber.id, measureId),
+    db.select().from(amendments).where(and(eq(amendments.measureId, measureId), eq(amendments.chamberId, actor.chamber.id))).orderBy(asc(amendments.createdAt)),
+    db.select().from(treeOverrides).where(and(eq(treeOverrides.measureId, measureId), eq(treeOverrides.chamberId, actor.chamber.id))),
+    adoptedRulebookOf(actor.chamber.id),
+  ]);
   rows.sort((x, y) => (x.number ?? Infinity) - (y.number ?? Infinity));
-  const overrides = await db.select().from(treeOverrides).where(and(eq(treeOverrides.measureId, m.id), eq(treeOverrides.chamberId, actor.chamber.id)));
-  const rb = await adoptedRulebookOf(actor.chamber.id);
   const keys = new Map(rows.map((r) => [r.id, amendmentKey(r)]));
   const c = caseFromRows(m, rows);
   const input = { ...c, overrides: overrides.filter((o) => keys.has(o.amendmentId)).map((o) => ({ code: o.code, amendment: keys.get(o.amendmentId)!, ruling: o.rulingRef })) };

@@ -1,0 +1,125 @@
+/**
+ * PostgreSQL LISTEN/NOTIFY for this server process: one dedicated connection listens on every
+ * channel the app uses and hands each notice to the channel's handlers.
+ *
+ * The connection can drop (PostgreSQL restarted, network). While it is down, notices sent by
+ * other servers are lost, so whoever relies on them must know: `isListening()` says whether
+ * LISTEN is in place now, and `onListenChange` hooks run when it is lost and when it is back.
+ * After a drop the bus retries by itself (1 s, then up to every 5 s) as long as anyone listens.
+ */
+import postgres from "postgres";
+import { describeError } from "./log-safe.ts";
+
+type Handler = (payload: string) => void;
+type ChangeHook = (listening: boolean) => void;
+
+const handlers = new Map<string, Set<Handler>>();
+const changeHooks = new Set<ChangeHook>();
+let conn: postgres.Sql | null = null;
+let listening = false;
+let pending: Promise<void> | null = null;
+let retryTimer: NodeJS.Timeout | null = null;
+let retryDelay = 1000;
+
+function connection(): postgres.Sql {
+  if (conn) return conn;
+  const url = process.env.DATABASE_URL;
+  if (!url) throw new Error("DATABASE_URL is not set");
+  // `onnotify` is what postgres.js's own sql.listen() is built on (it is not in its type
+  // definitions); using it directly lets this module see the connection close (`onclose`).
+  const options: postgres.Options<{}> & { onnotify: (channel: string, payload: string) => void } = {
+    max: 1,
+    idle_timeout: 0,
+    max_lifetime: null,
+    fetch_types: false,
+    connect_timeout: 10,
+    onnotice: () => {},
+    onnotify: (channel, payload) => dispatch(channel, payload),
+    onclose: () => lost(),
+  };
+  conn = postgres(url, options);
+  return conn;
+}
+
+function dispatch(channel: string, payload: string) {
+  for (const fn of handlers.get(channel) ?? []) {
+    try {
+      fn(payload);
+    } catch (e) {
+      console.error(`[notices] a ${channel} handler failed:`, describeError(e));
+    }
+  }
+}
+
+function setListening(value: boolean) {
+  if (listening === value) return;
+  listening = value;
+  for (const hook of changeHooks) hook(value);
+}
+
+const quoted = (channel: string) => `"${channel.replace(/"/g, '""')}"`;
+
+/** LISTEN on every channel that has handlers; resolves when all are in place. */
+function listenAll(): Promise<void> {
+  pending ??= (async () => {
+    const c = connection();
+    for (const channel of handlers.keys()) await c.unsafe(`LISTEN ${quoted(channel)}`);
+    retryDelay = 1000;
+    setListening(true);
+  })().finally(() => {
+    pending = null;
+  });
+  return pending;
+}
+
+function lost() {
+  setListening(false);
+  if (handlers.size > 0) scheduleRetry();
+}
+
+function scheduleRetry() {
+  if (retryTimer) return;
+  retryTimer = setTimeout(() => {
+    retryTimer = null;
+    listenAll().catch((e) => {
+      console.error("[notices] LISTEN failed, retrying:", describeError(e));
+      retryDelay = Math.min(retryDelay * 2, 5000);
+      scheduleRetry();
+    });
+  }, retryDelay);
+  retryTimer.unref();
+}
+
+/**
+ * Receive every notice on `channel` from any server. Resolves once LISTEN is in place (rejects
+ * if the database cannot be reached; the bus keeps retrying). Returns the unsubscribe.
+ */
+export async function onNotice(channel: string, fn: Handler): Promise<() => void> {
+  let set = handlers.get(channel);
+  const isNew = !set;
+  if (!set) handlers.set(channel, (set = new Set()));
+  set.add(fn);
+  const off = () => {
+    set.delete(fn);
+  };
+  try {
+    if (isNew && listening) await connection().unsafe(`LISTEN ${quoted(channel)}`);
+    else if (!listening) await listenAll();
+  } catch (e) {
+    off();
+    scheduleRetry();
+    throw e;
+  }
+  return off;
+}
+
+/** Whether LISTEN is in place right now (notices from other servers are arriving). */
+export function isListening(): boolean {
+  return listening;
+}
+
+/** Run `hook(false)` when the LISTEN connection is lost and `hook(true)` when it is back. */
+export function onListenChange(hook: ChangeHook): () => void {
+  changeHooks.add(hook);
+  return () => void changeHooks.delete(hook);
+}

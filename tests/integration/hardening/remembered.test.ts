@@ -1,0 +1,104 @@
+// What a server keeps in memory between requests — who is signed in and their role
+// (context.ts contextFor), a chamber's rulebook adoptions and roster (chamber-memory.ts) — is
+// never answered once it is out of date: a change made by anyone, here through a separate
+// PostgreSQL connection as another server or a clerk at psql would, is seen within moments
+// (NOTIFY from the triggers of drizzle/0006_change_notices.sql), and nothing is kept while the
+// LISTEN connection is down. Common practice for cache invalidation (notify on write), no source.
+import postgres from "postgres";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { contextFor } from "../../../src/lib/server/context.ts";
+import { isListening } from "../../../src/lib/server/notices.ts";
+import { loadRulebook } from "../../../src/lib/server/services/rulebooks.ts";
+import { legislatorNames } from "../../../src/lib/server/services/measures.ts";
+import { seedRulebooks } from "../../../src/lib/server/seed/rulebooks.ts";
+import { seedChambers, type Seeded } from "../../support/fixtures.ts";
+
+let seeded: Seeded;
+let other: postgres.Sql; // "another server"
+const headersOf = (cookie: string) => new Headers({ cookie });
+
+async function until(what: string, ok: () => Promise<boolean>, ms = 5000): Promise<void> {
+  const end = Date.now() + ms;
+  while (Date.now() < end) {
+    if (await ok()) return;
+    await new Promise((r) => setTimeout(r, 25));
+  }
+  throw new Error(`timed out waiting for ${what}`);
+}
+
+beforeAll(async () => {
+  seeded = await seedChambers();
+  other = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
+});
+
+afterAll(async () => {
+  await other.unsafe(`ALTER TABLE "member" ENABLE TRIGGER gw_access_member`);
+  await other.unsafe(`ALTER TABLE legislators ENABLE TRIGGER gw_chamber_legislators`);
+  await other.end();
+});
+
+describe("who is signed in, remembered per session", () => {
+  it("is remembered (a change that sends no notice is not seen), and forgotten on a notice", async () => {
+    const h = headersOf(seeded.as.member.cookie);
+    expect((await contextFor(h)).role).toBe("member");
+    await until("LISTEN to be in place", async () => isListening());
+    expect((await contextFor(h)).role).toBe("member"); // now remembered
+
+    // Change the role with the trigger off: no notice, so the remembered answer stands — proof it is remembered.
+    await other.unsafe(`ALTER TABLE "member" DISABLE TRIGGER gw_access_member`);
+    await other`UPDATE "member" SET role = 'staff' WHERE user_id = ${seeded.as.member.userId}`;
+    await other.unsafe(`ALTER TABLE "member" ENABLE TRIGGER gw_access_member`);
+    expect((await contextFor(h)).role).toBe("member");
+
+    // The same change with the trigger on: every server hears of it and asks again.
+    await other`UPDATE "member" SET role = 'observer' WHERE user_id = ${seeded.as.member.userId}`;
+    await until("the new role to be seen", async () => (await contextFor(h)).role === "observer");
+  });
+
+  it("a session deleted elsewhere (signed out on another server) is refused at once", async () => {
+    const h = headersOf(seeded.as.clerk.cookie);
+    expect((await contextFor(h)).user?.id).toBe(seeded.as.clerk.userId);
+    expect((await contextFor(h)).user?.id).toBe(seeded.as.clerk.userId);
+    await other`DELETE FROM "session" WHERE user_id = ${seeded.as.clerk.userId}`;
+    await until("the deleted session to be refused", async () => (await contextFor(h)).user === null);
+  });
+
+  it("keeps nothing while the LISTEN connection is down, and forgets all it had", async () => {
+    const h = headersOf(seeded.as.staff.cookie);
+    await until("LISTEN to be in place", async () => isListening());
+    expect((await contextFor(h)).role).toBe("staff");
+    await other.unsafe(`ALTER TABLE "member" DISABLE TRIGGER gw_access_member`);
+    await other`SELECT pg_terminate_backend(pid) FROM pg_stat_activity WHERE datname = current_database() AND query ILIKE 'LISTEN%' AND pid <> pg_backend_pid()`;
+    await until("the lost LISTEN to be noticed", async () => !isListening());
+    // A change that sends no notice, while the server could not have heard one anyway.
+    await other`UPDATE "member" SET role = 'clerk' WHERE user_id = ${seeded.as.staff.userId}`;
+    await other.unsafe(`ALTER TABLE "member" ENABLE TRIGGER gw_access_member`);
+    expect((await contextFor(h)).role).toBe("clerk");
+    await until("LISTEN to be back by itself", async () => isListening(), 15_000);
+    expect((await contextFor(h)).role).toBe("clerk");
+  });
+});
+
+describe("a chamber's rulebook adoptions and roster, remembered per chamber", () => {
+  it("an adoption recorded elsewhere is the rulebook in force at once", async () => {
+    await seedRulebooks();
+    const chamber = seeded.chambers.harrowmere;
+    const first = await loadRulebook(chamber);
+    const [v] = await other`INSERT INTO rulebook_versions (chamber_id, number, based_on, title, document, note) SELECT chamber_id, number + 100, id, title, document, 'saved on another server' FROM rulebook_versions WHERE id = ${first.versionId} RETURNING id`;
+    await other`INSERT INTO rulebook_adoptions (chamber_id, version_id, effective_from, note) VALUES (${chamber}, ${v.id}, now(), 'adopted on another server')`;
+    await until("the new adoption to be in force", async () => (await loadRulebook(chamber)).versionId === v.id);
+  });
+
+  it("a legislator renamed elsewhere is named anew", async () => {
+    const chamber = seeded.chambers.harrowmere;
+    const [l] = await other`SELECT id, name FROM legislators WHERE chamber_id = ${chamber} ORDER BY name LIMIT 1`;
+    expect((await legislatorNames(chamber)).get(l.id)).toBe(l.name);
+    // With the trigger off no notice is sent, and the remembered roster stands — proof it is remembered.
+    await other.unsafe(`ALTER TABLE legislators DISABLE TRIGGER gw_chamber_legislators`);
+    await other`UPDATE legislators SET name = ${l.name + " (unheard)"} WHERE id = ${l.id}`;
+    await other.unsafe(`ALTER TABLE legislators ENABLE TRIGGER gw_chamber_legislators`);
+    expect((await legislatorNames(chamber)).get(l.id)).toBe(l.name);
+    await other`UPDATE legislators SET name = ${l.name + " (renamed)"} WHERE id = ${l.id}`;
+    await until("the new name", async () => (await legislatorNames(chamber)).get(l.id) === `${l.name} (renamed)`);
+  });
+});
