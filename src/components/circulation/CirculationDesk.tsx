@@ -1,6 +1,7 @@
 import { useEffect, useState, type FormEvent } from "react";
 import { z } from "zod";
 import { CHAMBER_ROLES, ROLE_LABELS, isChamberRole } from "../../lib/permissions.ts";
+import FloorDigestForm from "./FloorDigestForm.tsx";
 import { api, ApiError, listsView, messageView, STATUS_CHIP, STATUS_LABEL, type ListView } from "../rulings/api.ts";
 
 const peopleView = z.object({ members: z.array(z.object({ userId: z.string(), name: z.string(), email: z.string(), role: z.string() })) });
@@ -163,7 +164,7 @@ function Deliveries({ id }: { id: string }) {
   );
 }
 
-export default function CirculationDesk({ canEditLists }: { canEditLists: boolean }) {
+export default function CirculationDesk({ canEditLists, canSendDigest }: { canEditLists: boolean; canSendDigest: boolean }) {
   const [lists, setLists] = useState<ListView[] | null>(null);
   const [people, setPeople] = useState<z.output<typeof peopleView>["members"]>([]);
   const [sent, setSent] = useState<z.output<typeof circulationsView>["circulations"]>([]);
@@ -264,42 +265,53 @@ export default function CirculationDesk({ canEditLists }: { canEditLists: boolea
         )}
       </section>
 
-      <section aria-labelledby="sent-h">
-        <h2 id="sent-h">Sent</h2>
-        <p className="gw-hint">Rulings are sent from each ruling's page. Each recipient gets one message; delivery is retried until the mail server accepts it.</p>
-        {sent.length === 0 ? (
-          <p className="mt-3 text-ink-soft">Nothing sent yet.</p>
-        ) : (
-          <ul className="mt-3 space-y-3">
-            {sent.map((c) => (
-              <li key={c.id} className="gw-card">
-                <details>
-                  <summary className="cursor-pointer">
-                    <span className="font-semibold">{c.subject}</span>
-                    <span className="block text-sm text-ink-soft">
-                      To {c.listName} · {c.sentByName} · {new Date(c.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}
-                    </span>
-                    <span className="mt-1 flex flex-wrap gap-1">
-                      {STATUSES.filter((s) => c.status[s] > 0).map((s) => (
-                        <span key={s} className={`gw-chip ${STATUS_CHIP[s]}`}>
-                          {c.status[s]} {STATUS_LABEL[s].toLowerCase()}
-                        </span>
-                      ))}
-                      {c.skipped > 0 && <span className="gw-chip border-rule text-ink-soft">{c.skipped} unsubscribed</span>}
-                    </span>
-                  </summary>
-                  {c.rulingId && (
-                    <p className="mt-2 text-sm">
-                      <a href={`/rulings/${c.rulingId}`}>Open the ruling</a>
-                    </p>
-                  )}
-                  <Deliveries id={c.id} />
-                </details>
-              </li>
-            ))}
-          </ul>
+      <div className="space-y-8">
+        {canSendDigest && (
+          <section aria-labelledby="digest-h" className="gw-card">
+            <h2 id="digest-h">Floor-day digest</h2>
+            <p className="gw-hint">The findings and the proposed order of questions for a sitting, sent to the clerks before the day's business.</p>
+            <div className="mt-3">
+              <FloorDigestForm lists={lists} onSent={() => void load()} />
+            </div>
+          </section>
         )}
-      </section>
+        <section aria-labelledby="sent-h">
+          <h2 id="sent-h">Sent</h2>
+          <p className="gw-hint">Rulings are sent from each ruling's page. Each recipient gets one message; delivery is retried until the mail server accepts it.</p>
+          {sent.length === 0 ? (
+            <p className="mt-3 text-ink-soft">Nothing sent yet.</p>
+          ) : (
+            <ul className="mt-3 space-y-3">
+              {sent.map((c) => (
+                <li key={c.id} className="gw-card">
+                  <details>
+                    <summary className="cursor-pointer">
+                      <span className="font-semibold">{c.subject}</span>
+                      <span className="block text-sm text-ink-soft">
+                        To {c.listName} · {c.sentByName} · {new Date(c.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}
+                      </span>
+                      <span className="mt-1 flex flex-wrap gap-1">
+                        {STATUSES.filter((s) => c.status[s] > 0).map((s) => (
+                          <span key={s} className={`gw-chip ${STATUS_CHIP[s]}`}>
+                            {c.status[s]} {STATUS_LABEL[s].toLowerCase()}
+                          </span>
+                        ))}
+                        {c.skipped > 0 && <span className="gw-chip border-rule text-ink-soft">{c.skipped} unsubscribed</span>}
+                      </span>
+                    </summary>
+                    {c.rulingId && (
+                      <p className="mt-2 text-sm">
+                        <a href={`/rulings/${c.rulingId}`}>Open the ruling</a>
+                      </p>
+                    )}
+                    <Deliveries id={c.id} />
+                  </details>
+                </li>
+              ))}
+            </ul>
+          )}
+        </section>
+      </div>
     </div>
   );
 }

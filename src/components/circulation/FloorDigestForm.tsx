@@ -1,0 +1,332 @@
+import { useCallback, useEffect, useState, type FormEvent } from "react";
+import { z } from "zod";
+import { api, ApiError, messageView, STATUS_CHIP, STATUS_LABEL, type ListView } from "../rulings/api.ts";
+
+const sittingsView = z.object({
+  sittings: z.array(
+    z.object({
+      id: z.string(),
+      title: z.string(),
+      status: z.string(),
+      openedAt: z.string(),
+    }),
+  ),
+});
+const sentView = z.object({
+  id: z.string(),
+  listName: z.string(),
+  subject: z.string(),
+  queued: z.number(),
+  skipped: z.array(z.object({ email: z.string() })).catch([]),
+});
+const detailView = z.object({
+  messages: z.array(messageView),
+  circulation: z.object({
+    skipped: z.array(z.object({ email: z.string() })).catch([]),
+  }),
+});
+const SEVERITIES = [
+  { value: "error", label: "Out of order" },
+  { value: "warning", label: "Query" },
+  { value: "info", label: "Note" },
+] as const;
+type Severity = (typeof SEVERITIES)[number]["value"];
+interface FindingRow {
+  key: number;
+  severity: Severity;
+  subject: string;
+  message: string;
+}
+
+const OTHER = "__other";
+const today = () => new Date().toISOString().slice(0, 10);
+
+/** "Label — note" or "Label", one question per line. */
+function parseOrder(text: string) {
+  return text
+    .split("\n")
+    .map((l) => l.trim())
+    .filter(Boolean)
+    .map((l) => {
+      const i = l.indexOf(" — ");
+      return i > 0 ? { label: l.slice(0, i).trim(), note: l.slice(i + 3).trim() } : { label: l, note: "" };
+    });
+}
+
+/** The delivery of one sending, refreshed while messages are still queued or being sent. */
+function DigestDelivery({ id }: { id: string }) {
+  const [d, setD] = useState<z.output<typeof detailView> | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const load = useCallback(() => api(`/api/circulation/${id}`, detailView).then(setD, (e: Error) => setError(e.message)), [id]);
+  useEffect(() => void load(), [load]);
+  const pending = d?.messages.some((m) => m.status === "queued" || m.status === "sending") ?? false;
+  useEffect(() => {
+    if (!pending) return;
+    const t = setInterval(() => void load(), 2500);
+    return () => clearInterval(t);
+  }, [pending, load]);
+
+  async function retry(messageId: string) {
+    try {
+      await api(`/api/circulation/messages/${messageId}/retry`, z.object({ id: z.string() }), { method: "POST" });
+      await load();
+    } catch (e) {
+      setError((e as Error).message);
+    }
+  }
+
+  if (error)
+    return (
+      <p role="alert" className="gw-error">
+        {error}
+      </p>
+    );
+  if (!d) return <p className="text-sm text-ink-soft">Loading…</p>;
+  return (
+    <table className="gw-table mt-2" data-testid="digest-delivery">
+      <thead>
+        <tr>
+          <th scope="col">Recipient</th>
+          <th scope="col">Status</th>
+        </tr>
+      </thead>
+      <tbody>
+        {d.messages.map((m) => (
+          <tr key={m.id}>
+            <td className="break-all">{m.to.replace(/^"([^"]*)" </, "$1 <")}</td>
+            <td>
+              <span className={`gw-chip ${STATUS_CHIP[m.status]}`}>{STATUS_LABEL[m.status]}</span>
+              {m.attempts > 1 && <span className="block text-xs text-ink-soft">{m.attempts} attempts</span>}
+              {m.lastError && m.status !== "sent" && <span className="block text-xs text-ink-soft">{m.lastError}</span>}
+              {(m.status === "failed" || m.status === "uncertain") && (
+                <button type="button" className="gw-btn-quiet mt-1" onClick={() => retry(m.id)}>
+                  Send again
+                </button>
+              )}
+            </td>
+          </tr>
+        ))}
+        {d.circulation.skipped.map((x) => (
+          <tr key={x.email}>
+            <td className="break-all">{x.email}</td>
+            <td>
+              <span className="gw-chip border-rule text-ink-soft">Unsubscribed — not sent</span>
+            </td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+/**
+ * Queue the floor-day digest of a sitting to the clerks' list: the sitting and day, the measure,
+ * the tree's findings and the proposed order of questions as the clerk states them.
+ */
+export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] | null; onSent: () => void }) {
+  const [sittings, setSittings] = useState<z.output<typeof sittingsView>["sittings"]>([]);
+  const [sittingId, setSittingId] = useState(OTHER);
+  const [sitting, setSitting] = useState("");
+  const [date, setDate] = useState(today());
+  const [measure, setMeasure] = useState("");
+  const [findings, setFindings] = useState<FindingRow[]>([]);
+  const [order, setOrder] = useState("");
+  const [note, setNote] = useState("");
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  const [sent, setSent] = useState<z.output<typeof sentView> | null>(null);
+  const [nextKey, setNextKey] = useState(1);
+
+  useEffect(() => {
+    api("/api/floor/sittings", sittingsView).then(
+      (s) => {
+        setSittings(s.sittings);
+        if (s.sittings.length) pickSitting(s.sittings[0].id, s.sittings);
+      },
+      () => setSittings([]),
+    );
+  }, []);
+
+  function pickSitting(id: string, from = sittings) {
+    setSittingId(id);
+    const s = from.find((x) => x.id === id);
+    if (s) {
+      setSitting(s.title);
+      setDate(s.openedAt.slice(0, 10));
+    } else setSitting("");
+  }
+
+  const clerksList = lists?.find((l) => l.purpose === "clerks") ?? null;
+
+  async function submit(e: FormEvent) {
+    e.preventDefault();
+    setBusy(true);
+    setError(null);
+    setSent(null);
+    const body = {
+      sitting,
+      date,
+      measure,
+      findings: findings.map((f) => ({
+        severity: f.severity,
+        subject: f.subject,
+        message: f.message,
+      })),
+      proposedOrder: parseOrder(order),
+      note,
+    };
+    try {
+      const s = await api("/api/circulation/digest", sentView, {
+        method: "POST",
+        body,
+      });
+      setSent(s);
+      onSent();
+    } catch (err) {
+      const issues = err instanceof ApiError ? err.issues : [];
+      setError(issues.length ? issues.map((i) => `${i.path}: ${i.message}`).join("; ") : (err as Error).message);
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  const setFinding = (key: number, patch: Partial<FindingRow>) => setFindings(findings.map((f) => (f.key === key ? { ...f, ...patch } : f)));
+
+  return (
+    <form onSubmit={submit} className="space-y-3" aria-label="Floor-day digest">
+      <div className="grid gap-3 sm:grid-cols-2">
+        <div>
+          <label htmlFor="dg-sitting-pick" className="gw-label">
+            Sitting
+          </label>
+          <select id="dg-sitting-pick" className="gw-input" value={sittingId} onChange={(e) => pickSitting(e.target.value)}>
+            {sittings.map((s) => (
+              <option key={s.id} value={s.id}>
+                {s.title} ({s.status}, {s.openedAt.slice(0, 10)})
+              </option>
+            ))}
+            <option value={OTHER}>Another sitting…</option>
+          </select>
+        </div>
+        <div>
+          <label htmlFor="dg-date" className="gw-label">
+            Day
+          </label>
+          <input id="dg-date" type="date" className="gw-input" value={date} onChange={(e) => setDate(e.target.value)} required />
+        </div>
+      </div>
+      {sittingId === OTHER && (
+        <div>
+          <label htmlFor="dg-sitting" className="gw-label">
+            Sitting name
+          </label>
+          <input id="dg-sitting" className="gw-input" value={sitting} onChange={(e) => setSitting(e.target.value)} required maxLength={200} />
+        </div>
+      )}
+      <div>
+        <label htmlFor="dg-measure" className="gw-label">
+          Measure (optional)
+        </label>
+        <input id="dg-measure" className="gw-input" value={measure} onChange={(e) => setMeasure(e.target.value)} maxLength={300} />
+      </div>
+      <fieldset>
+        <legend className="gw-label">Findings on the amendment tree</legend>
+        {findings.length === 0 && <p className="gw-hint">None added; the digest will say there are none.</p>}
+        <ol className="mt-1 space-y-2">
+          {findings.map((f, i) => (
+            <li key={f.key} className="grid gap-2 rounded border border-rule p-2 sm:grid-cols-[10rem_minmax(0,1fr)_auto] sm:items-end">
+              <div>
+                <label htmlFor={`dg-f-sev-${f.key}`} className="gw-label">
+                  Finding {i + 1}: kind
+                </label>
+                <select id={`dg-f-sev-${f.key}`} className="gw-input" value={f.severity} onChange={(e) => setFinding(f.key, { severity: e.target.value as Severity })}>
+                  {SEVERITIES.map((s) => (
+                    <option key={s.value} value={s.value}>
+                      {s.label}
+                    </option>
+                  ))}
+                </select>
+              </div>
+              <div>
+                <label htmlFor={`dg-f-sub-${f.key}`} className="gw-label">
+                  Finding {i + 1}: about
+                </label>
+                <input id={`dg-f-sub-${f.key}`} className="gw-input" value={f.subject} onChange={(e) => setFinding(f.key, { subject: e.target.value })} placeholder="Amendment 4" />
+              </div>
+              <div className="sm:col-span-3 sm:row-start-2">
+                <label htmlFor={`dg-f-msg-${f.key}`} className="gw-label">
+                  Finding {i + 1}: what
+                </label>
+                <input id={`dg-f-msg-${f.key}`} className="gw-input" value={f.message} onChange={(e) => setFinding(f.key, { message: e.target.value })} />
+              </div>
+              <button type="button" className="gw-btn-quiet" onClick={() => setFindings(findings.filter((x) => x.key !== f.key))} aria-label={`Remove finding ${i + 1}`}>
+                Remove
+              </button>
+            </li>
+          ))}
+        </ol>
+        <button
+          type="button"
+          className="gw-btn-quiet mt-2"
+          onClick={() => {
+            setFindings([...findings, { key: nextKey, severity: "error", subject: "", message: "" }]);
+            setNextKey(nextKey + 1);
+          }}
+        >
+          Add a finding
+        </button>
+      </fieldset>
+      <div>
+        <label htmlFor="dg-order" className="gw-label">
+          Proposed order of questions
+        </label>
+        <textarea
+          id="dg-order"
+          rows={4}
+          className="gw-input text-sm"
+          value={order}
+          onChange={(e) => setOrder(e.target.value)}
+          placeholder={"Amendment 2 to Amendment 1\nAmendment 1 as amended — if Amendment 2 is adopted\nPassage"}
+        />
+        <p className="gw-hint">One question per line, in the order they would be put. To add a note, follow the question with a spaced dash: "Passage — if time allows".</p>
+      </div>
+      <div>
+        <label htmlFor="dg-note" className="gw-label">
+          Covering note (optional)
+        </label>
+        <textarea id="dg-note" rows={2} className="gw-input text-sm" value={note} onChange={(e) => setNote(e.target.value)} maxLength={4000} />
+      </div>
+      <p className="text-sm" data-testid="digest-destination">
+        Goes to{" "}
+        {lists === null ? (
+          "…"
+        ) : clerksList ? (
+          <>
+            the clerks' list, <strong>{clerksList.name}</strong> ({clerksList.recipientCount ?? "?"} recipients).
+          </>
+        ) : (
+          <>every chief clerk and clerk of the chamber: no list is marked as the clerks' list.</>
+        )}
+      </p>
+      <p className="gw-advisory">The digest is advisory: the presiding officer's ruling, the chamber's own rules and its counsel prevail. The e-mail says so.</p>
+      {error && (
+        <p role="alert" className="gw-error">
+          {error}
+        </p>
+      )}
+      <button type="submit" className="gw-btn" disabled={busy || !sitting.trim() || !date}>
+        Send the digest
+      </button>
+      {sent && (
+        <div className="gw-card mt-2" aria-label="Digest sent">
+          <p role="status">
+            Queued {sent.queued} message{sent.queued === 1 ? "" : "s"} to {sent.listName}
+            {sent.skipped.length ? `; ${sent.skipped.length} unsubscribed address${sent.skipped.length === 1 ? "" : "es"} left out` : ""}.
+          </p>
+          <p className="text-sm text-ink-soft">{sent.subject}</p>
+          <DigestDelivery id={sent.id} />
+        </div>
+      )}
+    </form>
+  );
+}
