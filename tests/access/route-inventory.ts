@@ -193,7 +193,7 @@ export const API_ROUTES: readonly ApiRoute[] = [
   { file: "api/circulation/messages/[id]/retry.ts", method: "POST", path: "/api/circulation/messages/:id/retry", audience: SENDERS, outsider: "refused", params: { id: "message" } },
   { file: "api/circulation/unsubscribe.ts", method: "GET", path: "/api/circulation/unsubscribe?token", audience: "public", outsider: "own-chamber", note: "the signed token is the authority" },
   { file: "api/circulation/unsubscribe.ts", method: "POST", path: "/api/circulation/unsubscribe", audience: "public", outsider: "own-chamber", note: "the signed token is the authority" },
-  { file: "api/dev/mail.ts", method: "GET", path: "/api/dev/mail", audience: CHIEF, outsider: "own-chamber", devOnly: true, note: "development only (GAVELWRIGHT_DEV_MAILBOX=1, 404 otherwise): everything the local catcher caught, from every chamber" },
+  { file: "api/dev/mail.ts", method: "GET", path: "/api/dev/mail", audience: CHIEF, outsider: "own-chamber", devOnly: true, note: "development only (GAVELWRIGHT_DEV_MAILBOX=1, 404 otherwise): what the local catcher caught for the chief clerk's chamber: mail it sent, and chamber-less mail to its people, invitees or list addresses" },
 ];
 
 export const PAGE_ROUTES: readonly PageRoute[] = [
@@ -224,7 +224,7 @@ export const PAGE_ROUTES: readonly PageRoute[] = [
   { file: "rulings/new.astro", path: "/rulings/new", audience: CLERKS, outsider: "own-chamber", note: "others are sent back to /rulings" },
   { file: "rulings/[id].astro", path: "/rulings/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "issuedRuling" } },
   { file: "circulation/index.astro", path: "/circulation", audience: SENDERS, outsider: "own-chamber" },
-  { file: "dev/mail.astro", path: "/dev/mail", audience: CHIEF, outsider: "own-chamber", devOnly: true, note: "development only (GAVELWRIGHT_DEV_MAILBOX=1, 404 otherwise): everything the local catcher caught, from every chamber" },
+  { file: "dev/mail.astro", path: "/dev/mail", audience: CHIEF, outsider: "own-chamber", devOnly: true, note: "development only (GAVELWRIGHT_DEV_MAILBOX=1, 404 otherwise): what the local catcher caught for the chief clerk's chamber: mail it sent, and chamber-less mail to its people, invitees or list addresses" },
 ];
 
 /** The URL of an entry with its sample params and query filled in. */

@@ -23,7 +23,7 @@
  */
 import nodemailer, { type Transporter } from "nodemailer";
 import { randomUUID } from "node:crypto";
-import { and, asc, desc, eq, inArray, lte, or, sql as dsql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, lte, or, sql as dsql } from "drizzle-orm";
 import { db, type Tx } from "./db.ts";
 import { caughtMail, outbox } from "../db/schema/mail.ts";
 
@@ -190,9 +190,29 @@ export async function requeueMail(ids: string[], tx: Tx | typeof db = db): Promi
   return rows.length;
 }
 
-/** What the local fake SMTP server received, newest first (development only). */
-export async function listCaughtMail(limit = 200) {
-  return db.select().from(caughtMail).orderBy(desc(caughtMail.receivedAt)).limit(limit);
+/**
+ * What the local fake SMTP server received for one chamber, newest first (development only).
+ * A caught message is matched to its outbox row by its Message-ID. Mail the chamber sent (the
+ * outbox row carries its id: circulations, digests) is its own; mail sent without a chamber
+ * (invitations, password resets, filing receipts) is shown when addressed to a person of the
+ * chamber, someone it invited, or an outside address on one of its lists. Mail another chamber
+ * sent, and anything the outbox does not know, is not shown.
+ */
+export async function listCaughtMail(chamberId: string, limit = 200) {
+  const address = dsql`lower(coalesce(substring(${outbox.to} from '<([^<>]+)>\s*$'), trim(${outbox.to})))`;
+  const chamberAddresses = dsql`(
+    SELECT lower(u.email) FROM member m JOIN "user" u ON u.id = m.user_id WHERE m.organization_id = ${chamberId}
+    UNION SELECT lower(i.email) FROM invitation i WHERE i.organization_id = ${chamberId}
+    UNION SELECT lower(e->>'email') FROM distribution_lists d CROSS JOIN LATERAL jsonb_array_elements(d.entries) e WHERE d.chamber_id = ${chamberId} AND e->>'kind' = 'address'
+  )`;
+  const rows = await db
+    .select({ caught: caughtMail })
+    .from(caughtMail)
+    .innerJoin(outbox, eq(outbox.messageId, caughtMail.messageId))
+    .where(or(eq(outbox.chamberId, chamberId), and(isNull(outbox.chamberId), dsql`${address} IN ${chamberAddresses}`)))
+    .orderBy(desc(caughtMail.receivedAt))
+    .limit(limit);
+  return rows.map((r) => r.caught);
 }
 
 let timer: NodeJS.Timeout | null = null;

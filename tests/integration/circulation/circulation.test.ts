@@ -5,7 +5,7 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { eq, inArray, sql as dsql } from "drizzle-orm";
 import { db } from "../../../src/lib/server/db.ts";
-import { deliverOutbox } from "../../../src/lib/server/mail.ts";
+import { deliverOutbox, enqueueMail } from "../../../src/lib/server/mail.ts";
 import { outbox, caughtMail } from "../../../src/lib/db/schema/mail.ts";
 import { rulings } from "../../../src/lib/db/schema/rulings.ts";
 import { startMailCatcher, type CaughtMessage, type MailCatcher } from "../../../src/lib/server/dev/mail-catcher.ts";
@@ -296,22 +296,61 @@ describe("floor-day digest", () => {
 });
 
 describe("caught mail (development view)", () => {
+  /** Queue a message as `enqueueMail` does and record it as the catcher would, with the same Message-ID. */
+  async function caught(mail: { to: string; subject: string; chamberId?: string }) {
+    const id = await enqueueMail({ kind: "test", text: "Hi", ...mail });
+    const [row] = await db.select({ messageId: outbox.messageId }).from(outbox).where(eq(outbox.id, id));
+    await db.insert(caughtMail).values({ messageId: row.messageId, from: "no-reply@gavelwright.invalid", to: mail.to, subject: mail.subject, text: "Hi" });
+    await db.update(outbox).set({ status: "sent", sentAt: new Date() }).where(eq(outbox.id, id));
+  }
+  const subjectsFor = async (as: Session) => {
+    const r = await call(devMail.GET, "GET", "/api/dev/mail", { as });
+    expect(r.status).toBe(200);
+    return (r.body.messages as Array<{ subject: string }>).map((m) => m.subject).filter((x) => x.startsWith("Scope ")).sort();
+  };
+
   it("is for the chief clerk only, and only with the development mailbox on", async () => {
-    await db.insert(caughtMail).values({ from: "a@example.org", to: "b@example.org", subject: "Hello", text: "Hi" });
+    await caught({ to: emailOf("member"), subject: "Scope hello" });
     const prev = process.env.GAVELWRIGHT_DEV_MAILBOX;
     try {
       delete process.env.GAVELWRIGHT_DEV_MAILBOX;
       expect((await call(devMail.GET, "GET", "/api/dev/mail", { as: s.as["chief-clerk"] })).status).toBe(404);
       process.env.GAVELWRIGHT_DEV_MAILBOX = "1";
-      const r = await call(devMail.GET, "GET", "/api/dev/mail", { as: s.as["chief-clerk"] });
-      expect(r.status).toBe(200);
-      expect(r.body.messages.map((m: { subject: string }) => m.subject)).toContain("Hello");
+      expect(await subjectsFor(s.as["chief-clerk"])).toContain("Scope hello");
       for (const role of ["clerk", "member", "staff", "observer"] as const) expect((await call(devMail.GET, "GET", "/api/dev/mail", { as: s.as[role] })).status, role).toBe(403);
       expect((await call(devMail.GET, "GET", "/api/dev/mail", { as: null })).status).toBe(401);
     } finally {
       if (prev === undefined) delete process.env.GAVELWRIGHT_DEV_MAILBOX;
       else process.env.GAVELWRIGHT_DEV_MAILBOX = prev;
     }
-    await db.delete(caughtMail).where(inArray(caughtMail.subject, ["Hello"]));
+    await db.delete(caughtMail).where(dsql`${caughtMail.subject} LIKE 'Scope %'`);
+  });
+
+  it("shows a chief clerk only their own chamber's mail", async () => {
+    const harrowmere = s.chambers.harrowmere;
+    const saltreach = s.chambers.saltreach;
+    await makeList(s.as.staff, { name: "Scope press", entries: [{ kind: "address", email: "scope-desk@courier.example.org", name: "Courier desk" }] });
+    // Sent by the chamber (a circulation): its own, whoever it is addressed to.
+    await caught({ to: "someone@elsewhere.example.org", subject: "Scope H sent", chamberId: harrowmere });
+    // Sent by the other chamber to an address Harrowmere also knows: not Harrowmere's.
+    await caught({ to: `"Press" <scope-desk@courier.example.org>`, subject: "Scope S sent to a shared address", chamberId: saltreach });
+    await caught({ to: emailOf("clerk"), subject: "Scope S sent to a Harrowmere clerk", chamberId: saltreach });
+    // Sent without a chamber (receipts, resets, invitations): by whom it is addressed to.
+    await caught({ to: emailOf("member"), subject: "Scope unstamped to a Harrowmere member" });
+    await caught({ to: "Scope-Desk@Courier.example.org", subject: "Scope unstamped to a Harrowmere list address" });
+    await caught({ to: "chief.clerk@saltreach.example", subject: "Scope unstamped to Saltreach's chief clerk" });
+    await caught({ to: "nobody@stranger.example.org", subject: "Scope unstamped to a stranger" });
+    // Caught with no outbox row at all (not sent by this app): nobody's.
+    await db.insert(caughtMail).values({ messageId: "<foreign@example.org>", from: "a@example.org", to: emailOf("member"), subject: "Scope foreign", text: "Hi" });
+    const prev = process.env.GAVELWRIGHT_DEV_MAILBOX;
+    try {
+      process.env.GAVELWRIGHT_DEV_MAILBOX = "1";
+      expect(await subjectsFor(s.as["chief-clerk"])).toEqual(["Scope H sent", "Scope unstamped to a Harrowmere list address", "Scope unstamped to a Harrowmere member"]);
+      expect(await subjectsFor(s.outsider)).toEqual(["Scope S sent to a Harrowmere clerk", "Scope S sent to a shared address", "Scope unstamped to Saltreach's chief clerk"]);
+    } finally {
+      if (prev === undefined) delete process.env.GAVELWRIGHT_DEV_MAILBOX;
+      else process.env.GAVELWRIGHT_DEV_MAILBOX = prev;
+    }
+    await db.delete(caughtMail).where(dsql`${caughtMail.subject} LIKE 'Scope %'`);
   });
 });

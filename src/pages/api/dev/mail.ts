@@ -6,7 +6,7 @@ export const prerender = false;
 
 /** What the local fake SMTP server received (development only; chief clerk). */
 export const GET = route(async ({ locals }) => {
-  requireActor(locals, "mail:view-caught");
+  const actor = requireActor(locals, "mail:view-caught");
   if (process.env.GAVELWRIGHT_DEV_MAILBOX !== "1") throw new GavelError("not-found", "The caught-mail view exists only in development, with the local mail catcher.");
-  return { messages: await listCaughtMail() };
+  return { messages: await listCaughtMail(actor.chamber.id) };
 });
