@@ -123,3 +123,14 @@ export function onListenChange(hook: ChangeHook): () => void {
   changeHooks.add(hook);
   return () => void changeHooks.delete(hook);
 }
+
+/** Stop listening and close the connection (for scripts that end, such as the seed). */
+export async function endNotices(): Promise<void> {
+  handlers.clear();
+  if (retryTimer) clearTimeout(retryTimer);
+  retryTimer = null;
+  const c = conn;
+  conn = null;
+  setListening(false);
+  await c?.end({ timeout: 1 });
+}
