@@ -1,7 +1,7 @@
 import { defineMiddleware } from "astro:middleware";
 import { randomUUID } from "node:crypto";
 import { ensureMigrated } from "./lib/server/db.ts";
-import { contextFor, forgetAccess } from "./lib/server/context.ts";
+import { contextFor, settleWrites } from "./lib/server/context.ts";
 import { startOutboxWorker } from "./lib/server/mail.ts";
 import { errorResponse } from "./lib/server/http.ts";
 import { describeError } from "./lib/server/log-safe.ts";
@@ -43,9 +43,7 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
     }
   }
   const res = await next();
-  // Sign-in, sign-out, chamber switches and role changes: this server forgets who may do what at
-  // once (the others hear of it through NOTIFY gw_access a moment later).
-  if (ctx.request.method !== "GET" && ctx.request.method !== "HEAD" && (path.startsWith("/api/auth/") || path.startsWith("/api/people/"))) forgetAccess();
+  await settleWrites(ctx.request.method, path);
   for (const [k, v] of Object.entries(SECURITY_HEADERS)) if (!res.headers.has(k)) res.headers.set(k, v);
   if (ctx.url.protocol === "https:") res.headers.set("strict-transport-security", "max-age=31536000; includeSubDomains");
   return res;

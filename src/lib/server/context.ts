@@ -4,7 +4,7 @@ import { auth } from "./auth.ts";
 import { db } from "./db.ts";
 import { member, organization, session as sessionTable } from "../db/schema/auth.ts";
 import { isChamberRole, type ChamberRole } from "../permissions.ts";
-import { isListening, onListenChange, onNotice } from "./notices.ts";
+import { fence, isListening, onListenChange, onNotice } from "./notices.ts";
 
 export interface RequestContext {
   user: App.Locals["user"];
@@ -104,4 +104,19 @@ export async function contextFor(headers: Headers): Promise<RequestContext> {
     remembered.set(key, { at: now, ctx });
   }
   return { ...ctx };
+}
+
+/** POST routes that only read (a question too large for a query string). */
+const READ_ONLY_POSTS = new Set(["/api/moves"]);
+
+/**
+ * After a request that may have written: forget who may do what at once when sign-ins or roles
+ * may have changed, and wait until this server has heard the notices of whatever was written
+ * (what it remembers between requests is forgotten on them: chamber-memory.ts), so that the
+ * writer reads their own write on the next request.
+ */
+export async function settleWrites(method: string, path: string): Promise<void> {
+  if (method === "GET" || method === "HEAD" || READ_ONLY_POSTS.has(path)) return;
+  if (path.startsWith("/api/auth/") || path.startsWith("/api/people/")) forgetAccess();
+  await fence();
 }

@@ -7,6 +7,7 @@
  * LISTEN is in place now, and `onListenChange` hooks run when it is lost and when it is back.
  * After a drop the bus retries by itself (1 s, then up to every 5 s) as long as anyone listens.
  */
+import { randomUUID } from "node:crypto";
 import postgres from "postgres";
 import { describeError } from "./log-safe.ts";
 
@@ -124,9 +125,50 @@ export function onListenChange(hook: ChangeHook): () => void {
   return () => void changeHooks.delete(hook);
 }
 
+const FENCE_CHANNEL = "gw_fence";
+const FENCE_WAIT_MS = 2000;
+const fences = new Map<string, () => void>();
+let fenceListening: Promise<unknown> | null = null;
+
+/**
+ * Wait until this process has received every notice of every transaction committed so far
+ * (PostgreSQL delivers notices in commit order, so once a notice sent now comes back, all
+ * earlier ones are in). A request that wrote calls this before answering, so that what this
+ * process remembers already reflects the write when the same person asks again. If the notice
+ * does not come back in time, every `onListenChange` hook runs as if LISTEN had been lost
+ * (whatever is remembered is forgotten).
+ */
+export async function fence(): Promise<void> {
+  if (!listening) return; // nothing is remembered without LISTEN
+  try {
+    fenceListening ??= onNotice(FENCE_CHANNEL, (token) => fences.get(token)?.()).catch((e) => {
+      fenceListening = null;
+      throw e;
+    });
+    await fenceListening;
+    const token = randomUUID();
+    let timer: NodeJS.Timeout | undefined;
+    const back = new Promise<boolean>((resolve) => {
+      fences.set(token, () => resolve(true));
+      timer = setTimeout(() => resolve(false), FENCE_WAIT_MS);
+    });
+    try {
+      await connection()`SELECT pg_notify(${FENCE_CHANNEL}, ${token})`;
+      if (await back) return;
+    } finally {
+      clearTimeout(timer);
+      fences.delete(token);
+    }
+  } catch {
+    /* the database is away: fall through and forget */
+  }
+  for (const hook of changeHooks) hook(false);
+}
+
 /** Stop listening and close the connection (for scripts that end, such as the seed). */
 export async function endNotices(): Promise<void> {
   handlers.clear();
+  fenceListening = null;
   if (retryTimer) clearTimeout(retryTimer);
   retryTimer = null;
   const c = conn;

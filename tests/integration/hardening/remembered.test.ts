@@ -11,6 +11,12 @@ import { isListening } from "../../../src/lib/server/notices.ts";
 import { loadRulebook } from "../../../src/lib/server/services/rulebooks.ts";
 import { legislatorNames } from "../../../src/lib/server/services/measures.ts";
 import { seedRulebooks } from "../../../src/lib/server/seed/rulebooks.ts";
+import { seedMeasures } from "../../../src/lib/server/seed/measures.ts";
+import * as treeRoute from "../../../src/pages/api/measures/[id]/tree.ts";
+import * as amendmentRoute from "../../../src/pages/api/amendments/[id]/index.ts";
+import * as overridesRoute from "../../../src/pages/api/measures/[id]/overrides/index.ts";
+import * as overrideRoute from "../../../src/pages/api/measures/[id]/overrides/[oid].ts";
+import { call } from "../../support/app.ts";
 import { seedChambers, type Seeded } from "../../support/fixtures.ts";
 
 let seeded: Seeded;
@@ -34,6 +40,7 @@ beforeAll(async () => {
 afterAll(async () => {
   await other.unsafe(`ALTER TABLE "member" ENABLE TRIGGER gw_access_member`);
   await other.unsafe(`ALTER TABLE legislators ENABLE TRIGGER gw_chamber_legislators`);
+  await other.unsafe(`ALTER TABLE amendments ENABLE TRIGGER gw_measure_amendments`);
   await other.end();
 });
 
@@ -100,5 +107,59 @@ describe("a chamber's rulebook adoptions and roster, remembered per chamber", ()
     expect((await legislatorNames(chamber)).get(l.id)).toBe(l.name);
     await other`UPDATE legislators SET name = ${l.name + " (renamed)"} WHERE id = ${l.id}`;
     await until("the new name", async () => (await legislatorNames(chamber)).get(l.id) === `${l.name} (renamed)`);
+  });
+});
+
+describe("a measure's tree, remembered per measure", () => {
+  it("is remembered, forgotten when an amendment changes elsewhere, and never shown to another chamber", async () => {
+    const made = await seedMeasures();
+    const measureId = made!.measureId;
+    const read = async (as = seeded.as.member) => call(treeRoute.GET, "GET", `/api/measures/${measureId}/tree`, { as, params: { id: measureId } });
+    const titleOf = (t: any, id: string) => t.body.nodes.find((n: any) => n.id === id)?.title;
+    const first = await read();
+    expect(first.status).toBe(200);
+    const a = first.body.nodes.find((n: any) => n.kind === "amendment");
+
+    // With the trigger off no notice is sent, and the remembered tree stands — proof it is remembered.
+    await other.unsafe(`ALTER TABLE amendments DISABLE TRIGGER gw_measure_amendments`);
+    await other`UPDATE amendments SET title = 'unheard' WHERE id = ${a.id}`;
+    await other.unsafe(`ALTER TABLE amendments ENABLE TRIGGER gw_measure_amendments`);
+    expect(titleOf(await read(), a.id)).toBe(a.title);
+
+    await other`UPDATE amendments SET title = 'changed on another server' WHERE id = ${a.id}`;
+    await until("the changed amendment in the tree", async () => titleOf(await read(), a.id) === "changed on another server");
+
+    // Remembered for Harrowmere; the other chamber still gets 404, not the remembered tree.
+    expect((await read(seeded.outsider)).status).toBe(404);
+  });
+
+  it("whoever writes reads their write on the very next request (the write waits for its notices)", async () => {
+    // (The clerk's session was deleted above: the chief clerk writes here.)
+    const [{ id: measureId }] = await other`SELECT id FROM measures WHERE chamber_id = ${seeded.chambers.harrowmere} ORDER BY number LIMIT 1`;
+    const before = await call(treeRoute.GET, "GET", `/api/measures/${measureId}/tree`, { as: seeded.as["chief-clerk"], params: { id: measureId } });
+    const a = before.body.nodes.find((n: any) => n.kind === "amendment" && n.status === "filed");
+    expect(a, "the demo tree has a filed amendment").toBeTruthy();
+    let version = a.version;
+    for (let i = 0; i < 5; i++) {
+      const saved = await call(amendmentRoute.PATCH, "PATCH", `/api/amendments/${a.id}`, { as: seeded.as["chief-clerk"], params: { id: a.id }, body: { version, title: `Retitled ${i}` } });
+      expect(saved.status).toBe(200);
+      version = saved.body.version;
+      const after = await call(treeRoute.GET, "GET", `/api/measures/${measureId}/tree`, { as: seeded.as["chief-clerk"], params: { id: measureId } });
+      expect(after.body.nodes.find((n: any) => n.id === a.id).title).toBe(`Retitled ${i}`);
+    }
+    // An override recorded and revoked: the revocation's last act is its commit.
+    const tree = (await call(treeRoute.GET, "GET", `/api/measures/${measureId}/tree`, { as: seeded.as["chief-clerk"], params: { id: measureId } })).body;
+    const f = tree.findings.find((x: any) => x.amendmentId && !x.overridden);
+    expect(f, "the demo tree has a finding to override").toBeTruthy();
+    const target = tree.nodes.find((n: any) => n.id === f.amendmentId);
+    for (let i = 0; i < 5; i++) {
+      const o = await call(overridesRoute.POST, "POST", `/api/measures/${measureId}/overrides`, { as: seeded.as["chief-clerk"], params: { id: measureId }, body: { amendmentId: f.amendmentId, code: f.code, version: target.version, rulingRef: `Ruling ${i}` } });
+      expect(o.status).toBe(201);
+      const on = (await call(treeRoute.GET, "GET", `/api/measures/${measureId}/tree`, { as: seeded.as["chief-clerk"], params: { id: measureId } })).body;
+      expect(on.findings.find((x: any) => x.amendmentId === f.amendmentId && x.code === f.code).overrideId).toBe(o.body.id);
+      expect((await call(overrideRoute.DELETE, "DELETE", `/api/measures/${measureId}/overrides/${o.body.id}`, { as: seeded.as["chief-clerk"], params: { id: measureId, oid: o.body.id } })).status).toBe(200);
+      const off = (await call(treeRoute.GET, "GET", `/api/measures/${measureId}/tree`, { as: seeded.as["chief-clerk"], params: { id: measureId } })).body;
+      expect(off.findings.find((x: any) => x.amendmentId === f.amendmentId && x.code === f.code).overrideId).toBeNull();
+    }
   });
 });

@@ -12,6 +12,7 @@ import { validateTree, type Finding } from "../../amendments/validate-tree.ts";
 import type { AmendmentInput, MeasureInput } from "../../amendments/case-schema.ts";
 import { GavelError } from "../../errors.ts";
 import type { Actor } from "../http.ts";
+import { measureMemory } from "../chamber-memory.ts";
 import { Memo, memoKey } from "../memo.ts";
 import { assertFresh, recordAudit } from "../measure-audit.ts";
 import { adoptedRulebookOf } from "../measure-rulebook.ts";
@@ -51,14 +52,14 @@ export function caseFromRows(m: MeasureRow, rows: AmendmentRow[]): { measure: Me
 
 const treeMemo = new Memo<Awaited<ReturnType<typeof validateTree>>>(200);
 
-async function loadTree(actor: Actor, measureId: string) {
+async function loadTree(chamberId: string, measureId: string) {
   assertMeasureId(measureId);
   // Independent reads, asked together (each is scoped to the chamber, so none leaks before the measure is found).
   const [m, rows, overrides, rb] = await Promise.all([
-    measureRow(actor.chamber.id, measureId),
-    db.select().from(amendments).where(and(eq(amendments.measureId, measureId), eq(amendments.chamberId, actor.chamber.id))).orderBy(asc(amendments.createdAt)),
-    db.select().from(treeOverrides).where(and(eq(treeOverrides.measureId, measureId), eq(treeOverrides.chamberId, actor.chamber.id))),
-    adoptedRulebookOf(actor.chamber.id),
+    measureRow(chamberId, measureId),
+    db.select().from(amendments).where(and(eq(amendments.measureId, measureId), eq(amendments.chamberId, chamberId))).orderBy(asc(amendments.createdAt)),
+    db.select().from(treeOverrides).where(and(eq(treeOverrides.measureId, measureId), eq(treeOverrides.chamberId, chamberId))),
+    adoptedRulebookOf(chamberId),
   ]);
   rows.sort((x, y) => (x.number ?? Infinity) - (y.number ?? Infinity));
   const keys = new Map(rows.map((r) => [r.id, amendmentKey(r)]));
@@ -71,10 +72,24 @@ async function loadTree(actor: Actor, measureId: string) {
   return { m, rows, keys, overrides, rb, result };
 }
 
+/**
+ * The tree view, remembered per measure between requests (chamber-memory.ts: forgotten when the
+ * measure, its amendments or overrides, the chamber's roster or adoptions change), and not used
+ * once another rulebook version has come into force.
+ */
+const rememberedTree = measureMemory(
+  async (chamberId, measureId) => buildTreeView(chamberId, measureId),
+  async (v, chamberId) => (await adoptedRulebookOf(chamberId)).versionId === v.rulebookVersionId,
+);
+
 export async function treeOf(actor: Actor, measureId: string): Promise<TreeView> {
-  const { m, rows, keys, overrides, rb, result } = await loadTree(actor, measureId);
+  return (await rememberedTree(actor.chamber.id, measureId)).view;
+}
+
+async function buildTreeView(chamberId: string, measureId: string): Promise<{ view: TreeView; rulebookVersionId: string | null }> {
+  const { m, rows, keys, overrides, rb, result } = await loadTree(chamberId, measureId);
   const idOf = new Map(rows.map((r) => [keys.get(r.id)!, r.id]));
-  const names = await legislatorNames(actor.chamber.id);
+  const names = await legislatorNames(chamberId);
   const findings: FindingView[] = result.findings.map((f: Finding) => {
     const rowId = idOf.get(f.amendment) ?? null;
     const o = overrides.find((x) => x.amendmentId === rowId && x.code === f.code);
@@ -92,13 +107,14 @@ export async function treeOf(actor: Actor, measureId: string): Promise<TreeView>
   ];
   const counts = { error: 0, warning: 0, info: 0, overridden: 0 };
   for (const f of findings) f.overridden ? counts.overridden++ : counts[f.severity]++;
-  return {
+  const view: TreeView = {
     measure: { id: m.id, number: m.number, title: m.title, version: m.version, sittingAt: m.sittingAt?.toISOString() ?? null },
     rulebook: { id: rb.rulebook.id, title: rb.rulebook.title, source: rb.source, maxDegree: rb.rulebook.amendments.maxDegree, minSponsors: rb.rulebook.amendments.minSponsors },
     nodes,
     findings,
     counts,
   };
+  return { view, rulebookVersionId: rb.versionId };
 }
 
 /**
@@ -109,7 +125,7 @@ export async function treeOf(actor: Actor, measureId: string): Promise<TreeView>
 export async function recordOverride(actor: Actor, measureId: string, input: z.output<typeof overrideCreateSchema>) {
   const a = await amendmentRow(actor.chamber.id, input.amendmentId);
   if (a.measureId !== measureId) throw new GavelError("not-found", "No such amendment on this measure.", { issues: [{ path: "amendmentId", message: "not an amendment of this measure" }] });
-  const { result, keys } = await loadTree(actor, measureId);
+  const { result, keys } = await loadTree(actor.chamber.id, measureId);
   const key = keys.get(a.id)!;
   if (!result.findings.some((f) => f.amendment === key && f.code === input.code))
     throw new GavelError("unprocessable", `Amendment ${key} has no current "${input.code}" finding to override.`, { issues: [{ path: "code", message: "no such finding on this amendment" }] });
