@@ -45,6 +45,8 @@ export const auth = betterAuth({
   },
   rateLimit: {
     enabled: process.env.GAVELWRIGHT_RATE_LIMIT !== "off",
+    // Counted in PostgreSQL, so a limit holds across every server process (table rate_limit).
+    storage: "database",
     window: 60,
     max: 200,
     customRules: {

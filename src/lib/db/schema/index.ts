@@ -7,3 +7,4 @@ export * from "./rulebooks.ts";
 export * from "./floor.ts";
 export * from "./rulings.ts";
 export * from "./estimates.ts";
+export * from "./rate-limit.ts";
