@@ -15,11 +15,15 @@
  * compares; "successive" procedure — members vote yes iff the version with x adopted is strictly
  * preferred to every version still available if x is rejected (any consistent adoption of the
  * undecided amendments, and Q). Sophisticated voting: backward induction on the tree.
+ * `sincereTally` reads back the weights behind each sincere decision (for the walk-through and the
+ * chair's script): it counts over exactly the set of versions the decision itself uses.
  */
 import type { AmendmentTreeModel } from "./amendment-versions.ts";
 import type { MajorityGraph } from "./majority-graph.ts";
 import type { Profile } from "./profile.ts";
-import { successivePasses } from "./successive-agenda.ts";
+import { successiveTally } from "./successive-agenda.ts";
+import { pairSupport } from "./profile.ts";
+import { adopts } from "./vote-threshold.ts";
 import type { Procedure } from "./agenda-counts.ts";
 
 export interface QuestionAgenda {
@@ -33,6 +37,14 @@ export interface QuestionAgenda {
   /** Final outcome (version index) of a completed state. */
   outcome(adopted: number): number;
   sincereAdopts(x: number, decided: number, adopted: number): boolean;
+  /**
+   * Weight for and against adopting x under sincere voting, given what has been decided so far:
+   * the pairwise support of the two versions compared (amendment procedure, and passage), or the
+   * successive tally over the versions still available (successive procedure). Null without a profile.
+   */
+  sincereTally(x: number, decided: number, adopted: number): { forWeight: number; againstWeight: number } | null;
+  /** Successive procedure: the versions a sincere vote on x weighs the adopted text against (x's own version first). */
+  successiveField(x: number, decided: number, adopted: number): number[];
   beats(v: number, w: number): boolean;
 }
 
@@ -73,20 +85,37 @@ export function questionAgenda(model: AmendmentTreeModel, g: MajorityGraph, prof
     walk(0, adopted, decided | (1 << x));
     return [...out];
   };
-  const memo = new Map<string, boolean>();
-  const sincereAdopts = (x: number, decided: number, adopted: number): boolean => {
-    const v = vote(x, adopted);
-    if (procedure === "amendment" || x === passage || !profile) return beats(v.yesVersion, v.noVersion);
-    const key = `${x}:${decided}:${adopted}`;
-    let r = memo.get(key);
-    if (r === undefined) {
-      const avail = available(x, decided, adopted).filter((y) => y !== v.yesVersion);
-      r = successivePasses(profile, g.threshold, v.yesVersion, [v.yesVersion, ...avail]);
-      memo.set(key, r);
-    }
-    return r;
+  const successiveField = (x: number, decided: number, adopted: number): number[] => {
+    const yes = vote(x, adopted).yesVersion;
+    return [yes, ...available(x, decided, adopted).filter((y) => y !== yes)];
   };
-  return { model, k, passage, falls, vote, outcome, sincereAdopts, beats };
+  const successive = (x: number) => procedure === "successive" && x !== passage;
+  // One tally per (question, state): the decision below and the walk-through read the same numbers.
+  const tallies = new Map<string, { forWeight: number; againstWeight: number }>();
+  const sincereTally = (x: number, decided: number, adopted: number) => {
+    if (!profile) return null;
+    const v = vote(x, adopted);
+    if (!successive(x)) {
+      const s = pairSupport(profile, v.yesVersion, v.noVersion);
+      return { forWeight: s.forX, againstWeight: s.forY };
+    }
+    const key = `${x}:${decided}:${adopted}`;
+    let t = tallies.get(key);
+    if (t === undefined) {
+      t = successiveTally(profile, v.yesVersion, successiveField(x, decided, adopted));
+      tallies.set(key, t);
+    }
+    return t;
+  };
+  const sincereAdopts = (x: number, decided: number, adopted: number): boolean => {
+    if (!successive(x) || !profile) {
+      const v = vote(x, adopted);
+      return beats(v.yesVersion, v.noVersion);
+    }
+    const t = sincereTally(x, decided, adopted)!;
+    return adopts(t.forWeight, t.againstWeight, profile.totalWeight, g.threshold);
+  };
+  return { model, k, passage, falls, vote, outcome, sincereAdopts, sincereTally, successiveField, beats };
 }
 
 export interface QuestionStep {
