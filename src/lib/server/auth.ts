@@ -72,6 +72,7 @@ export const auth = betterAuth({
         await enqueueMail({
           kind: "invitation",
           ref: data.id,
+          chamberId: data.organization.id,
           to: data.email,
           subject: `Invitation to ${data.organization.name} on Gavelwright`,
           text: `${data.inviter.user.name} invites you to join ${data.organization.name} on Gavelwright as ${roleLabel}.\n\nAccept the invitation (sign in or create an account with this e-mail address first):\n${url}\n\nThe invitation expires in seven days.`,

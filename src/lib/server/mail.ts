@@ -193,8 +193,8 @@ export async function requeueMail(ids: string[], tx: Tx | typeof db = db): Promi
 /**
  * What the local fake SMTP server received for one chamber, newest first (development only).
  * A caught message is matched to its outbox row by its Message-ID. Mail the chamber sent (the
- * outbox row carries its id: circulations, digests) is its own; mail sent without a chamber
- * (invitations, password resets, filing receipts) is shown when addressed to a person of the
+ * outbox row carries its id: circulations, digests, invitations, filing receipts) is its own;
+ * mail that belongs to no chamber (password resets) is shown when addressed to a person of the
  * chamber, someone it invited, or an outside address on one of its lists. Mail another chamber
  * sent, and anything the outbox does not know, is not shown.
  */

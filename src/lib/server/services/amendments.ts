@@ -152,7 +152,7 @@ async function queueReceipt(tx: Tx, actor: Actor, m: MeasureRow, a: AmendmentRow
     "",
     "Filing records the amendment; whether it is in order is for the presiding officer, under the chamber's rules.",
   ].join("\n");
-  await enqueueMail({ kind: "amendment-receipt", ref: a.id, to: filer.email, subject: `Filing receipt: Amendment ${key} to ${m.number}`, text }, tx);
+  await enqueueMail({ kind: "amendment-receipt", ref: a.id, chamberId: actor.chamber.id, to: filer.email, subject: `Filing receipt: Amendment ${key} to ${m.number}`, text }, tx);
 }
 
 type FileInput = z.output<typeof amendmentFileSchema>;
