@@ -7,7 +7,7 @@
  * §33 [PD]), as far as the order given respects that; the order itself is the rulebook's business.
  */
 import type { WalkStep, WalkThrough } from "./walk-through.ts";
-import { amendmentName, listInWords, thresholdInWords, versionInWords, type TreeLabels } from "./version-words.ts";
+import { amendmentName, listInWords, thresholdInWords, versionInWords, versionShort, type TreeLabels } from "./version-words.ts";
 
 export interface ScriptStep {
   number: number;
@@ -61,7 +61,9 @@ function stepFor(s: WalkStep, n: number, labels: TreeLabels, amendThreshold: str
         `Is there any further debate on ${name}? [Pause.] Members in favour of the amendment will vote Aye; those against, No.`,
         "The clerk will record the vote.",
       ];
-  const tally = s.for !== undefined ? `${s.for} for, ${s.against} against` : "no tally (successive procedure)";
+  const tally = s.for !== undefined ? `${s.for} for, ${s.against} against` : "no tally available";
+  // Successive procedure: say what a sincere "for" meant, since it is not a choice between two texts.
+  const reach = s.withinReach?.length ? ` Counted for: members who rank this text above each of the other versions still within reach, namely ${listInWords(s.withinReach.map((v) => versionShort(v, labels)))}. Counted against: the others who rank it.` : "";
   return {
     number: n,
     question: s.question,
@@ -79,7 +81,7 @@ function stepFor(s: WalkStep, n: number, labels: TreeLabels, amendThreshold: str
       : a.degree === 2
         ? `Amendment ${a.target} stays as filed; if it is then agreed to, the text becomes: ${versionInWords(s.base ?? labels.measureKey, labels)}.${falls(s.fallsIfRejected, labels)}`
         : `The amendment is not agreed to; the text remains: ${versionInWords(s.base ?? labels.measureKey, labels)}.${falls(s.fallsIfRejected, labels)}`,
-    projection: `Projected: ${s.adopted ? "adopted" : "rejected"} (${tally}).`,
+    projection: `Projected: ${s.adopted ? "adopted" : "rejected"} (${tally}).${reach}`,
   };
 }
 

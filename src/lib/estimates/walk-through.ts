@@ -3,6 +3,10 @@
  * falling), the two versions each vote compares, the projected tally, and which later questions fall
  * on adoption and on rejection — along the sincere path and along the sophisticated path
  * (backward induction, Farquharson 1969; McKelvey & Niemi 1978, J. Econ. Theory 18:1–22).
+ * Sincere tallies are the engine's own (questionAgenda.sincereTally): pairwise support under the
+ * amendment procedure; under the successive procedure, yes from members who rank the amended text
+ * above every version still within reach, no from the others who rank it. Sophisticated tallies are
+ * the pairwise support of the two outcomes the branches lead to, under either procedure.
  * The rules of the vote are the voting engine's (questionAgenda in src/lib/voting/question-agenda.ts);
  * this only follows one order through them and tallies each vote from the estimate's profile.
  * Input: the same object analyseOrders reads, plus the order as question ids (amendment keys and
@@ -29,6 +33,8 @@ export interface WalkStep {
   base?: string;
   for?: number;
   against?: number;
+  /** Successive procedure, sincere path: the other versions still within reach that members weighed the motion against. */
+  withinReach?: string[];
   adopted?: boolean;
   /** Later questions that fall if this one is adopted / rejected. */
   fallsIfAdopted?: string[];
@@ -77,8 +83,12 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
   for (const [a, b] of questionConstraints(model, voting.constraints))
     if (pos.get(a)! > pos.get(b)!) throw new GavelError("unprocessable", `order: ${qids[a]} must be put before ${qids[b]} under the rulebook`, { issues: [{ path: "order", message: `${qids[a]} must come before ${qids[b]}` }] });
 
-  const tally = (yes: number, no: number) => {
-    if (voting.procedure === "successive") return {};
+  const sincereTally = (x: number, decided: number, adopted: number) => {
+    const t = qa.sincereTally(x, decided, adopted)!;
+    const successive = voting.procedure === "successive" && x !== qa.passage;
+    return { for: t.forWeight, against: t.againstWeight, ...(successive ? { withinReach: qa.successiveField(x, decided, adopted).slice(1).map((v) => names[v]) } : {}) };
+  };
+  const pairTally = (yes: number, no: number) => {
     const s = pairSupport(profile, yes, no);
     return { for: s.forX, against: s.forY };
   };
@@ -101,7 +111,7 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
           put: true,
           motion: names[v.yesVersion],
           base: names[v.noVersion],
-          ...tally(v.yesVersion, v.noVersion),
+          ...sincereTally(x, decided, adopted),
           adopted: s.adopted,
           fallsIfAdopted: fallsAfter(i, d2, v.yesState).filter((q) => !before.has(q)),
           fallsIfRejected: fallsAfter(i, d2, v.noState).filter((q) => !before.has(q)),
@@ -127,7 +137,7 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
         const no = value(i + 1, d2, v.noState);
         const ok = qa.beats(yes, no);
         const before = new Set(fallsAfter(i, decided, adopted));
-        sophSteps.push({ question: qids[x], put: true, motion: names[yes], base: names[no], ...(voting.procedure === "successive" ? {} : { for: pairSupport(profile, yes, no).forX, against: pairSupport(profile, yes, no).forY }), adopted: ok, fallsIfAdopted: fallsAfter(i, d2, v.yesState).filter((q) => !before.has(q)), fallsIfRejected: fallsAfter(i, d2, v.noState).filter((q) => !before.has(q)) });
+        sophSteps.push({ question: qids[x], put: true, motion: names[yes], base: names[no], ...pairTally(yes, no), adopted: ok, fallsIfAdopted: fallsAfter(i, d2, v.yesState).filter((q) => !before.has(q)), fallsIfRejected: fallsAfter(i, d2, v.noState).filter((q) => !before.has(q)) });
         if (ok) adopted = v.yesState;
       }
       decided |= 1 << x;

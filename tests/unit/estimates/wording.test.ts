@@ -111,3 +111,68 @@ describe("walk-through and chair's script", () => {
     expect(md).toContain(script.advisory);
   });
 });
+
+describe("successive procedure: tallies in the walk-through and the chair's script", () => {
+  // Hand-computed, no source (sincere successive definition of DOMAIN §1 [MEM]; sophisticated voting by
+  // backward induction, DOMAIN §2). Groups: 4 rank +A2 > +A1 > measure > Q; 3 rank +A1 > +A2 > measure > Q;
+  // 2 rank measure > +A2 > Q > +A1; 1 ranks only Q (abstains on every other comparison).
+  const successive = {
+    rulebook: { voting: { ...voting, procedure: "successive" } },
+    measure,
+    amendments,
+    profile: {
+      ballots: [
+        { ranking: ["measure+A2", "measure+A1", "measure", "Q"], weight: 4 },
+        { ranking: ["measure+A1", "measure+A2", "measure", "Q"], weight: 3 },
+        { ranking: ["measure", "measure+A2", "Q", "measure+A1"], weight: 2 },
+        { ranking: ["Q"], weight: 1 },
+      ],
+    },
+  };
+
+  it("sincere: A2 is weighed against Q, the measure and +A1 (4 for, 5 against); A1 then 7–2; passage 7–2", () => {
+    const w = walkThrough(successive, ["A2", "A1", "passage"]);
+    expect(w.procedure).toBe("successive");
+    expect(w.sincere.steps.map((s) => [s.question, s.for, s.against, s.adopted])).toEqual([
+      ["A2", 4, 5, false],
+      ["A1", 7, 2, true],
+      ["passage", 7, 2, true],
+    ]);
+    expect([...w.sincere.steps[0].withinReach!].sort()).toEqual(["Q", "measure", "measure+A1"]);
+    expect([...w.sincere.steps[1].withinReach!].sort()).toEqual(["Q", "measure"]);
+    expect(w.sincere.steps[2].withinReach).toBeUndefined();
+    expect(w.sincere.outcome).toBe("measure+A1");
+  });
+
+  it("sophisticated: A2 (leading to +A2) against the rejection branch (leading to +A1), 6–3, adopted; A1 falls", () => {
+    const w = walkThrough(successive, ["A2", "A1", "passage"]);
+    expect(w.sophisticated.steps.map((s) => [s.question, s.put, s.for, s.against, s.adopted])).toEqual([
+      ["A2", true, 6, 3, true],
+      ["A1", false, undefined, undefined, undefined],
+      ["passage", true, 9, 0, true],
+    ]);
+    expect(w.sophisticated.outcome).toBe("measure+A2");
+  });
+
+  it("agrees with the engine's outcomes for every legal order", () => {
+    const a = analyseOrders({ ...successive, pageSize: 200 });
+    expect(a.page.orders.length).toBeGreaterThan(1);
+    for (const o of a.page.orders) {
+      const w = walkThrough(successive, o.questions);
+      expect(w.sincere.outcome).toBe(o.sincere);
+      expect(w.sophisticated.outcome).toBe(o.sophisticated);
+      for (const s of [...w.sincere.steps, ...w.sophisticated.steps].filter((x) => x.put)) expect(s.for! + s.against!).toBeLessThanOrEqual(10);
+    }
+  });
+
+  it("the script and its Markdown carry the tally and say what was weighed", () => {
+    const script = chairScript(walkThrough(successive, ["A2", "A1", "passage"]), labels, "majority", "Whip count");
+    expect(script.steps[0].projection).toContain("rejected (4 for, 5 against)");
+    expect(script.steps[0].projection).toContain("Q (no change)");
+    expect(script.steps[1].projection).toContain("adopted (7 for, 2 against)");
+    expect(script.steps.every((s) => !s.projection.includes("no tally"))).toBe(true);
+    const md = scriptMarkdown(script);
+    expect(md).toContain("rejected (4 for, 5 against)");
+    expect(md).toContain("adopted (7 for, 2 against)");
+  });
+});
