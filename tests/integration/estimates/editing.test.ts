@@ -11,6 +11,7 @@ import * as importRoute from "../../../src/pages/api/estimates/import.ts";
 import * as template from "../../../src/pages/api/estimates/template.ts";
 import { seedMeasures } from "../../../src/lib/server/seed/measures.ts";
 import { parseIdealCsv } from "../../../src/lib/estimates/ideal-csv.ts";
+import { addDimension, removeDimension } from "../../../src/lib/estimates/dimension-edits.ts";
 import { call } from "../../support/app.ts";
 import { tableCounts } from "../../support/db.ts";
 import { seedChambers, type Seeded } from "../../support/fixtures.ts";
@@ -84,6 +85,31 @@ describe("spatial dimensions and positions", () => {
     expect((twice.body as { error: { issues: Array<{ path: string }> } }).error.issues[0].path).toBe("content.dimensions.1");
     expect((await save(id, { basedOn: 1, content: spatial({ dimensions: ["Cost", ""] }) })).status).toBe(400);
     expect(await tableCounts()).toEqual(before);
+  });
+
+  it("a dimension added on the page, then removed, saves as two new versions; more than the engine accepts, a stale base and the other chamber are refused", async () => {
+    const id = await create("Spatial dimensions", spatial({ ranges: [[0, 10], [-5, 5]], effects: { A1: { position: [7, 2] }, A7: { shift: [0, -1] } } }));
+    const v1 = (await read(id)).version.content as Parameters<typeof addDimension>[0];
+    const added = addDimension(v1, "Harbour access");
+    const before = await tableCounts();
+    expect((await save(id, { basedOn: 1, content: added }, s.outsider)).status).toBe(404);
+    expect((await save(id, { basedOn: 1, content: added }, s.as.observer)).status).toBe(403);
+    let nine = added;
+    for (let i = 3; i < 8; i++) nine = addDimension(nine, `D${i}`);
+    expect((await save(id, { basedOn: 1, content: { ...nine, dimensions: [...nine.dimensions, "D8"], statusQuo: [...nine.statusQuo, 0] } })).status).toBe(400);
+    expect(await tableCounts()).toEqual(before);
+
+    expect((await save(id, { basedOn: 1, content: added, note: "Dimensions and positions edited" })).status).toBe(201);
+    const v2 = await read(id);
+    expect(v2.version.content).toMatchObject({ dimensions: ["Lighting", "Cost", "Harbour access"], ranges: [[0, 10], [-5, 5], [0, 10]], statusQuo: [0, 0, 0], effects: { A1: { position: [7, 2, 0] }, A7: { shift: [0, -1, 0] } } });
+    // A second tab still on version 1 is told the estimate moved on.
+    expect((await save(id, { basedOn: 1, content: removeDimension(added, 0) })).status).toBe(409);
+
+    const removed = removeDimension(v2.version.content as Parameters<typeof addDimension>[0], 0);
+    expect((await save(id, { basedOn: 2, content: removed })).status).toBe(201);
+    const v3 = await read(id);
+    expect(v3.version.number).toBe(3);
+    expect(v3.version.content).toMatchObject({ dimensions: ["Cost", "Harbour access"], ranges: [[-5, 5], [0, 10]], measure: [5, 0], members: [{ ideal: [2, 0] }, { ideal: [6, 0] }], effects: { A1: { position: [2, 0] }, A7: { shift: [-1, 0] } } });
   });
 });
 
