@@ -1,11 +1,13 @@
 // A clerk builds an estimate from an uploaded CSV, sees the order analysis of HCA 12, picks an order
-// and opens (and prints) the chair's script; a member's private estimate stays private; the spatial
-// view shows the status quo's win set. The product's own contract (no outside source).
+// and opens (and prints) the chair's script; under a successive-procedure rulebook version the
+// walk-through and the script show projected tallies too; a member's private estimate stays private;
+// the spatial view shows the status quo's win set; a spatial estimate gains and loses a dimension.
+// The product's own contract (no outside source).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { writeFileSync, mkdtempSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import type { BrowserContext } from "playwright-core";
+import type { BrowserContext, Page } from "playwright-core";
 import { BASE_URL, launch, shot, signInAs, textOf, visible } from "./browser.ts";
 
 let browser: Awaited<ReturnType<typeof launch>>;
@@ -22,6 +24,13 @@ async function freshPage(context: BrowserContext) {
 }
 
 const unique = Date.now().toString(36);
+let estimateId = "";
+
+async function api(page: Page, method: "GET" | "POST", path: string, data?: unknown) {
+  const res = await page.request.fetch(`${BASE_URL}${path}`, { method, data, headers: { origin: BASE_URL } });
+  expect(res.status(), `${method} ${path}: ${await res.text()}`).toBeLessThan(300);
+  return res.json();
+}
 const CSV = [
   "member,bloc,weight,ranking",
   "Moorland Union,Moorland Union,14,measure+A1 > measure+A7 > measure+A1+A2 > Q > measure",
@@ -60,6 +69,7 @@ describe("voting orders", () => {
     expect(await textOf(page.getByRole("heading", { name: /Preview/ }))).toContain("40 votes");
     await shot(page, "orders-upload-preview");
     await Promise.all([page.waitForURL(/\/orders\/[0-9a-f-]{36}$/), page.getByRole("button", { name: "Save estimate" }).click()]);
+    estimateId = page.url().split("/").pop()!;
     await visible(page.getByRole("heading", { name: "Findings" }), 60_000);
     expect(await textOf(page.getByText(/The order of questions decides the outcome/))).toBeTruthy();
     await visible(page.getByText(/projections from an estimate/).first());
@@ -67,6 +77,8 @@ describe("voting orders", () => {
     await shot(page, "orders-analysis");
     await page.getByRole("button", { name: "Walk through" }).first().click();
     await visible(page.getByRole("heading", { name: /Vote by vote/ }));
+    expect(await textOf(page.locator("#walk-through"))).toMatch(/adopted|rejected/);
+    expect(await page.locator("#walk-through").innerText()).toMatch(/\(\d+ for, \d+ against\)/);
     await shot(page, "orders-walk-through");
     await Promise.all([page.waitForURL(/\/script\?/), page.getByRole("link", { name: "Open the chair's script for this order" }).click()]);
     await visible(page.getByRole("heading", { name: /Chair's script/, level: 1 }));
@@ -83,6 +95,38 @@ describe("voting orders", () => {
     const md = await page.request.get(await page.getByRole("link", { name: "Download as Markdown" }).getAttribute("href").then((h) => `${BASE_URL}${h}`));
     expect(md.headers()["content-type"]).toMatch(/markdown/);
     expect(await md.text()).toMatch(/^# Chair's script/);
+  });
+
+  it("under a successive-procedure rulebook version, the walk-through and the chair's script show projected tallies", async () => {
+    expect(estimateId).not.toBe("");
+    const page = await freshPage(browser.context);
+    await signInAs(page, "clerk");
+    const books = await api(page, "GET", "/api/rulebooks");
+    const inForce = await api(page, "GET", `/api/rulebooks/${books.inForce.versionId}`);
+    const trial = await api(page, "POST", "/api/rulebooks", { basedOn: books.latest.id, note: `Successive voting trial ${unique}`, document: { ...inForce.document, voting: { ...inForce.document.voting, procedure: "successive" } } });
+    const run = await api(page, "POST", "/api/analysis/runs", { estimateId, rulebookVersionId: trial.id });
+    await page.goto(`${BASE_URL}/orders/${estimateId}?run=${run.runId}`);
+    await visible(page.getByRole("heading", { name: "Findings" }), 60_000);
+    await visible(page.getByText(/successive procedure \(yes\/no in turn\)/));
+    await page.getByRole("button", { name: "Walk through" }).first().click();
+    await visible(page.getByRole("heading", { name: /Vote by vote/ }));
+    const walk = await page.locator("#walk-through").innerText();
+    expect(walk).toMatch(/first choice among the versions still within reach/);
+    expect(walk).toMatch(/\(\d+ for, \d+ against\)/);
+    expect(walk).toContain("Weighed against what was still within reach: Q (no change)");
+    await page.locator("#walk-through").scrollIntoViewIfNeeded();
+    await shot(page, "orders-walk-through-successive");
+    await Promise.all([page.waitForURL(/\/script\?/), page.getByRole("link", { name: "Open the chair's script for this order" }).click()]);
+    await visible(page.getByRole("heading", { name: /Chair's script/, level: 1 }));
+    const first = await textOf(page.getByText(/^Projected: (adopted|rejected)/).first());
+    expect(first).toMatch(/\(\d+ for, \d+ against\)\. Counted for: members who rank this text above each of the other versions still within reach/);
+    expect(await page.getByText(/no tally/).count()).toBe(0);
+    await shot(page, "orders-chair-script-successive");
+    const md = await page.request.get(await page.getByRole("link", { name: "Download as Markdown" }).getAttribute("href").then((h) => `${BASE_URL}${h}`));
+    expect(await md.text()).toMatch(/\*Projected: (adopted|rejected) \(\d+ for, \d+ against\)/);
+    // Back to the analysis returns to the same run, still under the trial rulebook.
+    await page.getByRole("link", { name: "Back to the analysis" }).click();
+    await visible(page.getByText(/successive procedure \(yes\/no in turn\)/), 60_000);
   });
 
   it("a member's private estimate is not visible to the clerk", async () => {
@@ -123,5 +167,54 @@ describe("voting orders", () => {
     await visible(page.getByRole("button", { name: /^Moorland Union: 14 votes at \(2.5, 3\)/ }));
     await visible(page.getByRole("button", { name: "Save these positions as a new version" }));
     await shot(page, "orders-spatial-moved");
+  });
+
+  it("a spatial estimate gains a dimension and loses it again, each saved as a new version", async () => {
+    const page = await freshPage(browser.context);
+    await signInAs(page, "clerk");
+    const options = await api(page, "GET", "/api/estimates/options");
+    const measureId = (options.measures as Array<{ id: string; number: string }>).find((m) => m.number === "HCA 12")!.id;
+    const content = { kind: "spatial", dimensions: ["Lighting", "Cost"], statusQuo: [1, 1], measure: [5, 5], effects: { A1: { position: [6, 4] } }, members: [{ member: "Moorland Union", bloc: "Moorland Union", weight: 14, ideal: [2, 3] }, { member: "Harbour Progressives", bloc: "Harbour Progressives", weight: 12, ideal: [7, 6] }, { member: "Civic Reform", bloc: "Civic Reform", weight: 9, ideal: [8, 1] }] };
+    const made = await api(page, "POST", "/api/estimates", { measureId, title: `Dimensions ${unique}`, scope: ["A1", "A7"], content });
+    await page.goto(`${BASE_URL}/orders/${made.id}`);
+    const editor = page.getByTestId("positions-editor");
+    await visible(editor);
+    // Invalid names are refused on the page: empty, and one already used (ignoring case).
+    await editor.getByRole("button", { name: "Add a dimension" }).click();
+    expect(await textOf(editor.getByRole("alert"))).toMatch(/name/);
+    await editor.getByLabel("New dimension").fill("cost");
+    await editor.getByRole("button", { name: "Add a dimension" }).click();
+    expect(await textOf(editor.getByRole("alert"))).toContain("already called “Cost”");
+    await editor.getByLabel("New dimension").fill("Harbour access");
+    await editor.getByRole("button", { name: "Add a dimension" }).click();
+    await visible(editor.getByLabel("Name of dimension 3"));
+    expect(await editor.getByLabel("Name of dimension 3").inputValue()).toBe("Harbour access");
+    await visible(editor.getByLabel("Status quo on Harbour access"));
+    await visible(page.getByText("The plot shows estimates in two dimensions; this one has 3."));
+    await editor.getByLabel("Status quo on Harbour access").fill("4");
+    await shot(page, "orders-spatial-dimension-added");
+    await page.getByRole("button", { name: "Save these positions as a new version" }).click();
+    await visible(page.getByText(/version 2 of 2 — Dimensions and positions edited/));
+    let saved = await api(page, "GET", `/api/estimates/${made.id}`);
+    expect(saved.version.content).toMatchObject({ dimensions: ["Lighting", "Cost", "Harbour access"], statusQuo: [1, 1, 4], measure: [5, 5, 0], effects: { A1: { position: [6, 4, 0] } } });
+
+    // Removing asks first; "Keep it" changes nothing.
+    const after = page.getByTestId("positions-editor");
+    await after.getByRole("button", { name: "Remove dimension 2 (Cost)" }).click();
+    const confirm = after.getByRole("group", { name: "Confirm removing a dimension" });
+    expect(await textOf(confirm)).toContain("deleted from every member's ideal point");
+    await shot(page, "orders-spatial-dimension-confirm");
+    await confirm.getByRole("button", { name: "Keep it" }).click();
+    expect(await after.getByLabel("Name of dimension 2").inputValue()).toBe("Cost");
+    await after.getByRole("button", { name: "Remove dimension 2 (Cost)" }).click();
+    await after.getByRole("button", { name: "Remove “Cost”" }).click();
+    expect(await after.getByLabel("Name of dimension 2").inputValue()).toBe("Harbour access");
+    expect(await after.getByLabel("Name of dimension 3").count()).toBe(0);
+    await visible(page.getByRole("group", { name: /Lighting across, Harbour access up/ }));
+    await shot(page, "orders-spatial-dimension-removed");
+    await page.getByRole("button", { name: "Save these positions as a new version" }).click();
+    await visible(page.getByText(/version 3 of 3 — Dimensions and positions edited/));
+    saved = await api(page, "GET", `/api/estimates/${made.id}`);
+    expect(saved.version.content).toMatchObject({ dimensions: ["Lighting", "Harbour access"], statusQuo: [1, 4], measure: [5, 0], effects: { A1: { position: [6, 0] } }, members: [{ ideal: [2, 0] }, { ideal: [7, 0] }, { ideal: [8, 0] }] });
   });
 });

@@ -3,7 +3,7 @@
  * threads), polls its progress, then shows the versions, the majority graph and sets, the outcome
  * counts, findings, the orders (paged, filtered, CSV) and the walk-through of a chosen order.
  */
-import { useCallback, useEffect, useState } from "react";
+import { useCallback, useEffect, useRef, useState } from "react";
 import { z } from "zod";
 import { ApiError, apiCall, num, ordersPageSchema, runResultSchema, walkSchema, type Step } from "./api.ts";
 import MajorityGraph from "./MajorityGraph.tsx";
@@ -35,11 +35,23 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
     }
   }, []);
 
+  // A link may name a run of this estimate version (e.g. back from the chair's script, or a run under
+  // another rulebook version): show that run once instead of starting a new one.
+  const given = useRef(typeof window === "undefined" ? null : new URLSearchParams(window.location.search).get("run"));
   const start = useCallback(async () => {
     setBusy(true);
     setError(null);
     setWalk(null);
     try {
+      const runId = given.current;
+      given.current = null;
+      if (runId) {
+        const r = await apiCall(runResultSchema, `/api/analysis/runs/${encodeURIComponent(runId)}`).catch(() => null);
+        if (r && r.run.estimateId === estimateId && r.run.estimateVersion === version) {
+          await poll(runId);
+          return;
+        }
+      }
       const s = await apiCall(z.object({ runId: z.string() }), "/api/analysis/runs", { method: "POST", body: { estimateId, version } });
       await poll(s.runId);
     } catch (e) {
@@ -190,7 +202,7 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
           <h2 id="walk-h" className="text-lg font-semibold">Vote by vote: {walk.walk.order.join(" → ")}</h2>
           <p className="gw-advisory mt-2">{ADVISORY}</p>
           <div className="mt-3 grid gap-4 lg:grid-cols-2">
-            <WalkColumn title="Sincere voting" note="Members vote for the version they prefer of the two before them." steps={walk.walk.sincere.steps} outcome={walk.walk.sincere.outcome} short={short} />
+            <WalkColumn title="Sincere voting" note={a.procedure === "successive" ? "Successive procedure: a member votes for an amendment only if the text it makes is the member's first choice among the versions still within reach (the no-change option included); final passage sets the text reached against no change." : "Members vote for the version they prefer of the two before them."} steps={walk.walk.sincere.steps} outcome={walk.walk.sincere.outcome} short={short} />
             <WalkColumn title="Sophisticated voting" note="Members look ahead and vote for the branch that ends better for them." steps={walk.walk.sophisticated.steps} outcome={walk.walk.sophisticated.outcome} short={short} />
           </div>
           <a className="gw-btn mt-4" href={`/orders/${estimateId}/script?run=${result.run.id}&order=${encodeURIComponent(walk.walk.order.join(","))}`}>Open the chair's script for this order</a>
@@ -214,6 +226,7 @@ function WalkColumn({ title, note, steps, outcome, short }: { title: string; not
                 — {short(s.motion!)} against {short(s.base!)}:{" "}
                 <span className={s.adopted ? "font-semibold text-verdict-ok" : "font-semibold text-verdict-bar"}>{s.adopted ? "adopted" : "rejected"}</span>
                 {s.for !== undefined && <span> ({s.for} for, {s.against} against)</span>}
+                {s.withinReach && s.withinReach.length > 0 && <span className="block text-xs text-ink-soft">Weighed against what was still within reach: {s.withinReach.map(short).join(", ")}</span>}
               </>
             )}
           </li>

@@ -48,6 +48,7 @@ export const runSchema = z.object({
   phase: z.string().nullable(),
   progress: z.number(),
   rulebook: z.string(),
+  estimateId: z.string().optional(),
   estimateVersion: z.number(),
   error: z.object({ code: z.string(), message: z.string() }).passthrough().nullable(),
 });
@@ -83,7 +84,7 @@ export const ordersPageSchema = z.object({
   pageSize: z.number(),
   orders: z.array(z.object({ rank: z.number(), questions: z.array(z.string()), sincere: z.string(), sophisticated: z.string(), sincereShort: z.string(), sophisticatedShort: z.string() })),
 });
-const stepSchema = z.object({ question: z.string(), put: z.boolean(), motion: z.string().optional(), base: z.string().optional(), for: z.number().optional(), against: z.number().optional(), adopted: z.boolean().optional(), fallsIfAdopted: z.array(z.string()).optional(), fallsIfRejected: z.array(z.string()).optional() });
+const stepSchema = z.object({ question: z.string(), put: z.boolean(), motion: z.string().optional(), base: z.string().optional(), for: z.number().optional(), against: z.number().optional(), withinReach: z.array(z.string()).optional(), adopted: z.boolean().optional(), fallsIfAdopted: z.array(z.string()).optional(), fallsIfRejected: z.array(z.string()).optional() });
 export const walkSchema = z.object({
   walk: z.object({ order: z.array(z.string()), totalWeight: z.number(), sincere: z.object({ outcome: z.string(), steps: z.array(stepSchema) }), sophisticated: z.object({ outcome: z.string(), steps: z.array(stepSchema) }) }),
   versions: z.array(versionSchema),

@@ -8,9 +8,10 @@
 import { useMemo, useRef, useState } from "react";
 import { z } from "zod";
 import { mergedIdealPoints, spatialInput, type EstimateContent } from "../../lib/estimates/estimate-content.ts";
+import { addDimension, dimensionNameIssue, removeDimension } from "../../lib/estimates/dimension-edits.ts";
 import { majorityGraph } from "../../lib/voting/majority-graph.ts";
 import { majorityReport } from "../../lib/voting/majority-report.ts";
-import { scaleSpatial, spatialProfile, spatialSchema, versionPosition } from "../../lib/voting/spatial-profile.ts";
+import { MAX_DIMENSIONS, scaleSpatial, spatialProfile, spatialSchema, versionPosition } from "../../lib/voting/spatial-profile.ts";
 import { winSet } from "../../lib/voting/win-set.ts";
 import { unscale } from "../../lib/voting/exact-decimal.ts";
 import { ApiError, apiCall } from "../orders/api.ts";
@@ -76,7 +77,7 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
   };
   const save = async () => {
     try {
-      await apiCall(z.object({ version: z.number() }), `/api/estimates/${estimateId}/versions`, { method: "POST", body: { basedOn, scope, content, note: "Positions edited on the plot" } });
+      await apiCall(z.object({ version: z.number() }), `/api/estimates/${estimateId}/versions`, { method: "POST", body: { basedOn, scope, content, note: content.dimensions.join("\n") === initial.dimensions.join("\n") ? "Positions edited on the plot" : "Dimensions and positions edited" } });
       window.location.reload();
     } catch (e) {
       setMessage(e instanceof ApiError ? e.message : "Could not save.");
@@ -194,6 +195,16 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
       const next = ranges.map((r, j) => (j === i ? ((end === 0 ? [v, r[1]] : [r[0], v]) as [number, number]) : r));
       return next.every(([a, b]) => a < b) ? { ...c, ranges: next } : c;
     });
+  const [newName, setNewName] = useState("");
+  const [addIssue, setAddIssue] = useState<string | null>(null);
+  const [confirming, setConfirming] = useState<number | null>(null);
+  const add = () => {
+    const issue = dims.length >= MAX_DIMENSIONS ? `An estimate has at most ${MAX_DIMENSIONS} dimensions.` : dimensionNameIssue(dims, newName);
+    setAddIssue(issue);
+    if (issue) return;
+    onChange((c) => addDimension(c, newName));
+    setNewName("");
+  };
   const effect = (k: string) => content.effects[k] ?? {};
   const effectKind = (k: string): "position" | "shift" | "none" => (effect(k).position ? "position" : effect(k).shift ? "shift" : "none");
   const setEffect = (k: string, kind: "position" | "shift" | "none") =>
@@ -210,18 +221,39 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
         <div>
           <h3 className="font-semibold">Dimensions</h3>
           <table className="gw-table mt-1">
-            <thead><tr><th scope="col">#</th><th scope="col">Name</th><th scope="col">Low end</th><th scope="col">High end</th></tr></thead>
+            <thead><tr><th scope="col">#</th><th scope="col">Name</th><th scope="col">Low end</th><th scope="col">High end</th><th scope="col"><span className="sr-only">Remove</span></th></tr></thead>
             <tbody>
               {dims.map((d, i) => (
                 <tr key={i}>
                   <td>{i + 1}</td>
-                  <td><input className="gw-input mt-0" aria-label={`Name of dimension ${i + 1}`} value={d} maxLength={80} onChange={(e) => { const v = e.target.value; onChange((c) => ({ ...c, dimensions: c.dimensions.map((x, j) => (j === i ? v : x)) })); }} /></td>
+                  <td>
+                    <input className="gw-input mt-0" aria-label={`Name of dimension ${i + 1}`} aria-invalid={dimensionNameIssue(dims, d, i) ? true : undefined} value={d} maxLength={80} onChange={(e) => { const v = e.target.value; onChange((c) => ({ ...c, dimensions: c.dimensions.map((x, j) => (j === i ? v : x)) })); }} />
+                    {dimensionNameIssue(dims, d, i) && <span className="gw-error block text-xs">{dimensionNameIssue(dims, d, i)}</span>}
+                  </td>
                   <td><NumberBox label={`Low end of ${d}`} value={ranges[i][0]} onChange={(v) => setRange(i, 0, v)} /></td>
                   <td><NumberBox label={`High end of ${d}`} value={ranges[i][1]} onChange={(v) => setRange(i, 1, v)} /></td>
+                  <td><button type="button" className="gw-btn-quiet px-2 py-0.5" aria-label={`Remove dimension ${i + 1} (${d})`} title={dims.length === 1 ? "An estimate needs at least one dimension" : undefined} disabled={dims.length === 1} onClick={() => setConfirming(i)}>✕</button></td>
                 </tr>
               ))}
             </tbody>
           </table>
+          {confirming !== null && confirming < dims.length && (
+            <div className="mt-2 rounded border border-verdict-bar bg-verdict-bar-tint p-3 text-sm" role="group" aria-label="Confirm removing a dimension">
+              <p>Remove dimension {confirming + 1}, “{dims[confirming]}”? Its coordinate is deleted from every member's ideal point, from the status quo and the measure, and from each amendment's position or shift. Nothing is saved until you save a new version.</p>
+              <div className="mt-2 flex gap-2">
+                <button type="button" className="gw-btn-danger" autoFocus onClick={() => { const i = confirming; setConfirming(null); onChange((c) => removeDimension(c, i)); }}>Remove “{dims[confirming]}”</button>
+                <button type="button" className="gw-btn-quiet" onClick={() => setConfirming(null)}>Keep it</button>
+              </div>
+            </div>
+          )}
+          <div className="mt-2 flex flex-wrap items-end gap-2">
+            <label className="gw-label">New dimension
+              <input className="gw-input" value={newName} maxLength={80} disabled={dims.length >= MAX_DIMENSIONS} aria-describedby="new-dimension-hint" onChange={(e) => { setNewName(e.target.value); setAddIssue(null); }} onKeyDown={(e) => { if (e.key === "Enter") { e.preventDefault(); add(); } }} />
+            </label>
+            <button type="button" className="gw-btn-quiet" disabled={dims.length >= MAX_DIMENSIONS} onClick={add}>Add a dimension</button>
+          </div>
+          {addIssue && <p className="gw-error" role="alert">{addIssue}</p>}
+          <p className="gw-hint" id="new-dimension-hint">{dims.length} of at most {MAX_DIMENSIONS} dimensions. A new dimension starts at 0 for every point, so nothing changes until you place the points on it.</p>
           <p className="gw-hint">The scale frames the plot; a point may lie outside it. Members' points move by dragging, or by the arrow keys.</p>
         </div>
         <div>
