@@ -1,8 +1,7 @@
 import { useEffect, useRef, useState, type FormEvent } from "react";
-import { lineRangeFromText } from "../../lib/amendments/line-range-text.ts";
 import { z } from "zod";
-import { AMENDMENT_FORMS } from "../../lib/amendments/case-schema.ts";
-import { FORM_LABELS } from "../../lib/server/measure-schemas.ts";
+import type { AMENDMENT_FORMS } from "../../lib/amendments/case-schema.ts";
+import AmendmentFields, { LINES_HINT, readAmendmentFields } from "./AmendmentFields.tsx";
 import { apiCall, conflictText, issuesByField } from "./api.ts";
 
 export interface EditableAmendment {
@@ -79,9 +78,9 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
     e.preventDefault();
     if (!a) return;
     const fd = new FormData(e.currentTarget);
-    const lines = lineRangeFromText(String(fd.get("lines") ?? ""));
-    if (lines === "invalid") {
-      setErrors({ lines: "write a line or a range such as 3-7" });
+    const fields = readAmendmentFields(fd);
+    if (!fields) {
+      setErrors({ lines: LINES_HINT });
       return;
     }
     setBusy(true);
@@ -91,17 +90,7 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
     try {
       await apiCall(saved, `/api/amendments/${a.id}`, {
         method: "PATCH",
-        body: {
-          version: a.version,
-          form: fd.get("form"),
-          target: fd.get("target"),
-          lines,
-          title: String(fd.get("title") ?? "").trim() || null,
-          text: String(fd.get("text") ?? ""),
-          subjects: String(fd.get("subjects") ?? "").split(",").map((s) => s.trim()).filter(Boolean),
-          sponsors: fd.getAll("sponsors").map(String),
-          committee: String(fd.get("committee") ?? "").trim() || null,
-        },
+        body: { version: a.version, ...fields },
       });
       window.location.hash = a.key;
       window.location.reload();
@@ -115,7 +104,6 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
     }
   }
 
-  const err = (k: string) => errors[k] && <p className="gw-error" id={`ae-${k}-err`}>{errors[k]}</p>;
   return (
     <form ref={root} key={a.id} id="edit-amendment" className="gw-card space-y-3" onSubmit={onSubmit} aria-labelledby="ae-h" data-testid="amendment-editor">
       <div className="flex flex-wrap items-end justify-between gap-3">
@@ -129,60 +117,14 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
           </div>
         )}
       </div>
-      <div className="grid gap-3 sm:grid-cols-3">
-        <div>
-          <label htmlFor="ae-form" className="gw-label">Form</label>
-          <select id="ae-form" name="form" className="gw-input" defaultValue={a.form}>
-            {AMENDMENT_FORMS.map((f) => <option key={f} value={f}>{FORM_LABELS[f]}</option>)}
-          </select>
-          {err("form")}
-        </div>
-        <div>
-          <label htmlFor="ae-target" className="gw-label">Amends</label>
-          <select id="ae-target" name="target" className="gw-input" defaultValue={a.target}>
-            <option value="measure">The whole measure</option>
-            <optgroup label="Sections">{sections.map((s) => <option key={s.id} value={s.id}>§ {s.id} {s.heading} ({s.lines} lines)</option>)}</optgroup>
-            {targets.some((t) => t.key !== a.key) && <optgroup label="Amendments">{targets.filter((t) => t.key !== a.key).map((t) => <option key={t.key} value={t.key}>{t.key} {t.title}</option>)}</optgroup>}
-          </select>
-          {err("target")}
-        </div>
-        <div>
-          <label htmlFor="ae-lines" className="gw-label">Lines (sections only)</label>
-          <input id="ae-lines" name="lines" className="gw-input" defaultValue={a.lines ? (a.lines[0] === a.lines[1] ? String(a.lines[0]) : `${a.lines[0]}-${a.lines[1]}`) : ""} placeholder="e.g. 2-3" />
-          {err("lines")}
-        </div>
-      </div>
-      <div className="grid gap-3 sm:grid-cols-2">
-        <div>
-          <label htmlFor="ae-title" className="gw-label">Short title</label>
-          <input id="ae-title" name="title" className="gw-input" maxLength={500} defaultValue={a.title ?? ""} />
-        </div>
-        <div>
-          <label htmlFor="ae-committee" className="gw-label">Committee of jurisdiction (if not the measure's)</label>
-          <input id="ae-committee" name="committee" className="gw-input" maxLength={200} defaultValue={a.committee ?? ""} />
-          {err("committee")}
-        </div>
-      </div>
-      <div>
-        <label htmlFor="ae-text" className="gw-label">Text of the amendment</label>
-        <textarea id="ae-text" name="text" rows={4} className="gw-input" defaultValue={a.text} />
-        {err("text")}
-      </div>
-      <div className="grid gap-3 sm:grid-cols-2">
-        <div>
-          <label htmlFor="ae-subjects" className="gw-label">Subject tags</label>
-          <input id="ae-subjects" name="subjects" className="gw-input" defaultValue={a.subjects.join(", ")} />
-          <p className="gw-hint">Comma-separated. Germaneness is judged on these.</p>
-          {err("subjects")}
-        </div>
-        <div>
-          <label htmlFor="ae-sponsors" className="gw-label">Sponsors</label>
-          <select id="ae-sponsors" name="sponsors" multiple size={5} className="gw-input" defaultValue={a.sponsors}>
-            {legislators.map((l) => <option key={l.id} value={l.id}>{l.name} ({l.bloc})</option>)}
-          </select>
-          {err("sponsors")}
-        </div>
-      </div>
+      <AmendmentFields
+        prefix="ae"
+        sections={sections}
+        amendments={targets.filter((t) => t.key !== a.key)}
+        legislators={legislators}
+        defaults={{ form: a.form, target: a.target, lines: a.lines ? (a.lines[0] === a.lines[1] ? String(a.lines[0]) : `${a.lines[0]}-${a.lines[1]}`) : "", title: a.title ?? "", committee: a.committee ?? "", text: a.text, subjects: a.subjects.join(", "), sponsors: a.sponsors }}
+        errors={errors}
+      />
       {failure && (
         <div className="gw-card border-verdict-bar bg-verdict-bar-tint" role="alert" data-testid="amendment-editor-error">
           <p className="text-sm text-verdict-bar">{failure}</p>

@@ -1,7 +1,9 @@
 import { useState, type FormEvent } from "react";
 import { z } from "zod";
-import { MEASURE_STATUSES, type MeasureStatus } from "../../lib/server/measure-schemas.ts";
+import type { MeasureStatus } from "../../lib/server/measure-schemas.ts";
+import MeasureFields, { readMeasureFields } from "./MeasureFields.tsx";
 import { apiCall, conflictText, issuesByField } from "./api.ts";
+import { tags } from "./tags.ts";
 
 interface SectionDraft {
   /** Stable React key; the stored id (if any) is `id`. */
@@ -30,7 +32,6 @@ interface Props {
 }
 
 const saved = z.object({ id: z.string(), version: z.number() });
-const tags = (s: string) => s.split(",").map((t) => t.trim()).filter(Boolean);
 /** datetime-local wants local "YYYY-MM-DDTHH:mm". */
 function localInput(iso: string | null): string {
   if (!iso) return "";
@@ -62,7 +63,6 @@ export default function MeasureEditor({ measure, legislators }: Props) {
   async function onSubmit(e: FormEvent<HTMLFormElement>) {
     e.preventDefault();
     const fd = new FormData(e.currentTarget);
-    const sitting = String(fd.get("sittingAt") ?? "");
     setBusy(true);
     setErrors({});
     setFailure(null);
@@ -72,13 +72,7 @@ export default function MeasureEditor({ measure, legislators }: Props) {
         method: "PATCH",
         body: {
           version: measure.version,
-          number: String(fd.get("number") ?? ""),
-          title: String(fd.get("title") ?? ""),
-          committee: String(fd.get("committee") ?? "").trim() || null,
-          status: fd.get("status"),
-          subjects: tags(String(fd.get("subjects") ?? "")),
-          sponsors: fd.getAll("sponsors").map(String),
-          sittingAt: sitting ? new Date(sitting).toISOString() : null,
+          ...readMeasureFields(fd),
           sections: sections.map((s) => ({ ...(s.id ? { id: s.id } : {}), ...(s.heading.trim() ? { heading: s.heading.trim() } : {}), text: s.text, subjects: tags(s.subjects), status: s.status })),
         },
       });
@@ -97,25 +91,12 @@ export default function MeasureEditor({ measure, legislators }: Props) {
   return (
     <form className="gw-card space-y-4" onSubmit={onSubmit} aria-labelledby="me-h" data-testid="measure-editor">
       <h2 id="me-h" className="text-step-2">Edit {measure.number}</h2>
-      <div className="grid gap-3 sm:grid-cols-3">
-        <div><label htmlFor="me-number" className="gw-label">Number</label><input id="me-number" name="number" required className="gw-input" defaultValue={measure.number} />{err("number")}</div>
-        <div className="sm:col-span-2"><label htmlFor="me-title" className="gw-label">Title</label><input id="me-title" name="title" required className="gw-input" defaultValue={measure.title} maxLength={500} />{err("title")}</div>
-        <div><label htmlFor="me-committee" className="gw-label">Committee of jurisdiction</label><input id="me-committee" name="committee" className="gw-input" defaultValue={measure.committee ?? ""} maxLength={200} />{err("committee")}</div>
-        <div>
-          <label htmlFor="me-status" className="gw-label">Status</label>
-          <select id="me-status" name="status" className="gw-input" defaultValue={measure.status}>{MEASURE_STATUSES.map((s) => <option key={s} value={s}>{s}</option>)}</select>
-        </div>
-        <div><label htmlFor="me-sitting" className="gw-label">On the floor at</label><input id="me-sitting" name="sittingAt" type="datetime-local" className="gw-input" defaultValue={localInput(measure.sittingAt)} />{err("sittingAt")}</div>
-        <div className="sm:col-span-2"><label htmlFor="me-subjects" className="gw-label">Subject tags</label><input id="me-subjects" name="subjects" className="gw-input" defaultValue={measure.subjects.join(", ")} /><p className="gw-hint">Comma-separated.</p>{err("subjects")}</div>
-        <div>
-          <label htmlFor="me-sponsors" className="gw-label">Sponsors</label>
-          <select id="me-sponsors" name="sponsors" multiple size={4} className="gw-input" defaultValue={measure.sponsors}>
-            {legislators.map((l) => <option key={l.id} value={l.id}>{l.name} ({l.bloc})</option>)}
-          </select>
-          <p className="gw-hint">Ctrl/⌘-click to choose several.</p>
-          {err("sponsors")}
-        </div>
-      </div>
+      <MeasureFields
+        prefix="me"
+        legislators={legislators}
+        defaults={{ number: measure.number, title: measure.title, committee: measure.committee ?? "", status: measure.status, sittingAt: localInput(measure.sittingAt), subjects: measure.subjects.join(", "), sponsors: measure.sponsors }}
+        errors={errors}
+      />
 
       <fieldset className="space-y-3">
         <legend className="gw-label">Sections</legend>

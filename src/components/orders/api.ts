@@ -1,42 +1,10 @@
 /**
- * Browser-side calls to the estimates and analysis API, every answer parsed with zod (never cast).
+ * The estimates and analysis API's answers, as zod schemas the islands parse with (never cast);
+ * the calls themselves go through the shared client in ../shared/api.ts.
  */
 import { z } from "zod";
 
-export class ApiError extends Error {
-  constructor(
-    readonly status: number,
-    readonly code: string,
-    message: string,
-    readonly issues: Array<{ path: string; message: string }> = [],
-  ) {
-    super(message);
-  }
-}
-
-const errorBody = z.object({ error: z.object({ code: z.string(), message: z.string(), issues: z.array(z.object({ path: z.string(), message: z.string() })).default([]) }) });
-
-export async function apiCall<S extends z.ZodType>(schema: S, url: string, init: { method?: string; body?: unknown; raw?: Blob | string; type?: string } = {}): Promise<z.output<S>> {
-  const res = await fetch(url, {
-    method: init.method ?? "GET",
-    headers: init.raw !== undefined ? { "content-type": init.type ?? "text/csv" } : init.body !== undefined ? { "content-type": "application/json" } : undefined,
-    body: init.raw ?? (init.body !== undefined ? JSON.stringify(init.body) : undefined),
-  });
-  let data: unknown = null;
-  try {
-    data = await res.json();
-  } catch {
-    /* no JSON body */
-  }
-  if (!res.ok) {
-    const e = errorBody.safeParse(data);
-    if (e.success) throw new ApiError(res.status, e.data.error.code, e.data.error.message, e.data.error.issues);
-    throw new ApiError(res.status, "internal", `The server answered ${res.status}. Nothing was saved.`);
-  }
-  const parsed = schema.safeParse(data);
-  if (!parsed.success) throw new ApiError(res.status, "internal", "The server's answer was not in the expected shape.");
-  return parsed.data;
-}
+export { ApiError, apiCall } from "../shared/api.ts";
 
 const count = z.union([z.number(), z.string()]);
 export const versionSchema = z.object({ id: z.string(), short: z.string(), words: z.string() });

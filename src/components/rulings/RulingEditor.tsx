@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useState, type FormEvent } from "react";
+import { useEffect, useMemo, useState, type FormEvent, type ReactNode } from "react";
 import { appealOutcome, APPEAL_OUTCOME_LABELS } from "../../lib/rulings/appeal-outcome.ts";
 import { DECISION_LABELS, DECISIONS, TARGET_KINDS, type Decision, type TargetKind } from "../../lib/rulings/ruling-content.ts";
 import { api, ApiError, draftingOptions, rulingView, searchResults, type CitationView, type DraftingOptions, type RulingView } from "./api.ts";
@@ -102,6 +102,51 @@ function FieldError({ id, errors, path }: { id: string; errors: Record<string, s
   ) : null;
 }
 
+/** A labelled text input (or textarea) with its field error when `path` names a field of the content. */
+function TextField(props: { id: string; path?: string; label: string; value: string; onChange: (v: string) => void; errors?: Record<string, string>; multiline?: boolean; rows?: number; type?: string; inputMode?: "numeric"; placeholder?: string; className?: string; children?: ReactNode }) {
+  const { id, path, label, value, onChange, errors = {}, multiline, rows, type, inputMode, placeholder, className, children } = props;
+  const invalid = path && errors[path] ? { "aria-invalid": true as const, "aria-describedby": `${id}-err` } : {};
+  return (
+    <div className={className}>
+      <label htmlFor={id} className="gw-label">
+        {label}
+      </label>
+      {multiline ? (
+        <textarea id={id} rows={rows} className="gw-input" value={value} onChange={(e) => onChange(e.target.value)} placeholder={placeholder} {...invalid} />
+      ) : (
+        <input id={id} type={type} inputMode={inputMode} className="gw-input" value={value} onChange={(e) => onChange(e.target.value)} placeholder={placeholder} {...invalid} />
+      )}
+      {children}
+      {path && <FieldError id={id} errors={errors} path={path} />}
+    </div>
+  );
+}
+
+/**
+ * A labelled choice among {id, label} options after one empty choice, with its field error when
+ * `path` names a field of the content; the id is `f-<path>` unless given.
+ */
+function ChoiceField(props: { path?: string; id?: string; label: string; empty: string; value: string; choices: Array<{ id: string; label: string }>; onChange: (v: string) => void; errors?: Record<string, string>; className?: string }) {
+  const { path, label, empty, value, choices, onChange, errors = {}, className } = props;
+  const id = props.id ?? `f-${path}`;
+  return (
+    <div className={className}>
+      <label htmlFor={id} className="gw-label">
+        {label}
+      </label>
+      <select id={id} className="gw-input" value={value} onChange={(e) => onChange(e.target.value)} {...(path && errors[path] ? { "aria-invalid": true as const, "aria-describedby": `${id}-err` } : {})}>
+        <option value="">{empty}</option>
+        {choices.map((c) => (
+          <option key={c.id} value={c.id}>
+            {c.label}
+          </option>
+        ))}
+      </select>
+      {path && <FieldError id={id} errors={errors} path={path} />}
+    </div>
+  );
+}
+
 export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props) {
   const [d, setD] = useState<Draft>(() => fromRuling(initial));
   const [opts, setOpts] = useState<DraftingOptions | null>(null);
@@ -188,14 +233,9 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
       <form onSubmit={submit} className="gw-card space-y-5" noValidate aria-label={mode === "new" ? "Record a ruling" : mode === "edit" ? "Edit the draft" : "Record a correction"}>
         {mode === "revise" && (
-          <div>
-            <label htmlFor="f-note" className="gw-label">
-              What does this correction change?
-            </label>
-            <input id="f-note" className="gw-input" value={d.note} onChange={(e) => set("note", e.target.value)} {...inv("note")} />
+          <TextField id="f-note" path="note" label="What does this correction change?" value={d.note} onChange={(v) => set("note", v)} errors={errors}>
             <p className="gw-hint">Revision {initial!.revision + 1}. The text as issued stays in the history.</p>
-            <FieldError id="f-note" errors={errors} path="note" />
-          </div>
+          </TextField>
         )}
         <fieldset className="grid gap-4 sm:grid-cols-2">
           <legend className="mb-2 font-serif text-step-1 font-semibold text-chamber-dark">The point of order</legend>
@@ -226,41 +266,9 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
               ))}
             </select>
           </div>
-          <div className="sm:col-span-2">
-            <label htmlFor="f-targetLabel" className="gw-label">
-              What it was raised against
-            </label>
-            <input id="f-targetLabel" className="gw-input" value={d.targetLabel} onChange={(e) => set("targetLabel", e.target.value)} placeholder="e.g. Motion to postpone the Harbour Dredging Levy indefinitely" {...inv("target.label")} />
-            <FieldError id="f-targetLabel" errors={errors} path="target.label" />
-          </div>
-          <div>
-            <label htmlFor="f-measureId" className="gw-label">
-              Measure (optional)
-            </label>
-            <select id="f-measureId" className="gw-input" value={d.measureId} onChange={(e) => setD((x) => ({ ...x, measureId: e.target.value, amendmentId: "" }))} {...inv("measureId")}>
-              <option value="">None</option>
-              {opts?.measures.map((m) => (
-                <option key={m.id} value={m.id}>
-                  {m.label}
-                </option>
-              ))}
-            </select>
-            <FieldError id="f-measureId" errors={errors} path="measureId" />
-          </div>
-          <div>
-            <label htmlFor="f-amendmentId" className="gw-label">
-              Amendment (optional)
-            </label>
-            <select id="f-amendmentId" className="gw-input" value={d.amendmentId} onChange={(e) => set("amendmentId", e.target.value)} {...inv("amendmentId")}>
-              <option value="">None</option>
-              {amendmentsHere.map((a) => (
-                <option key={a.id} value={a.id}>
-                  {a.label}
-                </option>
-              ))}
-            </select>
-            <FieldError id="f-amendmentId" errors={errors} path="amendmentId" />
-          </div>
+          <TextField id="f-targetLabel" path="target.label" label="What it was raised against" value={d.targetLabel} onChange={(v) => set("targetLabel", v)} placeholder="e.g. Motion to postpone the Harbour Dredging Levy indefinitely" className="sm:col-span-2" errors={errors} />
+          <ChoiceField path="measureId" label="Measure (optional)" empty="None" value={d.measureId} choices={opts?.measures ?? []} onChange={(v) => setD((x) => ({ ...x, measureId: v, amendmentId: "" }))} errors={errors} />
+          <ChoiceField path="amendmentId" label="Amendment (optional)" empty="None" value={d.amendmentId} choices={amendmentsHere} onChange={(v) => set("amendmentId", v)} errors={errors} />
           <div>
             <label htmlFor="f-motion" className="gw-label">
               Motion concerned (rulebook id, optional)
@@ -273,19 +281,8 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
             </datalist>
             <FieldError id="f-motion" errors={errors} path="motion" />
           </div>
-          <div>
-            <label htmlFor="f-targetRef" className="gw-label">
-              Reference (finding or record id, optional)
-            </label>
-            <input id="f-targetRef" className="gw-input" value={d.targetRef} onChange={(e) => set("targetRef", e.target.value)} />
-          </div>
-          <div className="sm:col-span-2">
-            <label htmlFor="f-question" className="gw-label">
-              Question put to the chair
-            </label>
-            <textarea id="f-question" rows={2} className="gw-input" value={d.question} onChange={(e) => set("question", e.target.value)} {...inv("question")} />
-            <FieldError id="f-question" errors={errors} path="question" />
-          </div>
+          <TextField id="f-targetRef" label="Reference (finding or record id, optional)" value={d.targetRef} onChange={(v) => set("targetRef", v)} />
+          <TextField id="f-question" path="question" label="Question put to the chair" value={d.question} onChange={(v) => set("question", v)} multiline rows={2} className="sm:col-span-2" errors={errors} />
         </fieldset>
 
         <fieldset className="space-y-3">
@@ -303,21 +300,9 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
           </div>
           <FieldError id="f-decision" errors={errors} path="decision" />
           {d.decision === "other" && (
-            <div>
-              <label htmlFor="f-decisionNote" className="gw-label">
-                The other disposition
-              </label>
-              <input id="f-decisionNote" className="gw-input" value={d.decisionNote} onChange={(e) => set("decisionNote", e.target.value)} {...inv("decisionNote")} />
-              <FieldError id="f-decisionNote" errors={errors} path="decisionNote" />
-            </div>
+            <TextField id="f-decisionNote" path="decisionNote" label="The other disposition" value={d.decisionNote} onChange={(v) => set("decisionNote", v)} errors={errors} />
           )}
-          <div>
-            <label htmlFor="f-reasoning" className="gw-label">
-              Reasoning
-            </label>
-            <textarea id="f-reasoning" rows={6} className="gw-input" value={d.reasoning} onChange={(e) => set("reasoning", e.target.value)} {...inv("reasoning")} />
-            <FieldError id="f-reasoning" errors={errors} path="reasoning" />
-          </div>
+          <TextField id="f-reasoning" path="reasoning" label="Reasoning" value={d.reasoning} onChange={(v) => set("reasoning", v)} multiline rows={6} errors={errors} />
           <div>
             <span className="gw-label">Citations</span>
             {d.citations.length === 0 && <p className="gw-hint">No citations yet.</p>}
@@ -371,21 +356,7 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
             </button>
             {opts && opts.rulings.length > 0 && (
               <div className="mt-3 flex flex-wrap items-end gap-2">
-                <div className="min-w-64 flex-1">
-                  <label htmlFor="f-ruling" className="gw-label">
-                    Earlier ruling
-                  </label>
-                  <select id="f-ruling" className="gw-input" value={rulingChoice} onChange={(e) => setRulingChoice(e.target.value)}>
-                    <option value="">Choose a ruling…</option>
-                    {opts.rulings
-                      .filter((r) => r.id !== initial?.id)
-                      .map((r) => (
-                        <option key={r.id} value={r.id}>
-                          {r.label}
-                        </option>
-                      ))}
-                  </select>
-                </div>
+                <ChoiceField className="min-w-64 flex-1" id="f-ruling" label="Earlier ruling" empty="Choose a ruling…" value={rulingChoice} choices={opts.rulings.filter((r) => r.id !== initial?.id)} onChange={setRulingChoice} />
                 <button type="button" className="gw-btn-quiet" onClick={addRuling} disabled={!rulingChoice}>
                   Cite ruling
                 </button>
@@ -402,32 +373,10 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
           </label>
           {d.appealed && (
             <div className="grid gap-3 sm:grid-cols-4">
-              <div>
-                <label htmlFor="f-ayes" className="gw-label">
-                  To sustain the chair
-                </label>
-                <input id="f-ayes" inputMode="numeric" className="gw-input" value={d.ayes} onChange={(e) => set("ayes", e.target.value)} {...inv("appeal.ayes")} />
-                <FieldError id="f-ayes" errors={errors} path="appeal.ayes" />
-              </div>
-              <div>
-                <label htmlFor="f-noes" className="gw-label">
-                  Against
-                </label>
-                <input id="f-noes" inputMode="numeric" className="gw-input" value={d.noes} onChange={(e) => set("noes", e.target.value)} {...inv("appeal.noes")} />
-                <FieldError id="f-noes" errors={errors} path="appeal.noes" />
-              </div>
-              <div>
-                <label htmlFor="f-abst" className="gw-label">
-                  Abstaining
-                </label>
-                <input id="f-abst" inputMode="numeric" className="gw-input" value={d.abstentions} onChange={(e) => set("abstentions", e.target.value)} />
-              </div>
-              <div>
-                <label htmlFor="f-appellant" className="gw-label">
-                  Appellant
-                </label>
-                <input id="f-appellant" className="gw-input" value={d.appellant} onChange={(e) => set("appellant", e.target.value)} />
-              </div>
+              <TextField id="f-ayes" path="appeal.ayes" label="To sustain the chair" value={d.ayes} onChange={(v) => set("ayes", v)} inputMode="numeric" errors={errors} />
+              <TextField id="f-noes" path="appeal.noes" label="Against" value={d.noes} onChange={(v) => set("noes", v)} inputMode="numeric" errors={errors} />
+              <TextField id="f-abst" label="Abstaining" value={d.abstentions} onChange={(v) => set("abstentions", v)} inputMode="numeric" />
+              <TextField id="f-appellant" label="Appellant" value={d.appellant} onChange={(v) => set("appellant", v)} />
               {appealPreview && <p className="gw-hint sm:col-span-4" aria-live="polite">{appealPreview}</p>}
             </div>
           )}
@@ -458,20 +407,8 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
               </select>
             </div>
           )}
-          <div>
-            <label htmlFor="f-sitting" className="gw-label">
-              Sitting
-            </label>
-            <input id="f-sitting" className="gw-input" value={d.sitting} onChange={(e) => set("sitting", e.target.value)} {...inv("sitting")} />
-            <FieldError id="f-sitting" errors={errors} path="sitting" />
-          </div>
-          <div>
-            <label htmlFor="f-sittingDate" className="gw-label">
-              Date
-            </label>
-            <input id="f-sittingDate" type="date" className="gw-input" value={d.sittingDate} onChange={(e) => set("sittingDate", e.target.value)} {...inv("sittingDate")} />
-            <FieldError id="f-sittingDate" errors={errors} path="sittingDate" />
-          </div>
+          <TextField id="f-sitting" path="sitting" label="Sitting" value={d.sitting} onChange={(v) => set("sitting", v)} errors={errors} />
+          <TextField id="f-sittingDate" path="sittingDate" label="Date" value={d.sittingDate} onChange={(v) => set("sittingDate", v)} type="date" errors={errors} />
         </fieldset>
 
         {message && (

@@ -1,0 +1,63 @@
+/**
+ * The islands' one way to call the app's JSON API: every answer is parsed with zod (never cast),
+ * and an error body becomes an ApiError carrying the code, the field issues and any details, so
+ * every island shows a refusal the same way.
+ */
+import { z } from "zod";
+
+export type Issue = { path: string; message: string };
+
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly issues: Issue[] = [],
+    readonly details: Record<string, unknown> = {},
+  ) {
+    super(message);
+  }
+}
+
+/** The error body every route answers with (see src/lib/server/http.ts). */
+const errorBody = z.object({
+  error: z.object({
+    code: z.string(),
+    message: z.string(),
+    issues: z.array(z.object({ path: z.string(), message: z.string() })).default([]),
+    details: z.record(z.string(), z.unknown()).optional(),
+  }),
+});
+
+export interface ApiInit {
+  method?: string;
+  /** Sent as JSON. */
+  body?: unknown;
+  /** Sent as multipart form data (the browser sets the content type). */
+  form?: FormData;
+  /** Sent as is, with `type` as its content type (default text/csv). */
+  raw?: Blob | string;
+  type?: string;
+}
+
+export async function apiCall<S extends z.ZodType>(schema: S, url: string, init: ApiInit = {}): Promise<z.output<S>> {
+  const res = await fetch(url, {
+    method: init.method ?? "GET",
+    headers: init.raw !== undefined ? { "content-type": init.type ?? "text/csv" } : init.body !== undefined ? { "content-type": "application/json" } : undefined,
+    body: init.form ?? init.raw ?? (init.body !== undefined ? JSON.stringify(init.body) : undefined),
+  });
+  let data: unknown = null;
+  try {
+    data = await res.json();
+  } catch {
+    /* no JSON body */
+  }
+  if (!res.ok) {
+    const e = errorBody.safeParse(data);
+    if (e.success) throw new ApiError(res.status, e.data.error.code, e.data.error.message, e.data.error.issues, e.data.error.details);
+    throw new ApiError(res.status, "internal", `The server answered ${res.status}. Nothing was saved.`);
+  }
+  const parsed = schema.safeParse(data);
+  if (!parsed.success) throw new ApiError(res.status, "internal", "The server's answer was not in the expected shape.");
+  return parsed.data;
+}
