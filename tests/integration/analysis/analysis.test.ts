@@ -10,6 +10,8 @@ import * as orders from "../../../src/pages/api/analysis/runs/[id]/orders.ts";
 import * as walk from "../../../src/pages/api/analysis/runs/[id]/walk.ts";
 import * as script from "../../../src/pages/api/analysis/runs/[id]/script.ts";
 import * as list from "../../../src/pages/api/estimates/index.ts";
+import * as rulebooks from "../../../src/pages/api/rulebooks/index.ts";
+import * as template from "../../../src/pages/api/rulebooks/templates/[id].ts";
 import { launchRun, runFinished } from "../../../src/lib/server/analysis/runner.ts";
 import { seedMeasures } from "../../../src/lib/server/seed/measures.ts";
 import { seedEstimates } from "../../../src/lib/server/seed/estimates.ts";
@@ -145,5 +147,36 @@ describe("reading an analysis", () => {
     expect(md.response.headers.get("content-disposition")).toMatch(/attachment/);
     expect(md.body as string).toMatch(/^# Chair's script/);
     expect((await call(script.GET, "GET", "/x", { as: s.outsider, params: { id: runId }, query: { order: "A2 A1 A7 passage" } })).status).toBe(404);
+  });
+});
+
+describe("under a successive-procedure rulebook version", () => {
+  it("the walk-through and the chair's script carry tallies for every vote put, and agree with the run's outcomes", async () => {
+    // The chamber's rules as the analysis reads them (the demo template here), voted successively.
+    const books = (await call(rulebooks.GET, "GET", "/x", { as: s.as.clerk })).body;
+    const doc = (await call(template.GET, "GET", "/x", { as: s.as.clerk, params: { id: "demo-chamber" } })).body.document;
+    const trial = await call(rulebooks.POST, "POST", "/x", { as: s.as.clerk, body: { basedOn: books.latest?.id ?? null, note: "Successive trial", document: { ...doc, voting: { ...doc.voting, procedure: "successive" } } } });
+    expect(trial.status).toBe(201);
+    const started = await call(runs.POST, "POST", "/api/analysis/runs", { as: s.as.clerk, body: { estimateId: seeded.ballotsId, rulebookVersionId: trial.body.id } });
+    expect(started.status).toBe(202);
+    const done = await finished(started.body.runId);
+    expect(done.analysis.procedure).toBe("successive");
+    const listed = (await call(orders.GET, "GET", "/x", { as: s.as.clerk, params: { id: started.body.runId } })).body.orders as Array<{ questions: string[]; sincere: string; sophisticated: string }>;
+    expect(listed.length).toBe(3);
+    for (const o of listed) {
+      const w = (await call(walk.GET, "GET", "/x", { as: s.as.member, params: { id: started.body.runId }, query: { order: o.questions.join(",") } })).body.walk;
+      expect([w.sincere.outcome, w.sophisticated.outcome]).toEqual([o.sincere, o.sophisticated]);
+      for (const st of [...w.sincere.steps, ...w.sophisticated.steps].filter((x: { put: boolean }) => x.put)) {
+        expect(Number.isInteger(st.for) && Number.isInteger(st.against)).toBe(true);
+        expect(st.for + st.against).toBeLessThanOrEqual(40);
+      }
+      for (const st of w.sincere.steps.filter((x: { put: boolean }) => x.put)) {
+        if (st.question === "passage") expect(st.withinReach).toBeUndefined();
+        else expect(st.withinReach).toContain("Q");
+      }
+      const md = await call(script.GET, "GET", "/x", { as: s.as.clerk, params: { id: started.body.runId }, query: { order: o.questions.join(" "), format: "md" } });
+      expect(md.body as string).not.toMatch(/no tally/);
+      expect((md.body as string).match(/\*Projected: (adopted|rejected) \(\d+ for, \d+ against\)/g)?.length).toBe(w.sincere.steps.filter((x: { put: boolean }) => x.put).length);
+    }
   });
 });
