@@ -36,6 +36,8 @@ try {
     SMTP_HOST: "127.0.0.1",
     SMTP_PORT: String(port + 1000),
     GAVELWRIGHT_DEV_MAILBOX: "1",
+    // Instances are for tests and parallel work: many sign-ins from 127.0.0.1 are expected.
+    GAVELWRIGHT_RATE_LIMIT: process.env.GAVELWRIGHT_RATE_LIMIT ?? "off",
     GAVELWRIGHT_OUT_DIR: join(ROOT, ".build", name),
     GAVELWRIGHT_CACHE_DIR: join(ROOT, ".build", `${name}-cache`),
   };

@@ -75,9 +75,11 @@ try {
     runNode([vitest, "run", "-c", "vitest.faults.config.ts"], { ...base, GAVELWRIGHT_SERVER_BUILD: env.GAVELWRIGHT_OUT_DIR });
     const tsx = join(ROOT, "node_modules", "tsx", "dist", "cli.mjs");
     children.push(spawn(process.execPath, [tsx, "scripts/mail-catcher.ts"], { cwd: ROOT, env, stdio: ["ignore", "ignore", "inherit"] }));
-    children.push(spawn(process.execPath, [join(ROOT, "scripts", "serve.mjs")], { cwd: ROOT, env, stdio: ["ignore", "ignore", "inherit"] }));
+    // Two server processes sharing the port, as in production: what one process remembers must
+    // never hide another's write (tests/browser/read-your-writes.test.ts and every flow).
+    children.push(spawn(process.execPath, [join(ROOT, "scripts", "serve.mjs")], { cwd: ROOT, env: { ...env, GAVELWRIGHT_WORKERS: "2" }, stdio: ["ignore", "ignore", "inherit"] }));
     await waitForServer(`http://127.0.0.1:${PORT}/sign-in`);
-    log(`browser tests against http://127.0.0.1:${PORT} (Chromium at ${CHROMIUM})…`);
+    log(`browser tests against http://127.0.0.1:${PORT}, two server processes (Chromium at ${CHROMIUM})…`);
     runNode([vitest, "run", "-c", "vitest.browser.config.ts"], { ...base, GAVELWRIGHT_TEST_URL: `http://127.0.0.1:${PORT}`, DATABASE_URL: e2eDb });
   }
   log(`all tests passed in ${Math.round((Date.now() - started) / 1000)} s`);

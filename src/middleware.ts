@@ -1,7 +1,7 @@
 import { defineMiddleware } from "astro:middleware";
 import { randomUUID } from "node:crypto";
 import { ensureMigrated } from "./lib/server/db.ts";
-import { contextFor, settleWrites } from "./lib/server/context.ts";
+import { contextFor, forgetAccessAfter } from "./lib/server/context.ts";
 import { startOutboxWorker } from "./lib/server/mail.ts";
 import { errorResponse } from "./lib/server/http.ts";
 import { describeError } from "./lib/server/log-safe.ts";
@@ -43,7 +43,7 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
     }
   }
   const res = await next();
-  await settleWrites(ctx.request.method, path);
+  forgetAccessAfter(ctx.request.method, path);
   for (const [k, v] of Object.entries(SECURITY_HEADERS)) if (!res.headers.has(k)) res.headers.set(k, v);
   if (ctx.url.protocol === "https:") res.headers.set("strict-transport-security", "max-age=31536000; includeSubDomains");
   return res;

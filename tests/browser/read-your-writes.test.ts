@@ -1,10 +1,10 @@
 // Against the built server over HTTP: the server remembers who is asking and a measure's tree
-// between requests (src/lib/server/context.ts, chamber-memory.ts), yet whoever writes sees the
-// write on their very next request. The guarantee is that a write answers only after this
-// server has heard its own notices (fence in src/lib/server/notices.ts); on loopback the notice
-// usually wins the race anyway, so this checks the behaviour (it fails if a write is not
-// forgotten at all, e.g. a trigger missing), not the ordering by itself.
-// Common practice ("read your writes" consistency), no source.
+// between requests (src/lib/server/context.ts, chamber-memory.ts), yet a write is seen by the
+// very next request, whichever server process answers it: a remembered value is used only once
+// the process has heard every notice committed before the request (caughtUp in
+// src/lib/server/notices.ts). `npm test` serves these tests with two processes
+// (GAVELWRIGHT_WORKERS=2), where the next request often lands on the other process; without
+// caughtUp this failed within a few rounds there. Common practice ("read your writes"), no source.
 import { describe, expect, it } from "vitest";
 import { account, BASE_URL } from "./browser.ts";
 

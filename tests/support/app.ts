@@ -4,7 +4,7 @@
  */
 import type { APIContext, APIRoute } from "astro";
 import { auth } from "../../src/lib/server/auth.ts";
-import { loadContext, settleWrites } from "../../src/lib/server/context.ts";
+import { loadContext, forgetAccessAfter } from "../../src/lib/server/context.ts";
 
 export const BASE = process.env.BETTER_AUTH_URL ?? "http://127.0.0.1:4399";
 
@@ -58,7 +58,7 @@ export async function call(handler: APIRoute | undefined, method: string, path: 
   const locals = { ...(await loadContext(headers)), requestId: "test" } as App.Locals;
   const ctx = { request, url, params: opts.params ?? {}, locals, redirect: (to: string, status = 302) => new Response(null, { status, headers: { location: to } }) } as unknown as APIContext;
   const response = await handler(ctx);
-  await settleWrites(method, url.pathname); // as the middleware does
+  forgetAccessAfter(method, url.pathname); // as the middleware does
   const text = await response.text();
   let parsed: unknown = text;
   try {

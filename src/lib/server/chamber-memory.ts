@@ -3,14 +3,14 @@
  * time: per chamber (its rulebook adoptions, its roster's names) and per measure (its tree as
  * read). Kept only while this process hears NOTIFY — sent by triggers whenever the underlying
  * tables change, whoever writes (drizzle/0006, 0007) — and forgotten on the notice, when LISTEN
- * drops, and after MEMORY_TTL_MS. A value loaded while a notice arrived is not kept. Requests
- * that write wait for their own notices before answering (`fence` in ./notices.ts, called by
- * the middleware), so whoever wrote reads their write on the next request, on any server.
+ * drops, and after MEMORY_TTL_MS. A value loaded while a notice arrived is not kept, and a kept
+ * value is used only once this process has heard every notice committed before the request
+ * (`caughtUp` in ./notices.ts), so a write on any server is seen by the next request anywhere.
  *
  *   gw_chamber  payload: chamber id ('' = every chamber)  → chamber facts, and the chamber's measures
  *   gw_measure  payload: measure id                        → that measure's facts
  */
-import { isListening, onListenChange, onNotice } from "./notices.ts";
+import { caughtUp, isListening, onListenChange, onNotice } from "./notices.ts";
 
 export const CHAMBER_CHANNEL = "gw_chamber";
 export const MEASURE_CHANNEL = "gw_measure";
@@ -53,9 +53,12 @@ function subscribe() {
 async function recall<T>(store: Map<string, Entry>, key: string, chamberId: string, load: () => Promise<T>, stillGood?: (value: T) => boolean | Promise<boolean>): Promise<T> {
   if (TTL_MS === 0) return load();
   subscribe();
+  // Only after hearing every notice committed before now (a write on any server).
+  if (store.has(key) && (await caughtUp())) {
+    const hit = store.get(key);
+    if (hit && hit.chamberId === chamberId && Date.now() - hit.at < TTL_MS && (!stillGood || (await stillGood(hit.value as T)))) return hit.value as T;
+  }
   const now = Date.now();
-  const hit = store.get(key);
-  if (hit && hit.chamberId === chamberId && isListening() && now - hit.at < TTL_MS && (!stillGood || (await stillGood(hit.value as T)))) return hit.value as T;
   const before = generation;
   const value = await load();
   if (before === generation && isListening()) {

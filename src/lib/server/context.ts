@@ -4,7 +4,7 @@ import { auth } from "./auth.ts";
 import { db } from "./db.ts";
 import { member, organization, session as sessionTable } from "../db/schema/auth.ts";
 import { isChamberRole, type ChamberRole } from "../permissions.ts";
-import { fence, isListening, onListenChange, onNotice } from "./notices.ts";
+import { caughtUp, isListening, onListenChange, onNotice } from "./notices.ts";
 
 export interface RequestContext {
   user: App.Locals["user"];
@@ -49,7 +49,8 @@ export async function loadContext(headers: Headers): Promise<RequestContext> {
  * anything it rests on changes: triggers on the session, member, user and organization tables
  * send NOTIFY gw_access (drizzle/0006_change_notices.sql) to every server, and this process
  * also forgets everything after any request that changes sign-ins or roles (forgetAccess). It is
- * used only while LISTEN is in place (a server that might miss a notice keeps nothing), an entry
+ * used only while LISTEN is in place (a server that might miss a notice keeps nothing) and only
+ * once this process has heard every notice committed before the request (caughtUp), an entry
  * loaded while a notice arrived is not kept, and nothing lives longer than ACCESS_TTL_MS or past
  * its session's expiry. Set GAVELWRIGHT_ACCESS_CACHE_MS=0 to turn it off.
  */
@@ -93,10 +94,14 @@ export async function contextFor(headers: Headers): Promise<RequestContext> {
   const key = ACCESS_TTL_MS > 0 ? sessionCookieOf(headers) : null;
   if (!key) return loadContext(headers);
   subscribe();
+  // Only after hearing every notice committed before now (a sign-out or role change on any server).
+  if (remembered.has(key) && (await caughtUp())) {
+    const now = Date.now();
+    const hit = remembered.get(key);
+    if (hit && now - hit.at < ACCESS_TTL_MS && hit.ctx.session && new Date(hit.ctx.session.expiresAt).getTime() > now) return { ...hit.ctx };
+    remembered.delete(key);
+  }
   const now = Date.now();
-  const hit = remembered.get(key);
-  if (hit && isListening() && now - hit.at < ACCESS_TTL_MS && hit.ctx.session && new Date(hit.ctx.session.expiresAt).getTime() > now) return { ...hit.ctx };
-  if (hit) remembered.delete(key);
   const before = generation;
   const ctx = await loadContext(headers);
   if (ctx.user && before === generation && isListening()) {
@@ -106,17 +111,7 @@ export async function contextFor(headers: Headers): Promise<RequestContext> {
   return { ...ctx };
 }
 
-/** POST routes that only read (a question too large for a query string). */
-const READ_ONLY_POSTS = new Set(["/api/moves"]);
-
-/**
- * After a request that may have written: forget who may do what at once when sign-ins or roles
- * may have changed, and wait until this server has heard the notices of whatever was written
- * (what it remembers between requests is forgotten on them: chamber-memory.ts), so that the
- * writer reads their own write on the next request.
- */
-export async function settleWrites(method: string, path: string): Promise<void> {
-  if (method === "GET" || method === "HEAD" || READ_ONLY_POSTS.has(path)) return;
-  if (path.startsWith("/api/auth/") || path.startsWith("/api/people/")) forgetAccess();
-  await fence();
+/** After a request: sign-in, sign-out, chamber switches and role changes clear this server's access memory at once. */
+export function forgetAccessAfter(method: string, path: string): void {
+  if (method !== "GET" && method !== "HEAD" && (path.startsWith("/api/auth/") || path.startsWith("/api/people/"))) forgetAccess();
 }

@@ -11,6 +11,9 @@ import { randomUUID } from "node:crypto";
 import postgres from "postgres";
 import { describeError } from "./log-safe.ts";
 
+/** How the LISTEN connection shows in pg_stat_activity. */
+export const NOTICES_APPLICATION_NAME = "gavelwright-notices";
+
 type Handler = (payload: string) => void;
 type ChangeHook = (listening: boolean) => void;
 
@@ -34,6 +37,7 @@ function connection(): postgres.Sql {
     max_lifetime: null,
     fetch_types: false,
     connect_timeout: 10,
+    connection: { application_name: NOTICES_APPLICATION_NAME },
     onnotice: () => {},
     onnotify: (channel, payload) => dispatch(channel, payload),
     onclose: () => lost(),
@@ -129,17 +133,35 @@ const FENCE_CHANNEL = "gw_fence";
 const FENCE_WAIT_MS = 2000;
 const fences = new Map<string, () => void>();
 let fenceListening: Promise<unknown> | null = null;
+let inflight: Promise<boolean> | null = null;
+let next: Promise<boolean> | null = null;
 
 /**
- * Wait until this process has received every notice of every transaction committed so far
- * (PostgreSQL delivers notices in commit order, so once a notice sent now comes back, all
- * earlier ones are in). A request that wrote calls this before answering, so that what this
- * process remembers already reflects the write when the same person asks again. If the notice
- * does not come back in time, every `onListenChange` hook runs as if LISTEN had been lost
- * (whatever is remembered is forgotten).
+ * Resolves true once this process has heard every notice of every transaction that committed
+ * before the call, false when that cannot be known now (then whatever was remembered has been
+ * forgotten). How: send a notice of our own and wait for it to come back — PostgreSQL delivers
+ * notices in commit order, so everything committed earlier has been handed to its handlers by
+ * then. Calls made while one such round trip is in flight share the next one, so under load one
+ * round trip serves many requests. What is remembered is used only after this (read your writes,
+ * and anyone else's, on every server).
  */
-export async function fence(): Promise<void> {
-  if (!listening) return; // nothing is remembered without LISTEN
+export function caughtUp(): Promise<boolean> {
+  if (!listening) return Promise.resolve(false);
+  if (!inflight) {
+    inflight = roundTrip().finally(() => {
+      inflight = null;
+    });
+    return inflight;
+  }
+  // The one in flight may have been sent before this call: wait for the next.
+  next ??= inflight.then(() => {
+    next = null;
+    return caughtUp();
+  });
+  return next;
+}
+
+async function roundTrip(): Promise<boolean> {
   try {
     fenceListening ??= onNotice(FENCE_CHANNEL, (token) => fences.get(token)?.()).catch((e) => {
       fenceListening = null;
@@ -154,21 +176,23 @@ export async function fence(): Promise<void> {
     });
     try {
       await connection()`SELECT pg_notify(${FENCE_CHANNEL}, ${token})`;
-      if (await back) return;
+      if (await back) return true;
     } finally {
       clearTimeout(timer);
       fences.delete(token);
     }
   } catch {
-    /* the database is away: fall through and forget */
+    /* the database is away: forget below */
   }
   for (const hook of changeHooks) hook(false);
+  return false;
 }
 
 /** Stop listening and close the connection (for scripts that end, such as the seed). */
 export async function endNotices(): Promise<void> {
   handlers.clear();
   fenceListening = null;
+  inflight = next = null;
   if (retryTimer) clearTimeout(retryTimer);
   retryTimer = null;
   const c = conn;

@@ -7,7 +7,7 @@
 import postgres from "postgres";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { contextFor } from "../../../src/lib/server/context.ts";
-import { isListening } from "../../../src/lib/server/notices.ts";
+import { isListening, NOTICES_APPLICATION_NAME } from "../../../src/lib/server/notices.ts";
 import { loadRulebook } from "../../../src/lib/server/services/rulebooks.ts";
 import { legislatorNames } from "../../../src/lib/server/services/measures.ts";
 import { seedRulebooks } from "../../../src/lib/server/seed/rulebooks.ts";
@@ -75,7 +75,7 @@ describe("who is signed in, remembered per session", () => {
     await until("LISTEN to be in place", async () => isListening());
     expect((await contextFor(h)).role).toBe("staff");
     await other.unsafe(`ALTER TABLE "member" DISABLE TRIGGER gw_access_member`);
-    await other`SELECT pg_terminate_backend(pid) FROM pg_stat_activity WHERE datname = current_database() AND query ILIKE 'LISTEN%' AND pid <> pg_backend_pid()`;
+    await other`SELECT pg_terminate_backend(pid) FROM pg_stat_activity WHERE datname = current_database() AND application_name = ${NOTICES_APPLICATION_NAME}`;
     await until("the lost LISTEN to be noticed", async () => !isListening());
     // A change that sends no notice, while the server could not have heard one anyway.
     await other`UPDATE "member" SET role = 'clerk' WHERE user_id = ${seeded.as.staff.userId}`;
