@@ -1,5 +1,6 @@
-// Browser: staff send the floor-day digest from the circulation page to the clerks' list, see
-// what was queued and each recipient's delivery, and the chief clerk finds it in the caught mail.
+// Browser: staff send the floor-day digest from the circulation page to the clerks' list (or to
+// another list of the chamber they choose), see what was queued and each recipient's delivery,
+// and the chief clerk finds it in the caught mail.
 // Product contract (common practice, no source).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
@@ -10,6 +11,9 @@ let context: BrowserContext;
 let page: Page;
 const stamp = Date.now().toString(36);
 const sitting = `Digest sitting ${stamp}`;
+const readersSitting = `Readers' sitting ${stamp}`;
+const readersList = `Digest readers ${stamp}`;
+const readersAddress = `readers-${stamp}@harrowmere.example.org`;
 
 beforeAll(async () => {
   browser = await launch();
@@ -30,7 +34,7 @@ describe("floor-day digest in the browser", () => {
     await switchTo("staff");
     await page.goto(`${BASE_URL}/circulation`);
     const form = page.getByRole("form", { name: "Floor-day digest" });
-    await expect.poll(() => form.getByTestId("digest-destination").innerText()).toMatch(/clerks' list, Clerks' desk \(\d+ recipients\)/);
+    await expect.poll(() => form.getByTestId("digest-destination").innerText(), { timeout: 10_000 }).toMatch(/clerks' list, Clerks' desk \(\d+ recipients\)/);
     // A sitting recorded on the floor is offered first, its day filled in; another is typed by name.
     const pick = form.getByLabel("Sitting", { exact: true });
     await expect.poll(() => pick.locator("option").count()).toBeGreaterThan(1);
@@ -60,6 +64,33 @@ describe("floor-day digest in the browser", () => {
     await shot(page, "digest-2-sent");
   });
 
+  it("staff may choose another list of the chamber instead, and only that list is sent the digest", async () => {
+    const made = await page.evaluate(
+      async ([name, email]) => (await fetch("/api/circulation/lists", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ name, entries: [{ kind: "address", email, name: "Digest readers" }] }) })).status,
+      [readersList, readersAddress],
+    );
+    expect(made).toBe(201);
+    await page.goto(`${BASE_URL}/circulation`);
+    const form = page.getByRole("form", { name: "Floor-day digest" });
+    const sendTo = form.getByLabel("Send to");
+    // The clerks' list stays the default choice.
+    await expect.poll(() => sendTo.locator("option").allInnerTexts(), { timeout: 10_000 }).toContain(`${readersList} (1 recipient)`);
+    expect(await sendTo.locator("option:checked").innerText()).toBe("The clerks' list (Clerks' desk)");
+    await sendTo.selectOption({ label: `${readersList} (1 recipient)` });
+    expect(await form.getByTestId("digest-destination").innerText()).toBe(`Goes to the list ${readersList} (1 recipient).`);
+    await form.getByLabel("Sitting", { exact: true }).selectOption({ label: "Another sitting…" });
+    await form.getByLabel("Sitting name").fill(readersSitting);
+    await form.getByLabel("Day").fill("2026-05-15");
+    await shot(page, "digest-2b-chosen-list");
+    await form.getByRole("button", { name: "Send the digest" }).click();
+    await expect.poll(() => form.getByRole("status").count()).toBe(1);
+    expect(await form.getByRole("status").innerText()).toBe(`Queued 1 message to ${readersList}.`);
+    const table = form.getByTestId("digest-delivery");
+    await expect.poll(async () => (await table.innerText().catch(() => "")).match(/Delivered to mail server/g)?.length ?? 0, { timeout: 30_000 }).toBe(1);
+    expect(await table.innerText()).toContain(readersAddress);
+    await shot(page, "digest-2c-chosen-list-sent");
+  });
+
   it("the clerks receive it: the chief clerk finds it in the caught mail with the findings and order", async () => {
     await switchTo("chief-clerk");
     await page.goto(`${BASE_URL}/dev/mail`);
@@ -71,6 +102,10 @@ describe("floor-day digest in the browser", () => {
     expect(body).toContain("Out of order Amendment 4: A third-degree amendment is out of order.");
     expect(body).toContain("2. Amendment 1 as amended — if Amendment 2 is adopted");
     await shot(page, "digest-3-caught");
+    // The digest sent to the chosen list reached its one address, not the clerks.
+    const readers = caught.locator("li", { hasText: `${readersSitting}, 2026-05-15` });
+    await expect.poll(async () => readers.count(), { timeout: 20_000 }).toBe(1);
+    expect(await readers.innerText()).toContain(readersAddress);
   });
 
   it("a member neither sees the control nor may send", async () => {

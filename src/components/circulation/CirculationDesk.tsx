@@ -269,7 +269,7 @@ export default function CirculationDesk({ canEditLists, canSendDigest }: { canEd
         {canSendDigest && (
           <section aria-labelledby="digest-h" className="gw-card">
             <h2 id="digest-h">Floor-day digest</h2>
-            <p className="gw-hint">The findings and the proposed order of questions for a sitting, sent to the clerks before the day's business.</p>
+            <p className="gw-hint">The findings and the proposed order of questions for a sitting, sent before the day's business to the clerks' list or another list you choose.</p>
             <div className="mt-3">
               <FloorDigestForm lists={lists} onSent={() => void load()} />
             </div>

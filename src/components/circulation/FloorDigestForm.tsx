@@ -39,6 +39,7 @@ interface FindingRow {
 }
 
 const OTHER = "__other";
+const recipients = (n: number | undefined) => (n === undefined ? "? recipients" : `${n} recipient${n === 1 ? "" : "s"}`);
 const today = () => new Date().toISOString().slice(0, 10);
 
 /** "Label — note" or "Label", one question per line. */
@@ -120,8 +121,9 @@ function DigestDelivery({ id }: { id: string }) {
 }
 
 /**
- * Queue the floor-day digest of a sitting to the clerks' list: the sitting and day, the measure,
- * the tree's findings and the proposed order of questions as the clerk states them.
+ * Queue the floor-day digest of a sitting to the clerks' list, or to another list of the chamber
+ * the sender picks: the sitting and day, the measure, the tree's findings and the proposed order
+ * of questions as the clerk states them.
  */
 export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] | null; onSent: () => void }) {
   const [sittings, setSittings] = useState<z.output<typeof sittingsView>["sittings"]>([]);
@@ -136,6 +138,7 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
   const [error, setError] = useState<string | null>(null);
   const [sent, setSent] = useState<z.output<typeof sentView> | null>(null);
   const [nextKey, setNextKey] = useState(1);
+  const [listId, setListId] = useState("");
 
   useEffect(() => {
     api("/api/floor/sittings", sittingsView).then(
@@ -157,6 +160,8 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
   }
 
   const clerksList = lists?.find((l) => l.purpose === "clerks") ?? null;
+  // A chosen list deleted since is dropped: the digest then goes to the clerks' list, as the line below the choice says.
+  const chosen = (listId && lists?.find((l) => l.id === listId)) || null;
 
   async function submit(e: FormEvent) {
     e.preventDefault();
@@ -174,6 +179,7 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
       })),
       proposedOrder: parseOrder(order),
       note,
+      ...(chosen ? { listId: chosen.id } : {}),
     };
     try {
       const s = await api("/api/circulation/digest", sentView, {
@@ -296,10 +302,29 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
         </label>
         <textarea id="dg-note" rows={2} className="gw-input text-sm" value={note} onChange={(e) => setNote(e.target.value)} maxLength={4000} />
       </div>
+      <div>
+        <label htmlFor="dg-list" className="gw-label">
+          Send to
+        </label>
+        <select id="dg-list" className="gw-input" value={chosen?.id ?? ""} onChange={(e) => setListId(e.target.value)}>
+          <option value="">{clerksList ? `The clerks' list (${clerksList.name})` : "Every chief clerk and clerk"}</option>
+          {(lists ?? [])
+            .filter((l) => l !== clerksList)
+            .map((l) => (
+              <option key={l.id} value={l.id}>
+                {l.name} ({recipients(l.recipientCount)})
+              </option>
+            ))}
+        </select>
+      </div>
       <p className="text-sm" data-testid="digest-destination">
         Goes to{" "}
         {lists === null ? (
           "…"
+        ) : chosen ? (
+          <>
+            the list <strong>{chosen.name}</strong> ({recipients(chosen.recipientCount)}).
+          </>
         ) : clerksList ? (
           <>
             the clerks' list, <strong>{clerksList.name}</strong> ({clerksList.recipientCount ?? "?"} recipients).

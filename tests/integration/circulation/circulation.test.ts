@@ -295,6 +295,41 @@ describe("floor-day digest", () => {
   });
 });
 
+describe("floor-day digest to a chosen list", () => {
+  const body = { sitting: "Seventh sitting", date: "2026-04-15", proposedOrder: [{ label: "Passage" }] };
+  const digests = () => inbox.filter((m) => m.subject.includes("floor-day digest"));
+
+  it("refuses another chamber's list, an unknown id or a malformed one with 422 on listId, queueing nothing", async () => {
+    const theirs = await makeList(s.outsider, { name: "Saltreach digest readers", entries: [{ kind: "role", role: "chief-clerk" }] });
+    const before = await tableCounts();
+    for (const listId of [theirs.id, "00000000-0000-4000-8000-000000000000", "not-a-list"]) {
+      const r = await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as.clerk, body: { ...body, listId } });
+      expect(r.status, listId).toBe(422);
+      expect(r.body.error.code).toBe("unprocessable");
+      expect(r.body.error.issues.map((i: { path: string }) => i.path)).toEqual(["listId"]);
+    }
+    expect(await tableCounts()).toEqual(before);
+    await drain();
+    expect(digests()).toEqual([]);
+  });
+
+  it("goes to exactly the chosen list's recipients; without listId (or null) to the clerks' list as before", async () => {
+    const whips = await makeList(s.as.staff, { name: "Digest whips", entries: [{ kind: "role", role: "member" }, { kind: "address", email: "whip@harrowmere.example.org", name: "Whips' office" }] });
+    const ok = await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as.staff, body: { ...body, listId: whips.id } });
+    expect(ok.status).toBe(201);
+    expect(ok.body).toMatchObject({ listId: whips.id, listName: "Digest whips" });
+    await drain();
+    const members = DEMO_ACCOUNTS.filter((a) => a.chamber === "harrowmere" && a.role === "member").map((a) => a.email);
+    expect(addresses(digests())).toEqual([...members, "whip@harrowmere.example.org"].sort());
+    inbox.length = 0;
+    const plain = await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as.clerk, body: { ...body, listId: null } });
+    expect(plain.status).toBe(201);
+    expect(plain.body.listName).toBe("Clerks' desk");
+    await drain();
+    expect(addresses(digests())).toEqual([emailOf("chief-clerk"), emailOf("clerk")].sort());
+  });
+});
+
 describe("caught mail (development view)", () => {
   /** Queue a message as `enqueueMail` does and record it as the catcher would, with the same Message-ID. */
   async function caught(mail: { to: string; subject: string; chamberId?: string }) {

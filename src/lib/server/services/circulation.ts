@@ -24,7 +24,8 @@ const uuid = z.string().uuid();
 export const listInputSchema = distributionListSchema;
 export const listUpdateSchema = distributionListSchema.extend({ version: z.number().int().min(1) });
 export const sendSchema = z.object({ rulingId: uuid, listId: uuid });
-export const digestSchema = floorDigestSchema;
+/** The digest, and optionally the chamber's list to send it to (`listId`; without it, the clerks' list). */
+export const digestSchema = floorDigestSchema.extend({ listId: z.string().max(200).nullish() });
 export const unsubscribeSchema = z.object({ token: z.string().min(10).max(2000) });
 
 type ListRow = typeof distributionLists.$inferSelect;
@@ -241,11 +242,19 @@ export async function circulateRuling(actor: Actor, input: z.output<typeof sendS
 /**
  * Queue the floor-day digest (the tree's findings and the proposed order of questions) to the
  * chamber's clerks' list (the list marked purpose "clerks"; without one, every chief clerk and
- * clerk). Other areas call this with their content; pass `tx` to commit with your own change.
+ * clerk), or to the chamber's list `listId` when given: another chamber's list, or none, is a
+ * 422 naming `listId` and queues nothing. Other areas call this with their content; pass `tx` to
+ * commit with your own change.
  */
-export async function enqueueFloorDigest(chamberId: string, digestInput: unknown, sentBy: { userId: string | null; name: string }, tx?: Tx) {
+export async function enqueueFloorDigest(chamberId: string, digestInput: unknown, sentBy: { userId: string | null; name: string }, tx?: Tx, options: { listId?: string | null } = {}) {
   const digest: FloorDigest = floorDigestSchema.parse(digestInput);
   const run = async (t: Tx) => {
+    if (options.listId) {
+      const chosen = uuid.safeParse(options.listId).success ? (await t.select().from(distributionLists).where(and(eq(distributionLists.id, options.listId), eq(distributionLists.chamberId, chamberId))))[0] : undefined;
+      if (!chosen) throw new GavelError("unprocessable", "listId: no such distribution list in this chamber.", { issues: [{ path: "listId", message: "no such distribution list in this chamber" }] });
+      const name = await chamberName(t, chamberId);
+      return enqueueToList(t, { chamberId, ...sentBy }, chosen, "floor-digest", { ref: `${digest.sitting} ${digest.date}` }, (u) => renderFloorDigest({ chamberName: name, digest, unsubscribeUrl: u }));
+    }
     const [clerks] = await t.select().from(distributionLists).where(and(eq(distributionLists.chamberId, chamberId), eq(distributionLists.purpose, "clerks")));
     const list: ListRow = clerks ?? { id: null as unknown as string, chamberId, name: "Clerks (chief clerk and clerks)", description: "", purpose: "clerks", entries: [{ kind: "role", role: "chief-clerk" }, { kind: "role", role: "clerk" }], version: 1, createdAt: new Date(), updatedAt: new Date() };
     const name = await chamberName(t, chamberId);
@@ -271,8 +280,9 @@ export async function enqueueFloorDigest(chamberId: string, digestInput: unknown
   return tx ? run(tx) : db.transaction(run);
 }
 
-export async function sendFloorDigest(actor: Actor, digest: FloorDigest) {
-  return enqueueFloorDigest(actor.chamber.id, digest, { userId: actor.user.id, name: actor.user.name });
+export async function sendFloorDigest(actor: Actor, input: z.output<typeof digestSchema>) {
+  const { listId, ...digest } = input;
+  return enqueueFloorDigest(actor.chamber.id, digest, { userId: actor.user.id, name: actor.user.name }, undefined, { listId });
 }
 
 const STATUSES = ["queued", "sending", "sent", "failed", "uncertain"] as const;
