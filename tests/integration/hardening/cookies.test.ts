@@ -1,19 +1,15 @@
 // Session cookies: HttpOnly and SameSite=Lax always; Secure (with the __Secure- prefix) when the
 // public origin is https, so they never travel over plain HTTP behind a TLS proxy.
 // Common practice (OWASP session management; RFC 6265bis cookie prefixes), no source.
-import { spawnSync } from "node:child_process";
-import { join } from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { DEMO_ACCOUNTS } from "../../../src/lib/server/seed/demo-data.ts";
 import { seedChambers } from "../../support/fixtures.ts";
+import { runFixture } from "./fixtures/run-fixture.ts";
 
 const observer = DEMO_ACCOUNTS.find((a) => a.chamber === "harrowmere" && a.role === "observer")!;
 
 function signInUnder(origin: string): { status: number; cookies: string[] } {
-  const tsx = join(process.cwd(), "node_modules", "tsx", "dist", "cli.mjs");
-  const r = spawnSync(process.execPath, [tsx, "tests/integration/hardening/fixtures/sign-in-cookies.ts", observer.email, observer.password], { env: { ...process.env, BETTER_AUTH_URL: origin }, encoding: "utf8" });
-  if (r.status !== 0) throw new Error(r.stderr);
-  return JSON.parse(r.stdout.trim().split("\n").at(-1)!);
+  return runFixture("sign-in-cookies.ts", [observer.email, observer.password], { BETTER_AUTH_URL: origin });
 }
 
 beforeAll(async () => {

@@ -3,21 +3,16 @@
 // so the limit holds across server processes: here two processes, one after the other, share it.
 // Common practice (OWASP Authentication Cheat Sheet, "Protect against automated attacks"), no source
 // for the particular numbers, which are ours.
-import { spawnSync } from "node:child_process";
-import { join } from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { DEMO_ACCOUNTS } from "../../../src/lib/server/seed/demo-data.ts";
 import { seedChambers } from "../../support/fixtures.ts";
+import { runFixture } from "./fixtures/run-fixture.ts";
 
 const member = DEMO_ACCOUNTS.find((a) => a.chamber === "harrowmere" && a.role === "member")!;
 
 /** One server process making `n` attempts at `path` from address `ip`; the statuses it got. */
 function attempts(path: string, body: unknown, n: number, ip: string): number[] {
-  const tsx = join(process.cwd(), "node_modules", "tsx", "dist", "cli.mjs");
-  const env = { ...process.env, GAVELWRIGHT_RATE_LIMIT: "on", NODE_ENV: "production" };
-  const r = spawnSync(process.execPath, [tsx, "tests/integration/hardening/fixtures/auth-attempts.ts", path, JSON.stringify(body), String(n), ip], { env, encoding: "utf8" });
-  if (r.status !== 0) throw new Error(r.stderr);
-  return JSON.parse(r.stdout.trim().split("\n").at(-1)!);
+  return runFixture("auth-attempts.ts", [path, JSON.stringify(body), String(n), ip], { GAVELWRIGHT_RATE_LIMIT: "on", NODE_ENV: "production" });
 }
 
 beforeAll(async () => {
