@@ -1,6 +1,7 @@
 import { useCallback, useEffect, useState, type FormEvent } from "react";
 import { z } from "zod";
-import { api, ApiError, messageView, STATUS_CHIP, STATUS_LABEL, type ListView } from "../rulings/api.ts";
+import { api, ApiError, messageView, type ListView } from "../rulings/api.ts";
+import DeliveryTable from "./DeliveryTable.tsx";
 
 const sittingsView = z.object({
   sittings: z.array(
@@ -84,39 +85,7 @@ function DigestDelivery({ id }: { id: string }) {
     );
   if (!d) return <p className="text-sm text-ink-soft">Loading…</p>;
   return (
-    <table className="gw-table mt-2" data-testid="digest-delivery">
-      <thead>
-        <tr>
-          <th scope="col">Recipient</th>
-          <th scope="col">Status</th>
-        </tr>
-      </thead>
-      <tbody>
-        {d.messages.map((m) => (
-          <tr key={m.id}>
-            <td className="break-all">{m.to.replace(/^"([^"]*)" </, "$1 <")}</td>
-            <td>
-              <span className={`gw-chip ${STATUS_CHIP[m.status]}`}>{STATUS_LABEL[m.status]}</span>
-              {m.attempts > 1 && <span className="block text-xs text-ink-soft">{m.attempts} attempts</span>}
-              {m.lastError && m.status !== "sent" && <span className="block text-xs text-ink-soft">{m.lastError}</span>}
-              {(m.status === "failed" || m.status === "uncertain") && (
-                <button type="button" className="gw-btn-quiet mt-1" onClick={() => retry(m.id)}>
-                  Send again
-                </button>
-              )}
-            </td>
-          </tr>
-        ))}
-        {d.circulation.skipped.map((x) => (
-          <tr key={x.email}>
-            <td className="break-all">{x.email}</td>
-            <td>
-              <span className="gw-chip border-rule text-ink-soft">Unsubscribed — not sent</span>
-            </td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
+    <DeliveryTable testId="digest-delivery" messages={d.messages} skipped={d.circulation.skipped} onRetry={retry} />
   );
 }
 

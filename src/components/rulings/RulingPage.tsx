@@ -1,7 +1,8 @@
 import { useCallback, useEffect, useState } from "react";
 import { DECISION_LABELS } from "../../lib/rulings/ruling-content.ts";
 import { APPEAL_OUTCOME_LABELS } from "../../lib/rulings/appeal-outcome.ts";
-import { api, listsView, rulingDetail, STATUS_CHIP, STATUS_LABEL, type ListView, type RulingDetail, type RulingView } from "./api.ts";
+import DeliveryTable from "../circulation/DeliveryTable.tsx";
+import { api, listsView, rulingDetail, type ListView, type RulingDetail, type RulingView } from "./api.ts";
 import RulingEditor from "./RulingEditor.tsx";
 import { z } from "zod";
 
@@ -261,39 +262,7 @@ export default function RulingPage({ initial, can }: Props) {
               <h3 className="text-step-0">
                 {c.listName} <span className="font-sans text-sm font-normal text-ink-soft">· revision {c.rulingRevision} · {c.sentByName}, {fmt(c.createdAt)}</span>
               </h3>
-              <table className="gw-table mt-2" data-testid="delivery">
-                <thead>
-                  <tr>
-                    <th scope="col">Recipient</th>
-                    <th scope="col">Status</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {c.messages.map((m) => (
-                    <tr key={m.id}>
-                      <td className="break-all">{m.to.replace(/^"([^"]*)" </, "$1 <")}</td>
-                      <td>
-                        <span className={`gw-chip ${STATUS_CHIP[m.status]}`}>{STATUS_LABEL[m.status]}</span>
-                        {m.attempts > 1 && <span className="block text-xs text-ink-soft">{m.attempts} attempts</span>}
-                        {m.lastError && m.status !== "sent" && <span className="block text-xs text-ink-soft">{m.lastError}</span>}
-                        {(m.status === "failed" || m.status === "uncertain") && (
-                          <button type="button" className="gw-btn-quiet mt-1" onClick={() => retry(m.id)} disabled={busy}>
-                            Send again
-                          </button>
-                        )}
-                      </td>
-                    </tr>
-                  ))}
-                  {c.skipped.map((x) => (
-                    <tr key={x.email}>
-                      <td className="break-all">{x.email}</td>
-                      <td>
-                        <span className="gw-chip border-rule text-ink-soft">Unsubscribed — not sent</span>
-                      </td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
+              <DeliveryTable testId="delivery" messages={c.messages} skipped={c.skipped} onRetry={retry} busy={busy} />
             </section>
           ))}
         </aside>
