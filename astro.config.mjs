@@ -1,5 +1,5 @@
 // @ts-check
-import { defineConfig } from "astro/config";
+import { defineConfig, passthroughImageService } from "astro/config";
 import node from "@astrojs/node";
 import react from "@astrojs/react";
 import tailwindcss from "@tailwindcss/vite";
@@ -15,6 +15,9 @@ export default defineConfig({
   // Middleware mode: scripts/serve.mjs is the HTTP server (static files, then the app).
   adapter: node({ mode: "middleware" }),
   integrations: [react()],
+  // No image processing: the app serves no user images, so no image library runs on the server
+  // (see docs/security/dependency-review.md).
+  image: { service: passthroughImageService() },
   vite: { plugins: [tailwindcss()] },
   server: { host, port },
   security: {
