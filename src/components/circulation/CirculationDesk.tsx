@@ -237,7 +237,7 @@ export default function CirculationDesk({ canEditLists, canSendDigest }: { canEd
                         {l.name}
                         {l.purpose === "clerks" && <span className="gw-chip ml-2 border-chamber bg-chamber-tint align-middle text-chamber-dark">Clerks' list</span>}
                       </h3>
-                      <span className="text-sm text-ink-soft">{l.recipientCount} recipients</span>
+                      <span className="text-sm text-ink-soft">{l.recipientCount} recipient{l.recipientCount === 1 ? "" : "s"}</span>
                     </div>
                     {l.description && <p className="mt-1 text-sm text-ink-soft">{l.description}</p>}
                     <p className="mt-2 flex flex-wrap gap-1">

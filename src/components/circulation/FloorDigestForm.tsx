@@ -296,7 +296,7 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
           </>
         ) : clerksList ? (
           <>
-            the clerks' list, <strong>{clerksList.name}</strong> ({clerksList.recipientCount ?? "?"} recipients).
+            the clerks' list, <strong>{clerksList.name}</strong> ({recipients(clerksList.recipientCount)}).
           </>
         ) : (
           <>every chief clerk and clerk of the chamber: no list is marked as the clerks' list.</>
