@@ -276,7 +276,7 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
                   <tr key={k}>
                     <th scope="row">{k}</th>
                     <td>
-                      <select className="gw-input mt-0" aria-label={`How ${k} moves the text`} value={kind} onChange={(e) => setEffect(k, e.target.value as "position" | "shift" | "none")}>
+                      <select className="gw-input mt-0 min-w-[8.5rem]" aria-label={`How ${k} moves the text`} value={kind} onChange={(e) => setEffect(k, e.target.value as "position" | "shift" | "none")}>
                         <option value="none">no change</option>
                         <option value="position">new position</option>
                         <option value="shift">shift by</option>
