@@ -131,6 +131,7 @@ export function onListenChange(hook: ChangeHook): () => void {
 
 const FENCE_CHANNEL = "gw_fence";
 const FENCE_WAIT_MS = 2000;
+const QUIET_AFTER_LOST_NOTICE_MS = 30_000;
 const fences = new Map<string, () => void>();
 let fenceListening: Promise<unknown> | null = null;
 let inflight: Promise<boolean> | null = null;
@@ -162,6 +163,7 @@ export function caughtUp(): Promise<boolean> {
 }
 
 async function roundTrip(): Promise<boolean> {
+  let timedOut = false;
   try {
     fenceListening ??= onNotice(FENCE_CHANNEL, (token) => fences.get(token)?.()).catch((e) => {
       fenceListening = null;
@@ -177,14 +179,26 @@ async function roundTrip(): Promise<boolean> {
     try {
       await connection()`SELECT pg_notify(${FENCE_CHANNEL}, ${token})`;
       if (await back) return true;
+      timedOut = true;
     } finally {
       clearTimeout(timer);
       fences.delete(token);
     }
   } catch {
-    /* the database is away: forget below */
+    /* the database is away: the connection's close starts the reconnection */
   }
   for (const hook of changeHooks) hook(false);
+  if (timedOut && listening) {
+    // The notice was sent but never came back: notices do not reach this process (as behind a
+    // transaction pooler). Remember nothing for a while rather than make every request wait.
+    listening = false;
+    if (retryTimer) clearTimeout(retryTimer);
+    retryTimer = setTimeout(() => {
+      retryTimer = null;
+      if (handlers.size > 0) listenAll().catch(() => scheduleRetry());
+    }, QUIET_AFTER_LOST_NOTICE_MS);
+    retryTimer.unref();
+  }
   return false;
 }
 
