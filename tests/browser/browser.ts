@@ -1,4 +1,5 @@
 // Shared helpers for browser tests: Debian's Chromium driven by playwright-core.
+import { afterAll, beforeAll } from "vitest";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
 import { mkdtempSync, rmSync, mkdirSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -60,4 +61,29 @@ export async function textOf(locator: import("playwright-core").Locator, timeout
 /** Wait until `locator` is visible (fails the test on timeout). */
 export async function visible(locator: import("playwright-core").Locator, timeout = 15_000): Promise<void> {
   await locator.first().waitFor({ state: "visible", timeout });
+}
+
+/**
+ * One browser page for a whole test file: opened before its tests, closed after. `signInFresh`
+ * forgets the previous person (cookies) and signs in as `role`.
+ */
+export function pageForFile(): { readonly page: Page; signInFresh(role: string): Promise<void> } {
+  let browser: Awaited<ReturnType<typeof launch>> | undefined;
+  let page: Page;
+  beforeAll(async () => {
+    browser = await launch();
+    page = await browser.context.newPage();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return {
+    get page() {
+      return page;
+    },
+    async signInFresh(role: string) {
+      await page.context().clearCookies();
+      await signInAs(page, role);
+    },
+  };
 }

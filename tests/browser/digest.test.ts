@@ -2,12 +2,11 @@
 // another list of the chamber they choose), see what was queued and each recipient's delivery,
 // and the chief clerk finds it in the caught mail.
 // Product contract (common practice, no source).
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
-import { BASE_URL, account, launch, shot, signInAs } from "./browser.ts";
+import { beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { BASE_URL, account, pageForFile, shot } from "./browser.ts";
 
-let browser: Awaited<ReturnType<typeof launch>>;
-let context: BrowserContext;
+const shared = pageForFile();
 let page: Page;
 const stamp = Date.now().toString(36);
 const sitting = `Digest sitting ${stamp}`;
@@ -15,19 +14,10 @@ const readersSitting = `Readers' sitting ${stamp}`;
 const readersList = `Digest readers ${stamp}`;
 const readersAddress = `readers-${stamp}@harrowmere.example.org`;
 
-beforeAll(async () => {
-  browser = await launch();
-  context = browser.context;
-  page = await context.newPage();
+beforeAll(() => {
+  page = shared.page;
 });
-afterAll(async () => {
-  await browser?.close();
-});
-
-async function switchTo(role: string) {
-  await context.clearCookies();
-  await signInAs(page, role);
-}
+const switchTo = (role: string) => shared.signInFresh(role);
 
 describe("floor-day digest in the browser", () => {
   it("staff send the digest for a sitting and day and see each recipient's delivery", async () => {

@@ -1,12 +1,11 @@
 // Browser: a clerk records and issues a ruling, a staff member circulates it to a list, the
 // messages arrive at the local mail catcher (/dev/mail), and a search finds the ruling.
 // Product contract (common practice, no source).
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
-import { BASE_URL, launch, shot, signInAs } from "./browser.ts";
+import { beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { BASE_URL, pageForFile, shot } from "./browser.ts";
 
-let browser: Awaited<ReturnType<typeof launch>>;
-let context: BrowserContext;
+const shared = pageForFile();
 let page: Page;
 const stamp = Date.now().toString(36);
 const marker = `quillmark${stamp}`;
@@ -16,19 +15,10 @@ let rulingUrl = "";
 let rulingNumber = "";
 let unsubscribeLink = "";
 
-beforeAll(async () => {
-  browser = await launch();
-  context = browser.context;
-  page = await context.newPage();
+beforeAll(() => {
+  page = shared.page;
 });
-afterAll(async () => {
-  await browser?.close();
-});
-
-async function switchTo(role: string) {
-  await context.clearCookies();
-  await signInAs(page, role);
-}
+const switchTo = (role: string) => shared.signInFresh(role);
 
 describe("rulings in the browser", () => {
   it("a clerk records a ruling as a draft and issues it", async () => {
@@ -98,7 +88,7 @@ describe("rulings in the browser", () => {
   });
 
   it("a recipient unsubscribes through the signed link, without signing in", async () => {
-    await context.clearCookies();
+    await page.context().clearCookies();
     await page.goto(unsubscribeLink);
     expect(await page.getByText("Press gallery").count()).toBeGreaterThan(0);
     await page.getByRole("button", { name: "Unsubscribe" }).click();
