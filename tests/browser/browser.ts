@@ -64,18 +64,37 @@ export async function visible(locator: import("playwright-core").Locator, timeou
 }
 
 /**
- * One browser page for a whole test file: opened before its tests, closed after. `signInFresh`
- * forgets the previous person (cookies) and signs in as `role`.
+ * One browser for a whole test file: launched before its tests, closed after. `freshPage` forgets
+ * the previous person (cookies) and opens a new page.
  */
-export function pageForFile(): { readonly page: Page; signInFresh(role: string): Promise<void> } {
+export function browserForFile(): { readonly context: BrowserContext; freshPage(): Promise<Page> } {
   let browser: Awaited<ReturnType<typeof launch>> | undefined;
-  let page: Page;
   beforeAll(async () => {
     browser = await launch();
-    page = await browser.context.newPage();
   });
   afterAll(async () => {
     await browser?.close();
+  });
+  return {
+    get context() {
+      return browser!.context;
+    },
+    async freshPage() {
+      await browser!.context.clearCookies();
+      return browser!.context.newPage();
+    },
+  };
+}
+
+/**
+ * One browser page for a whole test file. `signInFresh` forgets the previous person (cookies)
+ * and signs in as `role`.
+ */
+export function pageForFile(): { readonly page: Page; signInFresh(role: string): Promise<void> } {
+  const b = browserForFile();
+  let page: Page;
+  beforeAll(async () => {
+    page = await b.freshPage();
   });
   return {
     get page() {

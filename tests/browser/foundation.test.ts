@@ -1,28 +1,16 @@
 // Sign-in as each demo role, the navigation each sees, a failed sign-in, and the invitation
 // flow end to end through the local mail catcher. The product's own contract (no outside source).
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import postgres from "postgres";
-import type { BrowserContext } from "playwright-core";
 import { navFor } from "../../src/lib/navigation.ts";
 import { CHAMBER_ROLES } from "../../src/lib/permissions.ts";
-import { BASE_URL, launch, shot, signIn, signInAs, account, textOf, visible } from "./browser.ts";
+import { BASE_URL, browserForFile, shot, signIn, signInAs, account, textOf, visible } from "./browser.ts";
 
-let browser: Awaited<ReturnType<typeof launch>>;
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
-
-async function freshPage(context: BrowserContext) {
-  await context.clearCookies();
-  return context.newPage();
-}
+const browser = browserForFile();
 
 describe("sign-in and navigation", () => {
   it("shows a clear message for a wrong password", async () => {
-    const page = await freshPage(browser.context);
+    const page = await browser.freshPage();
     await page.goto(`${BASE_URL}/sign-in`);
     await page.getByLabel("E-mail").fill(account("clerk").email);
     await page.getByLabel("Password").fill("not-the-password");
@@ -34,7 +22,7 @@ describe("sign-in and navigation", () => {
 
   for (const role of CHAMBER_ROLES) {
     it(`signs in as ${role} and shows that role's navigation`, async () => {
-      const page = await freshPage(browser.context);
+      const page = await browser.freshPage();
       await signInAs(page, role);
       expect(await textOf(page.locator("h1"))).toBe("Harrowmere County Assembly");
       const labels = (await page.locator("[data-testid=nav] a").allInnerTexts()).map((t) => t.trim());
@@ -46,7 +34,7 @@ describe("sign-in and navigation", () => {
   }
 
   it("redirects an anonymous visitor to sign-in", async () => {
-    const page = await freshPage(browser.context);
+    const page = await browser.freshPage();
     await page.goto(`${BASE_URL}/people`);
     expect(new URL(page.url()).pathname).toBe("/sign-in");
     await page.close();
@@ -56,7 +44,7 @@ describe("sign-in and navigation", () => {
 describe("invitations", () => {
   it("the chief clerk invites by e-mail; the invitee signs up from the link and joins", async () => {
     const email = `invitee-${Date.now()}@example.org`;
-    const page = await freshPage(browser.context);
+    const page = await browser.freshPage();
     await signInAs(page, "chief-clerk");
     await page.goto(`${BASE_URL}/people`);
     await page.getByLabel("E-mail to invite").fill(email);
@@ -89,7 +77,7 @@ describe("invitations", () => {
   });
 
   it("a user of another chamber does not see Harrowmere's people", async () => {
-    const page = await freshPage(browser.context);
+    const page = await browser.freshPage();
     const other = account("chief-clerk", "saltreach");
     await signIn(page, other.email, other.password);
     await page.goto(`${BASE_URL}/people`);

@@ -2,24 +2,13 @@
 // drawing, moves through it by keyboard, records an override with a ruling and prints it; a
 // member files an amendment and the receipt arrives in the local mail catcher; a generated
 // tree of 160 amendments still draws. The product's own contract (no outside source).
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import postgres from "postgres";
-import type { BrowserContext, Page } from "playwright-core";
+import type { Page } from "playwright-core";
 import { join } from "node:path";
-import { BASE_URL, SHOTS, account, launch, shot, signInAs, textOf, visible } from "./browser.ts";
+import { BASE_URL, SHOTS, account, browserForFile, shot, signInAs, textOf, visible } from "./browser.ts";
 
-let browser: Awaited<ReturnType<typeof launch>>;
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
-
-async function freshPage(context: BrowserContext): Promise<Page> {
-  await context.clearCookies();
-  return context.newPage();
-}
+const browser = browserForFile();
 
 async function openDemoMeasure(page: Page): Promise<string> {
   await page.goto(`${BASE_URL}/measures`);
@@ -30,7 +19,7 @@ async function openDemoMeasure(page: Page): Promise<string> {
 
 describe("the amendment tree", () => {
   it("shows the demo tree's findings on the drawing; a clerk overrides one with a ruling and prints the tree", async () => {
-    const page = await freshPage(browser.context);
+    const page = await browser.freshPage();
     await signInAs(page, "clerk");
     const id = await openDemoMeasure(page);
     await page.getByRole("link", { name: "Open the tree" }).click();
@@ -78,7 +67,7 @@ describe("the amendment tree", () => {
   });
 
   it("draws a generated tree of 160 amendments", async () => {
-    const page = await freshPage(browser.context);
+    const page = await browser.freshPage();
     await signInAs(page, "clerk");
     const number = `HCA T${Date.now() % 1_000_000}`;
     const text = Array.from({ length: 8 }, (_, i) => `## Section ${i + 1}\nSubjects: lighting\nLine one.\nLine two.`).join("\n");
@@ -103,7 +92,7 @@ describe("the amendment tree", () => {
 
 describe("filing", () => {
   it("a member files an amendment and the receipt arrives in the caught mail", async () => {
-    const page = await freshPage(browser.context);
+    const page = await browser.freshPage();
     await signInAs(page, "member");
     await openDemoMeasure(page);
     const title = `Brighter lamps ${Date.now() % 100000}`;

@@ -3,25 +3,14 @@
 // walk-through and the script show projected tallies too; a member's private estimate stays private;
 // the spatial view shows the status quo's win set; a spatial estimate gains and loses a dimension.
 // The product's own contract (no outside source).
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { writeFileSync, mkdtempSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import type { BrowserContext, Page } from "playwright-core";
-import { BASE_URL, launch, shot, signInAs, textOf, visible } from "./browser.ts";
+import type { Page } from "playwright-core";
+import { BASE_URL, browserForFile, shot, signInAs, textOf, visible } from "./browser.ts";
 
-let browser: Awaited<ReturnType<typeof launch>>;
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
-
-async function freshPage(context: BrowserContext) {
-  await context.clearCookies();
-  return context.newPage();
-}
+const browser = browserForFile();
 
 const unique = Date.now().toString(36);
 let estimateId = "";
@@ -54,7 +43,7 @@ async function chooseScope(page: import("playwright-core").Page) {
 
 describe("voting orders", () => {
   it("a clerk uploads a CSV estimate, sees the analysis, picks an order and prints the chair's script", async () => {
-    const page = await freshPage(browser.context);
+    const page = await browser.freshPage();
     await signInAs(page, "clerk");
     await page.goto(`${BASE_URL}/orders`);
     await chooseScope(page);
@@ -99,7 +88,7 @@ describe("voting orders", () => {
 
   it("under a successive-procedure rulebook version, the walk-through and the chair's script show projected tallies", async () => {
     expect(estimateId).not.toBe("");
-    const page = await freshPage(browser.context);
+    const page = await browser.freshPage();
     await signInAs(page, "clerk");
     const books = await api(page, "GET", "/api/rulebooks");
     const inForce = await api(page, "GET", `/api/rulebooks/${books.inForce.versionId}`);
@@ -130,7 +119,7 @@ describe("voting orders", () => {
   });
 
   it("a member's private estimate is not visible to the clerk", async () => {
-    const page = await freshPage(browser.context);
+    const page = await browser.freshPage();
     await signInAs(page, "member");
     await page.goto(`${BASE_URL}/orders`);
     await chooseScope(page);
@@ -142,7 +131,7 @@ describe("voting orders", () => {
     await Promise.all([page.waitForURL(/\/orders\/[0-9a-f-]{36}$/), page.getByRole("button", { name: "Save estimate" }).click()]);
     const url = page.url();
     await visible(page.getByText("Private: only you can see it."));
-    const other = await freshPage(browser.context);
+    const other = await browser.freshPage();
     await signInAs(other, "clerk");
     await other.goto(`${BASE_URL}/orders`);
     await visible(other.getByRole("heading", { name: "Estimates you can see" }));
@@ -152,7 +141,7 @@ describe("voting orders", () => {
   });
 
   it("the spatial view shows the status quo's win set and moves a bloc with the keyboard", async () => {
-    const page = await freshPage(browser.context);
+    const page = await browser.freshPage();
     await signInAs(page, "clerk");
     await page.goto(`${BASE_URL}/orders`);
     await page.getByRole("link", { name: "Lighting and cost: where the blocs stand" }).click();
@@ -170,7 +159,7 @@ describe("voting orders", () => {
   });
 
   it("a spatial estimate gains a dimension and loses it again, each saved as a new version", async () => {
-    const page = await freshPage(browser.context);
+    const page = await browser.freshPage();
     await signInAs(page, "clerk");
     const options = await api(page, "GET", "/api/estimates/options");
     const measureId = (options.measures as Array<{ id: string; number: string }>).find((m) => m.number === "HCA 12")!.id;

@@ -50,13 +50,13 @@ function subscribe() {
   });
 }
 
-async function recall<T>(store: Map<string, Entry>, key: string, chamberId: string, load: () => Promise<T>, stillGood?: (value: T) => boolean | Promise<boolean>): Promise<T> {
+async function recall<T>(store: Map<string, Entry>, key: string, chamberId: string, load: () => Promise<T>, stillGood?: (value: T) => boolean): Promise<T> {
   if (TTL_MS === 0) return load();
   subscribe();
   // Only after hearing every notice committed before now (a write on any server).
   if (store.has(key) && (await caughtUp())) {
     const hit = store.get(key);
-    if (hit && hit.chamberId === chamberId && Date.now() - hit.at < TTL_MS && (!stillGood || (await stillGood(hit.value as T)))) return hit.value as T;
+    if (hit && hit.chamberId === chamberId && Date.now() - hit.at < TTL_MS && (!stillGood || stillGood(hit.value as T))) return hit.value as T;
   }
   const now = Date.now();
   const before = generation;
@@ -80,8 +80,8 @@ export function chamberMemory<T>(load: (chamberId: string) => Promise<T>): (cham
  * refuse a remembered value on facts that change without a write (the rulebook in force on a
  * date). Callers must not mutate the value.
  */
-export function measureMemory<T>(load: (chamberId: string, measureId: string) => Promise<T>, stillGood?: (value: T, chamberId: string) => boolean | Promise<boolean>): (chamberId: string, measureId: string) => Promise<T> {
+export function measureMemory<T>(load: (chamberId: string, measureId: string) => Promise<T>, stillGood?: (value: T) => boolean): (chamberId: string, measureId: string) => Promise<T> {
   const store = new Map<string, Entry>();
   measureStores.add(store);
-  return (chamberId, measureId) => recall(store, measureId, chamberId, () => load(chamberId, measureId), stillGood && ((v: T) => stillGood(v, chamberId)));
+  return (chamberId, measureId) => recall(store, measureId, chamberId, () => load(chamberId, measureId), stillGood);
 }

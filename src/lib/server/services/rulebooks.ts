@@ -86,6 +86,13 @@ async function inForceNow(chamberId: string): Promise<InForce | null> {
   return (await adoptionsOf(chamberId)).find((a) => a.effectiveFrom.getTime() <= now) ?? null;
 }
 
+/** When the next adoption already recorded comes into force (a later effective date), or null. */
+export async function nextAdoptionInForce(chamberId: string): Promise<Date | null> {
+  const now = Date.now();
+  const later = (await adoptionsOf(chamberId)).filter((a) => a.effectiveFrom.getTime() > now);
+  return later.length ? new Date(Math.min(...later.map((a) => a.effectiveFrom.getTime()))) : null;
+}
+
 export async function listRulebooks(actor: Actor) {
   const versions = await db
     .select(versionColumns)

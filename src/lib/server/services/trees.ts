@@ -18,6 +18,7 @@ import { assertFresh, recordAudit } from "../measure-audit.ts";
 import { adoptedRulebookOf } from "../measure-rulebook.ts";
 import type { overrideCreateSchema, FindingView, TreeNodeView, TreeView } from "../measure-schemas.ts";
 import { amendmentKey, amendmentRow, type AmendmentRow } from "./amendments.ts";
+import { nextAdoptionInForce } from "./rulebooks.ts";
 import { assertMeasureId, legislatorNames, measureRow, type MeasureRow } from "./measures.ts";
 
 /** The measure's id inside the tree (sections and amendments have their own). */
@@ -75,19 +76,20 @@ async function loadTree(chamberId: string, measureId: string) {
 /**
  * The tree view, remembered per measure between requests (chamber-memory.ts: forgotten when the
  * measure, its amendments or overrides, the chamber's roster or adoptions change), and not used
- * once another rulebook version has come into force.
+ * once an adoption recorded for a later date has come into force.
  */
 const rememberedTree = measureMemory(
-  async (chamberId, measureId) => buildTreeView(chamberId, measureId),
-  async (v, chamberId) => (await adoptedRulebookOf(chamberId)).versionId === v.rulebookVersionId,
+  (chamberId, measureId) => buildTreeView(chamberId, measureId),
+  (v) => Date.now() < v.validUntil,
 );
 
 export async function treeOf(actor: Actor, measureId: string): Promise<TreeView> {
   return (await rememberedTree(actor.chamber.id, measureId)).view;
 }
 
-async function buildTreeView(chamberId: string, measureId: string): Promise<{ view: TreeView; rulebookVersionId: string | null }> {
-  const { m, rows, keys, overrides, rb, result } = await loadTree(chamberId, measureId);
+/** The view, and until when it holds without a write (the next adoption already recorded for a later date). */
+async function buildTreeView(chamberId: string, measureId: string): Promise<{ view: TreeView; validUntil: number }> {
+  const [{ m, rows, keys, overrides, rb, result }, next] = await Promise.all([loadTree(chamberId, measureId), nextAdoptionInForce(chamberId)]);
   const idOf = new Map(rows.map((r) => [keys.get(r.id)!, r.id]));
   const names = await legislatorNames(chamberId);
   const findings: FindingView[] = result.findings.map((f: Finding) => {
@@ -114,7 +116,7 @@ async function buildTreeView(chamberId: string, measureId: string): Promise<{ vi
     findings,
     counts,
   };
-  return { view, rulebookVersionId: rb.versionId };
+  return { view, validUntil: next?.getTime() ?? Infinity };
 }
 
 /**
