@@ -30,7 +30,22 @@ describe("gavelwright rulebook check", () => {
     const r = await run("rulebook", "check", templatePath("general-parliamentary-law"));
     expect(r.code).toBe(0);
     const summary = JSON.parse(r.out);
-    expect(summary).toMatchObject({ valid: true, id: "general-parliamentary-law", motions: 23 });
+    // 23 motions of the Order of Precedence and §§11-37, plus filling a blank (§33 p. 149), a nomination and
+    // closing nominations (§§25, 66) of Robert's Rules of Order Revised (1915).
+    expect(summary).toMatchObject({ valid: true, id: "general-parliamentary-law", motions: 26, migrations: [] });
+  });
+
+  it("reads a rulebook saved before reconsiderable named the result, and says what it migrated (RONR 1915 §36)", async () => {
+    const rb = rawTemplate("general-parliamentary-law");
+    rb.motions[0].reconsiderable = true;
+    rb.motions[1].reconsiderable = false;
+    const r = await run("rulebook", "check", file("old.json", rb));
+    expect(r.code).toBe(0);
+    const summary = JSON.parse(r.out);
+    expect(summary.migrations).toEqual([
+      expect.objectContaining({ path: "motions.0.reconsiderable", from: true, to: "both" }),
+      expect.objectContaining({ path: "motions.1.reconsiderable", from: false, to: "neither" }),
+    ]);
   });
 });
 
@@ -56,9 +71,9 @@ describe("gavelwright moves", () => {
     const r = await run("moves", file("case.json", { rulebook: "gpl.json", pending: [{ motion: "main" }, { motion: "amend", degree: 1 }] }));
     expect(r.code).toBe(0);
     const list = JSON.parse(r.out) as Array<Record<string, unknown>>;
-    expect(list).toHaveLength(23);
+    expect(list).toHaveLength(rawTemplate("general-parliamentary-law").motions.length);
     for (const v of list) {
-      expect(Object.keys(v)).toEqual(expect.arrayContaining(["motion", "inOrder", "reasons", "second", "debatable", "amendable", "vote"]));
+      expect(Object.keys(v)).toEqual(expect.arrayContaining(["motion", "inOrder", "reasons", "second", "debatable", "amendable", "vote", "reconsiderable"]));
     }
     const by = Object.fromEntries(list.map((v) => [v.motion, v]));
     expect(by["lay-on-table"].inOrder).toBe(true);

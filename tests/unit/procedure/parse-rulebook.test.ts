@@ -170,6 +170,7 @@ describe("shipped templates", () => {
   it("templates use the trade names of the motion catalogue (issue 3 item 6)", () => {
     const names = ["main", "postpone-indefinitely", "amend", "commit", "postpone-definitely", "limit-debate", "previous-question", "lay-on-table", "orders-of-the-day", "question-of-privilege", "recess", "adjourn", "fix-time-to-adjourn", "point-of-order", "appeal", "suspend-rules", "division-of-question", "division-of-assembly", "withdraw", "objection-to-consideration", "reconsider", "rescind", "take-from-table"];
     const ids = rawTemplate("general-parliamentary-law").motions.map((m: { id: string }) => m.id);
-    expect(ids.sort()).toEqual([...names].sort());
+    // Beyond the Order of Precedence: filling blanks (RONR 1915 §33 p. 149), nominations (§66 p. 263), closing them (§25 p. 96).
+    expect(ids.sort()).toEqual([...names, "fill-blank", "nominate", "close-nominations"].sort());
   });
 });
