@@ -7,7 +7,7 @@ import { template } from "./fixtures.ts";
 
 const gpl = template("general-parliamentary-law");
 
-async function moves(pending: Array<{ motion: string; degree?: number }>, floor?: Record<string, unknown>) {
+async function moves(pending: Array<{ motion: string; degree?: number; independentParts?: boolean; hasBlank?: boolean }>, floor?: Record<string, unknown>) {
   const list = await legalMoves(gpl, { pending, floor });
   return Object.fromEntries(list.map((v) => [v.motion, v])) as Record<string, MotionVerdict>;
 }
