@@ -3,6 +3,7 @@ import { describe, expect, it } from "vitest";
 import { GavelError } from "../../../src/lib/errors.ts";
 import { legalMoves, type MotionVerdict } from "../../../src/lib/procedure/legal-moves.ts";
 import { parseRulebook } from "../../../src/lib/procedure/parse-rulebook.ts";
+import { EMPTY_BOARD, floorStateOf } from "../../../src/lib/server/floor-record.ts";
 import { template } from "./fixtures.ts";
 
 const gpl = template("general-parliamentary-law");
@@ -388,6 +389,12 @@ describe("F10, F15, F18: reconsider (RONR 1915 §36 p. 156; Table of Rules notes
   it('reconsider is "Undebatable when the motion to be … reconsidered is undebatable" (Table of Rules note 4)', async () => {
     expect((await moves([], { votes: [vote("previous-question", "adopted", 1)] })).reconsider.debatable).toBe(false);
     expect((await moves([], { votes: [vote("main", "adopted", 1)] })).reconsider.debatable).toBe(true);
+  });
+  it("the live floor passes the last recorded vote, so an adopted motion to lay on the table is not reconsiderable there (note 2)", async () => {
+    const board = { ...EMPTY_BOARD, voteTaken: true, lastVote: { motion: "lay-on-table", name: "Lay on the table", result: "adopted" as const, tally: null } };
+    expect((await legalMoves(gpl, floorStateOf(board))).find((v) => v.motion === "reconsider")!.inOrder).toBe(false);
+    const main = { ...board, lastVote: { ...board.lastVote, motion: "main", name: "Main motion" } };
+    expect((await legalMoves(gpl, floorStateOf(main))).find((v) => v.motion === "reconsider")!.inOrder).toBe(true);
   });
   it("a floor state of an earlier version (voteTaken, no votes listed) answers as before", async () => {
     expect((await moves([], { voteTaken: true })).reconsider.inOrder).toBe(true);
