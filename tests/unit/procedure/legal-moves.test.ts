@@ -267,6 +267,20 @@ describe("property: precedence by rank", () => {
     );
   });
 
+  // §13 p. 56: incidental motions "take precedence of and must be decided before the question out of which
+  // they rise … They yield to privileged motions, and generally to the motion to lay on the table."
+  it("suspend the rules is in order exactly when the immediately pending question is neither privileged nor lay on the table (§13)", async () => {
+    await fc.assert(
+      fc.asyncProperty(fc.array(fc.constantFrom(...ranked), { maxLength: 6 }), async (stack) => {
+        const pending = [{ motion: "main" }, ...stack.map((motion) => ({ motion }))];
+        const top = gpl.motions.find((m) => m.id === pending[pending.length - 1].motion)!;
+        const v = (await legalMoves(gpl, { pending })).find((x) => x.motion === "suspend-rules")!;
+        expect(v.inOrder, JSON.stringify(stack)).toBe(!(top.class === "privileged" || top.id === "lay-on-table"));
+      }),
+      { numRuns: 100 },
+    );
+  });
+
   it("under any rank-only rulebook, below-rank motions are out of order and above-rank ones in order", async () => {
     await fc.assert(
       fc.asyncProperty(
