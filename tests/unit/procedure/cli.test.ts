@@ -57,6 +57,20 @@ describe("gavelwright moves", () => {
     expect(r.err).toContain("pending.1.motion");
   });
 
+  it("exits 2 naming a recent vote on a motion the rulebook does not have", async () => {
+    const r = await run("moves", file("bad-vote.json", { rulebook: "general-parliamentary-law", pending: [], floor: { votes: [{ motion: "quorum-call", result: "adopted" }] } }));
+    expect(r.code).toBe(2);
+    expect(r.err).toContain("floor.votes.0.motion");
+  });
+
+  // Robert's Rules of Order Revised (1915) §33 p. 134: "To Amend takes precedence of the motion to postpone indefinitely".
+  it("answers amend above postpone indefinitely with the question it applies to", async () => {
+    const r = await run("moves", file("pi.json", { rulebook: "general-parliamentary-law", pending: [{ motion: "main" }, { motion: "postpone-indefinitely" }] }));
+    expect(r.code).toBe(0);
+    const amend = (JSON.parse(r.out) as Array<Record<string, unknown>>).find((v) => v.motion === "amend");
+    expect(amend).toMatchObject({ inOrder: true, degree: 1, appliesTo: "main" });
+  });
+
   it("prefixes rulebook errors with the case member", async () => {
     const rb = rawTemplate("general-parliamentary-law");
     rb.motions[0].rank = -1;
