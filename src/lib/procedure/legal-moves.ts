@@ -198,7 +198,11 @@ function motionFact(m: Motion, made: AsMade) {
   };
 }
 
-/** Evaluates standalone condition trees (variants, vote alternatives) over motion-scope facts. */
+/**
+ * Evaluates standalone condition trees (variants, vote alternatives) over motion-scope facts.
+ * Built afresh for each legalMoves call, like ruleRunner's engine: a json-rules-engine Engine keeps
+ * one run status, so a shared engine could skip rules when two runs overlap.
+ */
 class ConditionSet {
   private engine = new Engine([], { allowUndefinedFacts: false, pathResolver: resolveFactPath });
   private count = 0;
