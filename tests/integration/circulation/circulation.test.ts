@@ -3,7 +3,7 @@
 // sends, unsubscribes, the floor-day digest, and every route's role / anonymous /
 // other-chamber checks. Product contract (common practice, no source) unless named.
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
-import { eq, inArray, sql as dsql } from "drizzle-orm";
+import { eq, sql as dsql } from "drizzle-orm";
 import { db } from "../../../src/lib/server/db.ts";
 import { deliverOutbox, enqueueMail } from "../../../src/lib/server/mail.ts";
 import { outbox, caughtMail } from "../../../src/lib/db/schema/mail.ts";
