@@ -1,6 +1,6 @@
 import { useState, type SubmitEvent } from "react";
 import { z } from "zod";
-import type { MeasureStatus } from "../../lib/server/measure-schemas.ts";
+import type { MeasureStatus } from "../../lib/measures/measure-schemas.ts";
 import MeasureFields, { readMeasureFields } from "./MeasureFields.tsx";
 import { apiCall, conflictText, issuesByField } from "./api.ts";
 import { tags } from "./tags.ts";

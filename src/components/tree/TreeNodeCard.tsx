@@ -1,5 +1,5 @@
 import { Handle, Position, type NodeProps, type Node } from "@xyflow/react";
-import type { FindingView, TreeNodeView } from "../../lib/server/measure-schemas.ts";
+import type { FindingView, TreeNodeView } from "../../lib/measures/measure-schemas.ts";
 
 export interface TreeNodeData extends Record<string, unknown> {
   node: TreeNodeView;

@@ -1,7 +1,7 @@
 import { useCallback, useEffect, useMemo, useRef, useState, type KeyboardEvent } from "react";
 import { Background, Controls, MiniMap, ReactFlow, ReactFlowProvider, useReactFlow, type Edge } from "@xyflow/react";
 import "@xyflow/react/dist/style.css";
-import { treeViewSchema, type FindingView, type TreeView as TreeData } from "../../lib/server/measure-schemas.ts";
+import { treeViewSchema, type FindingView, type TreeView as TreeData } from "../../lib/measures/measure-schemas.ts";
 import { ApiError, apiCall, conflictText } from "../measures/api.ts";
 import { layoutTree } from "./layout.ts";
 import TreeLegend from "./TreeLegend.tsx";

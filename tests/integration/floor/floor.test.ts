@@ -133,7 +133,7 @@ describe("recording the floor", () => {
   });
 
   it("records a vote with its tally, a withdrawal, and closes the sitting; history is kept", async () => {
-    let { sitting } = await board();
+    const { sitting } = await board();
     const v = await rec(s.as.clerk, sitting.revision, { kind: "voted", result: "adopted", tally: { yes: 22, no: 15, abstain: 3 } });
     expect(v.status).toBe(201);
     expect(v.body.board.pending.map((p: { motion: string }) => p.motion)).toEqual(["main"]);

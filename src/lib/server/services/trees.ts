@@ -16,7 +16,7 @@ import { measureMemory } from "../chamber-memory.ts";
 import { Memo, memoKey } from "../memo.ts";
 import { assertFresh, recordAudit } from "../measure-audit.ts";
 import { adoptedRulebookOf } from "../measure-rulebook.ts";
-import type { overrideCreateSchema, FindingView, TreeNodeView, TreeView } from "../measure-schemas.ts";
+import type { overrideCreateSchema, FindingView, TreeNodeView, TreeView } from "../../measures/measure-schemas.ts";
 import { amendmentKey, amendmentRow, type AmendmentRow } from "./amendments.ts";
 import { nextAdoptionInForce } from "./rulebooks.ts";
 import { assertMeasureId, legislatorNames, measureRow, type MeasureRow } from "./measures.ts";

@@ -42,7 +42,7 @@ export const sectionInputSchema = z.object({
 });
 
 const measureFields = {
-  number: z.string().trim().min(1).max(40).regex(/^[A-Za-z0-9][A-Za-z0-9 .\/-]*$/, "letters, digits, spaces, '.', '/' and '-' only"),
+  number: z.string().trim().min(1).max(40).regex(/^[A-Za-z0-9][A-Za-z0-9 ./-]*$/, "letters, digits, spaces, '.', '/' and '-' only"),
   title: z.string().trim().min(1).max(500),
   committee: z.string().trim().max(200).nullable(),
   status: z.enum(MEASURE_STATUSES),
