@@ -90,26 +90,24 @@ export async function validateTree(input: { rulebook: Rulebook } & Record<string
   const { measure, amendments, asOf, overrides } = parseWith(treeCaseSchema, { measure: input.measure, amendments: input.amendments, asOf: input.asOf, overrides: input.overrides }, "case");
   checkIds(measure, amendments, overrides);
   const limits = rulebook.amendments;
-  const tree = buildTree(measure, amendments, { substituteSlot: limits.substituteSlot });
+  const tree = buildTree(measure, amendments, { substituteSlot: limits.substituteSlot, substituteForAmendment: limits.substituteForAmendment, perfectingUnderSubstitute: limits.perfectingUnderSubstitute });
   const byId = new Map(amendments.map((a) => [a.id, a]));
   const sections = new Map(measure.sections.map((s) => [s.id, s]));
   const measureSubjects = unique([...measure.subjects, ...measure.sections.flatMap((s) => s.subjects)]);
-  const index = new Map(amendments.map((a, i) => [a.id, i]));
   const open = amendments.filter((a) => OPEN_STATUSES.has(a.status) && !tree.nodes[a.id].inCycle);
 
-  // Pending order: filing time, then input order (rows without a filing time go last).
-  const pendingOrder = amendments
-    .filter((a) => a.status === "pending" && tree.nodes[a.id].degree !== null)
-    .sort((x, y) => (timeMs(x.filedAt) ?? Infinity) - (timeMs(y.filedAt) ?? Infinity) || index.get(x.id)! - index.get(y.id)!);
+  // Pending order (buildTree): filing time, then input order (rows without a filing time go last).
   const slotPosition = new Map<string, number>();
   const pendingPosition = new Map<string, number>();
   const perSlot = new Map<string, number>();
-  pendingOrder.forEach((a, i) => {
-    const slot = tree.nodes[a.id].slot!;
-    perSlot.set(slot, (perSlot.get(slot) ?? 0) + 1);
-    slotPosition.set(a.id, perSlot.get(slot)!);
-    pendingPosition.set(a.id, i + 1);
-  });
+  tree.pending
+    .filter((id) => tree.nodes[id].degree !== null)
+    .forEach((id, i) => {
+      const slot = tree.nodes[id].slot!;
+      perSlot.set(slot, (perSlot.get(slot) ?? 0) + 1);
+      slotPosition.set(id, perSlot.get(slot)!);
+      pendingPosition.set(id, i + 1);
+    });
 
   const conflicts = new Map<string, string[]>();
   for (const [a, b] of conflictingPairs(open)) {
@@ -156,6 +154,8 @@ export async function validateTree(input: { rulebook: Rulebook } & Record<string
       tree: {
         degree: node.degree,
         slot: node.slot,
+        role: node.role,
+        underSubstitute: node.underSubstitute,
         slotPosition: slotPosition.get(a.id) ?? null,
         pendingPosition: pendingPosition.get(a.id) ?? null,
         inCycle: node.inCycle,
