@@ -231,7 +231,7 @@ describe("four-amendment tree (US House Rule XVI cl. 6)", () => {
     expect(codes(await check(house, [...rows, s3]), s3.id)).toEqual(["degree-exceeded"]);
   });
 
-  it("the substitute is voted after the amendment it would replace is perfected (Rule XVI cl. 6: not \"voted on until the original matter is perfected\")", async () => {
+  it("the substitute is voted after the amendment it would replace is perfected (the House rule as quoted in RONR 1915 §33 p. 135 n. 1: \"shall not be voted on until the original matter is perfected\")", async () => {
     const rows = tree();
     expect((await check(house, rows)).find((f) => f.code === "voted-after-perfecting")).toMatchObject({ amendment: rows[2].id, related: [rows[1].id] });
   });
