@@ -156,6 +156,10 @@ export const treeNodeViewSchema = z.object({
   title: z.string().nullable(),
   parent: z.string().nullable(),
   degree: z.number().nullable(),
+  /** Amendments: how the amendment counts (buildTree role), its slot, and the pending substitute it perfects the text under. */
+  role: z.string().nullable().optional(),
+  slot: z.string().nullable().optional(),
+  underSubstitute: z.string().nullable().optional(),
   form: z.string().nullable(),
   status: z.string().nullable(),
   subjects: z.array(z.string()),
