@@ -104,7 +104,10 @@ async function serve() {
       stream.pipe(res);
       return;
     }
-    handler(req, res);
+    // The connection's peer address reaches the app in locals, where no header can forge it;
+    // the app reads X-Forwarded-For only when this peer is in TRUSTED_PROXIES
+    // (src/lib/server/client-address.ts).
+    handler(req, res, undefined, { peerAddress: req.socket.remoteAddress });
   };
 
   const certPath = process.env.SERVER_CERT_PATH;
