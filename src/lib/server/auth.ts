@@ -42,6 +42,9 @@ export const auth = betterAuth({
   trustedOrigins: [baseUrl()],
   database: drizzleAdapter(db, { provider: "pg", schema }),
   telemetry: { enabled: false },
+  // Reset tokens (and every other verification identifier) are stored as their SHA-256, so a
+  // copy of the database does not hold a usable reset link.
+  verification: { storeIdentifier: "hashed" },
   // better-auth logs failed queries with their parameters (a session token, an e-mail): log them without.
   logger: { log: (level, message, ...args) => console[level === "error" ? "error" : level === "warn" ? "warn" : "log"](`[auth] ${level}: ${message}`, ...args.map((a) => (a instanceof Error ? describeError(a) : a))) },
   emailAndPassword: {
