@@ -8,24 +8,15 @@ import { describeError } from "./lib/server/log-safe.ts";
 import { GavelError } from "./lib/errors.ts";
 import { baseUrl } from "./lib/server/auth.ts";
 import { crossSiteRefusal } from "./lib/server/origin-check.ts";
+import { contentSecurityPolicy } from "./lib/server/csp.ts";
 
 const SECURITY_HEADERS: Record<string, string> = {
   "x-content-type-options": "nosniff",
   "referrer-policy": "same-origin",
   "x-frame-options": "DENY",
   "permissions-policy": "camera=(), microphone=(), geolocation=()",
-  "content-security-policy": [
-    "default-src 'self'",
-    "script-src 'self' 'unsafe-inline'",
-    "style-src 'self' 'unsafe-inline'",
-    "img-src 'self' data: blob:",
-    "font-src 'self'",
-    "connect-src 'self'",
-    "frame-ancestors 'none'",
-    "base-uri 'self'",
-    "form-action 'self'",
-    "object-src 'none'",
-  ].join("; "),
+  // Scripts without 'unsafe-inline': Astro's own inline scripts by hash (src/lib/server/csp.ts).
+  "content-security-policy": contentSecurityPolicy(),
 };
 
 export const onRequest = defineMiddleware(async (ctx, next) => {
