@@ -38,7 +38,8 @@ describe("cross-site writes are refused before the route runs", () => {
   }
 
   it("a null origin, a look-alike origin and a cross-site fetch without Origin are refused too", async () => {
-    for (const headers of [{ origin: "null" }, { origin: `${BASE}.evil.example` }, { origin: BASE.replace("http:", "https:") }, { "sec-fetch-site": "cross-site" }, { "sec-fetch-site": "same-site" }])
+    const cases: Array<Record<string, string>> = [{ origin: "null" }, { origin: `${BASE}.evil.example` }, { origin: BASE.replace("http:", "https:") }, { "sec-fetch-site": "cross-site" }, { "sec-fetch-site": "same-site" }];
+    for (const headers of cases)
       expect(await through("POST", "/api/moves", headers)).toMatchObject({ reached: false, status: 403 });
   });
 
