@@ -68,3 +68,25 @@ describe("safeNext: where to go after signing in", () => {
     expect(isAppPage("/_astro/x.js")).toBe(false);
   });
 });
+
+describe("the list of pages safeNext accepts follows src/pages", () => {
+  it("every page file (with a sample id) is accepted, except those one is never sent back to", async () => {
+    const { readdirSync } = await import("node:fs");
+    const { join, relative, sep } = await import("node:path");
+    const NOT_A_DESTINATION = new Set(["/sign-in", "/sign-up", "/reset-password", "/unsubscribe"]);
+    const paths: string[] = [];
+    const walk = (dir: string) => {
+      for (const e of readdirSync(dir, { withFileTypes: true })) {
+        const p = join(dir, e.name);
+        if (e.isDirectory()) walk(p);
+        else if (p.endsWith(".astro")) {
+          const path = "/" + relative("src/pages", p).split(sep).join("/").replace(/\.astro$/, "").replace(/(^|\/)index$/, "").replace(/\[[^\]]+\]/g, "Ab12-cd_34");
+          paths.push(path === "/" ? "/" : path.replace(/\/$/, ""));
+        }
+      }
+    };
+    walk("src/pages");
+    expect(paths.length).toBeGreaterThan(20);
+    for (const p of paths) expect(isAppPage(p), p).toBe(!NOT_A_DESTINATION.has(p));
+  });
+});
