@@ -66,7 +66,15 @@ export default function AccountForm({ mode, next = "/", token, email }: Props) {
     try {
       if (mode === "sign-in") {
         const r = await authClient.signIn.email({ email: data.email, password: data.password });
-        if (r.error) return setErrors({ form: r.error.status === 429 ? "Too many attempts. Wait a minute, then try again." : "That e-mail and password do not match an account." });
+        if (r.error)
+          return setErrors({
+            form:
+              r.error.status === 429
+                ? r.error.code === "ACCOUNT_LOCKED_FOR_NOW"
+                  ? "Too many failed sign-ins for this account. Wait a few minutes, or reset the password, then try again."
+                  : "Too many attempts. Wait a minute, then try again."
+                : "That e-mail and password do not match an account.",
+          });
         window.location.assign(safeNext(next, window.location.origin, "/"));
       } else if (mode === "sign-up") {
         const r = await authClient.signUp.email({ name: data.name, email: data.email, password: data.password });
