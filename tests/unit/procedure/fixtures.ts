@@ -10,7 +10,6 @@ export function templatePath(id: string): string {
   return resolve(import.meta.dirname, "../../../rulebooks", `${id}.json`);
 }
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 export function rawTemplate(id: string): any {
   return JSON.parse(readFileSync(templatePath(id), "utf8"));
 }
