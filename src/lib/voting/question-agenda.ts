@@ -8,7 +8,8 @@
  * amendment whose parent was already decided or itself falls; when it is exclusive with an adopted
  * amendment (the first adopted makes the rest fall); or when an adopted substitute replaced its text.
  * A vote on amendment x compares the version with x adopted against the version without it, both
- * with x's parent taken as adopted (a second-degree amendment perfects its parent). Passage compares
+ * with what x amends taken as adopted (a second-degree amendment perfects its parent; a substitute for
+ * a first-degree amendment A compares A as amended by the substitute with A as perfected). Passage compares
  * the version reached with Q. A tie defeats the motion.
  *
  * Sincere voting: "amendment" procedure — members vote for the preferred of the two versions the vote
@@ -53,8 +54,11 @@ export function questionAgenda(model: AmendmentTreeModel, g: MajorityGraph, prof
   const passage = k;
   const P = 1 << passage;
   const Q = 0;
+  // An adopted substitute replaced x's text. A substitute for a first-degree amendment is voted before
+  // that amendment, so its adoption makes the amendments to the amendment's text fall at once (they are
+  // perfecting amendments of text no longer there) even though the amendment itself is still undecided.
   const superseding = (adopted: number, x: number) => {
-    for (let s = 0; s < k; s++) if (adopted & (1 << s) && model.supersedes[s] & (1 << x) && (model.parent[s] < 0 || adopted & (1 << model.parent[s]))) return true;
+    for (let s = 0; s < k; s++) if (adopted & (1 << s) && model.supersedes[s] & (1 << x)) return true;
     return false;
   };
   const falls = (x: number, decided: number, adopted: number): boolean => {
@@ -66,8 +70,9 @@ export function questionAgenda(model: AmendmentTreeModel, g: MajorityGraph, prof
   };
   const vote = (x: number, adopted: number) => {
     if (x === passage) return { yesState: adopted | P, noState: adopted, yesVersion: model.versionOf(adopted & ~P), noVersion: Q };
-    const par = model.parent[x];
-    const assumed = par >= 0 ? adopted | (1 << par) : adopted;
+    // Everything x amends is taken as adopted (a second-degree amendment perfects its parent; an
+    // amendment of a substitute for A perfects the substitute, which would replace A's text).
+    const assumed = adopted | model.ancestors[x];
     return { yesState: adopted | (1 << x), noState: adopted, yesVersion: model.versionOf((assumed | (1 << x)) & ~P), noVersion: model.versionOf(assumed & ~P) };
   };
   const outcome = (adopted: number) => (adopted & P ? model.versionOf(adopted & ~P) : Q);
