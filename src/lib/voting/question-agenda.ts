@@ -33,6 +33,8 @@ export interface QuestionAgenda {
   k: number;
   passage: number;
   falls(x: number, decided: number, adopted: number): boolean;
+  /** The amendments whose adoption can make x fall (for a fixed decided set, falls(x) reads only these bits of adopted). */
+  fallsRelevant(x: number): number;
   /** The two versions a vote on x compares, and the state after adoption / rejection. */
   vote(x: number, adopted: number): { yesState: number; noState: number; yesVersion: number; noVersion: number };
   /** Final outcome (version index) of a completed state. */
@@ -68,6 +70,17 @@ export function questionAgenda(model: AmendmentTreeModel, g: MajorityGraph, prof
     if (par >= 0 && (decided & (1 << par) || falls(par, decided, adopted))) return true;
     return (model.exclusive[x] & adopted & ~P) !== 0 || superseding(adopted, x);
   };
+  const relevant: number[] = [];
+  const fallsRelevant = (x: number): number => {
+    if (x === passage) return 0;
+    if (relevant[x] === undefined) {
+      let r = model.exclusive[x];
+      for (let s = 0; s < k; s++) if (model.supersedes[s] & (1 << x)) r |= 1 << s;
+      relevant[x] = r | (model.parent[x] >= 0 ? fallsRelevant(model.parent[x]) : 0);
+    }
+    return relevant[x];
+  };
+  // The motion branch's state is always adopted | (1 << x) (question-counts.ts relies on it).
   const vote = (x: number, adopted: number) => {
     if (x === passage) return { yesState: adopted | P, noState: adopted, yesVersion: model.versionOf(adopted & ~P), noVersion: Q };
     // Everything x amends is taken as adopted (a second-degree amendment perfects its parent; an
@@ -120,7 +133,7 @@ export function questionAgenda(model: AmendmentTreeModel, g: MajorityGraph, prof
     const t = sincereTally(x, decided, adopted)!;
     return adopts(t.forWeight, t.againstWeight, profile.totalWeight, g.threshold);
   };
-  return { model, k, passage, falls, vote, outcome, sincereAdopts, sincereTally, successiveField, beats };
+  return { model, k, passage, falls, fallsRelevant, vote, outcome, sincereAdopts, sincereTally, successiveField, beats };
 }
 
 export interface QuestionStep {
