@@ -7,8 +7,9 @@
  *    Revised 1915, §33; a substitute for a first-degree amendment before that amendment, which is then
  *    put as amended: House Rule XVI cl. 6);
  *  - perfecting-before-substitute: every amendment perfecting text a substitute would replace (and its
- *    own amendments) before that substitute *and before the substitute's own amendments*: "the chair
- *    first asks for amendments to the paragraph to be struck out … After it is perfected by its friends,
+ *    own amendments) before that substitute *and before the substitute's own amendments*: "[the chair
+ *    first asks for amendments to the paragraph] to be struck out, these amendments being of the second
+ *    degree. After it is perfected by its friends,
  *    the chair asks if there are any amendments proposed to the paragraph to be inserted. When both
  *    paragraphs have been perfected by amendments the question is put on substituting one paragraph for
  *    the other" (Robert's Rules of Order Revised 1915, §33 p. 142); the House substitute "shall not be
