@@ -136,7 +136,7 @@ describe("the House tree: a substitute for the amendment, with its own amendment
   });
   it("adopting S replaces A's text as perfected; the question is then on A as amended by S", () => {
     const model = amendmentTreeModel({ measure, amendments: houseTree });
-    const g = majorityGraph(profileFromRankings(model.versions.map((v) => v.id), [{ ranking: [4, 3, 2, 1, 0] }], "abstain"));
+    const g = majorityGraph(profileFromRankings(model.versions.map((v) => v.id), [{ ranking: [4, 3, 2, 1, 0], weight: 1 }], "abstain"));
     const qa = questionAgenda(model, g, null, "amendment");
     const [A, A2, S] = [0, 1, 2];
     // A2 adopted, then S: compares A as amended by S (B+A+S) with A as perfected (B+A+A2).
