@@ -12,6 +12,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { OrderConstraint } from "../../../src/lib/procedure/voting-section.ts";
+import { walkThrough } from "../../../src/lib/estimates/walk-through.ts";
 import { analyseOrders } from "../../../src/lib/voting/analyse-orders.ts";
 import { amendmentTreeModel, type AmendmentTreeModel } from "../../../src/lib/voting/amendment-versions.ts";
 import { countLegalOrders } from "../../../src/lib/voting/count-orders.ts";
@@ -67,6 +68,15 @@ describe("one primary amendment pending at a time (F3)", () => {
     const { orders } = ordersOf(reviewTree, OLD_DEFAULT);
     expect(orders).toContain("A2 C A S2 S passage");
     expect(ordersOf(reviewTree, HOUSE).orders).not.toContain("A2 C A S2 S passage");
+  });
+});
+
+describe("the walk-through refuses an order the rulebook does not allow", () => {
+  it("A2 C A …: C voted while A is pending is unprocessable under primary-contiguous; a legal order walks through", () => {
+    // Robert's Parliamentary Practice (1922) ch. IV (one primary amendment pending at a time).
+    const raw = { rulebook: { voting: { procedure: "amendment", citation: "Fictional Chamber Rule 12", constraints: HOUSE } }, measure, amendments: reviewTree, profile: { ballots: [{ ranking: ["B", "Q"] }] } };
+    expect(() => walkThrough(raw, ["A2", "C", "A", "S2", "S", "passage"])).toThrowError(expect.objectContaining({ code: "unprocessable" }));
+    expect(walkThrough(raw, ["C", "A2", "A", "S2", "S", "passage"]).order).toEqual(["C", "A2", "A", "S2", "S", "passage"]);
   });
 });
 
