@@ -88,14 +88,25 @@ export function amendmentTreeModel(raw: { measure: unknown; amendments?: unknown
   const roots: number[] = [];
   const children = new Map<number, number[]>();
   const isRootTarget = (t: string) => t === measure.id || sections.has(t);
-  const slotSubstitute = (i: number) => SUBSTITUTE_FORMS.has(all[i].form) && !isRootTarget(all[i].target) && isRootTarget(all[byId.get(all[i].target)!].target);
+  /** A substitute whose target is a first-degree amendment (its own target the measure or a section). */
+  const slotSubstitute = (i: number) => {
+    if (!SUBSTITUTE_FORMS.has(all[i].form) || isRootTarget(all[i].target)) return false;
+    const t = byId.get(all[i].target);
+    return t !== undefined && isActive.has(t) && isRootTarget(all[t].target);
+  };
+  // Every target first (a missing one is reported where it is, not as a degree error further down).
+  for (const i of activeIdx) {
+    const a = all[i];
+    if (isRootTarget(a.target)) continue;
+    const t = byId.get(a.target);
+    if (t === undefined || !isActive.has(t)) bad(p(`amendments.${i}.target`), `"${a.target}" is neither the measure, one of its sections, nor a pending amendment`);
+    if (t === i) bad(p(`amendments.${i}.target`), "an amendment cannot amend itself", "unprocessable");
+  }
   for (const i of activeIdx) {
     const a = all[i];
     if (isRootTarget(a.target)) roots.push(i);
     else {
-      const t = byId.get(a.target);
-      if (t === undefined || !isActive.has(t)) bad(p(`amendments.${i}.target`), `"${a.target}" is neither the measure, one of its sections, nor a pending amendment`);
-      if (t === i) bad(p(`amendments.${i}.target`), "an amendment cannot amend itself", "unprocessable");
+      const t = byId.get(a.target)!;
       // Second degree: the target amends the measure or a section, or is a substitute for a first-degree amendment.
       if (!isRootTarget(all[t].target) && !slotSubstitute(t)) bad(p(`amendments.${i}.target`), "a third-degree amendment is out of order", "unprocessable");
       children.set(t, [...(children.get(t) ?? []), i]);

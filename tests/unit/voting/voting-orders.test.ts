@@ -163,6 +163,10 @@ describe("the House tree: a substitute for the amendment, with its own amendment
     expect(() => amendmentTreeModel({ measure, amendments: [...houseTree, { id: "A3", target: "A2", form: "insert" }] })).toThrow(expect.objectContaining({ code: "unprocessable" }));
     expect(() => amendmentTreeModel({ measure, amendments: [...houseTree, { id: "S3", target: "S2", form: "insert" }] })).toThrow(expect.objectContaining({ code: "unprocessable" }));
   });
+  it("an amendment of a substitute whose own target is missing is invalid-input naming the substitute's target", () => {
+    const broken = [{ id: "S2", target: "S", form: "strike" }, { id: "S", target: "nowhere", form: "substitute" }];
+    expect(() => amendmentTreeModel({ measure, amendments: broken })).toThrow(expect.objectContaining({ code: "invalid-input", issues: [expect.objectContaining({ path: "amendments.1.target" })] }));
+  });
   it("version ids of trees without a substitute for an amendment are unchanged", () => {
     expect(amendmentTreeModel({ measure, amendments: reviewTree }).versions.map((v) => v.id)).toEqual(["Q", "B", "B+A", "B+S", "B+C", "B+A+A2", "B+A+C", "B+S+S2", "B+A+A2+C"]);
   });
