@@ -23,7 +23,7 @@ import { questionConstraints } from "../voting/order-constraints.ts";
 import { pairSupport, profileFromRankings, type Profile } from "../voting/profile.ts";
 import { questionAgenda, sincereQuestionPath, sophisticatedValue } from "../voting/question-agenda.ts";
 import { scaleSpatial, spatialProfile, versionPosition } from "../voting/spatial-profile.ts";
-import { toThreshold } from "../voting/vote-threshold.ts";
+import { thresholdText, toThreshold } from "../voting/vote-threshold.ts";
 
 export interface WalkStep {
   question: string;
@@ -146,7 +146,7 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
   return {
     order: orderIds,
     procedure: voting.procedure,
-    threshold: voting.amendmentThreshold,
+    threshold: thresholdText(voting.amendmentThreshold),
     totalWeight: profile.totalWeight,
     sincere: { outcome: names[sincerePath.outcome], steps: sincereSteps },
     sophisticated: { outcome: names[value(0, 0, 0)], steps: sophSteps },

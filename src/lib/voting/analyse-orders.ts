@@ -25,7 +25,7 @@ import { sincereQuestionCounts, sophisticatedQuestionCounts } from "./question-c
 import { questionConstraints } from "./order-constraints.ts";
 import { scaleSpatial, spatialProfile, spatialSchema, versionPosition } from "./spatial-profile.ts";
 import { UNCOVERED_VARIANTS } from "./uncovered-set.ts";
-import { toThreshold } from "./vote-threshold.ts";
+import { thresholdText, toThreshold } from "./vote-threshold.ts";
 import { winSet, type WinSet } from "./win-set.ts";
 
 export const PASSAGE = "passage";
@@ -114,7 +114,7 @@ export function analyseOrders(raw: unknown, opts: AnalyseOptions = {}): OrdersAn
   opts.onPhase?.("page", 1);
   return {
     procedure: voting.procedure,
-    threshold,
+    threshold: thresholdText(threshold),
     alternatives: model.versions,
     questions: [
       ...model.amendments.map((a, i) => ({ id: a.id, kind: "amendment" as const, degree: (model.parent[i] < 0 ? 1 : 2) as 1 | 2, amends: a.target, form: a.form })),
