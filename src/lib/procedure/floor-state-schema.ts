@@ -24,11 +24,13 @@ export const floorSchema = z.looseObject({
   voteTaken: z.boolean().default(false),
   /** How many questions lie on the table. */
   tabled: z.number().int().min(0).max(10_000).default(0),
+  /** A quorum is present; when false, the rulebook's `no-quorum` rule leaves only `voting.quorum.withoutQuorum` in order (RONR 1915 §64). */
+  quorumPresent: z.boolean().default(true),
 });
 
 export const floorStateSchema = z.object({
   pending: z.array(pendingEntrySchema).max(100).default([]),
-  floor: floorSchema.default({ speakerHasFloor: false, debateBegun: false, chairHasRuled: false, voteTaken: false, tabled: 0 }),
+  floor: floorSchema.default({ speakerHasFloor: false, debateBegun: false, chairHasRuled: false, voteTaken: false, tabled: 0, quorumPresent: true }),
 });
 
 export type FloorStateInput = z.input<typeof floorStateSchema>;
