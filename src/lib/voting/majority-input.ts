@@ -35,6 +35,8 @@ export const majorityInputSchema = z.object({
   margins: z.record(alternativeNameSchema, z.record(alternativeNameSchema, z.number().finite())).optional(),
   partial: z.enum(["abstain", "bottom"]).default("abstain"),
   quota: z.enum(VOTE_THRESHOLDS).optional(),
+  /** The membership the "…-of-members" quotas count against; absent: the ballots are the whole membership. */
+  members: z.number().int().min(1).max(1_000_000_000).optional(),
 });
 export type MajorityInput = z.input<typeof majorityInputSchema>;
 
@@ -82,7 +84,7 @@ export function parsedMajorityGraph(input: z.output<typeof majorityInputSchema>)
   const n = names.length;
   if (input.ballots) {
     const profile = profileFromRankings(names, rankingsToIndices(input.ballots, index, "ballots"), input.partial);
-    return { graph: majorityGraph(profile, toThreshold(input.quota ?? "majority")), profile };
+    return { graph: majorityGraph(profile, toThreshold(input.quota ?? "majority"), input.members === undefined ? {} : { members: input.members }), profile };
   }
   if (input.quota !== undefined && toThreshold(input.quota) !== "majority") fail([{ path: "quota", message: "a quota needs ballots; edges and margins are read as simple majority" }], "majority input");
   const look = (name: string, path: string): number => {
