@@ -81,7 +81,7 @@ function stepFor(s: WalkStep, n: number, labels: TreeLabels, amendThreshold: str
       : a.degree === 2
         ? `Amendment ${a.target} stays as filed; if it is then agreed to, the text becomes: ${versionInWords(s.base ?? labels.measureKey, labels)}.${falls(s.fallsIfRejected, labels)}`
         : `The amendment is not agreed to; the text remains: ${versionInWords(s.base ?? labels.measureKey, labels)}.${falls(s.fallsIfRejected, labels)}`,
-    projection: `Projected: ${s.adopted ? "adopted" : "rejected"} (${tally}).${reach}`,
+    projection: `Projected: ${s.adopted ? "adopted" : "rejected"} (${tally}${s.castingVote ? `; the votes being equally divided, the chair gives a casting vote ${s.castingVote === "for" ? "in favour" : "against"}` : ""}).${reach}`,
   };
 }
 

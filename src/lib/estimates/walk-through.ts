@@ -21,6 +21,8 @@ import { rankingsToIndices } from "../voting/majority-input.ts";
 import { questionConstraints } from "../voting/order-constraints.ts";
 import { attendingWeight, pairSupport, profileFromRankings, type Profile } from "../voting/profile.ts";
 import { questionAgenda, sincereQuestionPath, sophisticatedValue } from "../voting/question-agenda.ts";
+import { chairSide } from "../voting/majority-graph.ts";
+import { successiveTally } from "../voting/successive-agenda.ts";
 import { scaleSpatial, spatialProfile, versionPosition } from "../voting/spatial-profile.ts";
 import { thresholdText } from "../voting/vote-threshold.ts";
 import { questionGraphs, quorumStatus, requireQuorum, thresholdsJson, voteRules } from "../voting/vote-rules.ts";
@@ -36,6 +38,8 @@ export interface WalkStep {
   /** Successive procedure, sincere path: the other versions still within reach that members weighed the motion against. */
   withinReach?: string[];
   adopted?: boolean;
+  /** The votes were equally divided and the chair's casting vote decided (tie rule "chair-casting-vote"). */
+  castingVote?: "for" | "against";
   /** Later questions that fall if this one is adopted / rejected. */
   fallsIfAdopted?: string[];
   fallsIfRejected?: string[];
@@ -97,6 +101,20 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
     const s = pairSupport(profile, yes, no);
     return { for: s.forX, against: s.forY };
   };
+  // The chair's casting vote, shown where it decided an equal division.
+  const casting = (t: { for: number; against: number }, side: number): Pick<WalkStep, "castingVote"> =>
+    rules.tieRule === "chair-casting-vote" && profile.chair && t.for === t.against && side !== 0 ? { castingVote: side > 0 ? "for" : "against" } : {};
+  const castingOnSincere = (x: number, decided: number, adopted: number) => {
+    const t = qa.sincereTally(x, decided, adopted)!;
+    const v = qa.vote(x, adopted);
+    const successive = voting.procedure === "successive" && x !== qa.passage;
+    let side = chairSide(profile, v.yesVersion, v.noVersion);
+    if (successive && profile.chair) {
+      const c = successiveTally({ alternatives: profile.alternatives, members: [profile.chair], totalWeight: profile.chair.weight }, v.yesVersion, qa.successiveField(x, decided, adopted));
+      side = c.forWeight > 0 ? 1 : c.againstWeight > 0 ? -1 : 0;
+    }
+    return casting({ for: t.forWeight, against: t.againstWeight }, side);
+  };
   const fallsAfter = (i: number, decided: number, adopted: number) => order.slice(i + 1).filter((y) => qa.falls(y, decided, adopted)).map((y) => qids[y]);
 
   const sincerePath = sincereQuestionPath(qa, order);
@@ -117,6 +135,7 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
           motion: names[v.yesVersion],
           base: names[v.noVersion],
           ...sincereTally(x, decided, adopted),
+          ...castingOnSincere(x, decided, adopted),
           adopted: s.adopted,
           fallsIfAdopted: fallsAfter(i, d2, v.yesState).filter((q) => !before.has(q)),
           fallsIfRejected: fallsAfter(i, d2, v.noState).filter((q) => !before.has(q)),
@@ -142,7 +161,7 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
         const no = value(i + 1, d2, v.noState);
         const ok = qa.beatsOn(x, yes, no);
         const before = new Set(fallsAfter(i, decided, adopted));
-        sophSteps.push({ question: qids[x], put: true, motion: names[yes], base: names[no], ...pairTally(yes, no), adopted: ok, fallsIfAdopted: fallsAfter(i, d2, v.yesState).filter((q) => !before.has(q)), fallsIfRejected: fallsAfter(i, d2, v.noState).filter((q) => !before.has(q)) });
+        sophSteps.push({ question: qids[x], put: true, motion: names[yes], base: names[no], ...pairTally(yes, no), ...casting(pairTally(yes, no), chairSide(profile, yes, no)), adopted: ok, fallsIfAdopted: fallsAfter(i, d2, v.yesState).filter((q) => !before.has(q)), fallsIfRejected: fallsAfter(i, d2, v.noState).filter((q) => !before.has(q)) });
         if (ok) adopted = v.yesState;
       }
       decided |= 1 << x;

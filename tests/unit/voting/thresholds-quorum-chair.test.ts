@@ -271,13 +271,20 @@ describe("the chair's casting vote in an analysis (F29)", () => {
     expect(analyseOrders(input).page.orders[0].sincere).toBe("B");
     const w = walkThrough(input, ["passage"]);
     expect(w.tieRule).toBe("chair-casting-vote");
-    expect(w.sincere.steps[0]).toMatchObject({ for: 2, against: 2, adopted: true });
+    expect(w.sincere.steps[0]).toMatchObject({ for: 2, against: 2, adopted: true, castingVote: "for" });
+    expect(w.sophisticated.steps[0]).toMatchObject({ for: 2, against: 2, adopted: true, castingVote: "for" });
+    // Under the default rule the same ballots count the chair as a member: 3–2, no casting vote.
+    const plain = walkThrough({ ...input, rulebook: { voting } }, ["passage"]);
+    expect(plain.sincere.steps[0]).toMatchObject({ for: 3, against: 2, adopted: true });
+    expect(plain.sincere.steps[0].castingVote).toBeUndefined();
   });
   it("the casting vote also decides a successive (yes/no) question", () => {
     const amendments = [{ id: "A", target: "s1", form: "insert" }];
     const ballots2 = [{ ranking: ["B+A", "B", "Q"], weight: 2 }, { ranking: ["B", "B+A", "Q"], weight: 2 }, { ranking: ["B+A", "B", "Q"], chair: true }];
     const run = (tieRule: string) => analyseOrders({ rulebook: { voting: { procedure: "successive", constraints: ["passage-last"], tieRule, citation: "Fictional Chamber Rule 12" } }, measure, amendments, profile: { ballots: ballots2 } }).page.orders[0];
     expect(run("chair-casting-vote").sincereSteps[0]).toEqual({ question: "A", put: true, adopted: true });
+    const w = walkThrough({ rulebook: { voting: { procedure: "successive", constraints: ["passage-last"], tieRule: "chair-casting-vote", citation: "Fictional Chamber Rule 12" } }, measure, amendments, profile: { ballots: ballots2 } }, ["A", "passage"]);
+    expect(w.sincere.steps[0]).toMatchObject({ for: 2, against: 2, castingVote: "for", adopted: true });
     // Without a ballot marked as the chair's there is no casting vote: 2–2 defeats the amendment.
     const noChair = analyseOrders({ rulebook: { voting: { procedure: "successive", constraints: ["passage-last"], tieRule: "chair-casting-vote", citation: "Fictional Chamber Rule 12" } }, measure, amendments, profile: { ballots: ballots2.slice(0, 2) } }).page.orders[0];
     expect(noChair.sincereSteps[0]).toEqual({ question: "A", put: true, adopted: false });
