@@ -60,6 +60,8 @@ export interface OrdersAnalysis {
   /** Whether the estimate marks a ballot as the chair's. */
   chairBallot: boolean;
   quorum: QuorumStatus;
+  /** For each version other than Q: whether it beats Q under the passage threshold (head to head). */
+  passesAgainstQ: Record<string, boolean>;
   alternatives: Array<{ id: string; amendments: string[] }>;
   questions: Array<{ id: string; kind: "amendment" | "passage"; degree?: 1 | 2; amends?: string; form?: string }>;
   constraints: Array<[string, string]>;
@@ -133,6 +135,7 @@ export function analyseOrders(raw: unknown, opts: AnalyseOptions = {}): OrdersAn
     tieRule: rules.tieRule,
     chairBallot: "ballots" in input.profile && input.profile.ballots.some((b) => b.chair === true),
     quorum,
+    passesAgainstQ: Object.fromEntries(model.versions.slice(1).map((v, i) => [v.id, graphs.passage.beats[i + 1][0]])),
     alternatives: model.versions,
     questions: [
       ...model.amendments.map((a, i) => ({ id: a.id, kind: "amendment" as const, degree: (model.parent[i] < 0 ? 1 : 2) as 1 | 2, amends: a.target, form: a.form })),
