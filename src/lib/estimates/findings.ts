@@ -10,7 +10,7 @@ import type { OrdersAnalysis } from "../voting/analyse-orders.ts";
 import { listInWords, STATUS_QUO_ID, thresholdInWords, versionInWords, versionShort, type TreeLabels } from "./version-words.ts";
 
 export interface Finding {
-  id: "order-decides" | "order-indifferent" | "condorcet-defeated" | "condorcet-holds" | "cycle" | "strategic" | "sincere-holds" | "kills" | "saves" | "quorum-unchecked";
+  id: "order-decides" | "order-indifferent" | "condorcet-defeated" | "condorcet-holds" | "cycle" | "strategic" | "sincere-holds" | "kills" | "saves";
   headline: string;
   detail: string;
   caution: string;
@@ -22,7 +22,7 @@ export interface OrderListing {
   complete: boolean;
 }
 
-type Analysis = Pick<OrdersAnalysis, "alternatives" | "majority" | "orders" | "sincere" | "sophisticated"> & Partial<Pick<OrdersAnalysis, "passesAgainstQ" | "thresholds" | "quorum">>;
+type Analysis = Pick<OrdersAnalysis, "alternatives" | "majority" | "orders" | "sincere" | "sophisticated"> & Partial<Pick<OrdersAnalysis, "passesAgainstQ" | "thresholds">>;
 
 const num = (c: number | string) => (typeof c === "number" ? c : Number(c));
 const orders = (c: number | string) => `${c} legal order${num(c) === 1 ? "" : "s"}`;
@@ -97,7 +97,5 @@ export function buildFindings(a: Analysis, listing: OrderListing, labels: TreeLa
       out.push({ id: "saves", headline: `${name} would save the measure.`, detail: `${versionShort(baseId, labels)} is projected to fail against no change (margin ${a.majority.margins[baseId][STATUS_QUO_ID]}); with ${last} adopted it is projected to pass (margin ${a.majority.margins[v.id][STATUS_QUO_ID]})${needs}.`, caution: c });
     }
   }
-  if (a.quorum && a.quorum.met === null)
-    out.push({ id: "quorum-unchecked", headline: "The quorum was not checked.", detail: `The rulebook gives no membership (chamber.members) and the chamber has no roster, so whether the ${a.quorum.present} attending make a quorum is unknown.`, caution: c });
   return out;
 }

@@ -10,6 +10,7 @@ import { GavelError } from "../../../src/lib/errors.ts";
 import { estimateContentSchema } from "../../../src/lib/estimates/estimate-content.ts";
 import { parseBallotCsv } from "../../../src/lib/estimates/ballot-csv.ts";
 import { walkThrough } from "../../../src/lib/estimates/walk-through.ts";
+import { buildFindings } from "../../../src/lib/estimates/findings.ts";
 import { votingSectionSchema } from "../../../src/lib/procedure/voting-section.ts";
 import { analyseOrders } from "../../../src/lib/voting/analyse-orders.ts";
 import { majorityGraph } from "../../../src/lib/voting/majority-graph.ts";
@@ -163,6 +164,15 @@ describe("thresholds per question kind (F27; RONR 1915 §33 p. 134)", () => {
     const r = analyseOrders({ rulebook: { voting: { ...voting, amendmentThreshold: "two-thirds", passageThreshold: "two-thirds" } }, measure, amendments: oneAmendment, profile });
     expect(r.page.orders[0].sincereSteps[0]).toEqual({ question: "A", put: true, adopted: false });
     expect(r.page.orders[0].sincere).toBe("B");
+  });
+  it("the finding that an amendment kills the measure is judged under the passage threshold: B+A carries 6–4, short of two-thirds", () => {
+    const labels = { measureKey: "B", measureLabel: "Bill 1", amendments: { A: { form: "insert", target: "s1", degree: 1 as const } } };
+    const ids = (motions?: object[]) => {
+      const a = analyseOrders({ rulebook: { voting, ...(motions ? { motions } : {}) }, measure, amendments: oneAmendment, profile });
+      return buildFindings(a, { orders: a.page.orders, complete: true }, labels, "x").map((f) => f.id);
+    };
+    expect(ids(mainNeedsTwoThirds)).toContain("kills");
+    expect(ids([{ id: "main", class: "main", vote: "majority" }])).not.toContain("kills");
   });
   it("voting.passageThreshold overrides the catalogue; without either, passage falls back to the amendment threshold", () => {
     const r = analyseOrders({ rulebook: { voting: { ...voting, passageThreshold: "majority" }, motions: mainNeedsTwoThirds }, measure, amendments: oneAmendment, profile });
