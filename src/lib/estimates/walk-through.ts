@@ -103,7 +103,7 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
   };
   // The chair's casting vote, shown where it decided an equal division.
   const casting = (t: { for: number; against: number }, side: number): Pick<WalkStep, "castingVote"> =>
-    rules.tieRule === "chair-casting-vote" && profile.chair && t.for === t.against && side !== 0 ? { castingVote: side > 0 ? "for" : "against" } : {};
+    rules.tieRule === "chair-casting-vote" && profile.chair && t.for === t.against && t.for > 0 && side !== 0 ? { castingVote: side > 0 ? "for" : "against" } : {};
   const castingOnSincere = (x: number, decided: number, adopted: number) => {
     const t = qa.sincereTally(x, decided, adopted)!;
     const v = qa.vote(x, adopted);

@@ -80,12 +80,13 @@ export type ChairSide = 1 | -1 | 0;
 /**
  * The decision under the tie rule. `forWeight`/`againstWeight` are the members' votes; under
  * "chair-casting-vote" they exclude the chair (whose ballot is kept apart, with weight `chairWeight`),
- * and the chair's vote is added only when the votes are equally divided. Under the other rules the
+ * and the chair's vote is added only when the votes are equally divided (at least one vote each way: a
+ * question on which no member votes is not "divided"). Under the other rules the
  * chair's ballot, if any, is already among the members' votes: voting only when the vote affects the
  * result (RONR §46) gives the same decision as voting every time.
  */
 export function decides(forWeight: number, againstWeight: number, base: number | VoteBase, threshold: Threshold, tieRule: TieRule = "motion-fails", chairSide: ChairSide = 0, chairWeight = 1): boolean {
-  if (tieRule === "chair-casting-vote" && forWeight === againstWeight && chairSide !== 0)
+  if (tieRule === "chair-casting-vote" && forWeight === againstWeight && forWeight > 0 && chairSide !== 0)
     return chairSide > 0 ? adopts(forWeight + chairWeight, againstWeight, base, threshold) : false;
   return adopts(forWeight, againstWeight, base, threshold);
 }

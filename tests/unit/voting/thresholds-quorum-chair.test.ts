@@ -81,6 +81,8 @@ describe("vote thresholds (src/lib/voting/vote-threshold.ts)", () => {
     expect(decides(50, 50, { members: 100, present: 101 }, "majority", "chair-casting-vote", -1)).toBe(false);
     expect(decides(50, 50, { members: 100, present: 101 }, "majority", "chair-casting-vote", 0)).toBe(false);
     expect(decides(49, 51, { members: 100, present: 101 }, "majority", "chair-casting-vote", 1)).toBe(false);
+    // Nobody voting is not an equal division (common practice, no source): no casting vote on 0–0.
+    expect(decides(0, 0, { members: 100, present: 101 }, "majority", "chair-casting-vote", 1)).toBe(false);
   });
 });
 
