@@ -170,7 +170,7 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
   return {
     order: orderIds,
     procedure: voting.procedure,
-    threshold: thresholdText(rules.amendment),
+    threshold: thresholdText(voting.amendmentThreshold),
     thresholds: thresholdsJson(rules),
     tieRule: rules.tieRule,
     totalWeight: profile.totalWeight,
