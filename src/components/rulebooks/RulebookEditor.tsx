@@ -380,6 +380,13 @@ function SectionsPanel({ doc, at, readOnly, update }: { doc: RulebookInput; at: 
           <SelectField path="voting.tieRule" label="Tie rule" at={at} disabled={readOnly} value={v.tieRule ?? "motion-fails"} options={TIE_RULES} labels={TIE_LABELS} onChange={(x) => setV({ tieRule: x })} />
           <SelectField path="voting.amendmentThreshold" label="Threshold to adopt an amendment" at={at} disabled={readOnly} value={typeof v.amendmentThreshold === "string" ? v.amendmentThreshold : "majority"} options={VOTE_THRESHOLDS} labels={VOTE_LABELS} onChange={(x) => setV({ amendmentThreshold: x })} />
           <SelectField path="voting.passageThreshold" label="Threshold for final passage (unset: the main motion's vote)" at={at} disabled={readOnly} value={typeof v.passageThreshold === "string" ? v.passageThreshold : "none"} options={VOTE_THRESHOLDS} labels={{ ...VOTE_LABELS, none: "The main motion's vote" }} onChange={(x) => setV({ passageThreshold: x === "none" ? undefined : x })} />
+          {(typeof v.amendmentThreshold === "object" || typeof v.passageThreshold === "object") && (
+            <p className="gw-hint col-span-2">
+              {typeof v.amendmentThreshold === "object" ? `Amendments need a fixed number: at least ${v.amendmentThreshold.value} votes in favour. ` : ""}
+              {typeof v.passageThreshold === "object" ? `Passage needs a fixed number: at least ${v.passageThreshold.value} votes in favour. ` : ""}
+              Choosing a threshold above replaces the fixed number.
+            </p>
+          )}
           <SelectField path="voting.quorum.kind" label="Quorum" at={at} disabled={readOnly} value={quorum.kind} options={QUORUM_KINDS} onChange={(x) => setV({ quorum: { ...quorum, kind: x } })} />
           {quorum.kind === "number" && <NumberField path="voting.quorum.value" label="Quorum (members)" at={at} disabled={readOnly} value={quorum.value ?? null} nullable min={1} onChange={(x) => setV({ quorum: { ...quorum, value: x ?? undefined } })} />}
           {quorum.kind === "fraction" && <NumberField path="voting.quorum.numerator" label="Quorum: numerator (of the members)" at={at} disabled={readOnly} value={quorum.numerator ?? null} nullable min={1} onChange={(x) => setV({ quorum: { ...quorum, numerator: x ?? undefined } })} />}
