@@ -45,7 +45,7 @@ describe("vote thresholds (src/lib/voting/vote-threshold.ts)", () => {
     expect(adopts(47, 0, base, "two-thirds-of-members")).toBe(true);
     expect(adopts(46, 0, base, "two-thirds-of-members")).toBe(false);
   });
-  it("F28: with 30 ballots in a 40-seat chamber, a majority of the members is 21, not 16 (procedure review F28)", () => {
+  it("F28: with 30 ballots in a 40-seat chamber, a majority of the members is 21, not 16 (the membership, not the ballots: RONR 1915 §64 p. 260 note, \"a majority of the total membership\"; procedure review F28)", () => {
     const f28 = { members: 40, present: 30 };
     expect(adopts(16, 14, f28, "majority-of-members")).toBe(false);
     expect(adopts(20, 10, f28, "majority-of-members")).toBe(false);
