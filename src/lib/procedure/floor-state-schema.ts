@@ -57,6 +57,8 @@ export const floorSchema = z.looseObject({
   noticeGiven: z.boolean().default(false),
   /** The incidental motion about to be made arises out of the immediately pending question (e.g. leave to withdraw it). */
   arisesFromPending: z.boolean().default(false),
+  /** A quorum is present; when false, the rulebook's `no-quorum` rule leaves only `voting.quorum.withoutQuorum` in order (RONR 1915 §64). */
+  quorumPresent: z.boolean().default(true),
 });
 
 const FLOOR_DEFAULTS = {
@@ -71,6 +73,7 @@ const FLOOR_DEFAULTS = {
   reconsiderVote: null,
   noticeGiven: false,
   arisesFromPending: false,
+  quorumPresent: true,
 };
 
 export const floorStateSchema = z
