@@ -36,6 +36,8 @@ export const FINDING_CODES = [
   "cycle",
   "form-not-allowed",
   "voted-after-perfecting",
+  "whole-text",
+  "needs-selection",
 ] as const;
 
 const text = (max: number) => z.string().trim().min(1).max(max);
