@@ -6,7 +6,8 @@
  *  - Erskine May 20.53 "The ordinary closure" (section/4792); 20.41 (section/4780); 20.89 "Casting vote of Speaker" (section/4829)
  *  - Standing Orders of the House of Commons 2002, Nos. 31 and 32
  *  - House of Commons, Short guide to procedure and practice (2001), "Closure"
- *  - Standing Orders of the Legislative Assembly of Victoria, SO 106
+ *  - Standing Orders of the Legislative Assembly of Victoria, SO 106; House of Representatives Practice (Australia), 6th ed., ch. 14, p. 480
+ *  - Erskine May 20.59 "Quorum of the House" (section/4798)
  */
 import { describe, expect, it } from "vitest";
 import type { AmendmentInput, MeasureInput } from "../../../src/lib/amendments/case-schema.ts";
@@ -39,7 +40,7 @@ describe("Westminster template: closure and 'no longer heard' (Erskine May 20.53
     expect((await moves([]))["previous-question"].inOrder).toBe(false);
   });
 
-  it("Victoria SO 106, paraphrase: 'That the member be no longer heard' is moved against a member who is speaking, and decided without amendment or debate", async () => {
+  it("House of Representatives Practice (Australia) ch. 14 p. 480 — SO 80 motion \"must be moved without comment and must be put immediately and resolved without amendment\"; Victoria SO 106: moved against a member who is speaking", async () => {
     expect((await moves([MOTION], { speakerHasFloor: true }))["member-no-longer-heard"].inOrder).toBe(true);
     const idle = (await moves([MOTION], { speakerHasFloor: false }))["member-no-longer-heard"];
     expect(idle.inOrder).toBe(false);
@@ -120,7 +121,7 @@ describe("Westminster template: seconders, casting vote, quorum", () => {
     expect(wm.source.verify.some((v) => /casting vote/i.test(v))).toBe(true);
   });
 
-  it("Erskine May 20.12, paraphrase: a division in which fewer than 40 Members take part does not decide the question", () => {
+  it("Erskine May 20.59: \"Forty Members, including the Speaker, form the quorum of the House\" (SO No. 41: a division with fewer than forty leaves the business to stand over)", () => {
     expect(wm.voting.quorum).toEqual({ kind: "number", value: 40 });
   });
 });
