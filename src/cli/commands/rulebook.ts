@@ -10,6 +10,7 @@ import { z } from "zod";
 import { GavelError, parseWith } from "../../lib/errors.ts";
 import { parseRulebook } from "../../lib/procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../lib/procedure/rulebook-schema.ts";
+import { resolveTemplateId } from "../../lib/procedure/template-aliases.ts";
 import { printJson, readJsonFile, type CliIO } from "../io.ts";
 import type { Command } from "../main.ts";
 
@@ -35,12 +36,12 @@ export function readCase<S extends z.ZodType<{ rulebook: unknown }>>(file: strin
 
 /**
  * Resolve a case file's `rulebook`: an inline object; a path relative to the case file;
- * or the id of a shipped template ("general-parliamentary-law").
+ * or the id of a shipped template ("general-parliamentary-law"), former ids included ("four-amendment-legislature").
  */
 export function loadRulebookRef(ref: unknown, caseDir: string, io: CliIO): Rulebook {
   if (typeof ref === "string") {
     const asPath = resolve(caseDir, ref);
-    const template = resolve(TEMPLATE_DIR, `${ref}.json`);
+    const template = resolve(TEMPLATE_DIR, `${resolveTemplateId(ref)}.json`);
     const file = existsSync(asPath) ? asPath : /^[a-z0-9-]+$/.test(ref) && existsSync(template) ? template : null;
     if (!file) throw new GavelError("not-found", `rulebook "${ref}" is neither a file (relative to the case file) nor a template id`, { issues: [{ path: "rulebook", message: "no such file or template" }] });
     const value = readJsonFile(file, io, "rulebook file");

@@ -116,6 +116,8 @@ export const ruleSchema = z.object({
   severity: z.enum(FINDING_SEVERITIES).optional(),
   /** Amendment scope: a fact (an array of amendment ids) listed as the finding's `related`. */
   related: z.enum(["conflictsWith", "perfectingSiblings", "cycleMembers"]).optional(),
+  /** The clerk's note on the rule: what is from memory, what the source does not settle. Not read by the engine. */
+  note: z.string().max(1000).optional(),
 });
 
 export const rulebookSchema = z.object({

@@ -7,6 +7,7 @@ import { readdir, readFile } from "node:fs/promises";
 import path from "node:path";
 import { GavelError } from "../errors.ts";
 import { parseRulebookText } from "../procedure/parse-rulebook.ts";
+import { resolveTemplateId } from "../procedure/template-aliases.ts";
 
 export interface RulebookTemplate {
   id: string;
@@ -42,8 +43,10 @@ export function rulebookTemplates(): Promise<RulebookTemplate[]> {
   return cache;
 }
 
+/** One template by id; a former id (TEMPLATE_ALIASES) resolves to the template that replaced it. */
 export async function rulebookTemplate(id: string): Promise<RulebookTemplate> {
-  const t = (await rulebookTemplates()).find((x) => x.id === id);
+  const current = resolveTemplateId(id);
+  const t = (await rulebookTemplates()).find((x) => x.id === current);
   if (!t) throw new GavelError("not-found", `No rulebook template "${id}".`);
   return t;
 }

@@ -3,11 +3,13 @@ import { readFileSync } from "node:fs";
 import { resolve } from "node:path";
 import { parseRulebook } from "../../../src/lib/procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../../src/lib/procedure/rulebook-schema.ts";
+import { resolveTemplateId } from "../../../src/lib/procedure/template-aliases.ts";
 
-export const TEMPLATE_IDS = ["general-parliamentary-law", "four-amendment-legislature", "continental-successive", "demo-chamber"] as const;
+export const TEMPLATE_IDS = ["general-parliamentary-law", "us-house", "us-senate", "continental-successive", "demo-chamber"] as const;
 
+/** The file of a shipped template; a former id (TEMPLATE_ALIASES) names the template that replaced it. */
 export function templatePath(id: string): string {
-  return resolve(import.meta.dirname, "../../../rulebooks", `${id}.json`);
+  return resolve(import.meta.dirname, "../../../rulebooks", `${resolveTemplateId(id)}.json`);
 }
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
