@@ -44,7 +44,9 @@ describe("GET /api/rulebooks", () => {
       expect(r.status, role).toBe(200);
       expect(r.body.versions.length).toBe(1);
       expect(r.body.inForce.versionId).toBe(r.body.versions[0].id);
-      expect(r.body.templates.map((t: { id: string }) => t.id)).toEqual(expect.arrayContaining(["continental-successive", "demo-chamber", "four-amendment-legislature", "general-parliamentary-law"]));
+      expect(r.body.templates.map((t: { id: string }) => t.id)).toEqual(expect.arrayContaining(["continental-successive", "demo-chamber", "general-parliamentary-law", "us-house", "us-senate"]));
+      // A former id resolves but is not listed twice (issue 14: old ids keep working as aliases).
+      expect(r.body.templates.map((t: { id: string }) => t.id)).not.toContain("four-amendment-legislature");
     }
   });
   it("keeps chambers apart", async () => {
@@ -90,6 +92,11 @@ describe("GET /api/rulebooks/:id and export", () => {
     expect(r.body.document.id).toBe("general-parliamentary-law");
     expect((await call(template.GET, "GET", "/api/rulebooks/templates/nope", { as: s.as.member, params: { id: "nope" } })).status).toBe(404);
     expect((await call(template.GET, "GET", "/api/rulebooks/templates/nope", { as: null, params: { id: "nope" } })).status).toBe(401);
+  });
+  it("serves the House template under its former id four-amendment-legislature (issue 14 alias)", async () => {
+    const r = await call(template.GET, "GET", "/api/rulebooks/templates/four-amendment-legislature", { as: s.as.member, params: { id: "four-amendment-legislature" } });
+    expect(r.status).toBe(200);
+    expect([r.body.id, r.body.document.id]).toEqual(["us-house", "us-house"]);
   });
 });
 
