@@ -15,8 +15,9 @@ interface Facts {
   chairHasRuled: boolean;
   voteTaken: boolean;
   tabled: number;
+  committeeOfTheWhole: boolean;
 }
-const NO_FACTS: Facts = { speakerHasFloor: false, debateBegun: false, chairHasRuled: false, voteTaken: false, tabled: 0 };
+const NO_FACTS: Facts = { speakerHasFloor: false, debateBegun: false, chairHasRuled: false, voteTaken: false, tabled: 0, committeeOfTheWhole: false };
 
 /** Pose a hypothetical floor (push and pop pending motions, set the floor facts) and see every motion's verdict. Never touches a sitting. */
 export default function MovesExplorer() {
@@ -64,7 +65,7 @@ export default function MovesExplorer() {
       const s = await getJson(`/api/floor/sittings/${open.id}`, sittingSchema);
       setPending(s.board.pending.map((p) => ({ motion: p.motion })));
       const top = s.board.pending[s.board.pending.length - 1];
-      setFacts({ speakerHasFloor: s.board.speaker !== null, debateBegun: top?.debateBegun ?? false, chairHasRuled: s.board.chairHasRuled, voteTaken: s.board.voteTaken, tabled: s.board.tabled });
+      setFacts({ speakerHasFloor: s.board.speaker !== null, debateBegun: top?.debateBegun ?? false, chairHasRuled: s.board.chairHasRuled, voteTaken: s.board.voteTaken, tabled: s.board.tabled, committeeOfTheWhole: facts.committeeOfTheWhole });
     } catch (e) {
       setError({ message: e instanceof Error ? e.message : "Could not copy the floor.", issues: [] });
     }
@@ -141,6 +142,7 @@ export default function MovesExplorer() {
             {toggle("debateBegun", "Debate on the pending question has begun")}
             {toggle("chairHasRuled", "The chair has just ruled")}
             {toggle("voteTaken", "A vote has been taken this sitting")}
+            {toggle("committeeOfTheWhole", "Sitting as a Committee of the Whole")}
             <label className="flex items-center gap-2 text-sm">
               Questions on the table
               <input type="number" min={0} max={99} className="gw-input w-20" value={facts.tabled} onChange={(e) => setFacts({ ...facts, tabled: Math.max(0, Math.min(99, Number(e.target.value) || 0)) })} />

@@ -33,6 +33,12 @@ function TemplateEntry({ t }: { t: TemplateMeta }) {
           <ul className="mt-1 list-disc pl-5">{t.verify.map((v, i) => <li key={i}>{v}</li>)}</ul>
         </details>
       )}
+      {s?.note && (
+        <details className="mt-1 text-sm" data-testid="template-note">
+          <summary>{t.verify.length > 0 ? "How this template was read" : "Notes on the source"}</summary>
+          <p className="mt-1">{s.note}</p>
+        </details>
+      )}
     </li>
   );
 }

@@ -24,11 +24,13 @@ export const floorSchema = z.looseObject({
   voteTaken: z.boolean().default(false),
   /** How many questions lie on the table. */
   tabled: z.number().int().min(0).max(10_000).default(0),
+  /** The chamber is sitting as a Committee of the Whole (US House: Rule XVIII), whose motions differ. */
+  committeeOfTheWhole: z.boolean().default(false),
 });
 
 export const floorStateSchema = z.object({
   pending: z.array(pendingEntrySchema).max(100).default([]),
-  floor: floorSchema.default({ speakerHasFloor: false, debateBegun: false, chairHasRuled: false, voteTaken: false, tabled: 0 }),
+  floor: floorSchema.default({ speakerHasFloor: false, debateBegun: false, chairHasRuled: false, voteTaken: false, tabled: 0, committeeOfTheWhole: false }),
 });
 
 export type FloorStateInput = z.input<typeof floorStateSchema>;

@@ -44,7 +44,9 @@ describe("GET /api/rulebooks", () => {
       expect(r.status, role).toBe(200);
       expect(r.body.versions.length).toBe(1);
       expect(r.body.inForce.versionId).toBe(r.body.versions[0].id);
-      expect(r.body.templates.map((t: { id: string }) => t.id)).toEqual(expect.arrayContaining(["continental", "demo-chamber", "general-parliamentary-law", "westminster"]));
+      expect(r.body.templates.map((t: { id: string }) => t.id)).toEqual(expect.arrayContaining(["continental", "demo-chamber", "general-parliamentary-law", "us-house", "us-senate", "westminster"]));
+      // A former id resolves but is not listed twice (issue 14: old ids keep working as aliases).
+      expect(r.body.templates.map((t: { id: string }) => t.id)).not.toContain("four-amendment-legislature");
     }
   });
   it("keeps chambers apart", async () => {
@@ -102,6 +104,11 @@ describe("GET /api/rulebooks/:id and export", () => {
     expect(ep.verify.length).toBeGreaterThan(0);
     expect(lib.templates.map((t: { id: string }) => t.id)).not.toContain("continental-successive");
     expect((await call(template.GET, "GET", "/api/rulebooks/templates/nope", { as: null, params: { id: "nope" } })).status).toBe(401);
+  });
+  it("serves the House template under its former id four-amendment-legislature (issue 14 alias)", async () => {
+    const r = await call(template.GET, "GET", "/api/rulebooks/templates/four-amendment-legislature", { as: s.as.member, params: { id: "four-amendment-legislature" } });
+    expect(r.status).toBe(200);
+    expect([r.body.id, r.body.document.id]).toEqual(["us-house", "us-house"]);
   });
 });
 

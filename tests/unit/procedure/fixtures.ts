@@ -5,7 +5,7 @@ import { parseRulebook } from "../../../src/lib/procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../../src/lib/procedure/rulebook-schema.ts";
 import { templateIdCandidates } from "../../../src/lib/procedure/template-ids.ts";
 
-export const TEMPLATE_IDS = ["general-parliamentary-law", "four-amendment-legislature", "continental", "westminster", "demo-chamber"] as const;
+export const TEMPLATE_IDS = ["general-parliamentary-law", "us-house", "us-senate", "continental", "westminster", "demo-chamber"] as const;
 
 /** The shipped file for a template id; an old id resolves as the CLI and the server resolve it (template-ids.ts). */
 export function templatePath(id: string): string {
