@@ -56,7 +56,7 @@ describe("continental template: admissibility (EP Rules of Procedure, 8th term, 
 
   it("Rule 170(1)(c) — \"it seeks to amend more than one of the individual articles or paragraphs\": an amendment tabled to the text as a whole is flagged for the President (compromise amendments are excepted)", async () => {
     const broad = am("R", { form: "insert" });
-    const f = (await findings([broad])).find((x) => x.amendment === broad.id && x.code === "needs-ruling");
+    const f = (await findings([broad])).find((x) => x.amendment === broad.id && x.code === "several-parts");
     expect(f?.severity).toBe("warning");
   });
 

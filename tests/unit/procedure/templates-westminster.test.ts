@@ -104,6 +104,14 @@ describe("Westminster template: amendments (Erskine May 20.41, 20.42; Standing O
     expect(a.page.orders.map((o) => o.questions.join(" "))).toEqual(["EARLIER LATER passage"]);
   });
 
+  it("SO 31(2)(a) (2002): \"That the original words stand part of the question\", then \"That the proposed words be there inserted (or added)\" — a leave-out-and-insert amendment is flagged as a two-part question; an insertion is not", async () => {
+    const swap = am("w1", { form: "strike-and-insert" });
+    const add = am("w2", { form: "insert" });
+    const fs = (await validateTree({ rulebook: wm, measure, amendments: [swap, add] })).findings;
+    expect(fs.find((f) => f.amendment === swap.id && f.code === "two-part-question")?.severity).toBe("info");
+    expect(codes(fs, add.id)).not.toContain("two-part-question");
+  });
+
   it("SO 31 (2002): the question on an amendment is \"That the amendment be made\" — one question per amendment; the two-part 'stand part' form is listed for the clerk to verify", () => {
     const raw = rawTemplate("westminster");
     expect(raw.source.verify.some((v: string) => /two-part/i.test(v))).toBe(true);
