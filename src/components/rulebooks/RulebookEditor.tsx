@@ -396,9 +396,31 @@ function SectionsPanel({ doc, at, readOnly, update }: { doc: RulebookInput; at: 
           <TextField path="chamber.name" label="Chamber name" at={at} disabled={readOnly} value={doc.chamber.name} onChange={(x) => update({ chamber: { ...doc.chamber, name: x } })} />
           <NumberField nullable path="chamber.members" label="Members" at={at} disabled={readOnly} value={doc.chamber.members ?? null} min={1} onChange={(x) => update({ chamber: { ...doc.chamber, members: x ?? undefined } })} />
           <TextField path="source.title" label="Source" at={at} disabled={readOnly} value={doc.source.title} onChange={(x) => update({ source: { ...doc.source, title: x } })} />
+          <TextField path="source.edition" label="Edition of the source" at={at} disabled={readOnly} value={doc.source.edition} onChange={(x) => update({ source: { ...doc.source, edition: x || undefined } })} />
+          <TextField path="source.date" label="Date of the text used" at={at} disabled={readOnly} value={doc.source.date} onChange={(x) => update({ source: { ...doc.source, date: x || undefined } })} />
         </div>
+        <VerifyField doc={doc} at={at} readOnly={readOnly} update={update} />
       </fieldset>
     </div>
+  );
+}
+
+/** The "verify before use" list, one point per line; blank lines are dropped from the rulebook but kept while typing. */
+function VerifyField({ doc, at, readOnly, update }: { doc: RulebookInput; at: IssueLookup; readOnly: boolean; update: (p: Partial<RulebookInput>) => void }) {
+  const [text, setText] = useState(() => (doc.source.verify ?? []).join("\n"));
+  return (
+    <TextField
+      multiline
+      path="source.verify"
+      label="Verify before use (one point per line)"
+      at={at}
+      disabled={readOnly}
+      value={text}
+      onChange={(x) => {
+        setText(x);
+        update({ source: { ...doc.source, verify: x.split("\n").map((l) => l.trim()).filter(Boolean) } });
+      }}
+    />
   );
 }
 
