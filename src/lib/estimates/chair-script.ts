@@ -89,7 +89,7 @@ export function chairScript(walk: WalkThrough, labels: TreeLabels, passageThresh
   return {
     title: `Chair's script: ${labels.measureLabel}, questions in the order ${walk.order.join(", ")}`,
     order: walk.order,
-    steps: walk.sincere.steps.map((s, i) => stepFor(s, i + 1, labels, walk.threshold, passageThreshold)),
+    steps: walk.sincere.steps.map((s, i) => stepFor(s, i + 1, labels, walk.threshold, walk.thresholds?.passage ?? passageThreshold)),
     advisory: `Prepared by Gavelwright as an aid. The projections come from the estimate “${estimateTitle}” under sincere voting; they are not a forecast. The presiding officer's rulings, the chamber's own rules and its counsel prevail.`,
   };
 }

@@ -18,12 +18,12 @@ import { votingSectionSchema } from "../procedure/voting-section.ts";
 import { amendmentTreeModel } from "../voting/amendment-versions.ts";
 import { ordersInputSchema, PASSAGE } from "../voting/analyse-orders.ts";
 import { rankingsToIndices } from "../voting/majority-input.ts";
-import { majorityGraph } from "../voting/majority-graph.ts";
 import { questionConstraints } from "../voting/order-constraints.ts";
-import { pairSupport, profileFromRankings, type Profile } from "../voting/profile.ts";
+import { attendingWeight, pairSupport, profileFromRankings, type Profile } from "../voting/profile.ts";
 import { questionAgenda, sincereQuestionPath, sophisticatedValue } from "../voting/question-agenda.ts";
 import { scaleSpatial, spatialProfile, versionPosition } from "../voting/spatial-profile.ts";
-import { toThreshold } from "../voting/vote-threshold.ts";
+import { thresholdText } from "../voting/vote-threshold.ts";
+import { questionGraphs, quorumStatus, requireQuorum, thresholdsJson, voteRules } from "../voting/vote-rules.ts";
 
 export interface WalkStep {
   question: string;
@@ -45,6 +45,9 @@ export interface WalkThrough {
   order: string[];
   procedure: "amendment" | "successive";
   threshold: string;
+  /** Each question kind's threshold, the membership counted against, and the tie rule. */
+  thresholds: { amendment: string; passage: string; passageFrom: string; members: number | null; membersFrom: string | null };
+  tieRule: string;
   totalWeight: number;
   sincere: { outcome: string; steps: WalkStep[] };
   sophisticated: { outcome: string; steps: WalkStep[] };
@@ -52,10 +55,10 @@ export interface WalkThrough {
 
 export const walkOrderSchema = z.array(z.string().min(1).max(40)).min(1).max(40);
 
-function buildProfile(input: z.output<typeof ordersInputSchema>, names: string[], versions: Array<{ amendments: string[] }>): Profile {
+function buildProfile(input: z.output<typeof ordersInputSchema>, names: string[], versions: Array<{ amendments: string[] }>, chairApart: boolean): Profile {
   if ("ballots" in input.profile) {
     const index = new Map(names.map((n, i) => [n, i]));
-    return profileFromRankings(names, rankingsToIndices(input.profile.ballots, index, "profile.ballots"), input.profile.partial);
+    return profileFromRankings(names, rankingsToIndices(input.profile.ballots, index, "profile.ballots"), input.profile.partial, { chairApart });
   }
   const s = scaleSpatial(input.profile.spatial, "profile.spatial");
   const positions = versions.map((v, i) => (i === 0 ? s.statusQuo : versionPosition(s, v.amendments)));
@@ -68,9 +71,11 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
   const voting = parseWith(votingSectionSchema, input.rulebook.voting, "rulebook voting section", "rulebook.voting");
   const model = amendmentTreeModel({ measure: input.measure, amendments: input.amendments ?? [] });
   const names = model.versions.map((v) => v.id);
-  const profile = buildProfile(input, names, model.versions);
-  const g = majorityGraph(profile, toThreshold(voting.amendmentThreshold));
-  const qa = questionAgenda(model, g, profile, voting.procedure);
+  const rules = voteRules(input.rulebook, voting, input.membership);
+  const profile = buildProfile(input, names, model.versions, rules.tieRule === "chair-casting-vote");
+  requireQuorum(quorumStatus(rules.quorum, rules.members, attendingWeight(profile)));
+  const graphs = questionGraphs(profile, rules, model.amendments.length);
+  const qa = questionAgenda(model, graphs.amendment, profile, voting.procedure, graphs.graphFor);
   const qids = [...model.amendments.map((a) => a.id), PASSAGE];
   const order = orderIds.map((id, i) => {
     const x = qids.indexOf(id);
@@ -135,7 +140,7 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
         const d2 = decided | (1 << x);
         const yes = value(i + 1, d2, v.yesState);
         const no = value(i + 1, d2, v.noState);
-        const ok = qa.beats(yes, no);
+        const ok = qa.beatsOn(x, yes, no);
         const before = new Set(fallsAfter(i, decided, adopted));
         sophSteps.push({ question: qids[x], put: true, motion: names[yes], base: names[no], ...pairTally(yes, no), adopted: ok, fallsIfAdopted: fallsAfter(i, d2, v.yesState).filter((q) => !before.has(q)), fallsIfRejected: fallsAfter(i, d2, v.noState).filter((q) => !before.has(q)) });
         if (ok) adopted = v.yesState;
@@ -146,7 +151,9 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
   return {
     order: orderIds,
     procedure: voting.procedure,
-    threshold: voting.amendmentThreshold,
+    threshold: thresholdText(rules.amendment),
+    thresholds: thresholdsJson(rules),
+    tieRule: rules.tieRule,
     totalWeight: profile.totalWeight,
     sincere: { outcome: names[sincerePath.outcome], steps: sincereSteps },
     sophisticated: { outcome: names[value(0, 0, 0)], steps: sophSteps },

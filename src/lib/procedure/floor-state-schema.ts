@@ -26,11 +26,13 @@ export const floorSchema = z.looseObject({
   tabled: z.number().int().min(0).max(10_000).default(0),
   /** The chamber is sitting as a Committee of the Whole (US House: Rule XVIII), whose motions differ. */
   committeeOfTheWhole: z.boolean().default(false),
+  /** A quorum is present; when false, the rulebook's `no-quorum` rule leaves only `voting.quorum.withoutQuorum` in order (RONR 1915 §64). */
+  quorumPresent: z.boolean().default(true),
 });
 
 export const floorStateSchema = z.object({
   pending: z.array(pendingEntrySchema).max(100).default([]),
-  floor: floorSchema.default({ speakerHasFloor: false, debateBegun: false, chairHasRuled: false, voteTaken: false, tabled: 0, committeeOfTheWhole: false }),
+  floor: floorSchema.default({ speakerHasFloor: false, debateBegun: false, chairHasRuled: false, voteTaken: false, tabled: 0, committeeOfTheWhole: false, quorumPresent: true }),
 });
 
 export type FloorStateInput = z.input<typeof floorStateSchema>;

@@ -80,8 +80,8 @@ export function resolvePending(rulebook: Rulebook, state: FloorState): PendingFa
   return out;
 }
 
-function motionFact(m: Motion) {
-  return { id: m.id, name: m.name, class: m.class, rank: m.rank, second: m.second, debatable: m.debatable, amendable: m.amendable, vote: m.vote, interrupt: m.interrupt, reconsiderable: m.reconsiderable };
+function motionFact(m: Motion, withoutQuorum: readonly string[] = []) {
+  return { id: m.id, name: m.name, class: m.class, rank: m.rank, second: m.second, debatable: m.debatable, amendable: m.amendable, vote: m.vote, interrupt: m.interrupt, reconsiderable: m.reconsiderable, withoutQuorum: withoutQuorum.includes(m.id) };
 }
 
 /**
@@ -106,7 +106,7 @@ export async function legalMoves(rulebook: Rulebook, stateInput: unknown): Promi
   };
   const verdicts: MotionVerdict[] = [];
   for (const m of rulebook.motions) {
-    const facts = { ...shared, motion: motionFact(m) };
+    const facts = { ...shared, motion: motionFact(m, rulebook.voting.quorum.withoutQuorum) };
     const fired = await runner.run(facts);
     const isAmend = m.id === amendId;
     const debatable = m.debatableFollowsTarget && top.exists ? top.debatable ?? m.debatable : m.debatable;

@@ -16,16 +16,16 @@ import { corePoint, type CoreResult } from "./core-point.ts";
 import { exactText, unscale } from "./exact-decimal.ts";
 import { legalOrderPage } from "./legal-orders.ts";
 import { ballotSchema, rankingsToIndices } from "./majority-input.ts";
-import { majorityGraph } from "./majority-graph.ts";
 import { majorityReport, type MajorityReport } from "./majority-report.ts";
 import { precedence } from "./precedence.ts";
-import { profileFromRankings, type Profile } from "./profile.ts";
+import { attendingWeight, profileFromRankings, type Profile } from "./profile.ts";
 import { questionAgenda, sincereQuestionPath, sophisticatedQuestionOutcome, type QuestionStep } from "./question-agenda.ts";
 import { sincereQuestionCounts, sophisticatedQuestionCounts } from "./question-counts.ts";
 import { questionConstraints } from "./order-constraints.ts";
 import { scaleSpatial, spatialProfile, spatialSchema, versionPosition } from "./spatial-profile.ts";
 import { UNCOVERED_VARIANTS } from "./uncovered-set.ts";
-import { toThreshold } from "./vote-threshold.ts";
+import { thresholdText } from "./vote-threshold.ts";
+import { questionGraphs, quorumStatus, requireQuorum, thresholdsJson, voteRules, type QuorumStatus } from "./vote-rules.ts";
 import { winSet, type WinSet } from "./win-set.ts";
 
 export const PASSAGE = "passage";
@@ -34,6 +34,11 @@ export const MAX_PAGE_SIZE = 200;
 export const ordersInputSchema = z.object({
   /** Only `voting` is read; a path must be resolved to the rulebook object by the caller. */
   rulebook: z.object({ voting: z.unknown() }).passthrough(),
+  /**
+   * The chamber's membership when the rulebook gives no `chamber.members` (the server passes its roster
+   * size): what thresholds "of the members" and the quorum count against. Never the ballots' total.
+   */
+  membership: z.number().int().min(1).max(100_000).optional(),
   measure: z.unknown(),
   amendments: z.unknown().optional(),
   profile: z.union([
@@ -48,7 +53,13 @@ export type OrdersInput = z.input<typeof ordersInputSchema>;
 
 export interface OrdersAnalysis {
   procedure: "amendment" | "successive";
+  /** The amendment threshold (as before); `thresholds` has each question kind's. */
   threshold: string;
+  thresholds: { amendment: string; passage: string; passageFrom: string; members: number | null; membersFrom: string | null };
+  tieRule: string;
+  /** Whether the estimate marks a ballot as the chair's. */
+  chairBallot: boolean;
+  quorum: QuorumStatus;
   alternatives: Array<{ id: string; amendments: string[] }>;
   questions: Array<{ id: string; kind: "amendment" | "passage"; degree?: 1 | 2; amends?: string; form?: string }>;
   constraints: Array<[string, string]>;
@@ -65,11 +76,11 @@ export interface AnalyseOptions extends RunControl {
   onPhase?: (phase: "orders" | "sincere" | "sophisticated" | "page", fraction: number) => void;
 }
 
-function buildProfile(input: z.output<typeof ordersInputSchema>, model: AmendmentTreeModel): { profile: Profile; spatial?: OrdersAnalysis["spatial"]; s?: ReturnType<typeof scaleSpatial> } {
+function buildProfile(input: z.output<typeof ordersInputSchema>, model: AmendmentTreeModel, chairApart: boolean): { profile: Profile; spatial?: OrdersAnalysis["spatial"]; s?: ReturnType<typeof scaleSpatial> } {
   const names = model.versions.map((v) => v.id);
   if ("ballots" in input.profile) {
     const index = new Map(names.map((n, i) => [n, i]));
-    return { profile: profileFromRankings(names, rankingsToIndices(input.profile.ballots, index, "profile.ballots"), input.profile.partial) };
+    return { profile: profileFromRankings(names, rankingsToIndices(input.profile.ballots, index, "profile.ballots"), input.profile.partial, { chairApart }) };
   }
   const s = scaleSpatial(input.profile.spatial, "profile.spatial");
   if (!s.measure) throw new GavelError("invalid-input", "profile.spatial.measure: the measure's position is required", { issues: [{ path: "profile.spatial.measure", message: "required to place the versions" }] });
@@ -92,10 +103,13 @@ export function analyseOrders(raw: unknown, opts: AnalyseOptions = {}): OrdersAn
   const input = parseWith(ordersInputSchema, raw, "orders input");
   const voting = parseWith(votingSectionSchema, input.rulebook.voting, "rulebook voting section", "rulebook.voting");
   const model = amendmentTreeModel({ measure: input.measure, amendments: input.amendments ?? [] });
-  const threshold = toThreshold(voting.amendmentThreshold);
-  const built = buildProfile(input, model);
-  const graph = majorityGraph(built.profile, threshold);
-  const qa = questionAgenda(model, graph, built.profile, voting.procedure);
+  const rules = voteRules(input.rulebook, voting, input.membership);
+  const built = buildProfile(input, model, rules.tieRule === "chair-casting-vote");
+  const quorum = quorumStatus(rules.quorum, rules.members, attendingWeight(built.profile));
+  requireQuorum(quorum);
+  const graphs = questionGraphs(built.profile, rules, model.amendments.length);
+  const graph = graphs.amendment;
+  const qa = questionAgenda(model, graph, built.profile, voting.procedure, graphs.graphFor);
   const qids = [...model.amendments.map((a) => a.id), PASSAGE];
   const pairs = questionConstraints(model, voting.constraints);
   const prec = precedence(qa.k + 1, pairs, "rulebook.voting.constraints");
@@ -114,7 +128,11 @@ export function analyseOrders(raw: unknown, opts: AnalyseOptions = {}): OrdersAn
   opts.onPhase?.("page", 1);
   return {
     procedure: voting.procedure,
-    threshold,
+    threshold: thresholdText(rules.amendment),
+    thresholds: thresholdsJson(rules),
+    tieRule: rules.tieRule,
+    chairBallot: "ballots" in input.profile && input.profile.ballots.some((b) => b.chair === true),
+    quorum,
     alternatives: model.versions,
     questions: [
       ...model.amendments.map((a, i) => ({ id: a.id, kind: "amendment" as const, degree: (model.parent[i] < 0 ? 1 : 2) as 1 | 2, amends: a.target, form: a.form })),

@@ -78,7 +78,7 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
         if (qa.falls(x, c2, a)) next[i] = no;
         else {
           const yes = values[compress(qa.vote(x, a).yesState, bits)];
-          next[i] = qa.beats(yes, no) ? yes : no;
+          next[i] = qa.beatsOn(x, yes, no) ? yes : no;
         }
       }
       const r = intern(c2, bits2, next);

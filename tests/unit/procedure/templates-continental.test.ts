@@ -93,7 +93,7 @@ describe("continental template: order of voting (EP Rules of Procedure, 8th term
       { id: "NEAR", target: "p1", form: "strike-and-insert", lines: [1, 3], distance: 1 },
     ],
     // Every member prefers the far wording to the near one and the near one to the unamended text.
-    profile: { ballots: [{ ranking: ["R+FAR", "R+NEAR", "R", "Q"], weight: 5 }] },
+    profile: { ballots: [{ ranking: ["R+FAR", "R+NEAR", "R", "Q"], weight: 300 }] },
     pageSize: 50,
     ...extra,
   });

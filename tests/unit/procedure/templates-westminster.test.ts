@@ -98,7 +98,7 @@ describe("Westminster template: amendments (Erskine May 20.41, 20.42; Standing O
         { id: "LATER", target: "w2", form: "insert" },
         { id: "EARLIER", target: "w1", form: "insert" },
       ],
-      profile: { ballots: [{ ranking: ["M+LATER+EARLIER", "M+EARLIER", "M+LATER", "M", "Q"], weight: 3 }] },
+      profile: { ballots: [{ ranking: ["M+LATER+EARLIER", "M+EARLIER", "M+LATER", "M", "Q"], weight: 60 }] },
       pageSize: 20,
     });
     expect(a.page.orders.map((o) => o.questions.join(" "))).toEqual(["EARLIER LATER passage"]);
