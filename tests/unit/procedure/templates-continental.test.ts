@@ -142,12 +142,21 @@ describe("continental template: procedural motions, majority, quorum (EP Rules o
     expect(ep.voting.amendmentThreshold).toBe("majority");
   });
 
-  it("quorum of one third of the component Members (6th term Rule 149; F22): 251 of 751", () => {
-    expect(ep.voting.quorum).toEqual({ kind: "number", value: Math.ceil((ep.chamber.members ?? 0) / 3) });
-    expect(ep.voting.quorum.value).toBe(251);
+  it("quorum of one third of the component Members (6th term Rule 149; F22): an estimate with 250 of 751 attending gives no outcome, 251 does", () => {
+    expect(ep.voting.quorum).toMatchObject({ kind: "fraction", numerator: 1, denominator: 3 });
+    const run = (weight: number) =>
+      analyseOrders({
+        rulebook: rawTemplate("continental"),
+        measure: { id: "R", title: "Motion for a resolution", sections: [{ id: "p1" }] },
+        amendments: [{ id: "E1", target: "p1", form: "strike-and-insert", lines: [1, 2] }],
+        profile: { ballots: [{ ranking: ["R+E1", "R", "Q"], weight }] },
+      });
+    expect(() => run(250)).toThrow(/quorum/);
+    expect(run(251).quorum).toMatchObject({ met: true });
   });
 
-  it("8th term Rule 179a(3), paraphrase from the Italian text: in other cases of a tie the text or proposal is rejected", () => {
-    expect(ep.voting.tieRule).toBe("motion-fails");
+  it("8th term Rule 179a(3) and last paragraph, paraphrase from the Italian text: a tie rejects the text or proposal; the President may vote but has no casting vote", () => {
+    expect(ep.voting.tieRule).toBe("chair-votes");
+    expect(ep.voting.passageThreshold).toBe("majority");
   });
 });
