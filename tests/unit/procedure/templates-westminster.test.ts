@@ -120,6 +120,11 @@ describe("Westminster template: amendments (Erskine May 20.41, 20.42; Standing O
 });
 
 describe("Westminster template: seconders, casting vote, quorum", () => {
+  it("Erskine May 20.12, paraphrase: a question decided in the session may not be brought forward again — no motion to reconsider, and no vote is reconsiderable", () => {
+    expect(wm.motions.map((m) => m.id)).not.toContain("reconsider");
+    expect(new Set(wm.motions.map((m) => m.reconsiderable))).toEqual(new Set(["neither"]));
+  });
+
   it("Halsbury's Laws para. 767, paraphrase: in the Commons no motion or amendment needs a seconder", () => {
     expect(wm.motions.filter((m) => m.second)).toEqual([]);
   });
