@@ -127,6 +127,12 @@ describe("continental template: procedural motions, majority, quorum (EP Rules o
     for (const id of ["commit", "postpone-definitely", "previous-question", "recess", "adjourn", "amend"]) expect([id, m[id].inOrder]).toEqual([id, true]);
   });
 
+  it("Rule 185(1), paraphrase: procedural motions have priority over other requests to speak — not over a speech in progress (our reading); a point of order is taken at once", async () => {
+    const m = await moves([TEXT], { speakerHasFloor: true });
+    expect(m.commit.inOrder).toBe(false);
+    expect(m["point-of-order"].inOrder).toBe(true);
+  });
+
   it("Rule 189(1), paraphrase: a proposal to close the debate is put to the vote at once (undebatable)", async () => {
     expect((await moves([TEXT]))["previous-question"].debatable).toBe(false);
   });
