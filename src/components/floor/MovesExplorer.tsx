@@ -16,8 +16,9 @@ interface Facts {
   voteTaken: boolean;
   tabled: number;
   quorumPresent: boolean;
+  committeeOfTheWhole: boolean;
 }
-const NO_FACTS: Facts = { speakerHasFloor: false, debateBegun: false, chairHasRuled: false, voteTaken: false, tabled: 0, quorumPresent: true };
+const NO_FACTS: Facts = { speakerHasFloor: false, debateBegun: false, chairHasRuled: false, voteTaken: false, tabled: 0, quorumPresent: true, committeeOfTheWhole: false };
 
 /** Pose a hypothetical floor (push and pop pending motions, set the floor facts) and see every motion's verdict. Never touches a sitting. */
 export default function MovesExplorer() {
@@ -64,7 +65,7 @@ export default function MovesExplorer() {
       const s = await getJson(`/api/floor/sittings/${open.id}`, sittingSchema);
       setPending(s.board.pending.map((p) => ({ motion: p.motion })));
       const top = s.board.pending[s.board.pending.length - 1];
-      setFacts({ speakerHasFloor: s.board.speaker !== null, debateBegun: top?.debateBegun ?? false, chairHasRuled: s.board.chairHasRuled, voteTaken: s.board.voteTaken, tabled: s.board.tabled, quorumPresent: true });
+      setFacts({ speakerHasFloor: s.board.speaker !== null, debateBegun: top?.debateBegun ?? false, chairHasRuled: s.board.chairHasRuled, voteTaken: s.board.voteTaken, tabled: s.board.tabled, quorumPresent: facts.quorumPresent, committeeOfTheWhole: facts.committeeOfTheWhole });
     } catch (e) {
       setError({ message: e instanceof Error ? e.message : "Could not copy the floor.", issues: [] });
     }
@@ -141,6 +142,7 @@ export default function MovesExplorer() {
             {toggle("debateBegun", "Debate on the pending question has begun")}
             {toggle("chairHasRuled", "The chair has just ruled")}
             {toggle("voteTaken", "A vote has been taken this sitting")}
+            {toggle("committeeOfTheWhole", "Sitting as a Committee of the Whole")}
             <label className="flex items-center gap-2 text-sm">
               <input type="checkbox" checked={!facts.quorumPresent} onChange={(e) => setFacts({ ...facts, quorumPresent: !e.target.checked })} /> No quorum is present
             </label>

@@ -69,12 +69,16 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
         } else {
           const lib = await getJson("/api/rulebooks", librarySchema);
           let d: RulebookInput;
-          if (template) d = documentSchema.parse((await getJson(`/api/rulebooks/templates/${encodeURIComponent(template)}`, templateSchema)).document);
-          else if (lib.latest) d = documentSchema.parse((await getJson(`/api/rulebooks/${lib.latest.id}`, versionSchema)).document);
+          let templateTitle: string | null = null;
+          if (template) {
+            const t = await getJson(`/api/rulebooks/templates/${encodeURIComponent(template)}`, templateSchema);
+            templateTitle = t.title;
+            d = documentSchema.parse(t.document);
+          } else if (lib.latest) d = documentSchema.parse((await getJson(`/api/rulebooks/${lib.latest.id}`, versionSchema)).document);
           else throw new Error("Choose a template to start from.");
           setLoaded({ doc: d, basedOn: lib.latest?.id ?? null, meta: null, latest: lib.latest });
           setDoc(d);
-          if (template) setNote(`Started from the template ${template}`);
+          if (templateTitle) setNote(`Started from the template “${templateTitle}”`);
         }
       } catch (e) {
         setLoadError(e instanceof Error ? e.message : "Could not load the rulebook.");
@@ -407,9 +411,31 @@ function SectionsPanel({ doc, at, readOnly, update }: { doc: RulebookInput; at: 
           <TextField path="chamber.name" label="Chamber name" at={at} disabled={readOnly} value={doc.chamber.name} onChange={(x) => update({ chamber: { ...doc.chamber, name: x } })} />
           <NumberField nullable path="chamber.members" label="Members" at={at} disabled={readOnly} value={doc.chamber.members ?? null} min={1} onChange={(x) => update({ chamber: { ...doc.chamber, members: x ?? undefined } })} />
           <TextField path="source.title" label="Source" at={at} disabled={readOnly} value={doc.source.title} onChange={(x) => update({ source: { ...doc.source, title: x } })} />
+          <TextField path="source.edition" label="Edition of the source" at={at} disabled={readOnly} value={doc.source.edition} onChange={(x) => update({ source: { ...doc.source, edition: x || undefined } })} />
+          <TextField path="source.date" label="Date of the text used" at={at} disabled={readOnly} value={doc.source.date} onChange={(x) => update({ source: { ...doc.source, date: x || undefined } })} />
         </div>
+        <VerifyField doc={doc} at={at} readOnly={readOnly} update={update} />
       </fieldset>
     </div>
+  );
+}
+
+/** The "verify before use" list, one point per line; blank lines are dropped from the rulebook but kept while typing. */
+function VerifyField({ doc, at, readOnly, update }: { doc: RulebookInput; at: IssueLookup; readOnly: boolean; update: (p: Partial<RulebookInput>) => void }) {
+  const [text, setText] = useState(() => (doc.source.verify ?? []).join("\n"));
+  return (
+    <TextField
+      multiline
+      path="source.verify"
+      label="Verify before use (one point per line)"
+      at={at}
+      disabled={readOnly}
+      value={text}
+      onChange={(x) => {
+        setText(x);
+        update({ source: { ...doc.source, verify: x.split("\n").map((l) => l.trim()).filter(Boolean) } });
+      }}
+    />
   );
 }
 

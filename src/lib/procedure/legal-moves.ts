@@ -189,7 +189,7 @@ export function lastVoteFact(rulebook: Rulebook, state: FloorState): LastVoteFac
 
 type AsMade = Pick<Motion, "class" | "rank" | "second" | "debatable" | "amendable" | "vote" | "interrupt" | "reconsiderable">;
 
-function motionFact(m: Motion, made: AsMade, withoutQuorum: readonly string[]) {
+function motionFact(m: Motion, made: AsMade, withoutQuorum: readonly string[] = []) {
   return {
     id: m.id,
     name: m.name,
