@@ -1,7 +1,10 @@
 import { useCallback, useEffect, useState, type SubmitEvent } from "react";
 import { z } from "zod";
-import { api, ApiError, messageView, type ListView } from "../rulings/api.ts";
+import { apiCall, ApiError } from "../shared/api.ts";
+import { messageView, type ListView } from "../rulings/api.ts";
 import DeliveryTable from "./DeliveryTable.tsx";
+import { Alert } from "../shared/Alert.tsx";
+import { today } from "../shared/dates.ts";
 
 const sittingsView = z.object({
   sittings: z.array(
@@ -41,7 +44,6 @@ interface FindingRow {
 
 const OTHER = "__other";
 const recipients = (n: number | undefined) => (n === undefined ? "? recipients" : `${n} recipient${n === 1 ? "" : "s"}`);
-const today = () => new Date().toISOString().slice(0, 10);
 
 /** "Label — note" or "Label", one question per line. */
 function parseOrder(text: string) {
@@ -59,7 +61,7 @@ function parseOrder(text: string) {
 function DigestDelivery({ id }: { id: string }) {
   const [d, setD] = useState<z.output<typeof detailView> | null>(null);
   const [error, setError] = useState<string | null>(null);
-  const load = useCallback(() => api(`/api/circulation/${id}`, detailView).then(setD, (e: Error) => setError(e.message)), [id]);
+  const load = useCallback(() => apiCall(detailView, `/api/circulation/${id}`).then(setD, (e: Error) => setError(e.message)), [id]);
   useEffect(() => void load(), [load]);
   const pending = d?.messages.some((m) => m.status === "queued" || m.status === "sending") ?? false;
   useEffect(() => {
@@ -70,19 +72,14 @@ function DigestDelivery({ id }: { id: string }) {
 
   async function retry(messageId: string) {
     try {
-      await api(`/api/circulation/messages/${messageId}/retry`, z.object({ id: z.string() }), { method: "POST" });
+      await apiCall(z.object({ id: z.string() }), `/api/circulation/messages/${messageId}/retry`, { method: "POST" });
       await load();
     } catch (e) {
       setError((e as Error).message);
     }
   }
 
-  if (error)
-    return (
-      <p role="alert" className="gw-error">
-        {error}
-      </p>
-    );
+  if (error) return <Alert>{error}</Alert>;
   if (!d) return <p className="text-sm text-ink-soft">Loading…</p>;
   return (
     <DeliveryTable testId="digest-delivery" messages={d.messages} skipped={d.circulation.skipped} onRetry={retry} />
@@ -110,7 +107,7 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
   const [listId, setListId] = useState("");
 
   useEffect(() => {
-    api("/api/floor/sittings", sittingsView).then(
+    apiCall(sittingsView, "/api/floor/sittings").then(
       (s) => {
         setSittings(s.sittings);
         if (s.sittings.length) pickSitting(s.sittings[0].id, s.sittings);
@@ -151,7 +148,7 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
       ...(chosen ? { listId: chosen.id } : {}),
     };
     try {
-      const s = await api("/api/circulation/digest", sentView, {
+      const s = await apiCall(sentView, "/api/circulation/digest", {
         method: "POST",
         body,
       });
@@ -303,20 +300,16 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
         )}
       </p>
       <p className="gw-advisory">The digest is advisory: the presiding officer's ruling, the chamber's own rules and its counsel prevail. The e-mail says so.</p>
-      {error && (
-        <p role="alert" className="gw-error">
-          {error}
-        </p>
-      )}
+      <Alert>{error}</Alert>
       <button type="submit" className="gw-btn" disabled={busy || !sitting.trim() || !date}>
         Send the digest
       </button>
       {sent && (
         <div className="gw-card mt-2" aria-label="Digest sent">
-          <p role="status">
+          <Alert tone="ok">
             Queued {sent.queued} message{sent.queued === 1 ? "" : "s"} to {sent.listName}
             {sent.skipped.length ? `; ${sent.skipped.length} unsubscribed address${sent.skipped.length === 1 ? "" : "es"} left out` : ""}.
-          </p>
+          </Alert>
           <p className="text-sm text-ink-soft">{sent.subject}</p>
           <DigestDelivery id={sent.id} />
         </div>

@@ -5,8 +5,9 @@
  * - `tone`: "error" (default) or "ok".
  * - `look`: "text" (default: a line of text, as under a form), "box" (a tinted panel), "inline"
  *   (a span inside a line of controls), "on-dark" (on the chamber-coloured header).
- * - `issues`: the field issues to list under the message when there is more than one (the message
- *   already says the first).
+ * - `issues`: the field issues to list under the message, from `listFrom` of them (default 2: the
+ *   message already says the first); `showPaths` prints each issue's path (for the rulebook's JSON,
+ *   where the path is what the clerk edits); at most `limit` (default 20).
  * Keep `testId`s: browser tests select on them.
  */
 import type { ReactNode } from "react";
@@ -20,6 +21,9 @@ interface Props {
   testId?: string;
   className?: string;
   issues?: readonly Issue[];
+  showPaths?: boolean;
+  listFrom?: number;
+  limit?: number;
 }
 
 const CLASSES: Record<NonNullable<Props["tone"]>, Record<NonNullable<Props["look"]>, string>> = {
@@ -37,19 +41,26 @@ const CLASSES: Record<NonNullable<Props["tone"]>, Record<NonNullable<Props["look
   },
 };
 
-export function Alert({ children, tone = "error", look = "text", id, testId, className, issues }: Props) {
+export function Alert({ children, tone = "error", look = "text", id, testId, className, issues, showPaths = false, listFrom = 2, limit = 20 }: Props) {
   if (children === null || children === undefined || children === false || children === "") return null;
   const role = tone === "error" ? "alert" : "status";
   const cls = [CLASSES[tone][look], className].filter(Boolean).join(" ");
   const list =
-    issues && issues.length > 1 ? (
+    issues && issues.length >= listFrom ? (
       <ul className="list-disc pl-6 text-sm text-verdict-bar">
-        {issues.map((i, k) => (
-          <li key={k}>{i.message}</li>
+        {issues.slice(0, limit).map((i, k) => (
+          <li key={k}>
+            {showPaths && (
+              <>
+                <code>{i.path}</code>:{" "}
+              </>
+            )}
+            {i.message}
+          </li>
         ))}
       </ul>
     ) : null;
-  if (look === "inline")
+  if (look === "inline" || look === "on-dark")
     return (
       <span role={role} id={id} data-testid={testId} className={cls}>
         {children}

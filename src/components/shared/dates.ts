@@ -3,7 +3,7 @@
  * which the layout writes on the page (`<html data-time-zone>`). An island rendered on the server
  * with dates in its first paint is given the zone as a prop (`timeZone`), so both renders agree.
  */
-import { DEFAULT_LOCALE, DEFAULT_TIME_ZONE, formatDate, formatDateTime, isoDateIn, type DateStyle } from "../../lib/text/dates.ts";
+import { DEFAULT_LOCALE, DEFAULT_TIME_ZONE, formatDate, formatDateTime, fromZonedInput, isoDateIn, toZonedInput, type DateStyle } from "../../lib/text/dates.ts";
 
 /** The chamber's zone and language as the layout wrote them (UTC and en-GB when there is no page). */
 export function chamberDateStyle(timeZone?: string): DateStyle {
@@ -18,3 +18,7 @@ export const when = (d: string | Date | null | undefined, timeZone?: string) => 
 export const day = (d: string | Date | null | undefined, timeZone?: string) => formatDate(d, chamberDateStyle(timeZone));
 /** Today's calendar date in the chamber's zone ("2026-12-04"), for date inputs. */
 export const today = (timeZone?: string) => isoDateIn(new Date(), chamberDateStyle(timeZone));
+/** An instant as a datetime-local input's value on the chamber's clock. */
+export const toInput = (d: string | Date | null | undefined, timeZone?: string) => toZonedInput(d, chamberDateStyle(timeZone));
+/** A datetime-local input's value, read on the chamber's clock, as an ISO instant (null when empty). */
+export const fromInput = (value: string, timeZone?: string) => fromZonedInput(value, chamberDateStyle(timeZone));

@@ -99,6 +99,14 @@ function Wrap({ b, children }: { b: Base; children: ReactNode }) {
   );
 }
 
+/** ARIA and id attributes for a control of one's own (a select with groups, a multiple choice, a file). */
+export type ControlAttributes = ReturnType<typeof control>;
+
+/** A labelled control of one's own, with the same id, hint and messages as the widgets below. */
+export function Field(p: Base & { control: (attrs: ControlAttributes) => ReactNode }) {
+  return <Wrap b={p}>{p.control(control(p))}</Wrap>;
+}
+
 type TextProps = Base & {
   maxLength?: number;
   list?: string;

@@ -92,3 +92,30 @@ export function isoDateIn(d: Date | string | number, style: DateStyle): string {
 export function dateStyleOf(chamber: { timeZone?: string | null } | null | undefined): DateStyle {
   return { timeZone: chamber?.timeZone || DEFAULT_TIME_ZONE, locale: DEFAULT_LOCALE };
 }
+
+/** The zone's offset from UTC at `instant`, in minutes (Europe/London in July: 60). */
+function offsetMinutes(instant: number, timeZone: string): number {
+  const parts = new Intl.DateTimeFormat("en-GB", { timeZone, hourCycle: "h23", year: "numeric", month: "numeric", day: "numeric", hour: "numeric", minute: "numeric", second: "numeric" }).formatToParts(new Date(instant));
+  const n = (t: Intl.DateTimeFormatPartTypes) => Number(parts.find((p) => p.type === t)?.value ?? 0);
+  return (Date.UTC(n("year"), n("month") - 1, n("day"), n("hour"), n("minute"), n("second")) - Math.floor(instant / 1000) * 1000) / 60_000;
+}
+
+/** An instant as a datetime-local input's value ("2026-12-04T15:30") on the chamber's clock; "" for none. */
+export function toZonedInput(d: Date | string | null | undefined, style: DateStyle): string {
+  const date = d === null || d === undefined ? null : toDate(d);
+  if (!date) return "";
+  const zone = isTimeZone(style.timeZone) ? style.timeZone : DEFAULT_TIME_ZONE;
+  return new Date(date.getTime() + offsetMinutes(date.getTime(), zone) * 60_000).toISOString().slice(0, 16);
+}
+
+/** A datetime-local input's value read on the chamber's clock, as an ISO instant; null when empty or invalid. */
+export function fromZonedInput(value: string, style: DateStyle): string | null {
+  const m = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})(?::(\d{2}))?$/.exec(value);
+  if (!m) return null;
+  const zone = isTimeZone(style.timeZone) ? style.timeZone : DEFAULT_TIME_ZONE;
+  const wall = Date.UTC(+m[1], +m[2] - 1, +m[3], +m[4], +m[5], +(m[6] ?? 0));
+  // The offset at the wall time read as UTC, then at the instant that gives (right across a change of clocks).
+  let instant = wall - offsetMinutes(wall, zone) * 60_000;
+  instant = wall - offsetMinutes(instant, zone) * 60_000;
+  return new Date(instant).toISOString();
+}

@@ -3,7 +3,7 @@
 // zone offsets are from the IANA time zone database (Europe/London is UTC+1 in summer, UTC in
 // winter; Pacific/Auckland UTC+12 in its winter), common practice, no further source.
 import { describe, expect, it } from "vitest";
-import { dateStyleOf, formatDate, formatDateTime, isoDateIn } from "../../../src/lib/text/dates.ts";
+import { dateStyleOf, formatDate, formatDateTime, fromZonedInput, isoDateIn, toZonedInput } from "../../../src/lib/text/dates.ts";
 import { canonicalJson } from "../../../src/lib/text/canonical-json.ts";
 import { analysisResultJsonSchema } from "../../../src/lib/voting/orders-analysis-schema.ts";
 
@@ -51,5 +51,22 @@ describe("the analysis result schema", () => {
   it("its JSON Schema names every stored field, so a change of shape changes the cache key", () => {
     const text = canonicalJson(analysisResultJsonSchema());
     for (const field of ["condorcetWinner", "banksComplete", "sophisticated", "listing", "statusQuoWinSet"]) expect(text).toContain(`"${field}"`);
+  });
+});
+
+describe("datetime-local inputs on the chamber's clock", () => {
+  // Offsets from the IANA time zone database (Europe/London: UTC+1 from 29 March to 25 October 2026).
+  const london = { timeZone: "Europe/London" };
+  it("shows an instant on the chamber's clock and reads it back", () => {
+    expect(toZonedInput("2026-07-04T15:30:00Z", london)).toBe("2026-07-04T16:30");
+    expect(toZonedInput("2026-12-04T15:30:00Z", london)).toBe("2026-12-04T15:30");
+    expect(fromZonedInput("2026-07-04T16:30", london)).toBe("2026-07-04T15:30:00.000Z");
+    expect(fromZonedInput("2026-12-04T15:30", london)).toBe("2026-12-04T15:30:00.000Z");
+    expect(fromZonedInput("2026-07-05T06:00", { timeZone: "Pacific/Auckland" })).toBe("2026-07-04T18:00:00.000Z");
+  });
+  it("an empty or malformed input is null, not an instant", () => {
+    expect(fromZonedInput("", london)).toBeNull();
+    expect(fromZonedInput("4 July", london)).toBeNull();
+    expect(toZonedInput(null, london)).toBe("");
   });
 });

@@ -18,6 +18,7 @@ import { amendmentFileSchema, amendmentUpdateSchema, AMENDMENT_STATUS_LABELS, FO
 import { subjectList } from "../measure-sections.ts";
 import { checkDocument, readMultipart } from "../uploads.ts";
 import { checkLegislators, legislatorNames, measureRow, type MeasureRow } from "./measures.ts";
+import { dateStyleOf, formatDateTime } from "../../text/dates.ts";
 
 export type AmendmentRow = typeof amendments.$inferSelect;
 
@@ -142,7 +143,7 @@ async function queueReceipt(tx: Tx, actor: Actor, m: MeasureRow, a: AmendmentRow
   const text = [
     `Filing receipt — ${actor.chamber.name}`,
     "",
-    `Amendment ${key} to ${m.number} (${m.title}) was filed on ${a.filedAt!.toISOString()}.`,
+    `Amendment ${key} to ${m.number} (${m.title}) was filed on ${formatDateTime(a.filedAt!, dateStyleOf(actor.chamber))} (${dateStyleOf(actor.chamber).timeZone}).`,
     `Receipt reference: ${m.number}/${key}/${a.id}`,
     `Form: ${FORM_LABELS[a.form as keyof typeof FORM_LABELS] ?? a.form}`,
     `Sponsors: ${sponsorNames.length ? sponsorNames.join(", ") : "none named"}`,
