@@ -1,4 +1,4 @@
-import { useEffect, useState } from "react";
+import { useEffect, useState, type SubmitEvent } from "react";
 import { apiCall, ApiError, type Issue } from "../shared/api.ts";
 import { day, when } from "../shared/dates.ts";
 import { librarySchema, savedSchema, type Library } from "./schemas.ts";
@@ -31,7 +31,7 @@ export default function RulebookLibrary({ canEdit }: { canEdit: boolean }) {
   const adoptedNumbers = new Map<string, string[]>();
   for (const a of lib.adoptions) adoptedNumbers.set(a.versionId, [...(adoptedNumbers.get(a.versionId) ?? []), day(a.effectiveFrom)]);
 
-  async function upload(e: React.FormEvent) {
+  async function upload(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     if (!file || !lib) return;
     setBusy(true);

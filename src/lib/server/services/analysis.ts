@@ -13,7 +13,7 @@ import { db } from "../db.ts";
 import { analysisCache, analysisRuns } from "../../db/schema/estimates.ts";
 import { GavelError } from "../../errors.ts";
 import type { Actor } from "../http.ts";
-import { toOrdersProfile, type EstimateContent } from "../../estimates/estimate-content.ts";
+import { toOrdersProfile } from "../../estimates/estimate-content.ts";
 import { buildFindings } from "../../estimates/findings.ts";
 import { walkThrough } from "../../estimates/walk-through.ts";
 import { chairScript, scriptMarkdown } from "../../estimates/chair-script.ts";
@@ -24,7 +24,7 @@ import { adoptedRulebookOf } from "../measure-rulebook.ts";
 import { canonicalJson } from "../../text/canonical-json.ts";
 import { analysisResultJsonSchema, type analysisResultSchema, type SameShape } from "../../voting/orders-analysis-schema.ts";
 import { loadRulebook } from "./rulebooks.ts";
-import { estimateRow, treeFor, versionRow } from "./estimates.ts";
+import { estimateRow, storedContent, treeFor, versionRow } from "./estimates.ts";
 
 /** Bump when the engine's output changes meaning with the same shape (a change of shape changes RESULT_SCHEMA_HASH by itself). */
 export const ENGINE_VERSION = 1;
@@ -69,7 +69,7 @@ export async function startAnalysis(actor: Actor, input: z.output<typeof startSc
   const v = await versionRow(e, input.version);
   const rb = input.rulebookVersionId ? await loadRulebook(actor.chamber.id, input.rulebookVersionId).then((r) => ({ rulebook: r.rulebook, source: `version ${r.number}: ${r.title}`, versionId: r.versionId })) : await adoptedRulebookOf(actor.chamber.id);
   const tree = await treeFor(actor.chamber.id, e.measureId, v.scope);
-  const content = v.content as EstimateContent;
+  const content = storedContent(v);
   const ordersInput = { rulebook: { voting: rb.rulebook.voting }, measure: tree.case.measure, amendments: tree.case.amendments, profile: toOrdersProfile(content) };
   const hash = contentHash({ engine: ENGINE_VERSION, resultSchema: RESULT_SCHEMA_HASH, ...ordersInput });
   const [hit] = await db.select({ hash: analysisCache.hash }).from(analysisCache).where(and(eq(analysisCache.chamberId, actor.chamber.id), eq(analysisCache.hash, hash)));

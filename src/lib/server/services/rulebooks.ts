@@ -8,12 +8,12 @@ import { z } from "zod";
 import { db, type Tx } from "../db.ts";
 import { user } from "../../db/schema/auth.ts";
 import { rulebookAdoptions, rulebookVersions } from "../../db/schema/rulebooks.ts";
-import { GavelError, isGavelError } from "../../errors.ts";
+import { GavelError } from "../../errors.ts";
 import { MAX_RULEBOOK_BYTES, parseRulebook, parseRulebookText } from "../../procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../procedure/rulebook-schema.ts";
 import { diffRulebooks, type RulebookDiff } from "../rulebook-diff.ts";
 import { rulebookTemplates, rulebookTemplate } from "../rulebook-templates.ts";
-import { readBody, type Actor } from "../http.ts";
+import type { Actor } from "../http.ts";
 import { chamberMemory, forgetChamber } from "../chamber-memory.ts";
 
 export { MAX_RULEBOOK_BYTES };
@@ -209,20 +209,8 @@ export const importFieldsSchema = z.object({
 
 const JSON_TYPES = new Set(["application/json", "text/json", ""]);
 
-/** Import an uploaded rulebook file (multipart field "file"); size- and type-checked, parsed, then saved. */
-export async function importVersion(actor: Actor, request: Request) {
-  const type = request.headers.get("content-type") ?? "";
-  if (!/^multipart\/form-data\b/i.test(type)) throw new GavelError("invalid-input", "Send the rulebook as a file upload (multipart/form-data, field \"file\").", { issues: [{ path: "(content-type)", message: `expected multipart/form-data, got ${type || "nothing"}` }] });
-  // The form carries the file plus two short fields; refuse an oversize body before reading it.
-  const declared = Number(request.headers.get("content-length") ?? 0);
-  if (declared > MAX_RULEBOOK_BYTES + 64 * 1024) throw new GavelError("too-large", `The upload is ${declared} bytes; a rulebook file may be at most ${MAX_RULEBOOK_BYTES} bytes.`, { issues: [{ path: "file", message: "too large" }] });
-  let form: FormData;
-  try {
-    form = await new Response(await readBody(request, MAX_RULEBOOK_BYTES + 64 * 1024, "the upload"), { headers: { "content-type": type } }).formData();
-  } catch (e) {
-    if (isGavelError(e)) throw e;
-    throw new GavelError("invalid-input", "The upload could not be read as a form.", { issues: [{ path: "(body)", message: "not a readable multipart form" }] });
-  }
+/** Import an uploaded rulebook file (the form as the route read it: readRulebookUpload in uploads.ts); type-checked, parsed, then saved. */
+export async function importVersion(actor: Actor, form: FormData) {
   const file = form.get("file");
   if (!(file instanceof File)) throw new GavelError("invalid-input", "Choose a rulebook file to upload.", { issues: [{ path: "file", message: "no file in the upload" }] });
   if (file.size > MAX_RULEBOOK_BYTES) throw new GavelError("too-large", `${file.name} is ${file.size} bytes; a rulebook file may be at most ${MAX_RULEBOOK_BYTES} bytes.`, { issues: [{ path: "file", message: "too large" }] });
