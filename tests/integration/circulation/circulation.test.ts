@@ -6,7 +6,7 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { eq, sql as dsql } from "drizzle-orm";
 import { db } from "../../../src/lib/server/db.ts";
 import { deliverOutbox, enqueueMail } from "../../../src/lib/server/mail.ts";
-import { outbox, caughtMail } from "../../../src/lib/db/schema/mail.ts";
+import { outbox, caughtMail, distributionLists } from "../../../src/lib/db/schema/mail.ts";
 import { rulings } from "../../../src/lib/db/schema/rulings.ts";
 import { startMailCatcher, type CaughtMessage, type MailCatcher } from "../../../src/lib/server/dev/mail-catcher.ts";
 import { DEMO_ACCOUNTS } from "../../../src/lib/server/seed/demo-data.ts";
@@ -91,8 +91,6 @@ describe("distribution lists", () => {
   });
 
   it("lets staff and clerks keep lists; the other chamber gets 404 (roles and anonymous: tests/access)", async () => {
-    const before = await tableCounts();
-    expect(await tableCounts()).toEqual(before);
     const l = await makeList(s.as.staff, { name: "Whips", entries: [{ kind: "role", role: "member" }, { kind: "user", userId: s.as.observer.userId }] });
     const dup = await call(lists.POST, "POST", "/api/circulation/lists", { as: s.as.clerk, body: { name: "Whips" } });
     expect(dup.status).toBe(409);
@@ -130,6 +128,23 @@ describe("sending a ruling", () => {
     expect(await tableCounts()).toEqual(afterDraft);
     expect(afterDraft.rulings).toBe(before.rulings + 1);
     for (const role of ["staff", "clerk", "chief-clerk"] as const) expect((await call(send.POST, "POST", "/api/circulation", { as: s.as[role], body: { rulingId: r.id, listId: clerksDesk.id } })).status, role).toBe(201);
+  });
+
+  it("refuses to send to a list whose stored entries are damaged (a logged 500), queueing nothing, never sending to nobody", async () => {
+    // Common practice, no source: a stored value that fails its schema is a server fault, not an empty list.
+    const r = await issuedRuling();
+    const broken = await makeList(s.as.staff, { name: "Damaged list", entries: [{ kind: "role", role: "staff" }] });
+    await db.update(distributionLists).set({ entries: dsql`'[{"kind":"role","role":"speaker"}]'::jsonb` }).where(eq(distributionLists.id, broken.id));
+    try {
+      const before = await tableCounts();
+      const res = await call(send.POST, "POST", "/api/circulation", { as: s.as.staff, body: { rulingId: r.id, listId: broken.id } });
+      expect(res.status).toBe(500);
+      expect(res.body.error.code).toBe("internal");
+      expect(await tableCounts()).toEqual(before);
+      expect((await call(listOne.GET, "GET", `/api/circulation/lists/${broken.id}`, { as: s.as.staff, params: { id: broken.id } })).status).toBe(500);
+    } finally {
+      await db.delete(distributionLists).where(eq(distributionLists.id, broken.id));
+    }
   });
 
   it("delivers HTML and plain text to exactly the list's recipients, user text escaped", async () => {
