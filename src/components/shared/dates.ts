@@ -22,3 +22,5 @@ export const today = (timeZone?: string) => isoDateIn(new Date(), chamberDateSty
 export const toInput = (d: string | Date | null | undefined, timeZone?: string) => toZonedInput(d, chamberDateStyle(timeZone));
 /** A datetime-local input's value, read on the chamber's clock, as an ISO instant (null when empty). */
 export const fromInput = (value: string, timeZone?: string) => fromZonedInput(value, chamberDateStyle(timeZone));
+/** An instant's calendar date on the chamber's clock ("2026-12-04"), for a date input. */
+export const dateInput = (d: string | Date, timeZone?: string) => isoDateIn(d, chamberDateStyle(timeZone));

@@ -18,6 +18,7 @@ import { can } from "../../permissions.ts";
 import { appealOutcome } from "../../rulings/appeal-outcome.ts";
 import { appealTallySchema, citationSchema, issueReadiness, rulingContentSchema, type AppealTally, type Citation, type RulingContent } from "../../rulings/ruling-content.ts";
 import { readStored } from "../stored-json.ts";
+import { dateStyleOf, isoDateIn } from "../../text/dates.ts";
 import type { Actor } from "../http.ts";
 import { circulateRulingInTx } from "./circulation.ts";
 
@@ -406,7 +407,7 @@ export async function draftingOptions(actor: Actor) {
     legislators: legs,
     measures: ms.map((m) => ({ id: m.id, label: `${m.number} — ${m.title}` })),
     amendments: ams.map((a) => ({ id: a.id, measureId: a.measureId, label: `Amendment ${a.number}${a.title ? ` — ${a.title}` : ""}` })),
-    sittings: sits.map((s) => ({ id: s.id, title: s.title, date: s.openedAt.toISOString().slice(0, 10) })),
+    sittings: sits.map((s) => ({ id: s.id, title: s.title, date: isoDateIn(s.openedAt, dateStyleOf(actor.chamber)) })),
     rulebook: adopted ? { id: adopted.id, label: `${adopted.title} (version ${adopted.number})`, rules: citableRules(adopted.document) } : null,
     rulings: earlier.map((r) => ({ id: r.id, label: `Ruling ${r.number} — ${r.targetLabel}` })),
   };
