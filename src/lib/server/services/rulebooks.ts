@@ -15,6 +15,7 @@ import { diffRulebooks, type RulebookDiff } from "../rulebook-diff.ts";
 import { rulebookTemplates, rulebookTemplate } from "../rulebook-templates.ts";
 import type { Actor } from "../http.ts";
 import { chamberMemory, forgetChamber } from "../chamber-memory.ts";
+import { fromZonedInput } from "../../text/dates.ts";
 
 export { MAX_RULEBOOK_BYTES };
 
@@ -239,16 +240,18 @@ export async function compareVersions(actor: Actor, fromId: string, toId: string
   return { from: strip(a), to: strip(b), diff: diffRulebooks(a.document, b.document) };
 }
 
-function effectiveDate(input: string | undefined): Date {
+function effectiveDate(input: string | undefined, timeZone: string): Date {
   if (!input) return new Date();
-  // A bare date means the start of that day (UTC), so "adopted with effect from today" is in force at once.
-  return new Date(/^\d{4}-\d{2}-\d{2}$/.test(input) ? `${input}T00:00:00Z` : input);
+  // A bare date means the start of that day on the chamber's clock, so "adopted with effect from today" is in force at once
+  // and every screen (which shows dates in the chamber's zone) reads the same day.
+  if (/^\d{4}-\d{2}-\d{2}$/.test(input)) return new Date(fromZonedInput(`${input}T00:00`, { timeZone }) ?? `${input}T00:00:00Z`);
+  return new Date(input);
 }
 
 /** Adopt a version with effect from a date; earlier adoptions are kept. */
 export async function adoptVersion(actor: Actor, id: string, input: z.output<typeof adoptSchema>) {
   const row = await versionRow(actor.chamber.id, id);
-  const effectiveFrom = effectiveDate(input.effectiveFrom);
+  const effectiveFrom = effectiveDate(input.effectiveFrom, actor.chamber.timeZone);
   const [a] = await db.insert(rulebookAdoptions).values({ chamberId: actor.chamber.id, versionId: row.id, effectiveFrom, note: input.note, adoptedBy: actor.user.id }).returning();
   forgetChamber(actor.chamber.id);
   return { id: a.id, versionId: row.id, number: row.number, effectiveFrom: a.effectiveFrom, inForce: (await rulebookInForce(actor.chamber.id))?.versionId === row.id };
