@@ -68,12 +68,16 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
         } else {
           const lib = await getJson("/api/rulebooks", librarySchema);
           let d: RulebookInput;
-          if (template) d = documentSchema.parse((await getJson(`/api/rulebooks/templates/${encodeURIComponent(template)}`, templateSchema)).document);
-          else if (lib.latest) d = documentSchema.parse((await getJson(`/api/rulebooks/${lib.latest.id}`, versionSchema)).document);
+          let templateTitle: string | null = null;
+          if (template) {
+            const t = await getJson(`/api/rulebooks/templates/${encodeURIComponent(template)}`, templateSchema);
+            templateTitle = t.title;
+            d = documentSchema.parse(t.document);
+          } else if (lib.latest) d = documentSchema.parse((await getJson(`/api/rulebooks/${lib.latest.id}`, versionSchema)).document);
           else throw new Error("Choose a template to start from.");
           setLoaded({ doc: d, basedOn: lib.latest?.id ?? null, meta: null, latest: lib.latest });
           setDoc(d);
-          if (template) setNote(`Started from the template ${template}`);
+          if (templateTitle) setNote(`Started from the template “${templateTitle}”`);
         }
       } catch (e) {
         setLoadError(e instanceof Error ? e.message : "Could not load the rulebook.");

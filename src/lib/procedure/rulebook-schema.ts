@@ -36,6 +36,8 @@ export const FINDING_CODES = [
   "cycle",
   "form-not-allowed",
   "voted-after-perfecting",
+  "whole-text",
+  "needs-selection",
 ] as const;
 
 const text = (max: number) => z.string().trim().min(1).max(max);
@@ -95,9 +97,13 @@ export const chamberSchema = z.object({
 export const sourceSchema = z.object({
   title: text(500),
   edition: z.string().max(200).optional(),
+  /** The date (or term, or session) of the text the rulebook was written from, as the clerk would say it. */
+  date: z.string().max(200).optional(),
   url: z.url().max(2000).optional(),
   license: z.string().max(200).optional(),
   note: z.string().max(2000).optional(),
+  /** "Verify before use": what the source does not settle, or the engine cannot express, listed for a clerk to check. */
+  verify: z.array(text(1000)).max(60).default([]),
 });
 
 /** A json-rules-engine condition tree; its nodes are checked by parseRulebook with exact paths. */
@@ -116,8 +122,8 @@ export const ruleSchema = z.object({
   severity: z.enum(FINDING_SEVERITIES).optional(),
   /** Amendment scope: a fact (an array of amendment ids) listed as the finding's `related`. */
   related: z.enum(["conflictsWith", "perfectingSiblings", "cycleMembers"]).optional(),
-  /** The clerk's note on the rule: what is from memory, what the source does not settle. Not read by the engine. */
-  note: z.string().max(1000).optional(),
+  /** For the clerk: what the source says beyond the citation, what is from memory, what the engine cannot express. */
+  note: z.string().max(2000).optional(),
 });
 
 export const rulebookSchema = z.object({

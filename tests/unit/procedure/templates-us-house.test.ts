@@ -9,7 +9,7 @@ import { describe, expect, it } from "vitest";
 import type { AmendmentInput, MeasureInput } from "../../../src/lib/amendments/case-schema.ts";
 import { validateTree, type Finding } from "../../../src/lib/amendments/validate-tree.ts";
 import { legalMoves, type MotionVerdict } from "../../../src/lib/procedure/legal-moves.ts";
-import { resolveTemplateId } from "../../../src/lib/procedure/template-aliases.ts";
+import { canonicalTemplateId } from "../../../src/lib/procedure/template-ids.ts";
 import { rawTemplate, template } from "./fixtures.ts";
 
 const house = template("us-house");
@@ -159,8 +159,8 @@ describe("US House: the amendment tree (Rule XVI cl. 6) and germaneness (cl. 7)"
 
 describe("US House: the former id", () => {
   it("four-amendment-legislature names the us-house template (CLI, API and stored origins keep working)", () => {
-    expect(resolveTemplateId("four-amendment-legislature")).toBe("us-house");
+    expect(canonicalTemplateId("four-amendment-legislature")).toBe("us-house");
     expect(rawTemplate("four-amendment-legislature").id).toBe("us-house");
-    expect(resolveTemplateId("us-house")).toBe("us-house");
+    expect(canonicalTemplateId("us-house")).toBe("us-house");
   });
 });

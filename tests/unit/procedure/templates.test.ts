@@ -30,11 +30,14 @@ describe("four-amendment legislature (Rules of the US House of Representatives)"
   });
 });
 
-describe("continental successive (common practice, no source)", () => {
-  it("amendments are to the text only: an amendment to a pending amendment is out of order", async () => {
-    const m = await moves("continental-successive", [MAIN, { motion: "amend" }]);
+describe("continental (European Parliament Rules of Procedure, 8th term, Rules 170 and 174; no written sub-amendments in plenary, from memory — T7)", () => {
+  it("amendments are to the text only in the EP plenary: an amendment to a pending amendment is out of order", async () => {
+    const m = await moves("continental", [MAIN, { motion: "amend" }]);
     expect([m.amend.inOrder, m.amend.degree]).toEqual([false, 2]);
-    expect((await moves("continental-successive", [MAIN])).amend.inOrder).toBe(true);
+    expect((await moves("continental", [MAIN])).amend.inOrder).toBe(true);
+  });
+  it("the old id continental-successive still names the template (alias)", async () => {
+    expect(template("continental-successive").id).toBe("continental");
   });
 });
 
