@@ -77,7 +77,7 @@ describe("US House: seconds and suspension", () => {
     expect(house.motions.filter((m) => m.second).map((m) => m.id)).toEqual([]);
   });
 
-  it("suspension: House Practice, Suspension of Rules §1, \"debatable for 40 minutes (§ 7, infra), is not amendable (§ 8, infra), and requires a two-thirds vote\"; Rule XV cl. 1(a), \"two-thirds of the Members voting\"", async () => {
+  it("suspension: House Practice (2011 ed.) ch. 53 §1, \"It is debatable for 40 minutes, is not amendable, and requires a two-thirds vote for adoption.\"; Rule XV cl. 1(a), \"two-thirds of the Members voting\"", async () => {
     const v = (await moves([]))["suspend-rules"];
     expect([v.debatable, v.amendable, v.vote, v.second]).toEqual([true, false, "two-thirds", false]);
   });
