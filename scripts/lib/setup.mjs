@@ -61,11 +61,6 @@ export function ensureNodeModules() {
   if (r.status !== 0) throw new SetupError("npm could not install the dependencies; see the messages above.");
 }
 
-function which(bin) {
-  const r = spawnSync("sh", ["-c", `command -v ${bin}`], { encoding: "utf8" });
-  return r.status === 0 ? r.stdout.trim() : null;
-}
-
 let aptUpdated = false;
 /** Install a Debian package with apt-get when running as root; otherwise explain what to run. */
 export function ensureDebianPackage(pkg, present, why) {

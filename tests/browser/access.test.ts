@@ -11,7 +11,6 @@ import type { Page } from "playwright-core";
 import { ACCOUNTS, BASE_URL, launch, shot } from "./browser.ts";
 import { PAGE_ROUTES, refusedRoles, urlOf, type PageRoute, type Samples } from "../access/route-inventory.ts";
 
-const ROLES = ["chief-clerk", "clerk", "member", "staff", "observer"] as const;
 const XSS = `<script>alert("gw")</script><img src=x onerror="alert(1)">`;
 const stamp = Date.now().toString(36);
 let sql: postgres.Sql;

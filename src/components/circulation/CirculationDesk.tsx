@@ -1,4 +1,4 @@
-import { useEffect, useState, type FormEvent } from "react";
+import { useEffect, useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import { CHAMBER_ROLES, ROLE_LABELS, isChamberRole } from "../../lib/permissions.ts";
 import FloorDigestForm from "./FloorDigestForm.tsx";
@@ -54,7 +54,7 @@ function ListEditor({ list, people, onSaved, onCancel }: { list: ListView | null
   const [busy, setBusy] = useState(false);
   const idp = list ? list.id.slice(0, 8) : "new";
 
-  async function submit(e: FormEvent) {
+  async function submit(e: SubmitEvent) {
     e.preventDefault();
     setBusy(true);
     setError(null);

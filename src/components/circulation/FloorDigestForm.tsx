@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useState, type FormEvent } from "react";
+import { useCallback, useEffect, useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import { api, ApiError, messageView, type ListView } from "../rulings/api.ts";
 import DeliveryTable from "./DeliveryTable.tsx";
@@ -132,7 +132,7 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
   // A chosen list deleted since is dropped: the digest then goes to the clerks' list, as the line below the choice says.
   const chosen = (listId && lists?.find((l) => l.id === listId)) || null;
 
-  async function submit(e: FormEvent) {
+  async function submit(e: SubmitEvent) {
     e.preventDefault();
     setBusy(true);
     setError(null);

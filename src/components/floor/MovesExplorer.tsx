@@ -49,7 +49,6 @@ export default function MovesExplorer() {
     return () => {
       stale = true;
     };
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [pending, facts, version]);
 
   const nameOf = (id: string) => catalogue.find((m) => m.motion === id)?.name ?? id;

@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState, type FormEvent } from "react";
+import { useEffect, useRef, useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import type { AMENDMENT_FORMS } from "../../lib/amendments/case-schema.ts";
 import AmendmentFields, { LINES_HINT, readAmendmentFields } from "./AmendmentFields.tsx";
@@ -74,7 +74,7 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
       </div>
     );
 
-  async function onSubmit(e: FormEvent<HTMLFormElement>) {
+  async function onSubmit(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     if (!a) return;
     const fd = new FormData(e.currentTarget);

@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
 import { AMENDMENT_FORMS } from "../../lib/amendments/case-schema.ts";
 import { lineRangeFromText } from "../../lib/amendments/line-range-text.ts";
-import { FORM_LABELS } from "../../lib/server/measure-schemas.ts";
+import { FORM_LABELS } from "../../lib/measures/measure-schemas.ts";
 import SponsorsField from "./SponsorsField.tsx";
 import { tags } from "./tags.ts";
 

@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { z } from "zod";
-import { AMENDMENT_STATUS_LABELS, type AmendmentStatus as Status } from "../../lib/server/measure-schemas.ts";
+import { AMENDMENT_STATUS_LABELS, type AmendmentStatus as Status } from "../../lib/measures/measure-schemas.ts";
 import { ApiError, apiCall } from "./api.ts";
 
 interface Props {

@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from "react";
+import { useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import AmendmentFields, { LINES_HINT, readAmendmentFields } from "./AmendmentFields.tsx";
 import { ApiError, apiCall, issuesByField } from "./api.ts";
@@ -20,7 +20,7 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
   const [failure, setFailure] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
-  async function onSubmit(e: FormEvent<HTMLFormElement>) {
+  async function onSubmit(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const fd = new FormData(e.currentTarget);
     const draft = (e.nativeEvent as SubmitEvent).submitter?.getAttribute("value") === "draft";

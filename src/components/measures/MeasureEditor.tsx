@@ -1,6 +1,6 @@
-import { useState, type FormEvent } from "react";
+import { useState, type SubmitEvent } from "react";
 import { z } from "zod";
-import type { MeasureStatus } from "../../lib/server/measure-schemas.ts";
+import type { MeasureStatus } from "../../lib/measures/measure-schemas.ts";
 import MeasureFields, { readMeasureFields } from "./MeasureFields.tsx";
 import { apiCall, conflictText, issuesByField } from "./api.ts";
 import { tags } from "./tags.ts";
@@ -60,7 +60,7 @@ export default function MeasureEditor({ measure, legislators }: Props) {
       return out;
     });
 
-  async function onSubmit(e: FormEvent<HTMLFormElement>) {
+  async function onSubmit(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const fd = new FormData(e.currentTarget);
     setBusy(true);

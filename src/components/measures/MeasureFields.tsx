@@ -1,4 +1,4 @@
-import { MEASURE_STATUSES, type MeasureStatus } from "../../lib/server/measure-schemas.ts";
+import { MEASURE_STATUSES, type MeasureStatus } from "../../lib/measures/measure-schemas.ts";
 import SponsorsField from "./SponsorsField.tsx";
 import { tags } from "./tags.ts";
 

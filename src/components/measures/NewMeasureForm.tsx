@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from "react";
+import { useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import MeasureFields, { readMeasureFields } from "./MeasureFields.tsx";
 import { ApiError, apiCall, issuesByField } from "./api.ts";
@@ -12,7 +12,7 @@ export default function NewMeasureForm({ legislators = [] }: { legislators?: Arr
   const [failure, setFailure] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
-  async function onSubmit(e: FormEvent<HTMLFormElement>) {
+  async function onSubmit(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const fd = new FormData(e.currentTarget);
     const fields = readMeasureFields(fd);

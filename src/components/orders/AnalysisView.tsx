@@ -5,7 +5,7 @@
  */
 import { useCallback, useEffect, useRef, useState } from "react";
 import { z } from "zod";
-import { ApiError, apiCall, num, ordersPageSchema, runResultSchema, walkSchema, type Step } from "./api.ts";
+import { ApiError, apiCall, ordersPageSchema, runResultSchema, walkSchema, type Step } from "./api.ts";
 import MajorityGraph from "./MajorityGraph.tsx";
 import OutcomeChart from "./OutcomeChart.tsx";
 
@@ -84,7 +84,7 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
 
   const cancel = async () => {
     if (!result) return;
-    await apiCall(z.object({ run: z.object({ status: z.string() }) }).passthrough(), `/api/analysis/runs/${result.run.id}`, { method: "DELETE" }).catch(() => null);
+    await apiCall(z.looseObject({ run: z.object({ status: z.string() }) }), `/api/analysis/runs/${result.run.id}`, { method: "DELETE" }).catch(() => null);
   };
 
   if (error) return <div className="gw-card"><p className="gw-error" role="alert">{error}</p><button className="gw-btn-quiet mt-2" onClick={() => void start()}>Try again</button></div>;

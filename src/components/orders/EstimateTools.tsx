@@ -67,7 +67,7 @@ export default function EstimateTools({ estimateId, canEdit, canDuplicate, share
   }, [canEdit]);
   const share = async () => {
     try {
-      await apiCall(z.object({ id: z.string() }).passthrough(), `/api/estimates/${estimateId}/sharing`, { method: "PUT", body: { sharedRoles: roles, sharedUsers: users } });
+      await apiCall(z.looseObject({ id: z.string() }), `/api/estimates/${estimateId}/sharing`, { method: "PUT", body: { sharedRoles: roles, sharedUsers: users } });
       setMsg(roles.length || users.length ? "Sharing saved." : "Sharing saved: only you can see this estimate.");
     } catch (e) {
       setMsg(e instanceof ApiError ? e.message : "Could not save the sharing.");

@@ -18,7 +18,7 @@ export const runSchema = z.object({
   rulebook: z.string(),
   estimateId: z.string().optional(),
   estimateVersion: z.number(),
-  error: z.object({ code: z.string(), message: z.string() }).passthrough().nullable(),
+  error: z.looseObject({ code: z.string(), message: z.string() }).nullable(),
 });
 export const analysisSchema = z.object({
   procedure: z.enum(["amendment", "successive"]),

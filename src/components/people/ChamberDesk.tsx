@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from "react";
+import { useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import { authClient } from "../../lib/auth-client.ts";
 
@@ -30,7 +30,7 @@ export default function ChamberDesk({ chambers }: Props) {
     window.location.assign("/");
   }
 
-  async function onCreate(e: FormEvent<HTMLFormElement>) {
+  async function onCreate(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const parsed = newChamberSchema.safeParse(Object.fromEntries(new FormData(e.currentTarget)));
     if (!parsed.success) {

@@ -1,4 +1,4 @@
-import { useEffect, useState, type FormEvent } from "react";
+import { useEffect, useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import { CHAMBER_ROLES, ROLE_LABELS, type ChamberRole } from "../../lib/permissions.ts";
 
@@ -44,7 +44,7 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
     void load();
   }, []);
 
-  async function onInvite(e: FormEvent<HTMLFormElement>) {
+  async function onInvite(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const form = e.currentTarget;
     const data = Object.fromEntries(new FormData(form));

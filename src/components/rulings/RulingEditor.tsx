@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useState, type FormEvent, type ReactNode } from "react";
+import { useEffect, useMemo, useState, type SubmitEvent, type ReactNode } from "react";
 import { appealOutcome, APPEAL_OUTCOME_LABELS } from "../../lib/rulings/appeal-outcome.ts";
 import { DECISION_LABELS, DECISIONS, TARGET_KINDS, type Decision, type TargetKind } from "../../lib/rulings/ruling-content.ts";
 import { api, ApiError, draftingOptions, rulingView, searchResults, type CitationView, type DraftingOptions, type RulingView } from "./api.ts";
@@ -201,7 +201,7 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
     setRulingChoice("");
   }
 
-  async function submit(e: FormEvent) {
+  async function submit(e: SubmitEvent) {
     e.preventDefault();
     setBusy(true);
     setErrors({});

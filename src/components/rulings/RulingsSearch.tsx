@@ -1,4 +1,4 @@
-import { useEffect, useState, type FormEvent, type ReactNode } from "react";
+import { useEffect, useState, type SubmitEvent, type ReactNode } from "react";
 import { DECISION_LABELS } from "../../lib/rulings/ruling-content.ts";
 import { api, searchResults } from "./api.ts";
 import type { z } from "zod";
@@ -38,7 +38,7 @@ export default function RulingsSearch({ initialQuery, canSeeDrafts }: Props) {
     void run(initialQuery);
   }, []);
 
-  function onSubmit(e: FormEvent) {
+  function onSubmit(e: SubmitEvent) {
     e.preventDefault();
     void run(query);
   }

@@ -23,6 +23,9 @@ export default function TreeLegend() {
         <li className="flex items-center gap-2">
           <span className="inline-block h-4 w-8 rounded border-4 border-double border-rule bg-white" aria-hidden="true" /> Substitute (double border)
         </li>
+        <li className="text-ink-soft">
+          The degree is counted as the chamber's rulebook counts it: where a substitute for an amendment is allowed it is of the first degree, drawn beside the amendment it would replace; where the text is perfected while a substitute is pending, those amendments are of the second degree (marked "under" the substitute).
+        </li>
         <li className="flex items-center gap-2">
           <span className="inline-block h-4 w-8 rounded border-2 border-rule bg-white opacity-60" aria-hidden="true" /> Withdrawn, fell, rejected or ruled out (faded, struck)
         </li>

@@ -1,5 +1,5 @@
 import { Handle, Position, type NodeProps, type Node } from "@xyflow/react";
-import type { FindingView, TreeNodeView } from "../../lib/server/measure-schemas.ts";
+import type { FindingView, TreeNodeView } from "../../lib/measures/measure-schemas.ts";
 
 export interface TreeNodeData extends Record<string, unknown> {
   node: TreeNodeView;
@@ -83,7 +83,7 @@ export default function TreeNodeCard({ data }: NodeProps<TreeFlowNode>) {
         </div>
         <div className="truncate text-[11px] text-ink">{node.title ?? node.form}</div>
         <div className="truncate text-[10px] uppercase tracking-wide text-ink-soft">
-          {substitute ? "substitute · " : ""}
+          {node.role === "substitute-for-amendment" ? `substitute for ${node.parent} · ` : node.role === "perfecting-under-substitute" ? `under ${node.underSubstitute} · ` : substitute ? "substitute · " : ""}
           {node.status}
         </div>
       </div>

@@ -1,9 +1,10 @@
 import { useCallback, useEffect, useMemo, useRef, useState, type KeyboardEvent } from "react";
 import { Background, Controls, MiniMap, ReactFlow, ReactFlowProvider, useReactFlow, type Edge } from "@xyflow/react";
 import "@xyflow/react/dist/style.css";
-import { treeViewSchema, type FindingView, type TreeView as TreeData } from "../../lib/server/measure-schemas.ts";
+import { treeViewSchema, type FindingView, type TreeView as TreeData } from "../../lib/measures/measure-schemas.ts";
 import { ApiError, apiCall, conflictText } from "../measures/api.ts";
 import { layoutTree } from "./layout.ts";
+import { roleWords, slotWords } from "./role-words.ts";
 import TreeLegend from "./TreeLegend.tsx";
 import TreeNodeCard, { type TreeFlowNode } from "./TreeNodeCard.tsx";
 import { z } from "zod";
@@ -300,7 +301,8 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
                 <dl className="mt-2 grid grid-cols-[7rem_1fr] gap-x-2 gap-y-1 text-sm">
                   {node.kind === "amendment" && (
                     <>
-                      <dt className="text-ink-soft">Degree</dt><dd>{node.degree ?? "unknown"}</dd>
+                      <dt className="text-ink-soft">Degree</dt><dd data-testid="tree-degree">{node.degree ?? "unknown"}{roleWords(node.role, node.underSubstitute) ? ` · ${roleWords(node.role, node.underSubstitute)}` : ""}</dd>
+                      {node.slot && (<><dt className="text-ink-soft">Place</dt><dd data-testid="tree-slot">{slotWords(node.slot)}</dd></>)}
                       <dt className="text-ink-soft">Form</dt><dd>{node.form}</dd>
                       <dt className="text-ink-soft">Amends</dt><dd>{node.parent ?? "(missing target)"}{node.lines ? `, lines ${node.lines[0]}–${node.lines[1]}` : ""}</dd>
                       <dt className="text-ink-soft">Status</dt><dd>{node.status}</dd>

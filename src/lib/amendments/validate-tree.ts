@@ -90,26 +90,36 @@ export async function validateTree(input: { rulebook: Rulebook } & Record<string
   const { measure, amendments, asOf, overrides } = parseWith(treeCaseSchema, { measure: input.measure, amendments: input.amendments, asOf: input.asOf, overrides: input.overrides }, "case");
   checkIds(measure, amendments, overrides);
   const limits = rulebook.amendments;
-  const tree = buildTree(measure, amendments, { substituteSlot: limits.substituteSlot });
+  const tree = buildTree(measure, amendments, { substituteSlot: limits.substituteSlot, substituteForAmendment: limits.substituteForAmendment, perfectingUnderSubstitute: limits.perfectingUnderSubstitute });
   const byId = new Map(amendments.map((a) => [a.id, a]));
   const sections = new Map(measure.sections.map((s) => [s.id, s]));
   const measureSubjects = unique([...measure.subjects, ...measure.sections.flatMap((s) => s.subjects)]);
-  const index = new Map(amendments.map((a, i) => [a.id, i]));
   const open = amendments.filter((a) => OPEN_STATUSES.has(a.status) && !tree.nodes[a.id].inCycle);
+  const openIds = new Set(open.map((a) => a.id));
+  const index = new Map(amendments.map((a, i) => [a.id, i]));
+  /** For a substitute: the open perfecting amendments to the text it would replace, read off the graph (its target's amendments; for the measure, its sections' too). */
+  const perfectingSiblingsOf = (a: Amendment): string[] => {
+    if (!SUBSTITUTE_FORMS.has(a.form) || !tree.graph.hasNode(a.target)) return [];
+    const out: string[] = [];
+    tree.graph.forEachOutNeighbor(a.target, (id) => {
+      if (tree.nodes[id].kind === "amendment") out.push(id);
+      else if (a.target === measure.id) tree.graph.forEachOutNeighbor(id, (x) => out.push(x));
+    });
+    return out.filter((id) => id !== a.id && openIds.has(id) && !SUBSTITUTE_FORMS.has(byId.get(id)!.form)).sort((x, y) => index.get(x)! - index.get(y)!);
+  };
 
-  // Pending order: filing time, then input order (rows without a filing time go last).
-  const pendingOrder = amendments
-    .filter((a) => a.status === "pending" && tree.nodes[a.id].degree !== null)
-    .sort((x, y) => (timeMs(x.filedAt) ?? Infinity) - (timeMs(y.filedAt) ?? Infinity) || index.get(x.id)! - index.get(y.id)!);
+  // Pending order (buildTree): filing time, then input order (rows without a filing time go last).
   const slotPosition = new Map<string, number>();
   const pendingPosition = new Map<string, number>();
   const perSlot = new Map<string, number>();
-  pendingOrder.forEach((a, i) => {
-    const slot = tree.nodes[a.id].slot!;
-    perSlot.set(slot, (perSlot.get(slot) ?? 0) + 1);
-    slotPosition.set(a.id, perSlot.get(slot)!);
-    pendingPosition.set(a.id, i + 1);
-  });
+  tree.pending
+    .filter((id) => tree.nodes[id].degree !== null)
+    .forEach((id, i) => {
+      const slot = tree.nodes[id].slot!;
+      perSlot.set(slot, (perSlot.get(slot) ?? 0) + 1);
+      slotPosition.set(id, perSlot.get(slot)!);
+      pendingPosition.set(id, i + 1);
+    });
 
   const conflicts = new Map<string, string[]>();
   for (const [a, b] of conflictingPairs(open)) {
@@ -156,6 +166,8 @@ export async function validateTree(input: { rulebook: Rulebook } & Record<string
       tree: {
         degree: node.degree,
         slot: node.slot,
+        role: node.role,
+        underSubstitute: node.underSubstitute,
         slotPosition: slotPosition.get(a.id) ?? null,
         pendingPosition: pendingPosition.get(a.id) ?? null,
         inCycle: node.inCycle,
@@ -166,7 +178,7 @@ export async function validateTree(input: { rulebook: Rulebook } & Record<string
       filing: { filedAtMs: timeMs(a.filedAt), deadlineMs, asOfMs },
       germaneness: { test, decidable, amendmentSubjects: a.subjects, targetSubjects, amendmentCommittee: a.committee ?? null, measureCommittee: measure.committee ?? null },
       conflictsWith: conflicts.get(a.id) ?? [],
-      perfectingSiblings: SUBSTITUTE_FORMS.has(a.form) ? open.filter((b) => b.id !== a.id && !SUBSTITUTE_FORMS.has(b.form) && (b.target === a.target || (a.target === measure.id && sections.has(b.target)))).map((b) => b.id) : [],
+      perfectingSiblings: perfectingSiblingsOf(a),
       cycleMembers: tree.cycles.find((c) => c.includes(a.id)) ?? [],
     };
     const own: Finding[] = [];

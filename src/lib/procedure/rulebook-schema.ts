@@ -77,6 +77,22 @@ export const amendmentRulesSchema = z.object({
   pendingPerSlot: z.number().int().min(1).max(100).nullable().default(1),
   /** A substitute has its own first-degree slot beside the perfecting amendment (four-amendment tree). */
   substituteSlot: z.boolean().default(false),
+  /**
+   * A substitute may target a first-degree amendment: it then counts as first degree, takes that
+   * amendment's substitute slot (`<amendment>/substitute`) and has a second-degree slot of its own
+   * (US House Rule XVI cl. 6; CRS Report 98-613). When false, a substitute for an amendment is an
+   * amendment to it, one degree higher. Default false (the behaviour before this field existed).
+   */
+  substituteForAmendment: z.boolean().default(false),
+  /**
+   * How an amendment to the text a pending substitute would strike out counts when it is made while
+   * that substitute (for the measure or a section) is pending. "second-degree": it is of the second
+   * degree, in the substitute's slot, so an amendment to it is of the third degree (Robert's Rules of
+   * Order Revised, 1915, §33 pp. 140-142). "first-degree": it stays a first-degree amendment in its
+   * own slot (with `substituteSlot`, the perfecting slot). Default "first-degree" (the behaviour before
+   * this field existed).
+   */
+  perfectingUnderSubstitute: z.enum(["first-degree", "second-degree"]).default("first-degree"),
   /** How many amendments may be pending at once on one measure; null = no limit. */
   maxPending: z.number().int().min(1).max(1000).nullable().default(null),
   germaneness: germanenessSchema,

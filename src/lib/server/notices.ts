@@ -31,7 +31,7 @@ function connection(): postgres.Sql {
   if (!url) throw new Error("DATABASE_URL is not set");
   // `onnotify` is what postgres.js's own sql.listen() is built on (it is not in its type
   // definitions); using it directly lets this module see the connection close (`onclose`).
-  const options: postgres.Options<{}> & { onnotify: (channel: string, payload: string) => void } = {
+  const options: postgres.Options<Record<string, postgres.PostgresType>> & { onnotify: (channel: string, payload: string) => void } = {
     max: 1,
     idle_timeout: 0,
     max_lifetime: null,

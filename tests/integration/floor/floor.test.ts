@@ -145,7 +145,7 @@ describe("recording the floor", () => {
   });
 
   it("records a vote with its tally, a withdrawal, and closes the sitting; history is kept", async () => {
-    let { sitting } = await board();
+    const { sitting } = await board();
     const v = await rec(s.as.clerk, sitting.revision, { kind: "voted", result: "adopted", tally: { yes: 22, no: 15, abstain: 3 } });
     expect(v.status).toBe(201);
     expect(v.body.board.pending.map((p: { motion: string }) => p.motion)).toEqual(["main"]);
@@ -173,15 +173,15 @@ describe("live updates", () => {
   it("delivers a change committed through one connection to a LISTEN on another", async () => {
     listener = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
     const got: FloorNotice[] = [];
-    const arrived = new Promise<void>((resolve) => {
-      void listener.listen(FLOOR_CHANNEL, (p) => {
-        got.push(JSON.parse(p));
-        resolve();
-      });
+    let heard!: () => void;
+    const arrived = new Promise<void>((resolve) => (heard = resolve));
+    // listen() resolves once LISTEN is in place, so the notice below cannot be missed.
+    await listener.listen(FLOOR_CHANNEL, (p) => {
+      got.push(JSON.parse(p));
+      heard();
     });
-    await new Promise((r) => setTimeout(r, 200));
     const opened = await call(sittingsRoute.POST, "POST", "/api/floor/sittings", { as: s.as.clerk, body: { title: "Notify test" } });
-    await Promise.race([arrived, new Promise((_, rej) => setTimeout(() => rej(new Error("no NOTIFY within 5 s")), 5000))]);
+    await arrived;
     expect(got[0]).toMatchObject({ sittingId: opened.body.id, kind: "opened" });
   });
 

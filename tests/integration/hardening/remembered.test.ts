@@ -5,9 +5,9 @@
 // (NOTIFY from the triggers of drizzle/0006_change_notices.sql), and nothing is kept while the
 // LISTEN connection is down. Common practice for cache invalidation (notify on write), no source.
 import postgres from "postgres";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { contextFor } from "../../../src/lib/server/context.ts";
-import { isListening, NOTICES_APPLICATION_NAME } from "../../../src/lib/server/notices.ts";
+import { caughtUp, isListening, NOTICES_APPLICATION_NAME } from "../../../src/lib/server/notices.ts";
 import { loadRulebook } from "../../../src/lib/server/services/rulebooks.ts";
 import { legislatorNames } from "../../../src/lib/server/services/measures.ts";
 import { seedRulebooks } from "../../../src/lib/server/seed/rulebooks.ts";
@@ -23,13 +23,9 @@ let seeded: Seeded;
 let other: postgres.Sql; // "another server"
 const headersOf = (cookie: string) => new Headers({ cookie });
 
-async function until(what: string, ok: () => Promise<boolean>, ms = 5000): Promise<void> {
-  const end = Date.now() + ms;
-  while (Date.now() < end) {
-    if (await ok()) return;
-    await new Promise((r) => setTimeout(r, 25));
-  }
-  throw new Error(`timed out waiting for ${what}`);
+/** Wait on the event itself (vitest polls `ok` until it holds), never on a clock. */
+async function until(what: string, ok: () => Promise<boolean>, timeout = 5000): Promise<void> {
+  await vi.waitFor(async () => expect(await ok(), what).toBe(true), { timeout, interval: 25 });
 }
 
 beforeAll(async () => {
@@ -49,6 +45,9 @@ describe("who is signed in, remembered per session", () => {
     const h = headersOf(seeded.as.member.cookie);
     expect((await contextFor(h)).role).toBe("member");
     await until("LISTEN to be in place", async () => isListening());
+    // The first request of a new session records its active chamber, and that write sends a notice
+    // of its own: hear it (and every other notice already committed) before proving anything is kept.
+    expect(await caughtUp()).toBe(true);
     expect((await contextFor(h)).role).toBe("member"); // now remembered
 
     // Change the role with the trigger off: no notice, so the remembered answer stands — proof it is remembered.

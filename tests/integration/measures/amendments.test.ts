@@ -189,6 +189,10 @@ describe("the tree", () => {
     expect(a4.amendmentId).toBe(rows.find((r) => r.number === 4)!.id);
     expect(t.nodes.find((n: { key: string }) => n.key === "A2").degree).toBe(2);
     expect(t.nodes.find((n: { key: string }) => n.key === "A8").degree).toBe(3);
+    // Each amendment also says how it counts and its place (Robert's Rules of Order Revised, 1915, §33 p. 135: an
+    // amendment of an amendment is of the second degree; its place is the amendment it amends).
+    const a2 = t.nodes.find((n: { key: string }) => n.key === "A2");
+    expect(a2).toMatchObject({ role: "amendment-to-amendment", slot: a2.parent });
   });
 
   it("records an override resting on a ruling (clerks only), refuses stale or unknown findings, and can revoke it", async () => {

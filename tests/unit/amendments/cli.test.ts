@@ -44,6 +44,28 @@ describe("gavelwright check", () => {
 
   it("prints an empty list for a clean tree", async () => {
     const r = await run("check", file("clean.json", { rulebook: "general-parliamentary-law", measure, amendments: [{ id: "A1", target: "s1", form: "insert", sponsors: ["M. Okafor"], subjects: ["water"] }] }));
-    expect([r.code, JSON.parse(r.out)]).toEqual([0, { findings: [] }]);
+    expect([r.code, JSON.parse(r.out)]).toEqual([0, { findings: [], tree: [{ amendment: "A1", degree: 1, role: "perfecting", slot: "HB-12", underSubstitute: null }] }]);
+  });
+
+  // US House Rule XVI cl. 6; CRS Report 98-613: a substitute for the amendment "is treated as a first-degree amendment",
+  // and "Like the original first-degree amendment, this one also is subject to second-degree amendments."
+  it("reports no error on the ordinary House tree and prints the degree and slot of each amendment", async () => {
+    const common = { sponsors: ["M. Okafor"], subjects: ["water"], status: "pending" };
+    const amendments = [
+      { id: "A", target: "s1", form: "insert", ...common },
+      { id: "A2", target: "A", form: "insert", ...common },
+      { id: "S", target: "A", form: "substitute", ...common },
+      { id: "S2", target: "S", form: "insert", ...common },
+    ];
+    const r = await run("check", file("house.json", { rulebook: "four-amendment-legislature", measure, amendments }));
+    expect(r.code).toBe(0);
+    const out = JSON.parse(r.out) as { findings: Array<{ severity: string }>; tree: Array<{ amendment: string; degree: number; slot: string }> };
+    expect(out.findings.filter((f) => f.severity === "error")).toEqual([]);
+    expect(out.tree.map((t) => [t.amendment, t.degree, t.slot])).toEqual([
+      ["A", 1, "HB-12/perfecting"],
+      ["A2", 2, "A"],
+      ["S", 1, "A/substitute"],
+      ["S2", 2, "S"],
+    ]);
   });
 });

@@ -180,17 +180,32 @@ describe("general parliamentary law (Robert's Rules of Order Revised, 1915)", ()
 });
 
 describe("four-amendment tree (US House Rule XVI cl. 6)", () => {
+  // The ordinary House tree: A amends a section, A2 amends A, S is a substitute FOR A, S2 amends S.
+  // House Rule XVI cl. 6, as quoted by CRS Report 98-613 (Amendments in the House: Types and Forms, 2008,
+  // "Degrees of Amendments"): "it also shall be in order to offer a further amendment by way of substitute."
+  // CRS 98-613: "Such a substitute is treated as a first-degree amendment, presumably because it is offered in
+  // the form of an alternative to the original first-degree amendment rather than an amendment to it. Like the
+  // original first-degree amendment, this one also is subject to second-degree amendments."
+  // RONR (1915) §33 p. 135 n. 1, quoting the House rule of its day (H. R. Rule 19): "a motion to amend and a
+  // motion to amend that amendment shall be in order, and it shall also be in order to offer a further
+  // amendment by way of substitute, to which one amendment may be offered, but which shall not be voted on
+  // until the original matter is perfected".
   const tree = () => {
     const a = am("s1", { status: "pending" });
     const a2 = am(a.id, { status: "pending" });
-    const s = am("HB-12", { form: "substitute", status: "pending" });
+    const s = am(a.id, { form: "substitute", status: "pending" });
     const s2 = am(s.id, { status: "pending" });
     return [a, a2, s, s2];
   };
 
-  it("an amendment, an amendment to it, a substitute and an amendment to the substitute may all be pending", async () => {
-    const fs = await check(house, tree());
-    expect(fs.filter((f) => f.code === "slot-taken")).toEqual([]);
+  it("an amendment, an amendment to it, a substitute for the amendment and an amendment to the substitute may all be pending", async () => {
+    const rows = tree();
+    const { findings, tree: t } = await validateTree({ rulebook: house, measure, amendments: rows });
+    expect(findings.filter((f) => f.severity === "error")).toEqual([]);
+    // CRS 98-613: the substitute "is treated as a first-degree amendment" and "is subject to second-degree amendments".
+    expect(rows.map((r) => t.nodes[r.id].degree)).toEqual([1, 2, 1, 2]);
+    expect(rows.map((r) => t.nodes[r.id].role)).toEqual(["perfecting", "amendment-to-amendment", "substitute-for-amendment", "amendment-to-amendment"]);
+    expect(new Set(rows.map((r) => t.nodes[r.id].slot)).size).toBe(4);
   });
 
   it("a fifth pending amendment exceeds the tree", async () => {
@@ -201,13 +216,38 @@ describe("four-amendment tree (US House Rule XVI cl. 6)", () => {
     expect(fs.filter((f) => f.code === "slot-taken").map((f) => f.amendment)).toEqual([fifth.id]);
   });
 
-  it("the same four pending amendments overflow a general-parliamentary-law tree (RONR 1915 §33)", async () => {
-    expect((await check(gpl, tree())).filter((f) => f.code === "slot-taken").length).toBeGreaterThan(0);
+  it("a second substitute for the same amendment, or a second amendment to the substitute, takes a place already taken", async () => {
+    const rows = tree();
+    const sub2 = am(rows[0].id, { form: "substitute", status: "pending" });
+    expect(codes(await check(house, [...rows, sub2]), sub2.id)).toContain("slot-taken");
+    const rows2 = tree();
+    const s3 = am(rows2[2].id, { status: "pending" });
+    expect(codes(await check(house, [...rows2, s3]), s3.id)).toContain("slot-taken");
   });
 
-  it("the substitute is voted after the original matter is perfected (Rule XVI cl. 6)", async () => {
+  it("an amendment to the amendment to the substitute is of the third degree (CRS 98-613: the process \"is limited to two degrees\")", async () => {
     const rows = tree();
-    expect((await check(house, rows)).find((f) => f.code === "voted-after-perfecting")).toMatchObject({ amendment: rows[2].id, related: [rows[0].id] });
+    const s3 = am(rows[3].id);
+    expect(codes(await check(house, [...rows, s3]), s3.id)).toEqual(["degree-exceeded"]);
+  });
+
+  it("the substitute is voted after the amendment it would replace is perfected (the House rule as quoted in RONR 1915 §33 p. 135 n. 1: \"shall not be voted on until the original matter is perfected\")", async () => {
+    const rows = tree();
+    expect((await check(house, rows)).find((f) => f.code === "voted-after-perfecting")).toMatchObject({ amendment: rows[2].id, related: [rows[1].id] });
+  });
+
+  it("the substitute-for-the-bill variant: an amendment in the nature of a substitute for the bill beside perfecting amendments to the text (Deschler's Precedents ch. 27 §25)", async () => {
+    // Deschler's Precedents vol. 9 ch. 27 §25 p. 7099: "An amendment in the nature of a substitute for a bill may be
+    // proposed before perfecting amendments to the pending portion of the original text have been offered, but may
+    // not be voted on until after such perfecting amendments have been disposed of."
+    const n = am("HB-12", { form: "in-nature-of-substitute", status: "pending", filedAt: "2025-03-01T09:00:00Z" });
+    const n2 = am(n.id, { status: "pending", filedAt: "2025-03-01T09:10:00Z" });
+    const p = am("s1", { status: "pending", filedAt: "2025-03-01T09:20:00Z" });
+    const p2 = am(p.id, { status: "pending", filedAt: "2025-03-01T09:30:00Z" });
+    const { findings, tree: t } = await validateTree({ rulebook: house, measure, amendments: [n, n2, p, p2] });
+    expect(findings.filter((f) => f.severity === "error")).toEqual([]);
+    expect([n, n2, p, p2].map((r) => t.nodes[r.id].degree)).toEqual([1, 2, 1, 2]);
+    expect(findings.find((f) => f.code === "voted-after-perfecting")).toMatchObject({ amendment: n.id, related: [p.id] });
   });
 
   it("a third degree is out of order, and a different subject is not germane (Rule XVI cl. 6, cl. 7)", async () => {
@@ -218,6 +258,94 @@ describe("four-amendment tree (US House Rule XVI cl. 6)", () => {
     const fs = await check(house, [a, b, c, d]);
     expect(codes(fs, c.id)).toEqual(["degree-exceeded"]);
     expect(codes(fs, d.id)).toEqual(["not-germane"]);
+  });
+});
+
+describe("general parliamentary law: perfecting the text while a substitute is pending (RONR 1915 §33 pp. 140-142)", () => {
+  // RONR (1915) §33 p. 140: "A motion to insert (or add) or to strike out a paragraph, or to substitute one paragraph
+  // for another, is an amendment of the first degree, and therefore cannot be made when an amendment is pending."
+  // p. 142: the chair first asks for amendments to the paragraph "to be struck out, these amendments being of the
+  // second degree. After it is perfected by its friends, the chair asks if there are any amendments proposed to the
+  // paragraph to be inserted."
+  // p. 135: "While there can be only one amendment of each degree pending at the same time, any number of them may be
+  // offered in succession." and "An amendment of the third degree would be too complicated and is not in order."
+  const subFirst = () => {
+    const s = am("s1", { form: "substitute", status: "pending", filedAt: "2025-03-01T09:00:00Z" });
+    const p = am("s1", { form: "strike-and-insert", lines: [2, 3], status: "pending", filedAt: "2025-03-01T09:10:00Z" });
+    return { s, p };
+  };
+
+  it("a perfecting amendment to the paragraph to be struck out, made while the substitute is pending, is a legal second-degree amendment (F1)", async () => {
+    const { s, p } = subFirst();
+    const { findings, tree: t } = await validateTree({ rulebook: gpl, measure, amendments: [s, p] });
+    expect(findings.filter((f) => f.severity === "error")).toEqual([]);
+    expect(t.nodes[p.id]).toMatchObject({ degree: 2, role: "perfecting-under-substitute", underSubstitute: s.id, slot: s.id });
+    expect(t.nodes[s.id]).toMatchObject({ degree: 1, role: "substitute" });
+  });
+
+  it("the same holds for a substitute for the whole measure and an amendment to one of its sections", async () => {
+    const s = am("HB-12", { form: "substitute", status: "pending", filedAt: "2025-03-01T09:00:00Z" });
+    const p = am("s1", { lines: [2, 3], status: "pending", filedAt: "2025-03-01T09:10:00Z" });
+    const { findings, tree: t } = await validateTree({ rulebook: gpl, measure, amendments: [s, p] });
+    expect(findings.filter((f) => f.severity === "error")).toEqual([]);
+    expect(t.nodes[p.id].degree).toBe(2);
+  });
+
+  it("an amendment to that perfecting amendment is of the third degree and out of order (F1)", async () => {
+    const { s, p } = subFirst();
+    const p2 = am(p.id, { status: "pending", filedAt: "2025-03-01T09:20:00Z" });
+    const { findings, tree: t } = await validateTree({ rulebook: gpl, measure, amendments: [s, p, p2] });
+    expect(t.nodes[p2.id].degree).toBe(3);
+    expect(codes(findings, p2.id)).toContain("degree-exceeded");
+    expect(findings.filter((f) => f.amendment === p.id && f.severity === "error")).toEqual([]);
+  });
+
+  it("the perfecting amendment and an amendment to the substitute are both of the second degree: one pending at a time (p. 135, p. 142)", async () => {
+    const { s, p } = subFirst();
+    const s2 = am(s.id, { status: "pending", filedAt: "2025-03-01T09:20:00Z" });
+    const fs = await check(gpl, [s, p, s2]);
+    expect(codes(fs, s2.id)).toContain("slot-taken");
+    expect(codes(fs, p.id)).not.toContain("slot-taken");
+  });
+
+  it("a substitute made while a perfecting amendment is pending is the second first-degree amendment: out of order (p. 140)", async () => {
+    const p = am("s1", { lines: [2, 3], status: "pending", filedAt: "2025-03-01T09:00:00Z" });
+    const s = am("s1", { form: "substitute", status: "pending", filedAt: "2025-03-01T09:10:00Z" });
+    const { findings, tree: t } = await validateTree({ rulebook: gpl, measure, amendments: [p, s] });
+    expect(codes(findings, s.id)).toContain("slot-taken");
+    expect(findings.filter((f) => f.amendment === p.id && f.severity === "error")).toEqual([]);
+    expect(t.nodes[p.id]).toMatchObject({ degree: 1, role: "perfecting" });
+  });
+
+  it("amendments merely filed keep the degree they will have when offered after the substitute is disposed of (p. 142: after a lost substitute the retained paragraph may \"be further amended\")", async () => {
+    const { s } = subFirst();
+    const p = am("s1", { lines: [2, 3] });
+    const p2 = am(p.id);
+    const { findings, tree: t } = await validateTree({ rulebook: gpl, measure, amendments: [s, p, p2] });
+    expect([t.nodes[p.id].degree, t.nodes[p2.id].degree]).toEqual([1, 2]);
+    expect(findings.filter((f) => f.code === "degree-exceeded")).toEqual([]);
+  });
+
+  it("the House tree's four pending amendments overflow a general-parliamentary-law tree: A2 is third degree, and A and S2 compete for the one second-degree place (T2)", async () => {
+    // Substitute for the bill made first, then A (to s1) and A2 (to A), then S2 (to the substitute).
+    const s = am("HB-12", { form: "substitute", status: "pending", filedAt: "2025-03-01T09:00:00Z" });
+    const a = am("s1", { status: "pending", filedAt: "2025-03-01T09:10:00Z" });
+    const a2 = am(a.id, { status: "pending", filedAt: "2025-03-01T09:20:00Z" });
+    const s2 = am(s.id, { status: "pending", filedAt: "2025-03-01T09:30:00Z" });
+    const { findings, tree: t } = await validateTree({ rulebook: gpl, measure, amendments: [a, a2, s, s2] });
+    expect([a, a2, s, s2].map((r) => t.nodes[r.id].degree)).toEqual([2, 3, 1, 2]);
+    expect(codes(findings, a2.id)).toContain("degree-exceeded");
+    expect(codes(findings, s2.id)).toContain("slot-taken");
+    expect(codes(findings, a.id)).not.toContain("slot-taken");
+    expect(codes(findings, s.id)).not.toContain("slot-taken");
+  });
+
+  it("under general parliamentary law a substitute for a pending amendment is an amendment to it, of the second degree", async () => {
+    const a = am("s1", { status: "pending" });
+    const s = am(a.id, { form: "substitute", status: "pending" });
+    const { findings, tree: t } = await validateTree({ rulebook: gpl, measure, amendments: [a, s] });
+    expect(t.nodes[s.id]).toMatchObject({ degree: 2, role: "amendment-to-amendment", slot: a.id });
+    expect(findings.filter((f) => f.severity === "error")).toEqual([]);
   });
 });
 

@@ -22,9 +22,9 @@ function issuesOf(f: () => unknown): Array<{ path: string; message: string }> {
 
 describe("invalid input", () => {
   it("refuses a file that is not UTF-8, and binary data", () => {
-    expect(() => decodeCsv(new Uint8Array([0x61, 0xe9, 0x0a]))).toThrowError(expect.objectContaining({ code: "invalid-input" }));
-    expect(() => decodeCsv(new Uint8Array([0x61, 0x00, 0x62]))).toThrowError(expect.objectContaining({ code: "invalid-input" }));
-    expect(() => decodeCsv(new Uint8Array(600 * 1024))).toThrowError(expect.objectContaining({ code: "too-large" }));
+    expect(() => decodeCsv(new Uint8Array([0x61, 0xe9, 0x0a]))).toThrow(expect.objectContaining({ code: "invalid-input" }));
+    expect(() => decodeCsv(new Uint8Array([0x61, 0x00, 0x62]))).toThrow(expect.objectContaining({ code: "invalid-input" }));
+    expect(() => decodeCsv(new Uint8Array(600 * 1024))).toThrow(expect.objectContaining({ code: "too-large" }));
   });
 
   it("refuses wrong columns: missing, unknown, repeated", () => {

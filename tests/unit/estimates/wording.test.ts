@@ -26,9 +26,9 @@ function listing(raw: ReturnType<typeof input>) {
 describe("invalid input", () => {
   it("refuses a walk-through order that breaks the rulebook or misses questions", () => {
     const raw = input([{ ranking: ["measure", "Q"], weight: 1 }]);
-    expect(() => walkThrough(raw, ["passage", "A1", "A2"])).toThrowError(expect.objectContaining({ code: "unprocessable" }));
-    expect(() => walkThrough(raw, ["A1", "passage"])).toThrowError(expect.objectContaining({ code: "invalid-input" }));
-    expect(() => walkThrough(raw, ["A1", "A9", "passage"])).toThrowError(expect.objectContaining({ code: "invalid-input" }));
+    expect(() => walkThrough(raw, ["passage", "A1", "A2"])).toThrow(expect.objectContaining({ code: "unprocessable" }));
+    expect(() => walkThrough(raw, ["A1", "passage"])).toThrow(expect.objectContaining({ code: "invalid-input" }));
+    expect(() => walkThrough(raw, ["A1", "A9", "passage"])).toThrow(expect.objectContaining({ code: "invalid-input" }));
   });
 });
 

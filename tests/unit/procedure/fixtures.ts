@@ -13,7 +13,6 @@ export function templatePath(id: string): string {
   return files.find((f) => existsSync(f)) ?? files[0]!;
 }
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 export function rawTemplate(id: string): any {
   return JSON.parse(readFileSync(templatePath(id), "utf8"));
 }

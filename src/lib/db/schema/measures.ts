@@ -1,5 +1,5 @@
 import { customType, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
-import { AMENDMENT_STATUSES, MEASURE_STATUSES } from "../../server/measure-schemas.ts";
+import { AMENDMENT_STATUSES, MEASURE_STATUSES } from "../../measures/measure-schemas.ts";
 import { organization, user } from "./auth.ts";
 
 /** Raw file bytes kept in PostgreSQL (uploads are small and must travel with backups). */

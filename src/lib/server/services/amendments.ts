@@ -14,7 +14,7 @@ import { can } from "../../permissions.ts";
 import type { Actor } from "../http.ts";
 import { enqueueMail } from "../mail.ts";
 import { assertFresh, recordAudit } from "../measure-audit.ts";
-import { amendmentFileSchema, amendmentUpdateSchema, AMENDMENT_STATUS_LABELS, FORM_LABELS, versionOnlySchema } from "../measure-schemas.ts";
+import { amendmentFileSchema, amendmentUpdateSchema, AMENDMENT_STATUS_LABELS, FORM_LABELS, versionOnlySchema } from "../../measures/measure-schemas.ts";
 import { subjectList } from "../measure-sections.ts";
 import { checkDocument, readMultipart } from "../uploads.ts";
 import { checkLegislators, legislatorNames, measureRow, type MeasureRow } from "./measures.ts";

@@ -12,7 +12,7 @@ import { amendments, measureAttachments, measures, type StoredSection } from "..
 import { GavelError, parseWith } from "../../errors.ts";
 import type { Actor } from "../http.ts";
 import { assertFresh, auditOf, recordAudit } from "../measure-audit.ts";
-import { measureCreateSchema, measureUpdateSchema, sectionInputSchema } from "../measure-schemas.ts";
+import { measureCreateSchema, measureUpdateSchema, sectionInputSchema } from "../../measures/measure-schemas.ts";
 import { countLines, parseMeasureText, subjectList } from "../measure-sections.ts";
 import { checkDocument, readMultipart } from "../uploads.ts";
 

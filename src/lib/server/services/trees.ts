@@ -16,7 +16,7 @@ import { measureMemory } from "../chamber-memory.ts";
 import { Memo, memoKey } from "../memo.ts";
 import { assertFresh, recordAudit } from "../measure-audit.ts";
 import { adoptedRulebookOf } from "../measure-rulebook.ts";
-import type { overrideCreateSchema, FindingView, TreeNodeView, TreeView } from "../measure-schemas.ts";
+import type { overrideCreateSchema, FindingView, TreeNodeView, TreeView } from "../../measures/measure-schemas.ts";
 import { amendmentKey, amendmentRow, type AmendmentRow } from "./amendments.ts";
 import { nextAdoptionInForce } from "./rulebooks.ts";
 import { assertMeasureId, legislatorNames, measureRow, type MeasureRow } from "./measures.ts";
@@ -104,7 +104,7 @@ async function buildTreeView(chamberId: string, measureId: string): Promise<{ vi
       const key = keys.get(r.id)!;
       const n = result.tree.nodes[key];
       const parent = n && !n.targetMissing ? n.target : null;
-      return { key, kind: "amendment", id: r.id, label: key, title: r.title, parent, degree: n?.degree ?? null, form: r.form, status: r.status, subjects: r.subjects, sponsors: r.sponsors.map((s) => names.get(s) ?? s), filedAt: r.filedAt?.toISOString() ?? null, text: r.text, lines: r.lineFrom === null ? null : [r.lineFrom, r.lineTo!], version: r.version };
+      return { key, kind: "amendment", id: r.id, label: key, title: r.title, parent, degree: n?.degree ?? null, role: n?.role ?? null, slot: n?.slot ?? null, underSubstitute: n?.underSubstitute ?? null, form: r.form, status: r.status, subjects: r.subjects, sponsors: r.sponsors.map((s) => names.get(s) ?? s), filedAt: r.filedAt?.toISOString() ?? null, text: r.text, lines: r.lineFrom === null ? null : [r.lineFrom, r.lineTo!], version: r.version };
     }),
   ];
   const counts = { error: 0, warning: 0, info: 0, overridden: 0 };

@@ -1,5 +1,5 @@
 import { json, readJson, requireActor, route } from "../../../lib/server/http.ts";
-import { measureCreateSchema } from "../../../lib/server/measure-schemas.ts";
+import { measureCreateSchema } from "../../../lib/measures/measure-schemas.ts";
 import { createMeasure, listMeasures } from "../../../lib/server/services/measures.ts";
 
 export const GET = route(async ({ locals }) => listMeasures(requireActor(locals, "chamber:read")));

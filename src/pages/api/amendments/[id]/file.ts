@@ -1,5 +1,5 @@
 import { readJson, requireActor, route } from "../../../../lib/server/http.ts";
-import { versionOnlySchema } from "../../../../lib/server/measure-schemas.ts";
+import { versionOnlySchema } from "../../../../lib/measures/measure-schemas.ts";
 import { fileDraft } from "../../../../lib/server/services/amendments.ts";
 
 // File a draft amendment: it gets the measure's next number and the filer a receipt.

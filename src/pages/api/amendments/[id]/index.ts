@@ -1,5 +1,5 @@
 import { readJson, requireActor, route } from "../../../../lib/server/http.ts";
-import { amendmentUpdateSchema } from "../../../../lib/server/measure-schemas.ts";
+import { amendmentUpdateSchema } from "../../../../lib/measures/measure-schemas.ts";
 import { getAmendment, updateAmendment } from "../../../../lib/server/services/amendments.ts";
 
 export const GET = route(async ({ locals, params }) => getAmendment(requireActor(locals, "chamber:read"), params.id ?? ""));

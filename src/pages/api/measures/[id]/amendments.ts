@@ -1,5 +1,5 @@
 import { json, readJson, requireActor, route } from "../../../../lib/server/http.ts";
-import { amendmentFileSchema } from "../../../../lib/server/measure-schemas.ts";
+import { amendmentFileSchema } from "../../../../lib/measures/measure-schemas.ts";
 import { fileAmendment, fileAmendmentFromUpload, listAmendments } from "../../../../lib/server/services/amendments.ts";
 
 export const GET = route(async ({ locals, params }) => listAmendments(requireActor(locals, "chamber:read"), params.id ?? ""));

@@ -1,5 +1,5 @@
 import { readJson, requireActor, route } from "../../../../lib/server/http.ts";
-import { measureUpdateSchema } from "../../../../lib/server/measure-schemas.ts";
+import { measureUpdateSchema } from "../../../../lib/measures/measure-schemas.ts";
 import { getMeasure, updateMeasure } from "../../../../lib/server/services/measures.ts";
 
 export const GET = route(async ({ locals, params }) => getMeasure(requireActor(locals, "chamber:read"), params.id ?? ""));

@@ -1,5 +1,5 @@
 import { json, readJson, requireActor, route } from "../../../../../lib/server/http.ts";
-import { overrideCreateSchema } from "../../../../../lib/server/measure-schemas.ts";
+import { overrideCreateSchema } from "../../../../../lib/measures/measure-schemas.ts";
 import { recordOverride } from "../../../../../lib/server/services/trees.ts";
 
 export const POST = route(async ({ locals, request, params }) => {

@@ -42,7 +42,7 @@ export const sectionInputSchema = z.object({
 });
 
 const measureFields = {
-  number: z.string().trim().min(1).max(40).regex(/^[A-Za-z0-9][A-Za-z0-9 .\/-]*$/, "letters, digits, spaces, '.', '/' and '-' only"),
+  number: z.string().trim().min(1).max(40).regex(/^[A-Za-z0-9][A-Za-z0-9 ./-]*$/, "letters, digits, spaces, '.', '/' and '-' only"),
   title: z.string().trim().min(1).max(500),
   committee: z.string().trim().max(200).nullable(),
   status: z.enum(MEASURE_STATUSES),
@@ -156,6 +156,10 @@ export const treeNodeViewSchema = z.object({
   title: z.string().nullable(),
   parent: z.string().nullable(),
   degree: z.number().nullable(),
+  /** Amendments: how the amendment counts (buildTree role), its slot, and the pending substitute it perfects the text under. */
+  role: z.string().nullable().optional(),
+  slot: z.string().nullable().optional(),
+  underSubstitute: z.string().nullable().optional(),
   form: z.string().nullable(),
   status: z.string().nullable(),
   subjects: z.array(z.string()),
