@@ -141,6 +141,20 @@ describe("US House: the amendment tree (Rule XVI cl. 6) and germaneness (cl. 7)"
     expect(fs.find((f) => f.code === "voted-after-perfecting")).toMatchObject({ amendment: s.id, related: [p.id] });
   });
 
+  it("the House tree: an amendment, an amendment to it, a substitute for the amendment and an amendment to the substitute (Rule XVI cl. 6 as quoted by CRS 98-613: \"it also shall be in order to offer a further amendment by way of substitute\"; CRS: the substitute \"is treated as a first-degree amendment\" and \"Like the original first-degree amendment, this one also is subject to second-degree amendments\")", async () => {
+    const a = am("sec1", { status: "pending", filedAt: "2026-03-02T10:00:00Z" });
+    const a2 = am(a.id, { status: "pending", filedAt: "2026-03-02T10:05:00Z" });
+    const s = am(a.id, { form: "substitute", status: "pending", filedAt: "2026-03-02T10:10:00Z" });
+    const s2 = am(s.id, { status: "pending", filedAt: "2026-03-02T10:15:00Z" });
+    const { findings: fs, tree } = await validateTree({ rulebook: house, measure, amendments: [a, a2, s, s2] });
+    expect(fs.filter((f) => f.severity === "error")).toEqual([]);
+    expect([a, a2, s, s2].map((x) => tree.nodes[x.id].degree)).toEqual([1, 2, 1, 2]);
+    expect(tree.nodes[s.id].role).toBe("substitute-for-amendment");
+    // "It is not in order to offer more than one motion to amend of the same nature at a time (V, 5755; VIII, 2831)": a fifth is refused.
+    const fifth = am(a.id, { status: "pending", filedAt: "2026-03-02T10:20:00Z" });
+    expect(codes(await findings([a, a2, s, s2, fifth]), fifth.id)).toContain("slot-taken");
+  });
+
   it("an amendment to an amendment to an amendment is a third degree and out of order (Rule XVI cl. 6: \"a motion to amend and a motion to amend that amendment shall be in order\", former Rule XIX)", async () => {
     const a = am("sec1");
     const b = am(a.id);

@@ -111,6 +111,9 @@ describe("US Senate: the amendment tree", () => {
     const fs = await findings([a, perfecting, substitute]);
     expect(fs.filter((f) => f.severity === "error")).toEqual([]);
     expect(codes(fs, substitute.id)).not.toContain("degree-exceeded");
+    // Riddick: "a substitute counts as one degree of amendment": a substitute for a first-degree amendment is of the second degree.
+    const { tree } = await validateTree({ rulebook: senate, measure, amendments: [a, perfecting, substitute] });
+    expect(tree.nodes[substitute.id].degree).toBe(2);
   });
 
   it("\"A perfecting amendment (and an amendment to it) has precedence over a substitute amendment (and an amendment to it)\" (CRS 98-853 as reproduced): the substitute for the bill is voted after the perfecting amendment", async () => {
