@@ -13,6 +13,7 @@ import cluster from "node:cluster";
 import { readdirSync, readFileSync } from "node:fs";
 import http from "node:http";
 import https from "node:https";
+import { isIP } from "node:net";
 import { isAbsolute, join, relative, resolve, sep } from "node:path";
 import { pathToFileURL } from "node:url";
 import send from "send";
@@ -26,6 +27,18 @@ const WORKERS = Number(process.env.GAVELWRIGHT_WORKERS ?? 1);
 if (!Number.isInteger(WORKERS) || WORKERS < 1 || WORKERS > 64) {
   console.error(`[gavelwright] GAVELWRIGHT_WORKERS must be a whole number from 1 to 64 (got "${process.env.GAVELWRIGHT_WORKERS}")`);
   process.exit(2);
+}
+
+// TRUSTED_PROXIES (src/lib/server/client-address.ts reads it): refuse to start on a malformed
+// entry rather than mis-read client addresses.
+for (const entry of (process.env.TRUSTED_PROXIES ?? "").split(/[\s,]+/).filter(Boolean)) {
+  const [addr, prefix, ...rest] = entry.split("/");
+  const family = isIP(addr ?? "");
+  const max = family === 4 ? 32 : 128;
+  if (!family || rest.length > 0 || (prefix !== undefined && !(/^\d{1,3}$/.test(prefix) && Number(prefix) <= max))) {
+    console.error(`[gavelwright] TRUSTED_PROXIES: "${entry}" is not an IP address or CIDR range (e.g. 10.0.0.0/8, 192.0.2.7, fd00::/8)`);
+    process.exit(2);
+  }
 }
 
 if (WORKERS > 1 && cluster.isPrimary) runPrimary();
@@ -104,7 +117,10 @@ async function serve() {
       stream.pipe(res);
       return;
     }
-    handler(req, res);
+    // The connection's peer address reaches the app in locals, where no header can forge it;
+    // the app reads X-Forwarded-For only when this peer is in TRUSTED_PROXIES
+    // (src/lib/server/client-address.ts).
+    handler(req, res, undefined, { peerAddress: req.socket.remoteAddress });
   };
 
   const certPath = process.env.SERVER_CERT_PATH;

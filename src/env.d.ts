@@ -15,6 +15,8 @@ declare global {
       chambers: Array<{ id: string; name: string; slug: string; role: ChamberRole }>;
       /** Per-request nonce for the content security policy. */
       requestId: string;
+      /** The TCP peer of the connection, set by scripts/serve.mjs (never from a header). */
+      peerAddress?: string;
     }
   }
 }

@@ -6,30 +6,26 @@ import { startOutboxWorker } from "./lib/server/mail.ts";
 import { errorResponse } from "./lib/server/http.ts";
 import { describeError } from "./lib/server/log-safe.ts";
 import { GavelError } from "./lib/errors.ts";
+import { baseUrl } from "./lib/server/auth.ts";
+import { crossSiteRefusal } from "./lib/server/origin-check.ts";
+import { contentSecurityPolicy } from "./lib/server/csp.ts";
 
 const SECURITY_HEADERS: Record<string, string> = {
   "x-content-type-options": "nosniff",
   "referrer-policy": "same-origin",
   "x-frame-options": "DENY",
   "permissions-policy": "camera=(), microphone=(), geolocation=()",
-  "content-security-policy": [
-    "default-src 'self'",
-    "script-src 'self' 'unsafe-inline'",
-    "style-src 'self' 'unsafe-inline'",
-    "img-src 'self' data: blob:",
-    "font-src 'self'",
-    "connect-src 'self'",
-    "frame-ancestors 'none'",
-    "base-uri 'self'",
-    "form-action 'self'",
-    "object-src 'none'",
-  ].join("; "),
+  // Scripts without 'unsafe-inline': Astro's own inline scripts by hash (src/lib/server/csp.ts).
+  "content-security-policy": contentSecurityPolicy(),
 };
 
 export const onRequest = defineMiddleware(async (ctx, next) => {
   ctx.locals.requestId = randomUUID();
   const path = ctx.url.pathname;
   const isAsset = path.startsWith("/_astro/") || path === "/favicon.svg";
+  // Same-origin writes only, before any work is done (origin-check.ts).
+  const crossSite = crossSiteRefusal(ctx.request, path, [new URL(baseUrl()).origin, ctx.url.origin]);
+  if (crossSite) return withSecurityHeaders(errorResponse(crossSite), ctx.url);
   if (!isAsset) {
     try {
       await ensureMigrated();
@@ -44,7 +40,11 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
   }
   const res = await next();
   forgetAccessAfter(ctx.request.method, path);
-  for (const [k, v] of Object.entries(SECURITY_HEADERS)) if (!res.headers.has(k)) res.headers.set(k, v);
-  if (ctx.url.protocol === "https:") res.headers.set("strict-transport-security", "max-age=31536000; includeSubDomains");
-  return res;
+  return withSecurityHeaders(res, ctx.url);
 });
+
+function withSecurityHeaders(res: Response, url: URL): Response {
+  for (const [k, v] of Object.entries(SECURITY_HEADERS)) if (!res.headers.has(k)) res.headers.set(k, v);
+  if (url.protocol === "https:") res.headers.set("strict-transport-security", "max-age=31536000; includeSubDomains");
+  return res;
+}

@@ -1,5 +1,6 @@
 import { useState, type FormEvent } from "react";
 import { authClient } from "../lib/auth-client.ts";
+import { safeNext } from "../lib/safe-next.ts";
 import { fieldErrors, forgotSchema, resetSchema, signInSchema, signUpSchema, type FieldErrors } from "../lib/account-schemas.ts";
 
 type Mode = "sign-in" | "sign-up" | "forgot" | "reset";
@@ -65,15 +66,23 @@ export default function AccountForm({ mode, next = "/", token, email }: Props) {
     try {
       if (mode === "sign-in") {
         const r = await authClient.signIn.email({ email: data.email, password: data.password });
-        if (r.error) return setErrors({ form: r.error.status === 429 ? "Too many attempts. Wait a minute, then try again." : "That e-mail and password do not match an account." });
-        window.location.assign(next);
+        if (r.error)
+          return setErrors({
+            form:
+              r.error.status === 429
+                ? r.error.code === "ACCOUNT_LOCKED_FOR_NOW"
+                  ? "Too many failed sign-ins for this account. Wait a few minutes, or reset the password, then try again."
+                  : "Too many attempts. Wait a minute, then try again."
+                : "That e-mail and password do not match an account.",
+          });
+        window.location.assign(safeNext(next, window.location.origin, "/"));
       } else if (mode === "sign-up") {
         const r = await authClient.signUp.email({ name: data.name, email: data.email, password: data.password });
         if (r.error) {
           const taken = /exist/i.test(r.error.message ?? "") || r.error.code === "USER_ALREADY_EXISTS" || r.error.code === "USER_ALREADY_EXISTS_USE_ANOTHER_EMAIL";
           return setErrors(taken ? { email: "An account with this e-mail already exists. Sign in instead, or reset the password." } : { form: r.error.message ?? "Could not create the account." });
         }
-        window.location.assign(next);
+        window.location.assign(safeNext(next, window.location.origin, "/chambers"));
       } else if (mode === "forgot") {
         const r = await authClient.requestPasswordReset({ email: data.email, redirectTo: "/reset-password" });
         if (r.error && r.error.status === 429) return setErrors({ form: "Too many requests. Wait a few minutes, then try again." });

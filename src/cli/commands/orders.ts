@@ -12,8 +12,6 @@ import { printJson, readJsonFile } from "../io.ts";
 import { templateFile } from "./rulebook.ts";
 
 export default {
-  summary: "Alternatives, majority sets, legal voting orders and their outcomes for an amendment tree",
-  usage: "orders FILE",
   async run(args, io) {
     const input = readJsonFile(args[0], io);
     if (input && typeof input === "object" && !Array.isArray(input) && typeof (input as { rulebook?: unknown }).rulebook === "string") {

@@ -5,17 +5,16 @@
  */
 import { existsSync } from "node:fs";
 import { dirname, resolve } from "node:path";
-import { fileURLToPath } from "node:url";
 import { z } from "zod";
 import { GavelError, parseWith } from "../../lib/errors.ts";
-import { parseRulebook } from "../../lib/procedure/parse-rulebook.ts";
+import { parseRulebook, parseRulebookWithNotes } from "../../lib/procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../lib/procedure/rulebook-schema.ts";
 import { templateIdCandidates } from "../../lib/procedure/template-ids.ts";
-import { printJson, readJsonFile, type CliIO } from "../io.ts";
+import { packageRoot, printJson, readJsonFile, type CliIO } from "../io.ts";
 import type { Command } from "../main.ts";
 
 /** The shipped templates (rulebooks/*.json at the package root). */
-export const TEMPLATE_DIR = resolve(dirname(fileURLToPath(import.meta.url)), "../../../rulebooks");
+export const TEMPLATE_DIR = resolve(packageRoot(), "rulebooks");
 
 /**
  * The file of a shipped template named by `id`, or null: the current id, or an old id kept as an
@@ -72,12 +71,10 @@ export function loadRulebookRef(ref: unknown, caseDir: string, io: CliIO): Ruleb
 }
 
 export default {
-  summary: "Validate a rulebook file (exit 0 with a summary, or 2 with path-precise errors).",
-  usage: "rulebook check FILE",
   async run(args, io) {
     const [sub, file] = args;
     if (sub !== "check") throw new GavelError("invalid-input", `unknown subcommand ${JSON.stringify(sub ?? "")}; use "rulebook check FILE"`, { issues: [{ path: "(argument)", message: "expected \"check\"" }] });
-    const rulebook = parseRulebook(readJsonFile(file, io, "rulebook file"));
+    const { rulebook, migrations } = parseRulebookWithNotes(readJsonFile(file, io, "rulebook file"));
     printJson(io, {
       valid: true,
       id: rulebook.id,
@@ -88,6 +85,7 @@ export default {
       rules: { motion: rulebook.rules.filter((r) => r.scope === "motion").length, amendment: rulebook.rules.filter((r) => r.scope === "amendment").length },
       maxDegree: rulebook.amendments.maxDegree,
       procedure: rulebook.voting.procedure,
+      migrations,
     });
     return 0;
   },

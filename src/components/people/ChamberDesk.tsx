@@ -12,10 +12,12 @@ const newChamberSchema = z.object({
 
 interface Props {
   chambers: Array<{ id: string; name: string; roleLabel: string; active: boolean }>;
+  /** Whether this deployment lets users register chambers (GAVELWRIGHT_OPEN_SIGNUP). */
+  canRegister?: boolean;
 }
 
 /** The user's chambers: switch between them, or register a new chamber (you become its chief clerk). */
-export default function ChamberDesk({ chambers }: Props) {
+export default function ChamberDesk({ chambers, canRegister = false }: Props) {
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [busy, setBusy] = useState(false);
 
@@ -54,7 +56,9 @@ export default function ChamberDesk({ chambers }: Props) {
       <section>
         <h2 className="mb-2">Your chambers</h2>
         {chambers.length === 0 ? (
-          <p className="text-ink-soft">You do not belong to a chamber yet. Open the invitation link you received by e-mail, or register a new chamber below.</p>
+          <p className="text-ink-soft">
+            You do not belong to a chamber yet. Open the invitation link you received by e-mail{canRegister ? ", or register a new chamber below" : "; new chambers are registered by whoever runs this Gavelwright"}.
+          </p>
         ) : (
           <ul className="space-y-2">
             {chambers.map((c) => (
@@ -74,6 +78,7 @@ export default function ChamberDesk({ chambers }: Props) {
           </ul>
         )}
       </section>
+      {canRegister && (
       <section>
         <h2 className="mb-2">Register a new chamber</h2>
         <form onSubmit={onCreate} noValidate className="gw-card space-y-3">
@@ -105,6 +110,7 @@ export default function ChamberDesk({ chambers }: Props) {
           <p className="gw-hint">You become its chief clerk and can then invite the others.</p>
         </form>
       </section>
+      )}
     </div>
   );
 }

@@ -3,6 +3,7 @@
  * a user's role in it is one of CHAMBER_ROLES. Server-only.
  */
 import { betterAuth } from "better-auth";
+import { APIError, createAuthMiddleware, isAPIError } from "better-auth/api";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { organization } from "better-auth/plugins";
 import { db } from "./db.ts";
@@ -12,9 +13,26 @@ import { enqueueMail } from "./mail.ts";
 import { ROLE_LABELS, isChamberRole } from "../permissions.ts";
 import { escapeHtml } from "../text/escape-html.ts";
 import { describeError } from "./log-safe.ts";
+import { CLIENT_ADDRESS_HEADER } from "./client-address.ts";
+import { allowResetMail, clearSignInFailures, limitsEnabled, recordSignInFailure, signInLockedFor } from "./account-throttle.ts";
 
 export function baseUrl(): string {
   return process.env.BETTER_AUTH_URL ?? `http://${process.env.HOST ?? "127.0.0.1"}:${process.env.PORT ?? 4321}`;
+}
+
+/**
+ * Whether anyone who signs up may register a chamber (GAVELWRIGHT_OPEN_SIGNUP=on). Off by default:
+ * the operator creates chambers with `npm run chamber:create`, and people join by invitation.
+ * Read per request, so the setting is the environment's at that moment.
+ */
+export function openSignup(): boolean {
+  return ["on", "1", "true", "yes"].includes((process.env.GAVELWRIGHT_OPEN_SIGNUP ?? "").trim().toLowerCase());
+}
+
+/** The e-mail of a sign-in request body, if it has one. */
+function emailOf(body: unknown): string | null {
+  const email = (body as { email?: unknown } | undefined)?.email;
+  return typeof email === "string" && email.length > 0 && email.length <= 320 ? email : null;
 }
 
 export const auth = betterAuth({
@@ -24,6 +42,9 @@ export const auth = betterAuth({
   trustedOrigins: [baseUrl()],
   database: drizzleAdapter(db, { provider: "pg", schema }),
   telemetry: { enabled: false },
+  // Reset tokens (and every other verification identifier) are stored as their SHA-256, so a
+  // copy of the database does not hold a usable reset link.
+  verification: { storeIdentifier: "hashed" },
   // better-auth logs failed queries with their parameters (a session token, an e-mail): log them without.
   logger: { log: (level, message, ...args) => console[level === "error" ? "error" : level === "warn" ? "warn" : "log"](`[auth] ${level}: ${message}`, ...args.map((a) => (a instanceof Error ? describeError(a) : a))) },
   emailAndPassword: {
@@ -32,7 +53,15 @@ export const auth = betterAuth({
     maxPasswordLength: 128,
     resetPasswordTokenExpiresIn: 60 * 60,
     revokeSessionsOnPasswordReset: true,
+    async onPasswordReset({ user }) {
+      await clearSignInFailures(user.email);
+    },
     async sendResetPassword({ user, url }) {
+      // At most a few reset e-mails per recipient an hour, whatever address asks (account-throttle.ts).
+      if (limitsEnabled() && !(await allowResetMail(user.email))) {
+        console.warn("[auth] password-reset e-mail not sent: too many for this recipient in the last hour");
+        return;
+      }
       await enqueueMail({
         kind: "password-reset",
         ref: user.id,
@@ -55,15 +84,40 @@ export const auth = betterAuth({
       "/sign-up/email": { window: 60, max: 10 },
     },
   },
+  // Per-account back-off on failed sign-ins, whatever address they come from (account-throttle.ts).
+  hooks: {
+    before: createAuthMiddleware(async (ctx) => {
+      if (ctx.path !== "/sign-in/email" || !limitsEnabled()) return;
+      const email = emailOf(ctx.body);
+      if (!email) return;
+      const wait = await signInLockedFor(email);
+      if (wait > 0)
+        throw new APIError("TOO_MANY_REQUESTS", { code: "ACCOUNT_LOCKED_FOR_NOW", message: `Too many failed sign-ins for this account. Try again in ${wait} s.` }, { "Retry-After": String(wait), "X-Retry-After": String(wait) });
+    }),
+    after: createAuthMiddleware(async (ctx) => {
+      if (ctx.path !== "/sign-in/email" || !limitsEnabled()) return;
+      const email = emailOf(ctx.body);
+      if (!email) return;
+      const returned = ctx.context.returned;
+      if (isAPIError(returned)) {
+        if (returned.statusCode === 401) await recordSignInFailure(email);
+      } else if (returned !== undefined) await clearSignInFailures(email);
+    }),
+  },
   advanced: {
     useSecureCookies: baseUrl().startsWith("https://"),
-    ipAddress: { ipAddressHeaders: ["x-forwarded-for"] },
+    // Only the address the auth route writes from the connection's peer (client-address.ts);
+    // never a header the client controls.
+    ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER] },
   },
   plugins: [
     organization({
       ac,
       roles,
       creatorRole: "chief-clerk",
+      // Registering a chamber from the app is a deployment setting; the operator's command
+      // (scripts/chamber-create.ts) and the demo seed create chambers as system actions.
+      allowUserToCreateOrganization: () => openSignup(),
       invitationExpiresIn: 7 * 24 * 60 * 60,
       cancelPendingInvitationsOnReInvite: true,
       async sendInvitationEmail(data) {

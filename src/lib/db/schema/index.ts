@@ -8,3 +8,4 @@ export * from "./floor.ts";
 export * from "./rulings.ts";
 export * from "./estimates.ts";
 export * from "./rate-limit.ts";
+export * from "./auth-throttle.ts";
