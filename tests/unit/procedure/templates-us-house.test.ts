@@ -83,6 +83,18 @@ describe("US House: seconds and suspension", () => {
   });
 });
 
+describe("US House: reconsider under Rule XIX cl. 3", () => {
+  it("\"on the same or succeeding day\" (former rule, House Rules Manual 105th §812 p. 640), by \"any member of the majority\"", async () => {
+    const vote = { motion: "main", result: "adopted", day: 4 };
+    expect((await moves([], { day: 4, votes: [vote] })).reconsider.inOrder).toBe(true);
+    expect((await moves([], { day: 5, votes: [vote] })).reconsider.inOrder).toBe(true);
+    const late = await moves([], { day: 6, votes: [vote] });
+    expect(late.reconsider.reasons.map((r) => r.rule)).toEqual(["reconsider-time-limit"]);
+    const minority = await moves([], { day: 4, votes: [{ ...vote, moverOnPrevailingSide: false }] });
+    expect(minority.reconsider.reasons.map((r) => r.rule)).toEqual(["reconsider-prevailing-side"]);
+  });
+});
+
 describe("US House: the Committee of the Whole (floor fact committeeOfTheWhole)", () => {
   const COW = { committeeOfTheWhole: true };
 

@@ -66,6 +66,15 @@ describe("US Senate: Rule XXII cl. 1, the motions \"shall have precedence as the
   });
 });
 
+describe("US Senate: reconsider under Rule XIII cl. 1 (paraphrase: the same day or either of the next two days of actual session)", () => {
+  it("the window is two days of actual session after the day of the vote", async () => {
+    const vote = { motion: "main", result: "rejected", day: 10 };
+    const at = async (day: number) => (await moves([], { day, votes: [vote] })).reconsider;
+    expect((await at(12)).inOrder).toBe(true);
+    expect((await at(13)).reasons.map((r) => r.rule)).toEqual(["reconsider-time-limit"]);
+  });
+});
+
 describe("US Senate: no previous question; cloture under Rule XXII cl. 2", () => {
   it("the previous question is never received: it is not among Rule XXII cl. 1's motions (\"the Senate rules not recognizing the above motions\", Pocket Manual of Rules of Order, 1876, §37 note)", async () => {
     for (const pending of [[], [MAIN], [MAIN, { motion: "amend" }]]) {
