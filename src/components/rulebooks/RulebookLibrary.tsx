@@ -3,7 +3,7 @@ import { ApiError, day, getJson, sendForm, when, type Issue } from "./api.ts";
 import { librarySchema, savedSchema, type Library, type TemplateMeta } from "./schemas.ts";
 
 /** "from the template …" in the clerk's words: the template's title, never its file id. */
-function originLabel(origin: string, templates: TemplateMeta[]): string | null {
+export function originLabel(origin: string, templates: TemplateMeta[]): string | null {
   if (!origin.startsWith("template:")) return origin === "edit" ? null : origin;
   const id = origin.slice("template:".length);
   const t = templates.find((x) => x.id === id || x.aliases.includes(id));
@@ -11,7 +11,7 @@ function originLabel(origin: string, templates: TemplateMeta[]): string | null {
 }
 
 /** One template: what it follows, the date of that text, its licence, and what to verify before use. */
-function TemplateEntry({ t }: { t: TemplateMeta }) {
+export function TemplateEntry({ t }: { t: TemplateMeta }) {
   const s = t.source;
   const when = [s?.edition, s?.date].filter(Boolean).join("; ");
   return (
@@ -31,6 +31,12 @@ function TemplateEntry({ t }: { t: TemplateMeta }) {
         <details className="mt-1 text-sm" data-testid="template-verify">
           <summary>Verify before use ({t.verify.length})</summary>
           <ul className="mt-1 list-disc pl-5">{t.verify.map((v, i) => <li key={i}>{v}</li>)}</ul>
+        </details>
+      )}
+      {s?.note && (
+        <details className="mt-1 text-sm" data-testid="template-note">
+          <summary>{t.verify.length > 0 ? "How this template was read" : "Notes on the source"}</summary>
+          <p className="mt-1">{s.note}</p>
         </details>
       )}
     </li>

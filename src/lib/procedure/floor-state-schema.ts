@@ -59,6 +59,8 @@ export const floorSchema = z.looseObject({
   arisesFromPending: z.boolean().default(false),
   /** The chamber is sitting as a Committee of the Whole (US House: Rule XVIII), whose motions differ. */
   committeeOfTheWhole: z.boolean().default(false),
+  /** A quorum is present; when false, the rulebook's `no-quorum` rule leaves only `voting.quorum.withoutQuorum` in order (RONR 1915 §64). */
+  quorumPresent: z.boolean().default(true),
 });
 
 const FLOOR_DEFAULTS = {
@@ -74,6 +76,7 @@ const FLOOR_DEFAULTS = {
   noticeGiven: false,
   arisesFromPending: false,
   committeeOfTheWhole: false,
+  quorumPresent: true,
 };
 
 export const floorStateSchema = z

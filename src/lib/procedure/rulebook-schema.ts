@@ -37,7 +37,9 @@ export const FINDING_CODES = [
   "form-not-allowed",
   "voted-after-perfecting",
   "whole-text",
+  "several-parts",
   "needs-selection",
+  "two-part-question",
 ] as const;
 
 const text = (max: number) => z.string().trim().min(1).max(max);

@@ -56,7 +56,7 @@ describe("continental template: admissibility (EP Rules of Procedure, 8th term, 
 
   it("Rule 170(1)(c) — \"it seeks to amend more than one of the individual articles or paragraphs\": an amendment tabled to the text as a whole is flagged for the President (compromise amendments are excepted)", async () => {
     const broad = am("R", { form: "insert" });
-    const f = (await findings([broad])).find((x) => x.amendment === broad.id && x.code === "needs-ruling");
+    const f = (await findings([broad])).find((x) => x.amendment === broad.id && x.code === "several-parts");
     expect(f?.severity).toBe("warning");
   });
 
@@ -93,7 +93,7 @@ describe("continental template: order of voting (EP Rules of Procedure, 8th term
       { id: "NEAR", target: "p1", form: "strike-and-insert", lines: [1, 3], distance: 1 },
     ],
     // Every member prefers the far wording to the near one and the near one to the unamended text.
-    profile: { ballots: [{ ranking: ["R+FAR", "R+NEAR", "R", "Q"], weight: 5 }] },
+    profile: { ballots: [{ ranking: ["R+FAR", "R+NEAR", "R", "Q"], weight: 300 }] },
     pageSize: 50,
     ...extra,
   });
@@ -127,6 +127,12 @@ describe("continental template: procedural motions, majority, quorum (EP Rules o
     for (const id of ["commit", "postpone-definitely", "previous-question", "recess", "adjourn", "amend"]) expect([id, m[id].inOrder]).toEqual([id, true]);
   });
 
+  it("Rule 185(1), paraphrase: procedural motions have priority over other requests to speak — not over a speech in progress (our reading); a point of order is taken at once", async () => {
+    const m = await moves([TEXT], { speakerHasFloor: true });
+    expect(m.commit.inOrder).toBe(false);
+    expect(m["point-of-order"].inOrder).toBe(true);
+  });
+
   it("Rule 189(1), paraphrase: a proposal to close the debate is put to the vote at once (undebatable)", async () => {
     expect((await moves([TEXT]))["previous-question"].debatable).toBe(false);
   });
@@ -142,12 +148,21 @@ describe("continental template: procedural motions, majority, quorum (EP Rules o
     expect(ep.voting.amendmentThreshold).toBe("majority");
   });
 
-  it("quorum of one third of the component Members (6th term Rule 149; F22): 251 of 751", () => {
-    expect(ep.voting.quorum).toEqual({ kind: "number", value: Math.ceil((ep.chamber.members ?? 0) / 3) });
-    expect(ep.voting.quorum.value).toBe(251);
+  it("quorum of one third of the component Members (6th term Rule 149; F22): an estimate with 250 of 751 attending gives no outcome, 251 does", () => {
+    expect(ep.voting.quorum).toMatchObject({ kind: "fraction", numerator: 1, denominator: 3 });
+    const run = (weight: number) =>
+      analyseOrders({
+        rulebook: rawTemplate("continental"),
+        measure: { id: "R", title: "Motion for a resolution", sections: [{ id: "p1" }] },
+        amendments: [{ id: "E1", target: "p1", form: "strike-and-insert", lines: [1, 2] }],
+        profile: { ballots: [{ ranking: ["R+E1", "R", "Q"], weight }] },
+      });
+    expect(() => run(250)).toThrow(/quorum/);
+    expect(run(251).quorum).toMatchObject({ met: true });
   });
 
-  it("8th term Rule 179a(3), paraphrase from the Italian text: in other cases of a tie the text or proposal is rejected", () => {
-    expect(ep.voting.tieRule).toBe("motion-fails");
+  it("8th term Rule 179a(3) and last paragraph, paraphrase from the Italian text: a tie rejects the text or proposal; the President may vote but has no casting vote", () => {
+    expect(ep.voting.tieRule).toBe("chair-votes");
+    expect(ep.voting.passageThreshold).toBe("majority");
   });
 });

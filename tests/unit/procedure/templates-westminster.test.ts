@@ -6,7 +6,8 @@
  *  - Erskine May 20.53 "The ordinary closure" (section/4792); 20.41 (section/4780); 20.89 "Casting vote of Speaker" (section/4829)
  *  - Standing Orders of the House of Commons 2002, Nos. 31 and 32
  *  - House of Commons, Short guide to procedure and practice (2001), "Closure"
- *  - Standing Orders of the Legislative Assembly of Victoria, SO 106
+ *  - Standing Orders of the Legislative Assembly of Victoria, SO 106; House of Representatives Practice (Australia), 6th ed., ch. 14, p. 480
+ *  - Erskine May 20.59 "Quorum of the House" (section/4798)
  */
 import { describe, expect, it } from "vitest";
 import type { AmendmentInput, MeasureInput } from "../../../src/lib/amendments/case-schema.ts";
@@ -39,7 +40,7 @@ describe("Westminster template: closure and 'no longer heard' (Erskine May 20.53
     expect((await moves([]))["previous-question"].inOrder).toBe(false);
   });
 
-  it("Victoria SO 106, paraphrase: 'That the member be no longer heard' is moved against a member who is speaking, and decided without amendment or debate", async () => {
+  it("House of Representatives Practice (Australia) ch. 14 p. 480 — SO 80 motion \"must be moved without comment and must be put immediately and resolved without amendment\"; Victoria SO 106: moved against a member who is speaking", async () => {
     expect((await moves([MOTION], { speakerHasFloor: true }))["member-no-longer-heard"].inOrder).toBe(true);
     const idle = (await moves([MOTION], { speakerHasFloor: false }))["member-no-longer-heard"];
     expect(idle.inOrder).toBe(false);
@@ -97,10 +98,18 @@ describe("Westminster template: amendments (Erskine May 20.41, 20.42; Standing O
         { id: "LATER", target: "w2", form: "insert" },
         { id: "EARLIER", target: "w1", form: "insert" },
       ],
-      profile: { ballots: [{ ranking: ["M+LATER+EARLIER", "M+EARLIER", "M+LATER", "M", "Q"], weight: 3 }] },
+      profile: { ballots: [{ ranking: ["M+LATER+EARLIER", "M+EARLIER", "M+LATER", "M", "Q"], weight: 60 }] },
       pageSize: 20,
     });
     expect(a.page.orders.map((o) => o.questions.join(" "))).toEqual(["EARLIER LATER passage"]);
+  });
+
+  it("SO 31(2)(a) (2002): \"That the original words stand part of the question\", then \"That the proposed words be there inserted (or added)\" — a leave-out-and-insert amendment is flagged as a two-part question; an insertion is not", async () => {
+    const swap = am("w1", { form: "strike-and-insert" });
+    const add = am("w2", { form: "insert" });
+    const fs = (await validateTree({ rulebook: wm, measure, amendments: [swap, add] })).findings;
+    expect(fs.find((f) => f.amendment === swap.id && f.code === "two-part-question")?.severity).toBe("info");
+    expect(codes(fs, add.id)).not.toContain("two-part-question");
   });
 
   it("SO 31 (2002): the question on an amendment is \"That the amendment be made\" — one question per amendment; the two-part 'stand part' form is listed for the clerk to verify", () => {
@@ -111,16 +120,34 @@ describe("Westminster template: amendments (Erskine May 20.41, 20.42; Standing O
 });
 
 describe("Westminster template: seconders, casting vote, quorum", () => {
+  it("Erskine May 20.12, paraphrase: a question decided in the session may not be brought forward again — no motion to reconsider, and no vote is reconsiderable", () => {
+    expect(wm.motions.map((m) => m.id)).not.toContain("reconsider");
+    expect(new Set(wm.motions.map((m) => m.reconsiderable))).toEqual(new Set(["neither"]));
+  });
+
   it("Halsbury's Laws para. 767, paraphrase: in the Commons no motion or amendment needs a seconder", () => {
     expect(wm.motions.filter((m) => m.second)).toEqual([]);
   });
 
-  it("Erskine May 20.89, paraphrase: on a tie the Speaker gives a casting vote, usually so as not to make the decision final — encoded as 'the motion fails' until the casting-vote vocabulary lands", () => {
-    expect(wm.voting.tieRule).toBe("motion-fails");
-    expect(wm.source.verify.some((v) => /casting vote/i.test(v))).toBe(true);
+  it("Erskine May 20.89 — \"If the numbers in a division are equal, the Speaker must give the casting vote\": 25 to 25 on an amendment is decided by the chair's ballot", () => {
+    expect(wm.voting.tieRule).toBe("chair-casting-vote");
+    const tie = (chairFor: boolean) =>
+      analyseOrders({
+        rulebook: rawTemplate("westminster"),
+        measure: { id: "M", title: "Motion", sections: [{ id: "w1" }] },
+        amendments: [{ id: "A", target: "w1", form: "insert" }],
+        profile: { ballots: [
+          { ranking: ["M+A", "M", "Q"], weight: 25 },
+          { ranking: ["M", "M+A", "Q"], weight: 25 },
+          { ranking: chairFor ? ["M+A", "M", "Q"] : ["M", "M+A", "Q"], weight: 1, chair: true },
+        ] },
+      }).page.orders[0]!.sincereSteps!.find((x) => x.question === "A")!.adopted;
+    expect(tie(true)).toBe(true);
+    // Speaker Denison's convention (against the change where no further discussion is possible): the chair's ballot against the amendment.
+    expect(tie(false)).toBe(false);
   });
 
-  it("Erskine May 20.12, paraphrase: a division in which fewer than 40 Members take part does not decide the question", () => {
-    expect(wm.voting.quorum).toEqual({ kind: "number", value: 40 });
+  it("Erskine May 20.59: \"Forty Members, including the Speaker, form the quorum of the House\" (SO No. 41: a division with fewer than forty leaves the business to stand over)", () => {
+    expect(wm.voting.quorum).toMatchObject({ kind: "number", value: 40 });
   });
 });

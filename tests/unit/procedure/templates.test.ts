@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { legalMoves, type MotionVerdict } from "../../../src/lib/procedure/legal-moves.ts";
-import { rawTemplate, template, TEMPLATE_IDS } from "./fixtures.ts";
+import { template, TEMPLATE_IDS } from "./fixtures.ts";
 
 async function moves(id: string, pending: Array<{ motion: string; independentParts?: boolean }>, floor?: Record<string, unknown>) {
   const list = await legalMoves(template(id), { pending, floor });
@@ -45,12 +45,20 @@ describe("continental (European Parliament Rules of Procedure, 8th term, Rules 1
   });
 });
 
-// The US Senate is the exception its own rule makes: Rule XXII cl. 1 arranges postpone indefinitely above amend
-// (tests/unit/procedure/templates-us-senate.test.ts); the continental and Westminster catalogues have no such motion.
-const PI_BELOW_AMEND = TEMPLATE_IDS.filter((id) => id !== "us-senate" && rawTemplate(id).motions.some((m: { id: string }) => m.id === "postpone-indefinitely"));
-
-describe("every template with postpone indefinitely below amend: amend applies beneath it (RONR 1915 §33 p. 134: \"To Amend takes precedence of the motion to postpone indefinitely\")", () => {
-  for (const id of PI_BELOW_AMEND) {
+describe("every template: amend applies beneath postpone indefinitely (RONR 1915 §33 p. 134: \"To Amend takes precedence of the motion to postpone indefinitely\")", () => {
+  // Only where the catalogue has postpone indefinitely ranked below amend, as in general parliamentary law:
+  // the Senate ranks it above amend (Standing Rules of the Senate, Rule XXII cl. 1), and the Westminster
+  // and continental catalogues have no such motion.
+  const rankOf = (id: string, motion: string) => template(id).motions.find((m) => m.id === motion)?.rank ?? null;
+  const applies = TEMPLATE_IDS.filter((id) => {
+    const pi = rankOf(id, "postpone-indefinitely");
+    const amend = rankOf(id, "amend");
+    return pi !== null && amend !== null && amend > pi;
+  });
+  it("applies to the general-parliamentary-law family", () => {
+    expect(applies).toEqual(expect.arrayContaining(["general-parliamentary-law", "demo-chamber", "us-house"]));
+  });
+  for (const id of applies) {
     it(id, async () => {
       const v = (await moves(id, [MAIN, { motion: "postpone-indefinitely" }])).amend;
       expect([v.inOrder, v.degree, v.appliesTo]).toEqual([true, 1, "main"]);
