@@ -83,6 +83,15 @@ describe("US House: seconds and suspension", () => {
   });
 });
 
+describe("US House: quorum", () => {
+  it("\"a smaller Number may adjourn from day to day\" (U.S. Const. art. I §5), while the motion for a recess \"is not in order in the absence of a quorum\" (House Rules Manual 112th §586)", async () => {
+    const state = await moves([MAIN], { quorumPresent: false });
+    expect(state.adjourn.inOrder).toBe(true);
+    expect(state.recess.reasons.map((r) => r.rule)).toContain("no-quorum");
+    expect(Object.values(state).filter((v) => v.inOrder).map((v) => v.motion)).toEqual(["adjourn"]);
+  });
+});
+
 describe("US House: reconsider under Rule XIX cl. 3", () => {
   it("\"on the same or succeeding day\" (former rule, House Rules Manual 105th §812 p. 640), by \"any member of the majority\"", async () => {
     const vote = { motion: "main", result: "adopted", day: 4 };

@@ -84,10 +84,27 @@ describe("US Senate: no previous question; cloture under Rule XXII cl. 2", () =>
     }
   });
 
+  it("cloture is adopted by \"three-fifths of the Senators duly chosen and sworn\" (Rule XXII cl. 2 as restated in S. Res. 67, 114th Cong.), by two-thirds of those present and voting on a rules change", async () => {
+    const v = (await moves([MAIN])).cloture;
+    expect(v.vote).toBe("three-fifths-of-members");
+    const cloture = senate.motions.find((m) => m.id === "cloture")!;
+    expect(cloture.voteAlternatives?.map((a) => [a.kind, a.vote])).toEqual([["instead", "two-thirds"]]);
+  });
+
   it("a cloture motion brings \"to a close the debate upon any measure, motion, other matter pending before the Senate\": it needs a pending question, and the question on it is put \"without debate\"", async () => {
     expect((await moves([])).cloture.inOrder).toBe(false);
     const v = (await moves([MAIN, { motion: "amend" }])).cloture;
     expect([v.inOrder, v.debatable, v.amendable]).toEqual([true, false, false]);
+  });
+});
+
+describe("US Senate: quorum and the chair", () => {
+  it("\"a Majority of each [House] shall constitute a Quorum to do Business; but a smaller Number may adjourn from day to day\" (U.S. Const. art. I §5): without a quorum only adjourn is in order", async () => {
+    const state = await moves([MAIN], { quorumPresent: false });
+    expect(Object.values(state).filter((v) => v.inOrder).map((v) => v.motion)).toEqual(["adjourn"]);
+  });
+  it("the Vice President \"shall have no Vote, unless they be equally divided\" (U.S. Const. art. I §3 cl. 4): the tie rule is the chair's casting vote", () => {
+    expect(senate.voting.tieRule).toBe("chair-casting-vote");
   });
 });
 
