@@ -7,6 +7,7 @@ import type { z } from "zod";
 import { GavelError, isGavelError, parseWith, type ErrorCode } from "../errors.ts";
 import { can, type ChamberRole, type Permission } from "../permissions.ts";
 import { describeError } from "./log-safe.ts";
+import { stringIssues } from "../schema-parts.ts";
 
 export const STATUS: Record<ErrorCode, number> = {
   "invalid-input": 400,
@@ -75,6 +76,7 @@ export async function readJson<S extends z.ZodType>(request: Request, schema: S,
   } catch (e) {
     throw new GavelError("invalid-input", `${what} is not valid JSON: ${(e as Error).message}`, { issues: [{ path: "(body)", message: "not valid JSON" }] });
   }
+  refuseBadText(value, what);
   return parseWith(schema, value, what) as z.output<S>;
 }
 
@@ -108,8 +110,19 @@ export async function readBody(request: Request, maxBytes: number, what = "reque
   return out;
 }
 
+/**
+ * Refuse a value with a string (anywhere, keys included) that the database would refuse or that is
+ * never meant as text: NUL, other control characters, half a surrogate pair (src/lib/schema-parts.ts).
+ */
+export function refuseBadText(value: unknown, what: string): void {
+  const issues = stringIssues(value);
+  if (issues.length) throw new GavelError("invalid-input", `${what}: ${issues[0].path}: ${issues[0].message}${issues.length > 1 ? ` (and ${issues.length - 1} more)` : ""}`, { issues });
+}
+
 export function parseQuery<S extends z.ZodType>(url: URL, schema: S): z.output<S> {
-  return parseWith(schema, Object.fromEntries(url.searchParams), "query") as z.output<S>;
+  const query = Object.fromEntries(url.searchParams);
+  refuseBadText(query, "query");
+  return parseWith(schema, query, "query") as z.output<S>;
 }
 
 export interface Actor {

@@ -7,11 +7,12 @@
  */
 import { createHash } from "node:crypto";
 import { and, desc, eq } from "drizzle-orm";
-import Papa from "papaparse";
 import { z } from "zod";
+import { safe, version, queryInt } from "../../schema-parts.ts";
 import { db } from "../db.ts";
 import { analysisCache, analysisRuns } from "../../db/schema/estimates.ts";
 import { GavelError } from "../../errors.ts";
+import { writeCsv } from "../../text/csv-cells.ts";
 import type { Actor } from "../http.ts";
 import { toOrdersProfile, type EstimateContent } from "../../estimates/estimate-content.ts";
 import { buildFindings } from "../../estimates/findings.ts";
@@ -27,15 +28,15 @@ import { estimateRow, treeFor, versionRow } from "./estimates.ts";
 /** Bump when the engine's output changes meaning, so old cache rows are not reused. */
 export const ENGINE_VERSION = 1;
 
-export const startSchema = z.object({ estimateId: z.string().min(1).max(100), version: z.number().int().min(1).optional(), rulebookVersionId: z.string().min(1).max(100).nullable().optional() });
+export const startSchema = z.object({ estimateId: safe(z.string().min(1).max(100)), version: version().optional(), rulebookVersionId: safe(z.string().min(1).max(100)).nullable().optional() });
 export const ordersQuerySchema = z.object({
-  page: z.coerce.number().int().min(1).default(1),
-  pageSize: z.coerce.number().int().min(1).max(200).default(20),
-  outcome: z.string().max(200).optional(),
+  page: queryInt().min(1).default(1),
+  pageSize: queryInt().min(1).max(200).default(20),
+  outcome: safe(z.string().max(200)).optional(),
   mode: z.enum(["sincere", "sophisticated"]).default("sincere"),
   format: z.enum(["json", "csv"]).default("json"),
 });
-export const orderQuerySchema = z.object({ order: z.string().min(1).max(800), format: z.enum(["json", "md"]).default("json") });
+export const orderQuerySchema = z.object({ order: safe(z.string().min(1).max(800)), format: z.enum(["json", "md"]).default("json") });
 
 interface CachedResult extends JobResult {
   input: Record<string, unknown>;
@@ -159,8 +160,8 @@ export async function listOrders(actor: Actor, id: string, q: z.output<typeof or
   if (q.outcome && !known.has(q.outcome)) throw new GavelError("invalid-input", `outcome: unknown version ${q.outcome}`, { issues: [{ path: "outcome", message: "not a version of this analysis" }] });
   const rows = q.outcome ? r.listing.orders.filter((o) => o[q.mode] === q.outcome) : r.listing.orders;
   if (q.format === "csv") {
-    const text = Papa.unparse({ fields: ["rank", "order", "sincere outcome", "sophisticated outcome", "sincere (in words)", "sophisticated (in words)"], data: rows.map((o) => [o.rank, o.questions.join(" "), o.sincere, o.sophisticated, versionInWords(o.sincere, r.labels), versionInWords(o.sophisticated, r.labels)]) });
-    return new Response(text + "\r\n", { headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="voting-orders-${run.id.slice(0, 8)}.csv"`, "cache-control": "no-store" } });
+    const text = writeCsv(["rank", "order", "sincere outcome", "sophisticated outcome", "sincere (in words)", "sophisticated (in words)"], rows.map((o) => [o.rank, o.questions.join(" "), o.sincere, o.sophisticated, versionInWords(o.sincere, r.labels), versionInWords(o.sophisticated, r.labels)]));
+    return new Response(text, { headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="voting-orders-${run.id.slice(0, 8)}.csv"`, "cache-control": "no-store" } });
   }
   const start = (q.page - 1) * q.pageSize;
   return {
