@@ -37,6 +37,12 @@ export function isDatabaseUnavailable(e: unknown): boolean {
   return ["ECONNRESET", "EPIPE", "ETIMEDOUT"].includes(code) && (err !== e || typeof (e as { query?: unknown }).query === "string");
 }
 
+/** PostgreSQL's "data exception" class (22xxx): invalid text for a type, NUL bytes, out-of-range numbers or dates. */
+export function isDataException(e: unknown): boolean {
+  const err = (e as { cause?: unknown })?.cause ?? e;
+  return /^22[0-9A-Z]{3}$/.test(String((err as { code?: unknown })?.code ?? ""));
+}
+
 /** The client closed the connection while its request was read: nobody waits for the answer. */
 export function isClientAbort(e: unknown): boolean {
   return e instanceof Error && e.message === "aborted" && (e as { code?: unknown }).code === "ECONNRESET" && !(e as { cause?: unknown }).cause;
@@ -49,6 +55,12 @@ export function errorResponse(e: unknown): Response {
     console.error("[api] database unavailable:", describeError(e));
     return json({ error: { code: "unavailable", message: "Gavelwright cannot reach its database just now. The request was not completed; try again in a moment." } }, 503, { "retry-after": "5" });
   }
+  if (isDataException(e)) {
+    // A value the schemas let through and PostgreSQL refused (SQLSTATE class 22): the request is at
+    // fault, not the server. Still logged: the schema at the door should have named the field.
+    console.error("[api] value refused by the database (a schema should have caught it):", describeError(e));
+    return json({ error: { code: "invalid-input", message: "A value in the request cannot be stored or looked up (the database refused it). Nothing was saved.", issues: [{ path: "(database)", message: "a value the database refused" }] } }, 400);
+  }
   console.error("[api] unexpected error:", describeError(e));
   return json({ error: { code: "internal", message: "Something went wrong on the server. The request was not completed; nothing was saved." } }, 500);
 }
@@ -57,6 +69,8 @@ export function errorResponse(e: unknown): Response {
 export function route(handler: (ctx: APIContext) => Promise<Response | unknown>): APIRoute {
   return async (ctx) => {
     try {
+      // Path parameters are input too (a NUL in an id would otherwise reach the database).
+      refuseBadText(Object.fromEntries(Object.entries(ctx.params ?? {}).map(([k, v]) => [`params.${k}`, v])), "path");
       const out = await handler(ctx);
       return out instanceof Response ? out : json(out);
     } catch (e) {
