@@ -62,16 +62,38 @@ export function isActive(run: { chamberId: string; hash: string }): boolean {
   return active.has(groupKey(run.chamberId, run.hash));
 }
 
-/** Workers running in this process. */
+/** Slots promised to runs being inserted (between the pool check and launchRun), by chamber. */
+const reserved = new Map<string, number>();
+
+/** Workers running (or about to) in this process. */
 export function activeCount(): number {
-  return active.size;
+  let n = active.size;
+  for (const r of reserved.values()) n += r;
+  return n;
 }
 
-/** Workers running in this process for one chamber. */
+/** Workers running (or about to) in this process for one chamber. */
 export function activeCountFor(chamberId: string): number {
-  let n = 0;
+  let n = reserved.get(chamberId) ?? 0;
   for (const a of active.values()) if (a.chamberId === chamberId) n++;
   return n;
+}
+
+/**
+ * Hold a slot of the pool for a chamber from the moment the pool was checked (synchronously, so
+ * two requests cannot both take the last slot) until launchRun starts the worker; call the returned
+ * function then, or when the run is not started after all.
+ */
+export function reserveSlot(chamberId: string): () => void {
+  reserved.set(chamberId, (reserved.get(chamberId) ?? 0) + 1);
+  let released = false;
+  return () => {
+    if (released) return;
+    released = true;
+    const n = (reserved.get(chamberId) ?? 1) - 1;
+    if (n > 0) reserved.set(chamberId, n);
+    else reserved.delete(chamberId);
+  };
 }
 
 /** Record that `runId` waits on the group's worker already running here (for runFinished). */

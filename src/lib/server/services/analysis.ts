@@ -20,7 +20,7 @@ import { walkThrough } from "../../estimates/walk-through.ts";
 import { chairScript, scriptMarkdown } from "../../estimates/chair-script.ts";
 import { versionInWords, versionShort, type TreeLabels } from "../../estimates/version-words.ts";
 import type { JobResult } from "../analysis/analysis-job.ts";
-import { activeCount, activeCountFor, isActive, joinRun, launchRun, stopGroup, STALE_MS } from "../analysis/runner.ts";
+import { activeCount, activeCountFor, isActive, joinRun, launchRun, reserveSlot, stopGroup, STALE_MS } from "../analysis/runner.ts";
 import { analysisLimits } from "../analysis/limits.ts";
 import { can } from "../../permissions.ts";
 import { adoptedRulebookOf } from "../measure-rulebook.ts";
@@ -79,6 +79,7 @@ export async function startAnalysis(actor: Actor, input: z.output<typeof startSc
   const limits = analysisLimits();
   // One decision per (chamber, content) at a time: answered from the cache, joined to the identical
   // run already in flight, or started (within the pool and the chamber's share of it).
+  let release: (() => void) | null = null;
   const decided = await db.transaction(async (tx) => {
     await tx.execute(dsql`SELECT pg_advisory_xact_lock(hashtext(${`analysis:${actor.chamber.id}:${hash}`}))`);
     const [hit] = await tx.select({ hash: analysisCache.hash }).from(analysisCache).where(and(eq(analysisCache.chamberId, actor.chamber.id), eq(analysisCache.hash, hash)));
@@ -99,8 +100,12 @@ export async function startAnalysis(actor: Actor, input: z.output<typeof startSc
     if (activeCount() >= limits.workers) throw new GavelError("rate-limited", `All ${limits.workers} analysis workers of this server are busy; try again when one has finished.`, { details: { workers: limits.workers } });
     if (activeCountFor(actor.chamber.id) >= limits.chamberShare)
       throw new GavelError("rate-limited", `${actor.chamber.name} already has ${limits.chamberShare} ${limits.chamberShare === 1 ? "analysis" : "analyses"} running, its share of this server's ${limits.workers} workers; wait for it to finish or cancel it.`, { details: { chamberShare: limits.chamberShare, workers: limits.workers } });
+    release = reserveSlot(actor.chamber.id); // checked and taken in one tick: no other request takes this slot
     const [run] = await tx.insert(analysisRuns).values({ ...base, status: "running" }).returning();
     return { run, kind: "started" as const };
+  }).catch((e) => {
+    (release as (() => void) | null)?.();
+    throw e;
   });
   const run = decided.run;
   if (decided.kind === "cached") return { runId: run.id, status: run.status, cached: true };
@@ -109,6 +114,7 @@ export async function startAnalysis(actor: Actor, input: z.output<typeof startSc
     return { runId: run.id, status: run.status, cached: false, joined: true };
   }
   const main = rb.rulebook.motions.find((m) => m.class === "main");
+  (release as (() => void) | null)?.(); // launchRun counts the worker from here on
   void launchRun({ id: run.id, chamberId: actor.chamber.id, hash }, ordersInput, {
     input: ordersInput,
     labels: tree.labels,
