@@ -5,6 +5,7 @@
 // code point, such as half a surrogate pair). Calendar rules: the proleptic Gregorian calendar of
 // ISO 8601 (30 days hath September…; February 29 only in leap years), common knowledge.
 import { describe, expect, it } from "vitest";
+import { analysisLimits } from "../../../src/lib/server/analysis/limits.ts";
 import { calendarDate, count, dateOrDateTime, dateTime, INT4_MAX, INT4_MIN, int4, queryInt, required, storableText, stringIssues, text, textProblem, version } from "../../../src/lib/schema-parts.ts";
 
 const ok = (s: { safeParse(v: unknown): { success: boolean } }, v: unknown) => s.safeParse(v).success;
@@ -63,5 +64,14 @@ describe("dates that exist", () => {
     for (const bad of ["2026-02-30T10:00:00Z", "0000-01-01T00:00:00Z", "2026-04-02T24:00:00Z", "2026-04-02T10:00:00", "2026-04-02"]) expect(ok(dateTime(), bad), bad).toBe(false);
     expect(ok(dateOrDateTime(), "2026-04-02")).toBe(true);
     expect(ok(dateOrDateTime(), "2026-02-30")).toBe(false);
+  });
+});
+
+describe("analysis limits from the environment (defaults: common practice, no source)", () => {
+  it("defaults: two workers, one per chamber, 120 s, 1024 MB; settings override; nonsense falls back", () => {
+    expect(analysisLimits({})).toEqual({ workers: 2, chamberShare: 1, timeMs: 120_000, memoryMb: 1024 });
+    expect(analysisLimits({ GAVELWRIGHT_ANALYSIS_WORKERS: "6", GAVELWRIGHT_ANALYSIS_TIME_LIMIT: "30", GAVELWRIGHT_ANALYSIS_MEMORY_MB: "256" })).toEqual({ workers: 6, chamberShare: 3, timeMs: 30_000, memoryMb: 256 });
+    expect(analysisLimits({ GAVELWRIGHT_ANALYSIS_WORKERS: "2", GAVELWRIGHT_ANALYSIS_CHAMBER_SHARE: "5" }).chamberShare).toBe(2);
+    expect(analysisLimits({ GAVELWRIGHT_ANALYSIS_TIME_LIMIT: "soon" }).timeMs).toBe(120_000);
   });
 });

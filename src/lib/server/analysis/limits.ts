@@ -15,11 +15,17 @@ export interface AnalysisLimits {
   memoryMb: number;
 }
 
+const warned = new Set<string>();
+
 function positive(name: string, fallback: number, env: Record<string, string | undefined>): number {
   const raw = env[name];
   if (raw === undefined || raw.trim() === "") return fallback;
   const n = Number(raw);
-  if (!Number.isFinite(n) || n <= 0) throw new Error(`${name} must be a positive number (got "${raw}")`);
+  if (!Number.isFinite(n) || n <= 0) {
+    if (!warned.has(name)) console.error(`[analysis] ${name} must be a positive number (got "${raw}"); using ${fallback}`);
+    warned.add(name);
+    return fallback;
+  }
   return n;
 }
 
