@@ -19,7 +19,7 @@ import type { Seeded } from "../support/fixtures.ts";
 import { API_ROUTES, ALL_ROLES, type ApiRoute, type Samples } from "../access/route-inventory.ts";
 import { seedSamples } from "../access/samples.ts";
 
-const RUNS = Number(process.env.GAVELWRIGHT_FUZZ_RUNS ?? 6);
+const RUNS = Number(process.env.GAVELWRIGHT_FUZZ_RUNS ?? 5);
 const SEED = Number(process.env.GAVELWRIGHT_FUZZ_SEED ?? 17);
 
 let s: Seeded;
@@ -237,16 +237,21 @@ function systematic(r: ApiRoute): Case[] {
   const out: Case[] = [];
   const withBody = (value: unknown): Case => ({ ...base, query: validQuery, body: { kind: "json", value } });
   if (!["GET", "DELETE"].includes(r.method) && !r.raw) {
-    for (const p of paths(validBody)) {
+    let strings = 0;
+    // A long document (a rulebook has hundreds of strings) is sampled evenly: 40 paths at most.
+    const all = paths(validBody);
+    const step = Math.max(1, Math.ceil(all.length / 40));
+    for (const p of all.filter((_, i) => i % step === 0)) {
       const v = p.reduce<any>((o, k) => o?.[k], validBody);
       if (typeof v === "string") {
-        for (const t of MUST_REFUSE_TEXT) out.push(withBody(replaced(validBody, p, t)));
+        // NUL everywhere; the other refusals (same code path) on the first strings only, to keep the suite short.
+        for (const t of strings++ < 12 ? MUST_REFUSE_TEXT : MUST_REFUSE_TEXT.slice(0, 1)) out.push(withBody(replaced(validBody, p, t)));
         if (/^\d{4}-\d{2}-\d{2}/.test(v)) for (const d of IMPOSSIBLE_DATES) out.push(withBody(replaced(validBody, p, d)));
       } else if (typeof v === "number") for (const n of MUST_REFUSE_NUMBERS) out.push(withBody(replaced(validBody, p, n)));
     }
   }
   for (const key of new Set([...Object.keys(validQuery), ...QUERY_KEYS]))
-    for (const v of ["a\u0000b", "\ud800", "2147483648", "2026-02-30"]) out.push({ ...base, query: { ...validQuery, [key]: v }, body: { kind: "json", value: validBody } });
+    for (const v of ["a\u0000b", "2147483648", "2026-02-30"]) out.push({ ...base, query: { ...validQuery, [key]: v }, body: { kind: "json", value: validBody } });
   if (Object.keys(base.params).length) for (const t of MUST_REFUSE_TEXT) out.push({ ...base, query: validQuery, body: { kind: "json", value: validBody }, params: Object.fromEntries(Object.keys(base.params).map((k) => [k, t])) });
   return out;
 }
