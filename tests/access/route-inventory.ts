@@ -167,7 +167,7 @@ export const API_ROUTES: readonly ApiRoute[] = [
   { file: "api/estimates/[id]/versions.ts", method: "POST", path: "/api/estimates/:id/versions", audience: ESTIMATORS, outsider: "refused", params: { id: "estimate" }, body: () => ({ basedOn: 1, scope: [], content: ballots }), note: "author only" },
   { file: "api/analysis/runs/index.ts", method: "POST", path: "/api/analysis/runs", audience: ALL_ROLES, outsider: "refused", body: (s) => ({ estimateId: s.estimate }) },
   { file: "api/analysis/runs/[id].ts", method: "GET", path: "/api/analysis/runs/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "run" } },
-  { file: "api/analysis/runs/[id].ts", method: "DELETE", path: "/api/analysis/runs/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "run" }, note: "whoever can see the run" },
+  { file: "api/analysis/runs/[id].ts", method: "DELETE", path: "/api/analysis/runs/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "run" }, note: "the person who started it; the chief clerk and clerks any run of the chamber" },
   { file: "api/analysis/runs/[id]/orders.ts", method: "GET", path: "/api/analysis/runs/:id/orders", audience: ALL_ROLES, outsider: "refused", params: { id: "run" } },
   { file: "api/analysis/runs/[id]/walk.ts", method: "GET", path: "/api/analysis/runs/:id/walk?order", audience: ALL_ROLES, outsider: "refused", params: { id: "run" }, query: (s) => ({ order: s.runOrder }) },
   { file: "api/analysis/runs/[id]/script.ts", method: "GET", path: "/api/analysis/runs/:id/script?order", audience: ALL_ROLES, outsider: "refused", params: { id: "run" }, query: (s) => ({ order: s.runOrder }) },

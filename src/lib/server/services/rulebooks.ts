@@ -5,6 +5,7 @@
  */
 import { and, asc, desc, eq, lte, sql as dsql } from "drizzle-orm";
 import { z } from "zod";
+import { dateOrDateTime, safe } from "../../schema-parts.ts";
 import { db, type Tx } from "../db.ts";
 import { user } from "../../db/schema/auth.ts";
 import { rulebookAdoptions, rulebookVersions } from "../../db/schema/rulebooks.ts";
@@ -13,7 +14,7 @@ import { MAX_RULEBOOK_BYTES, parseRulebook, parseRulebookText } from "../../proc
 import type { Rulebook } from "../../procedure/rulebook-schema.ts";
 import { diffRulebooks, type RulebookDiff } from "../rulebook-diff.ts";
 import { rulebookTemplates, rulebookTemplate } from "../rulebook-templates.ts";
-import type { Actor } from "../http.ts";
+import { refuseBadText, type Actor } from "../http.ts";
 import { chamberMemory, forgetChamber } from "../chamber-memory.ts";
 import { fromZonedInput } from "../../text/dates.ts";
 
@@ -24,17 +25,17 @@ export const versionIdSchema = z.uuid({ message: "must be a version id" });
 export const saveVersionSchema = z.object({
   /** The version the edit started from; null only for a chamber's first rulebook. */
   basedOn: versionIdSchema.nullable(),
-  note: z.string().trim().max(1000).default(""),
+  note: safe(z.string().trim().max(1000)).default(""),
   /** Set when the edit started from a shipped template. */
-  template: z.string().regex(/^[a-z0-9-]{1,80}$/).optional(),
+  template: safe(z.string().regex(/^[a-z0-9-]{1,80}$/)).optional(),
   document: z.record(z.string(), z.unknown()),
 });
 export type SaveVersionInput = z.output<typeof saveVersionSchema>;
 
 export const adoptSchema = z.object({
   /** The day (or moment) from which the version is in force; today when omitted. */
-  effectiveFrom: z.union([z.iso.date(), z.iso.datetime({ offset: true })]).optional(),
-  note: z.string().trim().max(1000).default(""),
+  effectiveFrom: dateOrDateTime().optional(),
+  note: safe(z.string().trim().max(1000)).default(""),
 });
 
 export const compareQuerySchema = z.object({ from: versionIdSchema, to: versionIdSchema });
@@ -205,7 +206,7 @@ export async function saveVersion(actor: Actor, input: SaveVersionInput, origin 
 
 export const importFieldsSchema = z.object({
   basedOn: z.union([versionIdSchema, z.literal("").transform(() => null)]).nullable().default(null),
-  note: z.string().trim().max(1000).default(""),
+  note: safe(z.string().trim().max(1000)).default(""),
 });
 
 const JSON_TYPES = new Set(["application/json", "text/json", ""]);
@@ -224,6 +225,7 @@ export async function importVersion(actor: Actor, form: FormData) {
   const text = await file.text();
   parseRulebookText(text);
   const document = JSON.parse(text) as Record<string, unknown>;
+  refuseBadText(document, "rulebook file");
   return saveVersion(actor, { basedOn: fields.data.basedOn, note: fields.data.note || `Imported from ${file.name}`, document }, "import");
 }
 
