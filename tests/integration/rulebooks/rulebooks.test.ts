@@ -218,8 +218,14 @@ describe("GET /api/rulebooks/compare", () => {
     expect(r.status).toBe(200);
     expect(r.body.diff.identical).toBe(false);
     expect(r.body.diff.summary.join(" ")).toMatch(/motions: changed amend \(vote\)/);
+    // The same in plain words, with the motion's name, old → new and the citation.
+    const amendVote = r.body.changes.find((c: { what: string }) => c.what === "Amend — vote required");
+    expect(amendVote).toMatchObject({ section: "motions", kind: "changed" });
+    expect(typeof amendVote.citation).toBe("string");
+    expect(amendVote.from).not.toBe(amendVote.to);
     const same = await call(compare.GET, "GET", "/api/rulebooks/compare", { as: s.as.member, query: { from: v1.id, to: v1.id } });
     expect(same.body.diff.identical).toBe(true);
+    expect(same.body.changes).toEqual([]);
     expect((await call(compare.GET, "GET", "/api/rulebooks/compare", { as: s.as.member, query: { from: "x" } })).status).toBe(400);
     expect((await call(compare.GET, "GET", "/api/rulebooks/compare", { as: null, query: { from: v1.id, to: v2.id } })).status).toBe(401);
   });

@@ -12,6 +12,7 @@ import { GavelError, isGavelError } from "../../errors.ts";
 import { MAX_RULEBOOK_BYTES, parseRulebook, parseRulebookText } from "../../procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../procedure/rulebook-schema.ts";
 import { diffRulebooks, type RulebookDiff } from "../rulebook-diff.ts";
+import { describeChanges } from "../../procedure/rulebook-changes.ts";
 import { rulebookTemplates, rulebookTemplate } from "../rulebook-templates.ts";
 import { readBody, type Actor } from "../http.ts";
 import { chamberMemory, forgetChamber } from "../chamber-memory.ts";
@@ -248,7 +249,8 @@ export async function exportVersion(actor: Actor, id: string) {
 export async function compareVersions(actor: Actor, fromId: string, toId: string) {
   const [a, b] = await Promise.all([versionRow(actor.chamber.id, fromId), versionRow(actor.chamber.id, toId)]);
   const strip = ({ document: _d, ...meta }: typeof a) => meta;
-  return { from: strip(a), to: strip(b), diff: diffRulebooks(a.document, b.document) };
+  // `changes`: the same comparison in plain words (added December 2026; `diff` is unchanged).
+  return { from: strip(a), to: strip(b), diff: diffRulebooks(a.document, b.document), changes: describeChanges(a.document, b.document) };
 }
 
 function effectiveDate(input: string | undefined): Date {
