@@ -48,7 +48,18 @@ export const diffSchema = z.object({
 });
 export type Diff = z.output<typeof diffSchema>;
 
-export const compareSchema = z.object({ from: versionMetaSchema, to: versionMetaSchema, diff: diffSchema });
+export const plainChangeSchema = z.object({
+  section: z.string(),
+  kind: z.enum(["added", "removed", "changed", "re-ranked"]),
+  what: z.string(),
+  from: z.string().optional(),
+  to: z.string().optional(),
+  text: z.string().optional(),
+  citation: z.string().optional(),
+});
+export type PlainChangeView = z.output<typeof plainChangeSchema>;
+
+export const compareSchema = z.object({ from: versionMetaSchema, to: versionMetaSchema, diff: diffSchema, changes: z.array(plainChangeSchema).default([]) });
 
 export const staleSchema = z.object({
   latest: z.object({ id: z.string(), number: z.number(), author: z.string().nullable(), note: z.string() }),

@@ -10,6 +10,7 @@
  * Pure: no I/O.
  */
 import { SCOPE_FACTS, type RuleScope } from "./rule-vocabulary.ts";
+import { VOTE_THRESHOLDS } from "./voting-section.ts";
 
 /** How a field's values are chosen and read. */
 export type FieldKind = "boolean" | "number" | "text" | "motion" | "motion-list" | "class" | "list" | "time" | "enum";
@@ -96,6 +97,8 @@ const LIMIT_FIELDS: Record<string, FieldDescription> = {
   "filingDeadline.hoursBefore": { label: "the filing deadline (hours before the sitting)", kind: "number", unknown: "no deadline" },
 };
 
+const VOTE_WORDS: Record<string, string> = Object.fromEntries(VOTE_THRESHOLDS.map((t) => [t, thresholdWords(t)]));
+
 const DESCRIPTIONS: FactDescription[] = [
   {
     fact: "motion",
@@ -109,7 +112,7 @@ const DESCRIPTIONS: FactDescription[] = [
       second: { label: "whether the motion needs a second", kind: "boolean", yes: "the motion needs a second", no: "the motion needs no second" },
       debatable: { label: "whether the motion is debatable", kind: "boolean", yes: "the motion is debatable", no: "the motion is not debatable" },
       amendable: { label: "whether the motion can be amended", kind: "boolean", yes: "the motion can be amended", no: "the motion cannot be amended" },
-      vote: { label: "the vote the motion needs", kind: "enum" },
+      vote: { label: "the vote the motion needs", kind: "enum", values: VOTE_WORDS },
       interrupt: { label: "whether the motion may interrupt a speaker", kind: "boolean", yes: "the motion may interrupt a speaker", no: "the motion may not interrupt a speaker" },
       reconsiderable: { label: "which vote on the motion may be reconsidered", kind: "enum", values: RECONSIDERABLE_WORDS },
       "window.days": { label: "the days allowed after the vote", kind: "number", unknown: "no limit" },
@@ -223,7 +226,7 @@ const DESCRIPTIONS: FactDescription[] = [
     fields: {
       procedure: { label: "the voting procedure", kind: "enum", values: { amendment: "the amendment procedure", successive: "the successive procedure" } },
       constraints: { label: "the rules on the order of votes", kind: "list", values: CONSTRAINT_WORDS },
-      amendmentThreshold: { label: "the vote an amendment needs", kind: "enum" },
+      amendmentThreshold: { label: "the vote an amendment needs", kind: "enum", values: VOTE_WORDS },
       tieRule: { label: "the tie rule", kind: "text" },
     },
   },
