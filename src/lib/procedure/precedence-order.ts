@@ -17,7 +17,8 @@ interface MotionLike {
 
 interface DocLike<M extends MotionLike = MotionLike> {
   motions: M[];
-  precedence?: string[][] | undefined;
+  /** Chains, highest first; a place may hold several ids of equal rank. */
+  precedence?: (string | string[])[][] | undefined;
 }
 
 export interface PrecedenceView {
@@ -30,10 +31,13 @@ export interface PrecedenceView {
 /** Each motion's rank as the engine sees it (chains resolved); null = unranked. */
 export function resolvedRanks(doc: DocLike): Map<string, number | null> {
   const below = new Map<string, Set<string>>();
+  const ids = (step: string | string[]) => (typeof step === "string" ? [step] : step);
   for (const chain of doc.precedence ?? []) {
-    chain.forEach((id, j) => {
-      if (!below.has(id)) below.set(id, new Set());
-      if (j + 1 < chain.length && chain[j + 1] !== id) below.get(id)!.add(chain[j + 1]);
+    chain.forEach((step, j) => {
+      for (const id of ids(step)) {
+        if (!below.has(id)) below.set(id, new Set());
+        if (j + 1 < chain.length) for (const next of ids(chain[j + 1])) if (next !== id) below.get(id)!.add(next);
+      }
     });
   }
   const memo = new Map<string, number>();

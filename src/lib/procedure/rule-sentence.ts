@@ -94,6 +94,9 @@ class Reader {
     if (field?.kind === "motion" && (op === "equal" || op === "notEqual") && typeof v === "string" && label === "the motion") {
       return op === "equal" ? `the motion is ${this.motionName(v)}` : `the motion is not ${this.motionName(v)}`;
     }
+    if (field?.kind === "list" && field.values && typeof v === "string" && field.values[v] && (op === "contains" || op === "doesNotContain")) {
+      return `${label} ${op === "contains" ? "include" : "do not include"} that ${field.values[v]}`;
+    }
     if (v === null && (op === "equal" || op === "notEqual")) return op === "equal" ? `${label} is ${field?.unknown ?? "not known"}` : `${label} is known`;
     return `${label} ${opWords ?? op} ${this.valueWords(field, v)}`;
   }

@@ -140,8 +140,8 @@ function sectionChanges(section: ChangeSection, a: Doc, b: Doc, fields: Record<s
 
 /** Who now ranks above or below whom: one line per motion that moved, naming the motions it passed. */
 function rankChanges(a: Motion[], b: Motion[], docA: Doc, docB: Doc): PlainChange[] {
-  const va = precedenceView({ motions: a, precedence: docA.precedence as string[][] | undefined });
-  const vb = precedenceView({ motions: b, precedence: docB.precedence as string[][] | undefined });
+  const va = precedenceView({ motions: a, precedence: docA.precedence as (string | string[])[][] | undefined });
+  const vb = precedenceView({ motions: b, precedence: docB.precedence as (string | string[])[][] | undefined });
   const pos = (v: typeof va) => new Map(v.tiers.flatMap((t, i) => t.map((id) => [id, i] as const)));
   const pa = pos(va);
   const pb = pos(vb);

@@ -55,6 +55,23 @@ describe("order of precedence", () => {
     expect(apart.tiers[2]).toEqual(["recess"]);
   });
 
+  it("states a tie in a precedence chain as one place holding several motions (US House Rule XVI cl. 4(c), paraphrase); plain chains load as before", async () => {
+    const doc = demo();
+    const plain = parseRulebook(demo());
+    doc.precedence = [["fix-time-to-adjourn", ["adjourn", "recess"], "question-of-privilege", "orders-of-the-day", "lay-on-table", "previous-question", "limit-debate", "postpone-definitely", "commit", "amend", "postpone-indefinitely", "main"]];
+    const tied = parseRulebook(doc);
+    const rank = (rb: typeof plain, id: string) => rb.motions.find((m) => m.id === id)!.rank!;
+    expect(rank(tied, "adjourn")).toBe(rank(tied, "recess"));
+    expect(rank(tied, "fix-time-to-adjourn")).toBeGreaterThan(rank(tied, "adjourn"));
+    expect(rank(plain, "adjourn")).toBeGreaterThan(rank(plain, "recess"));
+    expect(precedenceView(doc).tiers[1]).toEqual(["recess", "adjourn"]);
+    const moves = await legalMoves(tied, { pending: [{ motion: "main" }, { motion: "recess" }] });
+    expect(moves.find((m) => m.motion === "adjourn")!.inOrder).toBe(false);
+    // A motion tied with itself, or above itself through a tie, is refused.
+    doc.precedence = [["adjourn", ["adjourn", "recess"]]];
+    expect(() => parseRulebook(doc)).toThrow(/above itself/);
+  });
+
   it("drag puts a motion above the one dropped on; ranking and unranking move between the lists", () => {
     let v = precedenceView(demo());
     v = moveBefore(v, "main", "fix-time-to-adjourn");
