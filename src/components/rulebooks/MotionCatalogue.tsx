@@ -14,6 +14,7 @@ import { CheckField, Messages, SelectField, TextField, type IssueLookup } from "
 
 const CLASS_HEADINGS: Record<string, string> = { privileged: "Privileged motions", subsidiary: "Subsidiary motions", incidental: "Incidental motions", main: "Main motion", restorative: "Motions that bring a question back" };
 const CLASS_CHIP: Record<string, string> = { privileged: "Privileged", subsidiary: "Subsidiary", incidental: "Incidental", main: "Main", restorative: "Bringing back" };
+const SET_WORDS: Record<string, string> = { class: "class", rank: "rank", second: "needs a second", debatable: "debatable", amendable: "can be amended", vote: "vote", interrupt: "may interrupt a speaker", reconsiderable: "which vote may be reconsidered" };
 const VOTE_LABELS = Object.fromEntries(VOTE_THRESHOLDS.map((t) => [t, thresholdWords(t).replace(/^./, (c) => c.toUpperCase())])) as Record<(typeof VOTE_THRESHOLDS)[number], string>;
 const RECONSIDER_LABELS = Object.fromEntries(RECONSIDERABLE.map((r) => [r, RECONSIDERABLE_LABELS[r].replace(/^./, (c) => c.toUpperCase())])) as Record<(typeof RECONSIDERABLE)[number], string>;
 
@@ -181,7 +182,7 @@ function Characteristics({ id, doc, m, i, at, readOnly, setMotion, ranked, onRan
         <ul className="space-y-1 text-sm" aria-label="Characteristics in stated circumstances">
           {m.window && <li>May be made within {m.window.days != null ? `${m.window.days === 0 ? "the same day" : `${m.window.days} day(s)`}` : ""}{m.window.days != null && m.window.sittings != null ? " or " : ""}{m.window.sittings != null ? `${m.window.sittings} sitting(s)` : ""} of the vote it applies to <span className="text-ink-soft">— {m.window.citation}</span></li>}
           {m.voteAlternatives?.map((a, k) => <li key={`a${k}`}>{a.kind === "or" ? "Also adopted by" : "Instead needs"} {thresholdWords(a.vote)} if {a.if} <span className="text-ink-soft">— {a.citation}</span></li>)}
-          {m.variants?.map((v, k) => <li key={`v${k}`}>When {conditionClause(v.when, ctx).text}: {Object.entries(v.set).map(([key, val]) => `${key === "class" ? "class" : key} ${key === "class" ? CLASS_LABELS[String(val)] : key === "vote" ? thresholdWords(String(val)) : typeof val === "boolean" ? (val ? "yes" : "no") : String(val)}`).join(", ")} <span className="text-ink-soft">— {v.citation}</span></li>)}
+          {m.variants?.map((v, k) => <li key={`v${k}`}>When {conditionClause(v.when, ctx).text}: {Object.entries(v.set).map(([key, val]) => `${SET_WORDS[key] ?? key}: ${key === "class" ? CLASS_LABELS[String(val)] : key === "vote" ? thresholdWords(val) : key === "reconsiderable" ? RECONSIDERABLE_LABELS[String(val) as keyof typeof RECONSIDERABLE_LABELS] : typeof val === "boolean" ? (val ? "yes" : "no") : String(val ?? "none")}`).join(", ")} <span className="text-ink-soft">— {v.citation}</span></li>)}
         </ul>
       )}
       <details className="text-sm">

@@ -62,8 +62,18 @@ export const SEVERITY_LABELS = SEVERITY_WORDS;
 export const RECONSIDERABLE_LABELS = RECONSIDERABLE_WORDS;
 
 /** Words for a vote threshold id; ids added to the vocabulary later read as their words ("two-thirds-of-present" → "two-thirds of present"). */
-export function thresholdWords(id: string): string {
-  const known: Record<string, string> = { majority: "a majority", "two-thirds": "two-thirds", "majority-of-members": "a majority of the members", none: "no vote (the chair decides)" };
+export function thresholdWords(id: unknown): string {
+  if (id !== null && typeof id === "object" && (id as { kind?: unknown }).kind === "number") return `at least ${String((id as { value?: unknown }).value)} votes in favour`;
+  if (typeof id !== "string") return String(id);
+  const known: Record<string, string> = {
+    majority: "a majority",
+    "two-thirds": "two-thirds",
+    "majority-of-members": "a majority of the members",
+    none: "no vote (the chair decides)",
+    "two-thirds-of-members": "two-thirds of the members",
+    "three-fifths-of-members": "three-fifths of the members",
+    "two-thirds-of-present": "two-thirds of the members present",
+  };
   return known[id] ?? id.replace(/-/g, " ");
 }
 

@@ -119,9 +119,10 @@ const AMENDMENT_FIELDS: Record<string, { label: string; words?: (v: unknown) => 
 const VOTING_FIELDS: Record<string, { label: string; words?: (v: unknown) => string }> = {
   procedure: { label: "Voting procedure", words: (v) => (v === "successive" ? "successive procedure" : v === "amendment" ? "amendment procedure" : valueWords(v)) },
   constraints: { label: "Rules on the order of votes" },
-  tieRule: { label: "Tie rule" },
-  amendmentThreshold: { label: "Vote an amendment needs", words: (v) => (v ? thresholdWords(String(v)) : "none") },
-  quorum: { label: "Quorum", words: (v) => { const q = asDoc(v); return q.kind === "number" ? `${valueWords(q.value)} members` : q.kind === "majority-of-members" ? "a majority of the members" : valueWords(v); } },
+  amendmentThreshold: { label: "Vote an amendment needs", words: (v) => (v ? thresholdWords(v) : "a majority") },
+  passageThreshold: { label: "Vote for final passage", words: (v) => (v ? thresholdWords(v) : "the main motion's vote") },
+  quorum: { label: "Quorum", words: (v) => { const q = asDoc(v); return q.kind === "number" ? `${valueWords(q.value)} members` : q.kind === "majority-of-members" ? "a majority of the members" : q.kind === "fraction" ? `${valueWords(q.numerator)}/${valueWords(q.denominator)} of the members` : q.kind === "none" ? "none" : valueWords(v); } },
+  tieRule: { label: "Tie rule", words: (v) => ({ "motion-fails": "a tie defeats the motion", "chair-casting-vote": "the chair votes only to break a tie", "chair-votes": "the chair votes on every question", "chair-may-make-or-break-tie": "the chair may vote to make or break a tie" })[String(v)] ?? valueWords(v) },
   citation: { label: "Citation for the voting rules" },
 };
 
