@@ -187,7 +187,7 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
         <div className="gw-card border-verdict-bar" data-testid="stale">
           <h2 className="text-step-1">Someone saved first</h2>
           <p className="text-sm">Saved since you started: {stale.savedSince.map((v) => `version ${v.number} by ${v.author ?? "someone"}${v.note ? ` (“${v.note}”)` : ""}`).join("; ")}. What changed:</p>
-          <ul className="mt-1 list-disc pl-5 text-sm">{stale.changes.summary.map((s) => <li key={s}>{s}</li>)}</ul>
+          <ul className="mt-1 list-disc pl-5 text-sm">{stale.plainChanges.length ? stale.plainChanges.map((c, n) => <li key={n}>{c.from !== undefined || c.to !== undefined ? `${c.what}: ${c.from ?? "—"} → ${c.to ?? "—"}` : `${c.what}: ${c.text ?? ""}`}{c.citation ? ` (${c.citation})` : ""}</li>) : stale.changes.summary.map((s) => <li key={s}>{s}</li>)}</ul>
           <p className="mt-2 text-sm">Your edits are still here. <a href={`/rulebooks/${stale.latest.id}`} target="_blank" rel="noreferrer">Open version {stale.latest.number}</a> to merge by hand, or <button type="button" className="font-semibold underline" onClick={() => { setLoaded({ ...loaded, basedOn: stale.latest.id }); setStale(null); setMessage(null); }}>save over it as the next version</button>.</p>
         </div>
       )}

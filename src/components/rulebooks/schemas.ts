@@ -53,14 +53,6 @@ export const templateSchema = z.object({ id: z.string(), title: z.string(), cham
 export const savedSchema = z.object({ id: z.string(), number: z.number(), title: z.string() });
 export const adoptedSchema = z.object({ id: z.string(), versionId: z.string(), number: z.number(), effectiveFrom: date, inForce: z.boolean() });
 
-const fieldChangeSchema = z.object({ field: z.string(), from: z.unknown(), to: z.unknown() });
-export const diffSchema = z.object({
-  identical: z.boolean(),
-  sections: z.array(z.object({ section: z.string(), changes: z.array(z.object({ kind: z.enum(["added", "removed", "changed"]), id: z.string(), name: z.string().optional(), fields: z.array(fieldChangeSchema) })) })),
-  summary: z.array(z.string()),
-});
-export type Diff = z.output<typeof diffSchema>;
-
 export const plainChangeSchema = z.object({
   section: z.string(),
   kind: z.enum(["added", "removed", "changed", "re-ranked"]),
@@ -72,10 +64,20 @@ export const plainChangeSchema = z.object({
 });
 export type PlainChangeView = z.output<typeof plainChangeSchema>;
 
+const fieldChangeSchema = z.object({ field: z.string(), from: z.unknown(), to: z.unknown() });
+export const diffSchema = z.object({
+  identical: z.boolean(),
+  sections: z.array(z.object({ section: z.string(), changes: z.array(z.object({ kind: z.enum(["added", "removed", "changed"]), id: z.string(), name: z.string().optional(), fields: z.array(fieldChangeSchema) })) })),
+  summary: z.array(z.string()),
+});
+export type Diff = z.output<typeof diffSchema>;
+
+
 export const compareSchema = z.object({ from: versionMetaSchema, to: versionMetaSchema, diff: diffSchema, changes: z.array(plainChangeSchema).default([]) });
 
 export const staleSchema = z.object({
   latest: z.object({ id: z.string(), number: z.number(), author: z.string().nullable(), note: z.string() }),
   savedSince: z.array(z.object({ id: z.string(), number: z.number(), author: z.string().nullable(), note: z.string() })),
   changes: diffSchema,
+  plainChanges: z.array(plainChangeSchema).default([]),
 });

@@ -120,7 +120,10 @@ class Reader {
     const plain: string[] = [];
     const either: string[] = [];
     const unless: string[] = [];
+    // "there is a question … and that question cannot be amended": the second clause says both.
+    const redundant = (c: unknown) => isObj(c) && c.path === "$.exists" && c.operator === "equal" && c.value === true && list.some((o) => o !== c && isObj(o) && o.fact === c.fact && o.path !== "$.exists" && "operator" in o);
     for (const c of list) {
+      if (redundant(c)) continue;
       if (top && isObj(c) && "not" in c && Object.keys(c).filter((k) => k !== "name" && k !== "priority").length === 1) unless.push(this.node(c.not));
       else if (isObj(c) && Array.isArray(c.any) && c.any.length > 1) either.push(this.node(c));
       else plain.push(this.node(c));

@@ -169,6 +169,8 @@ describe("POST /api/rulebooks (save a new version)", () => {
     expect(stale.body.error.details.latest.id).toBe(ok.body.id);
     const motions = stale.body.error.details.changes.sections.find((x: { section: string }) => x.section === "motions");
     expect(motions.changes).toEqual([expect.objectContaining({ kind: "changed", id: "amend", fields: [expect.objectContaining({ field: "vote" })] })]);
+    // The same in plain words, which the stale-save notice shows the clerk.
+    expect(stale.body.error.details.plainChanges).toEqual([expect.objectContaining({ section: "motions", kind: "changed", what: "Amend — vote required" })]);
     expect(await tableCounts()).toEqual(before);
     // A first save needs basedOn null only while the chamber has no version.
     expect((await call(list.POST, "POST", "/api/rulebooks", { as: s.as.clerk, body: { basedOn: null, document: demo } })).status).toBe(409);
