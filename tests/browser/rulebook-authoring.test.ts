@@ -95,6 +95,11 @@ describe("rulebook authoring", () => {
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);
     await shot(page, "authoring-phone");
+    await page.getByRole("tab", { name: /Rules/ }).click();
+    await page.locator("details[data-rule] summary").first().click();
+    await page.locator("details[data-rule]").first().getByLabel("What", { exact: true }).first().waitFor();
+    expect(await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth)).toBeLessThanOrEqual(0);
+    await shot(page, "authoring-phone-rules");
     await page.setViewportSize({ width: 1440, height: 900 });
     await page.reload();
     await page.getByTestId("precedence-list").waitFor();
