@@ -34,6 +34,7 @@ export default function RulesPanel({ doc, at, issuePaths, readOnly, setRule, upd
                 <summary className="cursor-pointer">
                   <span className="font-semibold" data-testid="rule-sentence">{sentence.text}</span> <span className="text-sm text-ink-soft">— {r.citation}</span>
                 </summary>
+                {sentence.undescribed.length > 0 && <p className="gw-hint mt-2">Part of this rule is read with the names used in the file, because the product has no words for it yet.</p>}
                 <div className="mt-3 grid gap-3 md:grid-cols-2">
                   <SelectField path={`rules.${i}.scope`} label="What the rule does" at={at} disabled={readOnly} value={r.scope} options={RULE_SCOPES} labels={SCOPE_LABELS} onChange={(v) => setRule(i, { scope: v, ...(v === "amendment" ? { code: r.code ?? "needs-ruling", severity: r.severity ?? "warning" } : { code: undefined, severity: undefined, related: undefined }) })} />
                   <TextField path={`rules.${i}.citation`} label="Citation (the clause of the chamber's rules)" at={at} disabled={readOnly} value={r.citation} onChange={(v) => setRule(i, { citation: v })} />
