@@ -86,6 +86,22 @@ describe("rulebook authoring", () => {
     await shot(page, "authoring-compare-plain");
   });
 
+  it("a clerk drags a motion above another, and gives two motions equal rank", async () => {
+    const page = f.page;
+    await page.goto(`${BASE_URL}/rulebooks/new`);
+    await page.getByTestId("precedence-list").waitFor();
+    const list = page.getByTestId("precedence-list");
+    await list.locator('[data-motion="recess"]').dragTo(list.locator('[data-motion="fix-time-to-adjourn"]'));
+    await expect.poll(() => placeOf("Take a recess")).toBe(1);
+    expect(await placeOf("Fix the time to which to adjourn")).toBe(2);
+    // US House Rule XVI cl. 4(c) (paraphrase): equal privilege is one place holding both motions.
+    await page.getByRole("button", { name: "Give Fix the time to which to adjourn equal rank with the motion above" }).click();
+    await expect.poll(() => placeOf("Fix the time to which to adjourn")).toBe(1);
+    expect(await placeOf("Take a recess")).toBe(1);
+    expect(await list.locator("li").first().getByText("equal rank").count()).toBe(2);
+    await shot(page, "authoring-drag-and-tie");
+  });
+
   it("fits the page at phone width", async () => {
     const page = f.page;
     await page.setViewportSize({ width: 390, height: 844 });

@@ -69,7 +69,7 @@ export default function MotionCatalogue({ doc, at, readOnly, setMotion, update }
         key={id}
         data-motion={m.id}
         className={`rounded-md border bg-white p-2 ${dragging === id ? "border-brass opacity-60" : "border-rule"}`}
-        draggable={!readOnly && tierIndex !== null}
+        draggable={!readOnly && tierIndex !== null && !isOpen}
         onDragStart={(e) => {
           setDragging(id);
           e.dataTransfer.setData("text/plain", id);
