@@ -114,8 +114,13 @@ describe("differences in plain words", () => {
     const b = demo();
     b.motions = b.motions.filter((m: { id: string }) => m.id !== "rescind");
     b.rules = b.rules.filter((r: { id: string }) => r.id !== "restorative-needs-empty-floor" && r.id !== "rescind-needs-empty-floor").map((r: Record<string, any>) => (r.id === "appeal-needs-ruling" ? { ...r, conditions: { all: [{ fact: "motion", path: "$.id", operator: "equal", value: "appeal" }, { fact: "floor", path: "$.debateBegun", operator: "equal", value: true }] } } : r));
+    b.motions.push({ id: "call-for-quorum", name: "Call for a quorum count", class: "incidental", rank: null, second: false, debatable: false, amendable: false, vote: "none", interrupt: true, reconsiderable: "neither", citation: "SO 70 (fictional)" });
+    b.amendments = { ...b.amendments, maxDegree: 1, filingDeadline: null };
     const changes = describeChanges(a, b);
     expect(changes.find((c) => c.kind === "removed" && c.section === "motions")?.text).toBe("Rescind");
+    expect(changes.find((c) => c.kind === "added" && c.section === "motions")).toMatchObject({ text: "Call for a quorum count", citation: "SO 70 (fictional)" });
+    expect(changes.map(changeLine)).toContain("Highest degree of amendment: 2 → 1 (Harrowmere County Assembly Standing Orders (fictional) SO 60-66)");
+    expect(changes.map(changeLine)).toContain("Filing deadline: 48 hours → none (Harrowmere County Assembly Standing Orders (fictional) SO 64)");
     const changed = changes.find((c) => c.section === "rules" && c.kind === "changed")!;
     expect(changed.from).toBe("Appeal from the decision of the chair is out of order when the chair has not ruled.");
     expect(changed.to).toBe("Appeal from the decision of the chair is out of order when debate has begun.");
