@@ -8,7 +8,7 @@ import { useState } from "react";
 import { describeField, factDescriptions, fieldKey, operatorsFor, pathOf, type FieldDescription } from "../../lib/procedure/fact-descriptions.ts";
 import { MOTION_CLASSES } from "../../lib/procedure/rulebook-schema.ts";
 import { BUILTIN_OPERATORS, CUSTOM_OPERATORS, SCOPE_FACTS, type RuleScope } from "../../lib/procedure/rule-vocabulary.ts";
-import { Messages, type IssueLookup } from "./fields.tsx";
+import { FieldMessages, type IssueLookup } from "../shared/fields.tsx";
 
 type Node = Record<string, unknown>;
 const OPERATORS = [...BUILTIN_OPERATORS, ...Object.keys(CUSTOM_OPERATORS), ...Object.keys(CUSTOM_OPERATORS).map((o) => `not:${o}`), "not:contains", "someValue:in"];
@@ -126,7 +126,7 @@ function GuidedLeaf({ node, path, scope, at, readOnly, onChange, onRemove, motio
         <select id={id("how")} className="gw-input text-sm" disabled={readOnly} value={howValue} onChange={(e) => setHow(e.target.value)} aria-invalid={at(`${path}.operator`).length > 0 || undefined}>
           {choices.map((c) => <option key={c.value} value={c.value}>{c.label}</option>)}
         </select>
-        <Messages path={`${path}.operator`} at={at} />
+        <FieldMessages path={`${path}.operator`} at={at} />
       </div>
       {!inState && (
         <div className="min-w-40 flex-1">
@@ -165,13 +165,13 @@ function GuidedLeaf({ node, path, scope, at, readOnly, onChange, onRemove, motio
           ) : (
             <input id={id("value")} className="gw-input text-sm" disabled={readOnly} value={typeof v === "string" || typeof v === "number" ? String(v) : ""} onChange={(e) => onChange({ ...node, value: e.target.value })} />
           )}
-          <Messages path={`${path}.value`} at={at} />
+          <FieldMessages path={`${path}.value`} at={at} />
         </div>
       )}
       {!readOnly && onRemove && <button type="button" className="gw-btn-quiet mt-5" onClick={onRemove} aria-label={`Remove this condition (${cap(field.label)})`}>Remove</button>}
-      <Messages path={`${path}.fact`} at={at} />
-      <Messages path={`${path}.path`} at={at} />
-      <Messages path={path} at={at} />
+      <FieldMessages path={`${path}.fact`} at={at} />
+      <FieldMessages path={`${path}.path`} at={at} />
+      <FieldMessages path={path} at={at} />
     </div>
   );
 }
@@ -197,7 +197,7 @@ function ValueInput({ value, path, at, readOnly, onChange }: { value: unknown; p
           }
         }}
       />
-      <Messages path={path} at={at} />
+      <FieldMessages path={path} at={at} />
     </div>
   );
 }
@@ -218,23 +218,23 @@ function Leaf({ node, path, scope, at, readOnly, onChange, onRemove }: Props & {
           {typeof node.fact === "string" && !facts.includes(node.fact) && <option value={node.fact}>{node.fact} (unknown)</option>}
           {facts.map((f) => <option key={f} value={f}>{f}</option>)}
         </select>
-        <Messages path={`${path}.fact`} at={at} />
+        <FieldMessages path={`${path}.fact`} at={at} />
       </div>
       <div className="w-32">
         <label htmlFor={fid(`${path}.path`)} className="text-xs font-semibold text-ink-soft">Path</label>
         <input id={fid(`${path}.path`)} className="gw-input font-mono text-sm" placeholder="$.rank" disabled={readOnly} value={typeof node.path === "string" ? node.path : ""} onChange={(e) => set("path", e.target.value)} aria-invalid={at(`${path}.path`).length > 0 || undefined} />
-        <Messages path={`${path}.path`} at={at} />
+        <FieldMessages path={`${path}.path`} at={at} />
       </div>
       <div className="w-44">
         <label htmlFor={fid(`${path}.operator`)} className="text-xs font-semibold text-ink-soft">Operator</label>
         <input id={fid(`${path}.operator`)} list="gw-operators" className="gw-input font-mono text-sm" disabled={readOnly} value={typeof node.operator === "string" ? node.operator : ""} onChange={(e) => set("operator", e.target.value)} aria-invalid={at(`${path}.operator`).length > 0 || undefined} />
-        <Messages path={`${path}.operator`} at={at} />
+        <FieldMessages path={`${path}.operator`} at={at} />
       </div>
       <ValueInput value={node.value} path={`${path}.value`} at={at} readOnly={readOnly} onChange={(v) => onChange({ ...node, value: v })} />
       {!readOnly && onRemove && (
         <button type="button" className="gw-btn-quiet mt-5" onClick={onRemove} aria-label={`Remove condition ${path}`}>Remove</button>
       )}
-      <Messages path={path} at={at} />
+      <FieldMessages path={path} at={at} />
     </div>
   );
 }
@@ -292,8 +292,8 @@ export default function ConditionBuilder(props: Props) {
         )}
         {!readOnly && onRemove && <button type="button" className="gw-btn-quiet" onClick={onRemove}>Remove group</button>}
       </div>
-      <Messages path={path} at={at} />
-      <Messages path={`${path}.${k}`} at={at} />
+      <FieldMessages path={path} at={at} />
+      <FieldMessages path={`${path}.${k}`} at={at} />
       {children.map((c, i) => {
         const childPath = k === "not" ? `${path}.not` : `${path}.${k}.${i}`;
         return (

@@ -10,7 +10,7 @@ import { addToOrder, applyPrecedence, moveBefore, moveDown, moveUp, precedenceVi
 import { conditionClause, sentenceContext } from "../../lib/procedure/rule-sentence.ts";
 import { MOTION_CLASSES, RECONSIDERABLE, type MotionInput, type RulebookInput } from "../../lib/procedure/rulebook-schema.ts";
 import { VOTE_THRESHOLDS } from "../../lib/procedure/voting-section.ts";
-import { CheckField, Messages, SelectField, TextField, type IssueLookup } from "./fields.tsx";
+import { CheckField, FieldMessages, SelectField, TextField, type IssueLookup } from "../shared/fields.tsx";
 
 const CLASS_HEADINGS: Record<string, string> = { privileged: "Privileged motions", subsidiary: "Subsidiary motions", incidental: "Incidental motions", main: "Main motion", restorative: "Motions that bring a question back" };
 const CLASS_CHIP: Record<string, string> = { privileged: "Privileged", subsidiary: "Subsidiary", incidental: "Incidental", main: "Main", restorative: "Bringing back" };
@@ -151,8 +151,8 @@ export default function MotionCatalogue({ doc, at, readOnly, setMotion, update }
           + Add a motion
         </button>
       )}
-      <Messages path="motions" at={at} />
-      <Messages path="precedence" at={at} />
+      <FieldMessages path="motions" at={at} />
+      <FieldMessages path="precedence" at={at} />
     </div>
   );
 }

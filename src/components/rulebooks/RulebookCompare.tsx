@@ -1,6 +1,8 @@
 import { useEffect, useState } from "react";
 import { z } from "zod";
-import { getJson, when } from "./api.ts";
+import { apiCall } from "../shared/api.ts";
+import { when } from "../shared/dates.ts";
+import { Alert } from "../shared/Alert.tsx";
 import { compareSchema, librarySchema, type Library, type PlainChangeView } from "./schemas.ts";
 
 const SECTION_LABELS: Record<string, string> = { metadata: "Rulebook", chamber: "Chamber", source: "Source", motions: "Motion catalogue", precedence: "Order of precedence", amendments: "Amendments", voting: "Voting", rules: "Rules", rulebook: "Rulebook and chamber" };
@@ -14,9 +16,9 @@ function ChooseVersions({ from, to }: { from: string; to: string }) {
   const [lib, setLib] = useState<Library | null>(null);
   const [error, setError] = useState<string | null>(null);
   useEffect(() => {
-    getJson("/api/rulebooks", librarySchema).then(setLib, (e) => setError(e instanceof Error ? e.message : "Could not list the versions."));
+    apiCall(librarySchema, "/api/rulebooks").then(setLib, (e) => setError(e instanceof Error ? e.message : "Could not list the versions."));
   }, []);
-  if (error) return <p className="gw-error" role="alert">{error}</p>;
+  if (error) return <Alert>{error}</Alert>;
   if (!lib) return <p className="text-ink-soft">Loading the versions…</p>;
   const versions = [...lib.versions].sort((a, b) => b.number - a.number);
   if (versions.length < 2) return <p className="gw-card">This chamber has {versions.length === 0 ? "no rulebook version" : "only one rulebook version"} yet; there is nothing to compare.</p>;
@@ -68,10 +70,10 @@ export default function RulebookCompare({ from, to }: { from: string; to: string
   const chosen = Boolean(from && to);
   useEffect(() => {
     if (!chosen) return;
-    getJson(`/api/rulebooks/compare?from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`, compareSchema).then(setData, (e) => setError(e instanceof Error ? e.message : "Could not compare."));
+    apiCall(compareSchema, `/api/rulebooks/compare?from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`).then(setData, (e) => setError(e instanceof Error ? e.message : "Could not compare."));
   }, [from, to, chosen]);
   if (!chosen) return <ChooseVersions from={from} to={to} />;
-  if (error) return <p className="gw-error" role="alert">{error}</p>;
+  if (error) return <Alert>{error}</Alert>;
   if (!data) return <p className="text-ink-soft">Comparing…</p>;
   const sections = PLAIN_ORDER.map((s) => ({ s, items: data.changes.filter((c) => c.section === s) })).filter((g) => g.items.length);
   return (

@@ -9,7 +9,7 @@ import { ruleSentence, sentenceContext } from "../../lib/procedure/rule-sentence
 import { FINDING_SEVERITIES, type RulebookInput } from "../../lib/procedure/rulebook-schema.ts";
 import { RULE_SCOPES } from "../../lib/procedure/rule-vocabulary.ts";
 import ConditionBuilder from "./ConditionBuilder.tsx";
-import { SelectField, TextField, type IssueLookup } from "./fields.tsx";
+import { SelectField, TextField, type IssueLookup } from "../shared/fields.tsx";
 
 type Rule = RulebookInput["rules"][number];
 const SCOPE_LABELS = { motion: "Makes a motion out of order", amendment: "Draws a finding on an amendment" } as const;
