@@ -60,6 +60,8 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
   const [effective, setEffective] = useState(() => today());
   const [adoptNote, setAdoptNote] = useState("");
   const [loadError, setLoadError] = useState<string | null>(null);
+  /** The template's title, shown instead of its file name. */
+  const [templateName, setTemplateName] = useState<string | null>(null);
 
   useEffect(() => {
     (async () => {
@@ -81,7 +83,10 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
           else throw new Error("Choose a template to start from.");
           setLoaded({ doc: d, basedOn: lib.latest?.id ?? null, meta: null, latest: lib.latest });
           setDoc(d);
-          if (templateTitle) setNote(`Started from the template “${templateTitle}”`);
+          if (templateTitle) {
+            setNote(`Started from the template “${templateTitle}”`);
+            setTemplateName(templateTitle);
+          }
         }
       } catch (e) {
         setLoadError(e instanceof Error ? e.message : "Could not load the rulebook.");
@@ -167,7 +172,7 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
                 {meta.adoptions.length > 0 && !meta.inForce && <span className="gw-chip ml-2 border-brass text-brass-text">Adopted {meta.adoptions.map((a) => day(a.effectiveFrom)).join(", ")}</span>}
               </>
             ) : (
-              <>New version{template ? ` from the template “${template}”` : ""}, based on {loaded.latest ? `version ${loaded.latest.number}` : "nothing (the chamber's first rulebook)"}</>
+              <>New version{templateName ? ` from the template “${templateName}”` : ""}, based on {loaded.latest ? `version ${loaded.latest.number}` : "nothing (the chamber's first rulebook)"}</>
             )}
           </p>
         </div>
