@@ -236,6 +236,7 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
               </form>
               <div className="flex flex-wrap gap-2">
                 <button type="button" className="gw-btn-quiet" disabled={busy} onClick={() => void record({ kind: "floor", chairHasRuled: !board.chairHasRuled })}>{board.chairHasRuled ? "Appeal time over" : "The chair has ruled"}</button>
+                <button type="button" className="gw-btn-quiet" disabled={busy} aria-pressed={board.committeeOfTheWhole} onClick={() => void record({ kind: "floor", committeeOfTheWhole: !board.committeeOfTheWhole })}>{board.committeeOfTheWhole ? "Leave Committee of the Whole" : "Into Committee of the Whole"}</button>
                 <button type="button" className="gw-btn-danger" disabled={busy} onClick={() => { if (confirm("Close this sitting? Nothing more can be recorded in it.")) void record({ kind: "close" }); }}>Close the sitting</button>
               </div>
             </div>
