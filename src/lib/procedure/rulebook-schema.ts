@@ -206,6 +206,13 @@ export const ruleSchema = z.object({
   note: z.string().max(2000).optional(),
 });
 
+/**
+ * One place in a precedence chain: a motion id, or several ids of equal rank (a tie, e.g. US House
+ * Rule XVI cl. 4(c): fix the day and authorise a recess have equal privilege with adjourn).
+ * Added December 2026; chains of plain ids read as before.
+ */
+export const precedenceStepSchema = z.union([idSchema, z.array(idSchema).min(2).max(50)]);
+
 export const rulebookSchema = z.object({
   format: z.literal(RULEBOOK_FORMAT),
   formatVersion: z.literal(RULEBOOK_FORMAT_VERSION),
@@ -219,7 +226,7 @@ export const rulebookSchema = z.object({
    * Optional precedence chains, highest first, as an alternative to numeric ranks:
    * ranks are then derived from the chains (a motion in a chain must not also give a number).
    */
-  precedence: z.array(z.array(idSchema).min(2).max(200)).max(50).optional(),
+  precedence: z.array(z.array(precedenceStepSchema).min(2).max(200)).max(50).optional(),
   amendments: amendmentRulesSchema,
   voting: votingSectionSchema,
   rules: z.array(ruleSchema).max(500),

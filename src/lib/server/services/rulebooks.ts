@@ -13,6 +13,7 @@ import { GavelError } from "../../errors.ts";
 import { MAX_RULEBOOK_BYTES, parseRulebook, parseRulebookText } from "../../procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../procedure/rulebook-schema.ts";
 import { diffRulebooks, type RulebookDiff } from "../rulebook-diff.ts";
+import { changeLine, describeChanges, type PlainChange } from "../../procedure/rulebook-changes.ts";
 import { rulebookTemplates, rulebookTemplate } from "../rulebook-templates.ts";
 import { refuseBadText, type Actor } from "../http.ts";
 import { chamberMemory, forgetChamber } from "../chamber-memory.ts";
@@ -165,6 +166,8 @@ export interface StaleDetails {
   latest: { id: string; number: number; author: string | null; createdAt: Date; note: string };
   savedSince: Array<{ id: string; number: number; author: string | null; note: string }>;
   changes: RulebookDiff;
+  /** The same changes in plain words (added December 2026). */
+  plainChanges: PlainChange[];
 }
 
 /** Save a new version. The document is validated first (nothing stored when invalid). */
@@ -189,10 +192,11 @@ export async function saveVersion(actor: Actor, input: SaveVersionInput, origin 
         latest: { id: latest.id, number: latest.number, author: latest.author, createdAt: latest.createdAt, note: latest.note },
         savedSince: since.map((h) => ({ id: h.id, number: h.number, author: h.author, note: h.note })),
         changes: diffRulebooks(base?.document ?? {}, latest.document),
+        plainChanges: describeChanges(base?.document ?? {}, latest.document),
       };
       throw new GavelError(
         "conflict",
-        `Version ${latest.number} was saved by ${latest.author ?? "someone"} after you started from ${base ? `version ${base.number}` : "a blank rulebook"}. Nothing was saved. Changed since: ${details.changes.summary.join(" · ") || "nothing in substance"}.`,
+        `Version ${latest.number} was saved by ${latest.author ?? "someone"} after you started from ${base ? `version ${base.number}` : "a blank rulebook"}. Nothing was saved. Changed since: ${details.plainChanges.slice(0, 5).map(changeLine).join(" · ") || "nothing in substance"}${details.plainChanges.length > 5 ? ` (and ${details.plainChanges.length - 5} more)` : ""}.`,
         { issues: [{ path: "basedOn", message: `stale: the latest version is ${latest.number}` }], details: details as unknown as Record<string, unknown> },
       );
     }
@@ -239,7 +243,8 @@ export async function exportVersion(actor: Actor, id: string) {
 export async function compareVersions(actor: Actor, fromId: string, toId: string) {
   const [a, b] = await Promise.all([versionRow(actor.chamber.id, fromId), versionRow(actor.chamber.id, toId)]);
   const strip = ({ document: _d, ...meta }: typeof a) => meta;
-  return { from: strip(a), to: strip(b), diff: diffRulebooks(a.document, b.document) };
+  // `changes`: the same comparison in plain words (added December 2026; `diff` is unchanged).
+  return { from: strip(a), to: strip(b), diff: diffRulebooks(a.document, b.document), changes: describeChanges(a.document, b.document) };
 }
 
 function effectiveDate(input: string | undefined, timeZone: string): Date {
