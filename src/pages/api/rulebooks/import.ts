@@ -1,4 +1,8 @@
 import { json, requireActor, route } from "../../../lib/server/http.ts";
 import { importVersion } from "../../../lib/server/services/rulebooks.ts";
+import { savedWithBench } from "../../../lib/server/services/scenarios.ts";
 
-export const POST = route(async ({ locals, request }) => json(await importVersion(requireActor(locals, "rulebook:edit"), request), 201));
+export const POST = route(async ({ locals, request }) => {
+  const actor = requireActor(locals, "rulebook:edit");
+  return json(await savedWithBench(actor, await importVersion(actor, request)), 201);
+});
