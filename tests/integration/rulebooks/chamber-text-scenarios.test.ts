@@ -12,7 +12,6 @@ import * as coverage from "../../../src/pages/api/rulebooks/[id]/coverage.ts";
 import * as links from "../../../src/pages/api/rulebooks/[id]/links.ts";
 import * as bench from "../../../src/pages/api/rulebooks/[id]/scenarios.ts";
 import * as texts from "../../../src/pages/api/rulebooks/text/index.ts";
-import * as oneText from "../../../src/pages/api/rulebooks/text/[textId].ts";
 import * as scenarios from "../../../src/pages/api/rulebooks/scenarios/index.ts";
 import * as oneScenario from "../../../src/pages/api/rulebooks/scenarios/[sid].ts";
 import { seedRulebooks } from "../../../src/lib/server/seed/rulebooks.ts";
@@ -70,10 +69,13 @@ describe("the chamber's text", () => {
     expect(md.body).toMatchObject({ number: 4, title: "Standing Orders of the Harrowmere Assembly", clauses: 7 });
     const all = await call(texts.GET, "GET", "/api/rulebooks/text", { as: s.as.observer });
     expect(all.body.texts.map((t: { number: number }) => t.number)).toEqual([4, 3, 2, 1]);
-    const now = await call(oneText.GET, "GET", "/api/rulebooks/text/latest", { as: s.as.member, params: { textId: "latest" } });
-    expect(now.body.clauses.map((c: { label: string }) => c.label)).toEqual(["SO 20", "SO 20, paragraph 1", "SO 20, paragraph 2", "SO 20, paragraph 3", "SO 42", "SO 42(1)", "SO 50"]);
-    expect((await call(oneText.GET, "GET", "/x", { as: s.outsider, params: { textId: md.body.id } })).status).toBe(404);
-    expect((await call(oneText.GET, "GET", "/x", { as: s.outsider, params: { textId: "latest" } })).status).toBe(404);
+    const now = (await call(texts.GET, "GET", "/api/rulebooks/text", { as: s.as.member })).body.text;
+    expect(now.clauses.map((c: { label: string }) => c.label)).toEqual(["SO 20", "SO 20, paragraph 1", "SO 20, paragraph 2", "SO 20, paragraph 3", "SO 42", "SO 42(1)", "SO 50"]);
+    expect((await call(texts.GET, "GET", "/x", { as: s.as.member, query: { id: docx.body.id } })).body.text.number).toBe(2);
+    expect((await call(texts.GET, "GET", "/x", { as: s.outsider, query: { id: md.body.id } })).status).toBe(404);
+    expect((await call(texts.GET, "GET", "/x", { as: s.outsider })).body).toEqual({ texts: [], text: null });
+    const badId = await call(texts.GET, "GET", "/x", { as: s.as.member, query: { id: "nope" } });
+    expect([badId.status, badId.body.error.issues[0].path]).toEqual([400, "id"]);
   });
 });
 
