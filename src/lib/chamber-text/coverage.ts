@@ -35,6 +35,20 @@ const THRESHOLD_WORDS: Record<string, string> = {
 };
 const thresholdWords = (t: unknown) => (typeof t === "string" ? (THRESHOLD_WORDS[t] ?? t) : t && typeof t === "object" && "value" in t ? `${String((t as { value: unknown }).value)} votes` : "the main motion's threshold");
 
+const PLACEHOLDER_WORDS: Record<string, string> = {
+  motion: "the motion",
+  immediatelyPending: "the immediately pending question",
+  amendTarget: "the question amended",
+  lastVote: "the vote",
+  amendment: "the amendment",
+  target: "the text amended",
+};
+
+/** A rule's message for a list: its "{fact.field}" placeholders read as words ("{motion.name}" → "the motion"). */
+export function messageInWords(message: string): string {
+  return message.replace(/\{([A-Za-z_][A-Za-z0-9_]*)(?:\.[A-Za-z0-9_.]+)?\}/g, (_w, fact: string) => PLACEHOLDER_WORDS[fact] ?? "…").replace(/"(the [a-z ]+)"/g, "$1").replace(/^t/, "T");
+}
+
 /** Every item of `rulebook` that may carry a clause link, in rulebook order. */
 export function linkableItems(rulebook: Rulebook): LinkableItem[] {
   const out: LinkableItem[] = [];
@@ -43,7 +57,7 @@ export function linkableItems(rulebook: Rulebook): LinkableItem[] {
     if (m.voteClause !== undefined) out.push({ path: `motions.${i}.voteClause`, kind: "threshold", label: `${m.name}: adopted by ${thresholdWords(m.vote)}`, citation: m.citation, clause: m.voteClause });
     (m.voteAlternatives ?? []).forEach((a, k) => out.push({ path: `motions.${i}.voteAlternatives.${k}.clause`, kind: "threshold", label: `${m.name}: ${thresholdWords(a.vote)} ${a.kind === "or" ? "also suffices" : "instead"} when ${a.if}`, citation: a.citation, clause: a.clause ?? null }));
   });
-  rulebook.rules.forEach((r, i) => out.push({ path: `rules.${i}.clause`, kind: "rule", label: r.message, citation: r.citation, clause: r.clause ?? null }));
+  rulebook.rules.forEach((r, i) => out.push({ path: `rules.${i}.clause`, kind: "rule", label: messageInWords(r.message), citation: r.citation, clause: r.clause ?? null }));
   out.push({ path: "amendments.clause", kind: "section", label: "Amendments: forms, degrees and germaneness", citation: rulebook.amendments.citation, clause: rulebook.amendments.clause ?? null });
   if (rulebook.amendments.filingDeadline) {
     const d = rulebook.amendments.filingDeadline;

@@ -19,6 +19,12 @@ describe("linkableItems and clauseCoverage", () => {
     expect(items.map((i) => i.path)).toEqual(expect.arrayContaining(["motions.0.clause", "rules.0.clause", "voting.quorum.clause", "voting.amendmentThresholdClause", "amendments.clause"]));
   });
 
+  it("lists a rule by its message in words, not its placeholders", () => {
+    const items = linkableItems(parseRulebook(rawTemplate("demo-chamber")));
+    expect(items.find((i) => i.label.includes("does not take precedence"))!.label).toBe("The motion does not take precedence of the immediately pending question, the immediately pending question.");
+    expect(items.filter((i) => /[{}]/.test(i.label))).toEqual([]);
+  });
+
   it("with no links every clause is uncited and every motion and rule cites nothing", () => {
     const rb = parseRulebook(rawTemplate("demo-chamber"));
     const c = clauseCoverage(rb, clauses);
