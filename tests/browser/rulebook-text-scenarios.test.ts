@@ -120,6 +120,28 @@ describe("the chamber's own rules and the bench of scenarios", () => {
 
     await page.goto(`${BASE_URL}/rulebooks`);
     await page.getByTestId("in-force").filter({ hasText: `Version ${linkedVersion + 1}:` }).waitFor();
+
+    // Leave the chamber as the other tests expect it: adjourn no longer interrupts (a verdict changes back, so a note again).
+    await page.getByTestId("in-force").locator("a").first().click();
+    await page.getByLabel("May interrupt a speaker: Adjourn").uncheck();
+    await Promise.all([page.waitForURL((u) => u.searchParams.get("saved") === String(linkedVersion + 2)), page.getByRole("button", { name: "Save as new version" }).click()]);
+    await page.getByTestId("changed-verdicts").waitFor();
+    await page.getByLabel("Adoption note (e.g. the resolution)").fill("Resolution 8: adjourn no longer interrupts.");
+    await page.getByRole("button", { name: `Adopt version ${linkedVersion + 2}` }).click();
+    await page.getByTestId("editor-message").filter({ hasText: "now in force" }).waitFor();
+
+    // A verdict's citation opens the clause its rule encodes: postpone indefinitely under amend (SO 20).
+    await page.goto(`${BASE_URL}/floor/moves`);
+    await page.getByTestId("hyp-empty").waitFor();
+    for (const m of ["main", "amend"]) {
+      await page.getByTestId("hyp-choice").selectOption(m);
+      await page.getByRole("button", { name: "Push" }).click();
+    }
+    const pi = page.getByTestId("legal-moves").locator('li[data-motion="postpone-indefinitely"][data-in-order="no"]');
+    await pi.getByTestId("open-clause").click();
+    await pi.getByTestId("clause-text").filter({ hasText: "SO 20 — Precedence of motions" }).waitFor();
+    expect(await pi.getByTestId("clause-text").innerText()).toContain("no motion shall be received except");
+    await shot(page, "floor-verdict-opens-clause");
   });
 
   it("fits a phone: the chamber's text and the scenarios at 390 px", async () => {
