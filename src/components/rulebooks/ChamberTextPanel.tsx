@@ -198,14 +198,16 @@ export default function ChamberTextPanel({ versionId, canEdit }: { versionId: st
               {c.uncitedClauses.length === 0 ? <p className="text-sm text-ink-soft">Every clause is cited.</p> : <ul className="mt-1 space-y-1">{c.uncitedClauses.map((x) => <li key={x.key}><ClauseText clause={x} /></li>)}</ul>}
             </div>
             <div data-testid="items-without-clause">
-              <h4 className="text-sm font-semibold">Motions and rules that cite no clause ({c.itemsWithoutClause.length})</h4>
-              <ul className="mt-1 list-disc pl-5 text-sm">
-                {c.itemsWithoutClause.map((i) => (
-                  <li key={i.path}>
-                    {KIND_WORDS[i.kind]}: {i.label}
-                  </li>
-                ))}
-              </ul>
+              <details open={c.itemsWithoutClause.length <= 12}>
+                <summary className="cursor-pointer text-sm font-semibold">Motions and rules that cite no clause ({c.itemsWithoutClause.length})</summary>
+                <ul className="mt-1 list-disc pl-5 text-sm">
+                  {c.itemsWithoutClause.map((i) => (
+                    <li key={i.path}>
+                      {KIND_WORDS[i.kind]}: {i.label}
+                    </li>
+                  ))}
+                </ul>
+              </details>
             </div>
           </div>
           {c.brokenLinks.length > 0 && (
