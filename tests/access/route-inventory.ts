@@ -125,6 +125,15 @@ export const API_ROUTES: readonly ApiRoute[] = [
   { file: "api/rulebooks/[id]/export.ts", method: "GET", path: "/api/rulebooks/:id/export", audience: ALL_ROLES, outsider: "refused", params: { id: "rulebookVersion" } },
   { file: "api/rulebooks/compare.ts", method: "GET", path: "/api/rulebooks/compare?from&to", audience: ALL_ROLES, outsider: "refused", query: (s) => ({ from: s.rulebookVersion, to: s.rulebookVersion2 }) },
   { file: "api/rulebooks/import.ts", method: "POST", path: "/api/rulebooks/import", audience: CLERKS, outsider: "own-chamber", note: "multipart upload of a rulebook file" },
+  { file: "api/rulebooks/[id]/coverage.ts", method: "GET", path: "/api/rulebooks/:id/coverage?text", audience: ALL_ROLES, outsider: "refused", params: { id: "rulebookVersion" } },
+  { file: "api/rulebooks/[id]/links.ts", method: "POST", path: "/api/rulebooks/:id/links", audience: CLERKS, outsider: "refused", params: { id: "rulebookVersion" }, body: () => ({ links: [{ path: "motions.0.clause", clause: "so-1" }] }), note: "saves a new version based on :id" },
+  { file: "api/rulebooks/[id]/scenarios.ts", method: "GET", path: "/api/rulebooks/:id/scenarios", audience: ALL_ROLES, outsider: "refused", params: { id: "rulebookVersion" } },
+  { file: "api/rulebooks/text/index.ts", method: "GET", path: "/api/rulebooks/text?id", audience: ALL_ROLES, outsider: "own-chamber" },
+  { file: "api/rulebooks/text/index.ts", method: "POST", path: "/api/rulebooks/text", audience: CLERKS, outsider: "own-chamber", note: "multipart upload of the chamber's rules" },
+  { file: "api/rulebooks/scenarios/index.ts", method: "GET", path: "/api/rulebooks/scenarios", audience: ALL_ROLES, outsider: "own-chamber" },
+  { file: "api/rulebooks/scenarios/index.ts", method: "POST", path: "/api/rulebooks/scenarios", audience: CLERKS, outsider: "own-chamber" },
+  { file: "api/rulebooks/scenarios/index.ts", method: "PUT", path: "/api/rulebooks/scenarios?mode", audience: CLERKS, outsider: "own-chamber", note: "imports a scenarios file (replaces the bench)" },
+  { file: "api/rulebooks/scenarios/[sid].ts", method: "DELETE", path: "/api/rulebooks/scenarios/:sid", audience: CLERKS, outsider: "own-chamber" },
   { file: "api/rulebooks/templates/[id].ts", method: "GET", path: "/api/rulebooks/templates/:id", audience: ALL_ROLES, outsider: "own-chamber", params: { id: "template" }, note: "shipped templates, no chamber data" },
 
   // floor

@@ -137,6 +137,8 @@ export const findingViewSchema = z.object({
   amendmentId: z.string().nullable(),
   rule: z.string(),
   citation: z.string(),
+  /** The clause of the chamber's rules the finding's rule encodes, when the rulebook links one. */
+  clause: z.string().optional(),
   message: z.string(),
   related: z.array(z.string()).optional(),
   overridden: z.boolean().optional(),

@@ -259,9 +259,16 @@ function effectiveDate(input: string | undefined, timeZone: string): Date {
 export async function adoptVersion(actor: Actor, id: string, input: z.output<typeof adoptSchema>) {
   const row = await versionRow(actor.chamber.id, id);
   const effectiveFrom = effectiveDate(input.effectiveFrom, actor.chamber.timeZone);
+  // The bench of scenarios against the version in force: a version that changes any verdict is adopted only with a note saying why.
+  const { benchReport } = await import("./scenarios.ts");
+  const bench = await benchReport(actor.chamber.id, { id: row.id, number: row.number }, parseRulebook(row.document));
+  if (bench.changed.length && !input.note) {
+    const names = bench.changed.map((c) => `"${c.title}"`).join(", ");
+    throw new GavelError("invalid-input", `${bench.changed.length === 1 ? "One scenario changes" : `${bench.changed.length} scenarios change`} verdict against the version in force (${names}). Say in a note why the chamber adopts it.`, { issues: [{ path: "note", message: "required when scenarios change verdict" }], details: { changed: bench.changed } });
+  }
   const [a] = await db.insert(rulebookAdoptions).values({ chamberId: actor.chamber.id, versionId: row.id, effectiveFrom, note: input.note, adoptedBy: actor.user.id }).returning();
   forgetChamber(actor.chamber.id);
-  return { id: a.id, versionId: row.id, number: row.number, effectiveFrom: a.effectiveFrom, inForce: (await rulebookInForce(actor.chamber.id))?.versionId === row.id };
+  return { id: a.id, versionId: row.id, number: row.number, effectiveFrom: a.effectiveFrom, inForce: (await rulebookInForce(actor.chamber.id))?.versionId === row.id, scenariosChanged: bench.changed.map((c) => c.id) };
 }
 
 export async function templateDocument(id: string) {
