@@ -20,7 +20,10 @@ export const ballotRowSchema = z.object({
   member: label,
   bloc: z.string().trim().max(120).default(""),
   weight: z.number().int().min(1).max(1000).default(1),
-  ranking: ballotSchema.shape.ranking.min(1),
+  /** Best first. Empty in a draft row not yet filled in, or in a row marked `unranked`. */
+  ranking: ballotSchema.shape.ranking,
+  /** Explicitly left out: the row ranks nothing and takes no part in the analysis (src/lib/estimates/draft.ts). */
+  unranked: z.boolean().optional(),
 });
 export type BallotRow = z.output<typeof ballotRowSchema>;
 
@@ -43,6 +46,8 @@ export const spatialContentSchema = z.object({
   /** Amendment key → its effect: a new position, or shifts per dimension (in order of dimensions). */
   effects: z.record(z.string(), z.object({ position: z.array(coord).optional(), shift: z.array(coord).optional() })).default({}),
   members: z.array(idealRowSchema).min(1).max(MAX_ROWS),
+  /** Started from the roster: the positions are placeholders until a person saves real ones (src/lib/estimates/draft.ts). */
+  draft: z.boolean().optional(),
 });
 
 export const estimateContentSchema = z.discriminatedUnion("kind", [ballotContentSchema, spatialContentSchema]);
@@ -84,6 +89,7 @@ export function spatialInput(c: Extract<EstimateContent, { kind: "spatial" }>): 
 
 /** The `profile` member of analyseOrders' input. */
 export function toOrdersProfile(c: EstimateContent): { ballots: Array<{ ranking: Array<string | string[]>; weight: number }>; partial: "abstain" | "bottom" } | { spatial: z.input<typeof spatialSchema> } {
-  if (c.kind === "ballots") return { ballots: c.rows.map((r) => ({ ranking: r.ranking, weight: r.weight })), partial: c.partial };
+  // Rows without a ranking (marked unranked) take no part; a draft is refused before it gets here (draft.ts).
+  if (c.kind === "ballots") return { ballots: c.rows.filter((r) => r.ranking.length > 0).map((r) => ({ ranking: r.ranking, weight: r.weight })), partial: c.partial };
   return { spatial: spatialInput(c) };
 }

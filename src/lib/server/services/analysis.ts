@@ -15,6 +15,7 @@ import { GavelError } from "../../errors.ts";
 import type { Actor } from "../http.ts";
 import { toOrdersProfile, type EstimateContent } from "../../estimates/estimate-content.ts";
 import { buildFindings } from "../../estimates/findings.ts";
+import { draftMessage } from "../../estimates/draft.ts";
 import { walkThrough } from "../../estimates/walk-through.ts";
 import { chairScript, scriptMarkdown } from "../../estimates/chair-script.ts";
 import { versionInWords, versionShort, type TreeLabels } from "../../estimates/version-words.ts";
@@ -70,6 +71,9 @@ export async function startAnalysis(actor: Actor, input: z.output<typeof startSc
   const rb = input.rulebookVersionId ? await loadRulebook(actor.chamber.id, input.rulebookVersionId).then((r) => ({ rulebook: r.rulebook, source: `version ${r.number}: ${r.title}`, versionId: r.versionId })) : await adoptedRulebookOf(actor.chamber.id);
   const tree = await treeFor(actor.chamber.id, e.measureId, v.scope);
   const content = v.content as EstimateContent;
+  // A draft (rows not filled in, or placeholder positions) is never analysed as if it were an estimate.
+  const missing = draftMessage(content);
+  if (missing) throw new GavelError("unprocessable", missing, { issues: [{ path: "content", message: missing }], details: { draft: true } });
   const ordersInput = { rulebook: { voting: rb.rulebook.voting }, measure: tree.case.measure, amendments: tree.case.amendments, profile: toOrdersProfile(content) };
   const hash = contentHash({ engine: ENGINE_VERSION, ...ordersInput });
   const [hit] = await db.select({ hash: analysisCache.hash }).from(analysisCache).where(and(eq(analysisCache.chamberId, actor.chamber.id), eq(analysisCache.hash, hash)));
