@@ -36,7 +36,7 @@ export function draftMessage(c: EstimateContent): string | null {
   if (g.placeholderPositions) return "This estimate is an unfilled draft: the positions are the roster's placeholders. Place the blocs on the plot (or in the table of ideal points) and save a version; then it can be analysed.";
   if (g.unfilled.length > 0) {
     const names = g.unfilled.length <= 5 ? g.unfilled.map((n) => `“${n}”`).join(", ") : `${g.unfilled.slice(0, 4).map((n) => `“${n}”`).join(", ")} and ${g.unfilled.length - 4} more`;
-    return `This estimate is an unfilled draft: ${g.unfilled.length} of ${g.rows} row${g.rows === 1 ? " has" : "s have"} no ranking yet (${names}). Give each row its places, or mark it unranked, and save a version; then it can be analysed.`;
+    return `This estimate is an unfilled draft: ${g.unfilled.length} of ${g.rows} row${g.rows === 1 ? "" : "s"} ${g.unfilled.length === 1 ? "has" : "have"} no ranking yet (${names}). Give each row its places, or mark it unranked, and save a version; then it can be analysed.`;
   }
   if (g.counted === 0) return "Every row is marked unranked, so there is nothing to analyse. Give at least one row its places and save a version.";
   return null;
