@@ -130,7 +130,7 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
 
       <section className="gw-card" aria-labelledby="versions-h">
         <h2 id="versions-h" className="text-lg font-semibold">The versions on the table</h2>
-        <div className="mt-2 overflow-x-auto" role="region" aria-labelledby="versions-h" tabIndex={0}>
+        <div className="relative mt-2 overflow-x-auto" role="region" aria-labelledby="versions-h" tabIndex={0}>
         <table className="gw-table">
           <thead><tr><th scope="col">Version</th><th scope="col">In plain words</th></tr></thead>
           <tbody>{versions.map((v) => <tr key={v.id}><th scope="row" className="text-left">{v.short}</th><td>{v.words}</td></tr>)}</tbody>
@@ -189,7 +189,7 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
         </div>
         {orders && (
           <>
-            <div className="mt-3 overflow-x-auto" role="region" aria-labelledby="orders-h" tabIndex={0}>
+            <div className="relative mt-3 overflow-x-auto" role="region" aria-labelledby="orders-h" tabIndex={0}>
             <table className="gw-table">
               <thead><tr><th scope="col">#</th><th scope="col">Questions in order</th><th scope="col">Sincere outcome</th><th scope="col">Sophisticated outcome</th><th scope="col"><span className="sr-only">Actions</span></th></tr></thead>
               <tbody>

@@ -98,7 +98,7 @@ export default function BallotTable({ estimateId, rows: initial, partial: initia
     <div className="space-y-3" data-testid="ballot-table">
       <p className="gw-hint">For each row give every version a place: 1 for the one it likes best, 2 for the next… Give two versions the same number to tie them; leave a box empty for a version it does not rank. Tick “Unranked” for a row that ranks nothing: it then takes no part in the analysis.</p>
       <p className={unfilled > 0 ? "font-semibold text-verdict-bar" : "text-sm text-ink-soft"} role="status" data-testid="rows-to-fill">{unfilled > 0 ? `${unfilled} of ${rows.length} row${rows.length === 1 ? "" : "s"} still to fill in (or mark unranked) before the estimate can be analysed.` : "Every row is filled in or marked unranked."}</p>
-      <div className="overflow-x-auto" role="region" aria-label="Ballots" tabIndex={0}>
+      <div className="relative overflow-x-auto" role="region" aria-label="Ballots" tabIndex={0}>
         <table className="gw-table">
           <thead>
             <tr>

@@ -29,10 +29,11 @@ export default function MajorityMatrix({ versions, margins, topCycle, condorcetW
   );
   return (
     <div>
-      <div className="overflow-x-auto rounded border border-rule" role="region" aria-labelledby="matrix-caption" tabIndex={0} data-testid="majority-matrix">
+      <p className="text-sm">Each cell is the row's margin over the column: votes for the row's version minus votes for the column's.{cycle ? " Shaded rows are the top cycle; ↻ marks a win on the majority cycle." : ""}</p>
+      <div className="relative mt-1 overflow-x-auto rounded border border-rule" role="region" aria-labelledby="matrix-caption" tabIndex={0} data-testid="majority-matrix">
         <table className="gw-table text-sm">
-          <caption id="matrix-caption" className="px-2 py-1 text-left text-sm">
-            <span className="font-semibold">Majority matrix</span>: each cell is the row's margin over the column (votes for the row's version minus votes for the column's){cycle ? "; ↻ marks a win on the majority cycle" : ""}. Sorted by {sortName}, {sort.descending ? "highest first" : sort.key === "name" ? "A to Z" : "lowest first"}.
+          <caption id="matrix-caption" className="sticky left-0 w-max max-w-[calc(100vw-3rem)] px-2 py-1 text-left text-sm">
+            <span className="font-semibold">Majority matrix</span> of {versions.length} versions. {sort.key === "order" ? "In the listed order." : `Sorted by ${sortName}, ${sort.descending ? (sort.key === "name" ? "Z to A" : "highest first") : sort.key === "name" ? "A to Z" : "lowest first"}.`}
           </caption>
           <thead>
             <tr>

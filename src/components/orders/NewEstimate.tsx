@@ -156,7 +156,7 @@ export default function NewEstimate() {
       {preview?.content.rows && (
         <div>
           <h3 className="font-semibold">Preview: {preview.content.rows.length} row{preview.content.rows.length === 1 ? "" : "s"}, {preview.content.rows.reduce((a, r) => a + r.weight, 0)} votes in all</h3>
-          <div className="mt-1 overflow-x-auto" role="region" aria-label="Preview of the rows" tabIndex={0}>
+          <div className="relative mt-1 overflow-x-auto" role="region" aria-label="Preview of the rows" tabIndex={0}>
           <table className="gw-table">
             <thead><tr><th scope="col">Member or bloc</th><th scope="col">Bloc</th><th scope="col">Weight</th><th scope="col">Ranking, best first</th></tr></thead>
             <tbody>{preview.content.rows.slice(0, 50).map((r, i) => <tr key={i}><td>{r.member}</td><td>{r.bloc}</td><td>{r.weight}</td><td className="text-xs">{r.ranking.map((x) => (typeof x === "string" ? [x] : x).map((id) => tree?.versions.find((v) => v.id === id)?.short ?? id).join(" = ")).join(" > ")}</td></tr>)}</tbody>

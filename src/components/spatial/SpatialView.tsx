@@ -331,7 +331,7 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
       </div>
       <details className="mt-4" data-testid="members-editor">
         <summary className="cursor-pointer font-semibold">Members' ideal points ({content.members.length} rows, {content.members.reduce((a, m) => a + m.weight, 0)} votes)</summary>
-        <div className="mt-2 overflow-x-auto">
+        <div className="relative mt-2 overflow-x-auto">
           <table className="gw-table">
             <thead><tr><th scope="col">Member or bloc</th><th scope="col">Bloc</th><th scope="col">Weight</th>{dims.map((d, i) => <th key={i} scope="col">{d}</th>)}<th scope="col"><span className="sr-only">Remove</span></th></tr></thead>
             <tbody>
