@@ -182,7 +182,7 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
         </ul>
         <p><span className="mr-1 inline-block h-3 w-3 rotate-45 bg-verdict-bar align-middle" /> Q (no change) · <span className="mr-1 inline-block h-3 w-3 rotate-45 bg-brass align-middle" /> versions of the measure</p>
         <p>{model.win.coalitions === null ? "The win set is drawn only for up to 16 distinct ideal points; the dashed circles show each member's indifference circle through Q." : model.win.coalitions.length === 0 ? "No coalition can beat the status quo: its win set is empty." : `Win set of Q: union of ${model.win.coalitions.length} coalition lens${model.win.coalitions.length === 1 ? "" : "es"}.`}</p>
-        <p>{model.report.condorcetWinner ? `Among the versions, ${versions[idx(model.report.condorcetWinner)].short} beats every other.` : `No version beats all the others: ${cycleSentence(cycle, (id) => versions[idx(id)].short)} (arrows point from a winner to a version it beats).`}</p>
+        <p>{model.report.condorcetWinner ? `Among the versions, ${versions[idx(model.report.condorcetWinner)].short} beats every other.` : `No version beats all the others: ${cycleSentence(cycle, (id) => versions[idx(id)].short, 6)} (arrows point from a winner to a version it beats).`}</p>
         {canEdit && <button className="gw-btn" disabled={!dirty} onClick={() => void save()}>Save these positions as a new version</button>}
         {message && <p className="gw-error" role="alert">{message}</p>}
       </div>
