@@ -18,6 +18,8 @@ interface Row {
   places: Record<string, string>;
   /** Marked as ranking nothing: takes no part in the analysis. */
   unranked: boolean;
+  /** The presiding officer's row (its ranking is the chair's vote under the rulebook's tie rule). */
+  chair: boolean;
 }
 
 interface Props {
@@ -32,7 +34,7 @@ interface Props {
 function toRows(rows: BallotRow[]): Row[] {
   return rows.map((r, i) => {
     const p = placesFromRanking(r.ranking);
-    return { key: i, member: r.member, bloc: r.bloc, weight: String(r.weight), places: Object.fromEntries(Object.entries(p).map(([k, v]) => [k, String(v)])), unranked: r.unranked === true };
+    return { key: i, member: r.member, bloc: r.bloc, weight: String(r.weight), places: Object.fromEntries(Object.entries(p).map(([k, v]) => [k, String(v)])), unranked: r.unranked === true, chair: r.chair === true };
   });
 }
 
@@ -66,6 +68,7 @@ export default function BallotTable({ estimateId, rows: initial, partial: initia
   const problems = rows.map((r) => {
     if (!r.member.trim()) return "name the member or bloc";
     if (!/^\d{1,4}$/.test(r.weight.trim()) || Number(r.weight) < 1 || Number(r.weight) > 1000) return "weight must be a whole number from 1 to 1000";
+    if (r.chair && Number(r.weight) !== 1) return "the chair's row has weight 1";
     const k = rankingOf(r, order, nameOf);
     return "error" in k ? k.error : null;
   });
@@ -80,7 +83,7 @@ export default function BallotTable({ estimateId, rows: initial, partial: initia
     if (rows.length === 0) return setError("Add at least one row.");
     setBusy(true);
     try {
-      const content = { kind: "ballots" as const, partial, rows: rows.map((r) => ({ member: r.member.trim(), bloc: r.bloc.trim(), weight: Number(r.weight), ranking: (rankingOf(r, order, nameOf) as { ranking: Array<string | string[]> }).ranking, ...(r.unranked ? { unranked: true } : {}) })) };
+      const content = { kind: "ballots" as const, partial, rows: rows.map((r) => ({ member: r.member.trim(), bloc: r.bloc.trim(), weight: Number(r.weight), ranking: (rankingOf(r, order, nameOf) as { ranking: Array<string | string[]> }).ranking, ...(r.unranked ? { unranked: true } : {}), ...(r.chair ? { chair: true } : {}) })) };
       const fallback = unfilled > 0 ? `Ballots partly filled in; ${unfilled} row${unfilled === 1 ? "" : "s"} still to fill` : "Ballots edited in the table";
       await apiCall(z.object({ id: z.string(), version: z.number() }), `/api/estimates/${estimateId}/versions`, { method: "POST", body: { basedOn, scope, content, note: note.trim() || fallback } });
       window.location.href = `/orders/${estimateId}`;
@@ -108,6 +111,7 @@ export default function BallotTable({ estimateId, rows: initial, partial: initia
               <th scope="col">Unranked</th>
               {versions.map((v) => <th key={v.id} scope="col" title={v.words} className="min-w-[5rem] text-xs font-normal">{v.short}</th>)}
               <th scope="col">Ranking, best first</th>
+              <th scope="col" title="The presiding officer's row (weight 1): its ranking gives the chair's vote under the rulebook's tie rule">Chair</th>
               <th scope="col"><span className="sr-only">Remove</span></th>
             </tr>
           </thead>
@@ -125,6 +129,7 @@ export default function BallotTable({ estimateId, rows: initial, partial: initia
                     <td key={v.id}><input className="gw-input mt-0 w-14 text-center" aria-label={`${label}: place of ${v.short}`} inputMode="numeric" disabled={r.unranked} value={r.places[v.id] ?? ""} onChange={(e) => setPlace(i, v.id, e.target.value)} /></td>
                   ))}
                   <td className="text-xs">{"error" in k ? <span className="text-verdict-bar">{k.error}</span> : r.unranked ? <span className="text-ink-soft">unranked</span> : k.ranking.length === 0 ? <span className="text-verdict-bar">not filled in yet</span> : rankingText(k.ranking.map((x) => (typeof x === "string" ? nameOf(x) : x.map(nameOf))))}</td>
+                  <td><input type="checkbox" aria-label={`${label}: the chair`} checked={r.chair} onChange={(e) => setRows((all) => all.map((x, j) => ({ ...x, chair: j === i ? e.target.checked : e.target.checked ? false : x.chair })))} /></td>
                   <td><button type="button" className="gw-btn-quiet px-2 py-0.5" aria-label={`Remove row ${i + 1}`} onClick={() => setRows((all) => all.filter((_, j) => j !== i))}>✕</button></td>
                 </tr>
               );
@@ -133,7 +138,7 @@ export default function BallotTable({ estimateId, rows: initial, partial: initia
         </table>
       </div>
       <div className="flex flex-wrap items-end gap-3">
-        <button type="button" className="gw-btn-quiet" onClick={() => { setRows((all) => [...all, { key: next, member: "", bloc: "", weight: "1", places: {}, unranked: false }]); setNext((n) => n + 1); }}>Add a row</button>
+        <button type="button" className="gw-btn-quiet" onClick={() => { setRows((all) => [...all, { key: next, member: "", bloc: "", weight: "1", places: {}, unranked: false, chair: false }]); setNext((n) => n + 1); }}>Add a row</button>
         <label className="gw-label">Versions a row leaves out
           <select className="gw-input" value={partial} onChange={(e) => setPartial(e.target.value as "abstain" | "bottom")}>
             <option value="abstain">abstain between them</option>

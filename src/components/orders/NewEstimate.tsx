@@ -8,7 +8,7 @@ import { ApiError, apiCall, versionSchema } from "./api.ts";
 
 const optionsSchema = z.object({ measures: z.array(z.object({ id: z.string(), number: z.string(), title: z.string() })) });
 const versionsSchema = z.object({ pending: z.array(z.object({ key: z.string(), title: z.string().nullable(), target: z.string(), form: z.string(), outOfOrder: z.string().nullable().optional() })), versions: z.array(versionSchema.extend({ amendments: z.array(z.string()) })) });
-const previewSchema = z.object({ preview: z.literal(true), content: z.object({ kind: z.string(), rows: z.array(z.object({ member: z.string(), bloc: z.string(), weight: z.number(), ranking: z.array(z.union([z.string(), z.array(z.string())])) })).optional(), members: z.array(z.object({ member: z.string(), bloc: z.string(), weight: z.number(), ideal: z.array(z.number()) })).optional() }) });
+const previewSchema = z.object({ preview: z.literal(true), content: z.object({ kind: z.string(), rows: z.array(z.object({ member: z.string(), bloc: z.string(), weight: z.number(), ranking: z.array(z.union([z.string(), z.array(z.string())])), chair: z.boolean().optional() })).optional(), members: z.array(z.object({ member: z.string(), bloc: z.string(), weight: z.number(), ideal: z.array(z.number()) })).optional() }) });
 
 export default function NewEstimate() {
   const [measures, setMeasures] = useState<z.output<typeof optionsSchema>["measures"]>([]);
@@ -148,7 +148,7 @@ export default function NewEstimate() {
         <span className="text-sm text-ink-soft">or</span>
         <button className="gw-btn-quiet" onClick={() => void startBlank()} disabled={!measureId || !title.trim()}>Start from the roster and fill it in on the page</button>
       </div>
-      <p className="gw-hint">{kind === "spatial" ? `Columns: member, bloc, weight, then one per dimension (${dimensions}). ` : ""}Ballots' columns: member, bloc, weight, ranking. Write the ranking best first with "&gt;" between places and "=" for equal ones, using the version names from the template's example row. Save the file as CSV UTF-8. Starting from the roster makes a draft to fill in on the page; it cannot be analysed until every row is filled in or marked unranked.</p>
+      <p className="gw-hint">{kind === "spatial" ? `Columns: member, bloc, weight, then one per dimension (${dimensions}). ` : ""}Ballots' columns: member, bloc, weight, ranking, and optionally chair ("yes" on the presiding officer's row, weight 1: its ranking gives the chair's vote under the rulebook's tie rule). Write the ranking best first with "&gt;" between places and "=" for equal ones, using the version names from the template's example row. Save the file as CSV UTF-8. Starting from the roster makes a draft to fill in on the page; it cannot be analysed until every row is filled in or marked unranked.</p>
       {error && <div role="alert"><p className="gw-error">{error}</p>{issues.length > 1 && <ul className="list-disc pl-6 text-sm text-verdict-bar">{issues.map((i, k) => <li key={k}>{i.message}</li>)}</ul>}</div>}
       {preview?.content.members && (
         <p className="font-semibold">Preview: {preview.content.members.length} ideal point{preview.content.members.length === 1 ? "" : "s"}, {preview.content.members.reduce((a, r) => a + r.weight, 0)} votes in all.</p>
@@ -159,7 +159,7 @@ export default function NewEstimate() {
           <div className="relative mt-1 overflow-x-auto" role="region" aria-label="Preview of the rows" tabIndex={0}>
           <table className="gw-table">
             <thead><tr><th scope="col">Member or bloc</th><th scope="col">Bloc</th><th scope="col">Weight</th><th scope="col">Ranking, best first</th></tr></thead>
-            <tbody>{preview.content.rows.slice(0, 50).map((r, i) => <tr key={i}><td>{r.member}</td><td>{r.bloc}</td><td>{r.weight}</td><td className="text-xs">{r.ranking.map((x) => (typeof x === "string" ? [x] : x).map((id) => tree?.versions.find((v) => v.id === id)?.short ?? id).join(" = ")).join(" > ")}</td></tr>)}</tbody>
+            <tbody>{preview.content.rows.slice(0, 50).map((r, i) => <tr key={i}><td>{r.member}{r.chair ? " (chair)" : ""}</td><td>{r.bloc}</td><td>{r.weight}</td><td className="text-xs">{r.ranking.map((x) => (typeof x === "string" ? [x] : x).map((id) => tree?.versions.find((v) => v.id === id)?.short ?? id).join(" = ")).join(" > ")}</td></tr>)}</tbody>
           </table>
           </div>
         </div>

@@ -24,13 +24,23 @@ export const ballotRowSchema = z.object({
   ranking: ballotSchema.shape.ranking,
   /** Explicitly left out: the row ranks nothing and takes no part in the analysis (src/lib/estimates/draft.ts). */
   unranked: z.boolean().optional(),
+  /** The presiding officer's row: its ranking is the chair's preference under the rulebook's tie rule (docs/decisions/0008). */
+  chair: z.boolean().optional(),
 });
 export type BallotRow = z.output<typeof ballotRowSchema>;
 
 export const ballotContentSchema = z.object({
   kind: z.literal("ballots"),
   partial: z.enum(["abstain", "bottom"]).default("abstain"),
-  rows: z.array(ballotRowSchema).min(1).max(MAX_ROWS),
+  rows: z
+    .array(ballotRowSchema)
+    .min(1)
+    .max(MAX_ROWS)
+    .superRefine((rows, ctx) => {
+      const chairs = rows.flatMap((r, i) => (r.chair ? [i] : []));
+      if (chairs.length > 1) ctx.addIssue({ code: "custom", path: [chairs[1], "chair"], message: `only one row can be the chair's (row ${chairs[0]} already is)` });
+      if (chairs.length >= 1 && rows[chairs[0]].weight !== 1) ctx.addIssue({ code: "custom", path: [chairs[0], "weight"], message: "the chair's row has weight 1" });
+    }),
 });
 
 export const idealRowSchema = z.object({ member: label, bloc: z.string().trim().max(120).default(""), weight: z.number().int().min(1).max(1000).default(1), ideal: z.array(coord).min(1).max(MAX_DIMENSIONS) });
@@ -88,8 +98,8 @@ export function spatialInput(c: Extract<EstimateContent, { kind: "spatial" }>): 
 }
 
 /** The `profile` member of analyseOrders' input. */
-export function toOrdersProfile(c: EstimateContent): { ballots: Array<{ ranking: Array<string | string[]>; weight: number }>; partial: "abstain" | "bottom" } | { spatial: z.input<typeof spatialSchema> } {
+export function toOrdersProfile(c: EstimateContent): { ballots: Array<{ ranking: Array<string | string[]>; weight: number; chair?: boolean }>; partial: "abstain" | "bottom" } | { spatial: z.input<typeof spatialSchema> } {
   // Rows without a ranking (marked unranked) take no part; a draft is refused before it gets here (draft.ts).
-  if (c.kind === "ballots") return { ballots: c.rows.filter((r) => r.ranking.length > 0).map((r) => ({ ranking: r.ranking, weight: r.weight })), partial: c.partial };
+  if (c.kind === "ballots") return { ballots: c.rows.filter((r) => r.ranking.length > 0).map((r) => ({ ranking: r.ranking, weight: r.weight, ...(r.chair ? { chair: true } : {}) })), partial: c.partial };
   return { spatial: spatialInput(c) };
 }
