@@ -7,7 +7,8 @@ export function niceStep(span: number, target = 6): number {
   if (!(span > 0) || !Number.isFinite(span)) return 1;
   const raw = span / Math.max(1, target);
   const power = 10 ** Math.floor(Math.log10(raw));
-  const f = raw / power;
+  // A little slack, so that a span of 0.001 and one of 0.000999… (floating-point rounding) agree.
+  const f = raw / power - 1e-9;
   const nice = f <= 1 ? 1 : f <= 2 ? 2 : f <= 5 ? 5 : 10;
   return nice * power;
 }
@@ -24,6 +25,8 @@ export function axisTicks(min: number, max: number, target = 6): number[] {
   const d = decimals(step);
   const ticks: number[] = [];
   for (let v = Math.ceil(min / step - 1e-9) * step; v <= max + step * 1e-9; v += step) ticks.push(Number(v.toFixed(d)) + 0);
+  // A step about as long as the range may leave fewer than two ticks inside it: ask for more.
+  if (ticks.length < 2 && target < 64) return axisTicks(min, max, target * 2);
   return ticks.map((t) => (Object.is(t, -0) ? 0 : t));
 }
 

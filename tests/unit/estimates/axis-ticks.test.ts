@@ -13,7 +13,11 @@ describe("axis ticks", () => {
     expect(axisTicks(-3, 3, 6)).toEqual([-3, -2, -1, 0, 1, 2, 3]);
     expect(axisTicks(0, 100, 4)).toEqual([0, 50, 100]);
     expect(axisTicks(5, 5)).toEqual([5]);
+    // A range just too short for the first step still gets ticks (found by the property below).
+    expect(axisTicks(5e-11, 0.04000000007, 2)).toEqual([0.02, 0.04]);
     expect(niceStep(7, 6)).toBe(2);
+    // Floating-point rounding of the span does not change the step (found by the property below).
+    expect(niceStep(0.001, 2)).toBe(niceStep(255.99997368562305 + 0.001 - 255.99997368562305, 2));
     expect(tickLabel(-0)).toBe("0");
     expect(tickLabel(0.30000000000000004)).toBe("0.30000000000000004");
     expect(axisTicks(0.1, 0.35, 5)).toEqual([0.1, 0.15, 0.2, 0.25, 0.3, 0.35]);
@@ -22,17 +26,20 @@ describe("axis ticks", () => {
   it("keeps every tick inside the range, evenly spaced, with a short label", () => {
     fc.assert(
       fc.property(fc.double({ min: -1e4, max: 1e4, noNaN: true }), fc.double({ min: 1e-3, max: 1e4, noNaN: true }), fc.integer({ min: 2, max: 10 }), (lo, span, target) => {
-        const ticks = axisTicks(lo, lo + span, target);
-        expect(ticks.length).toBeGreaterThanOrEqual(1);
-        expect(ticks.length).toBeLessThanOrEqual(target * 2 + 2);
-        const step = niceStep(span, target);
+        const hi = lo + span;
+        const ticks = axisTicks(lo, hi, target);
+        expect(ticks.length).toBeGreaterThanOrEqual(2);
+        expect(ticks.length).toBeLessThanOrEqual(target * 4 + 2);
+        const step = ticks[1] - ticks[0];
         for (const t of ticks) {
           expect(t).toBeGreaterThanOrEqual(lo - step * 1e-6);
-          expect(t).toBeLessThanOrEqual(lo + span + step * 1e-6);
+          expect(t).toBeLessThanOrEqual(hi + step * 1e-6);
           expect(tickLabel(t).length).toBeLessThan(16);
         }
-        for (let i = 1; i < ticks.length; i++) expect(ticks[i] - ticks[i - 1]).toBeCloseTo(step, 6);
+        expect([1, 2, 5, 10]).toContain(Number((step / 10 ** Math.floor(Math.log10(step) + 1e-9)).toFixed(6)));
+        for (let i = 1; i < ticks.length; i++) expect(Math.abs(ticks[i] - ticks[i - 1] - step)).toBeLessThanOrEqual(step * 1e-6);
       }),
+      { numRuns: 2000 },
     );
   });
 });
