@@ -161,8 +161,10 @@ describe("estimates on the pages", () => {
     await page.getByLabel("Title of the estimate").fill(`Table count ${unique}`);
     await Promise.all([page.waitForURL(/\/orders\/[0-9a-f-]{36}$/), page.getByRole("button", { name: "Start from the roster and fill it in on the page" }).click()]);
     estimateUrl = page.url();
-    await page.getByText(/Edit the ballots in a table/).click();
+    // An unfilled draft: the table is open and the analysis waits until it is filled in.
+    await visible(page.getByTestId("draft-notice"));
     const table = page.getByTestId("ballot-table");
+    await visible(table);
     // Row 1: the measure and Q tied first; row 2 leaves Q unranked. Versions are named in words.
     const rank = async (row: number, places: Record<string, string>) => {
       const name = await table.getByLabel(`Row ${row}: member or bloc`).inputValue();
