@@ -245,6 +245,10 @@ describe("voting orders", () => {
     expect(nVersions).toBeGreaterThan(8);
     expect(await list.innerText()).not.toContain("measure+");
     await noOverflow(page);
+    await page.setViewportSize({ width: 390, height: 844 });
+    await noOverflow(page, 390);
+    await shot(page, "orders-roster-form-phone");
+    await page.setViewportSize({ width: 1360, height: 900 });
     await page.getByLabel("Title of the estimate").fill(`Roster count ${unique}`);
     await page.getByLabel("Versions a row leaves out").selectOption("bottom");
     await shot(page, "orders-roster-form");
@@ -257,6 +261,10 @@ describe("voting orders", () => {
     await visible(page.getByTestId("analysis-refused"));
     expect(await page.getByRole("heading", { name: "Findings" }).count()).toBe(0);
     await shot(page, "orders-roster-draft");
+    await page.setViewportSize({ width: 390, height: 844 });
+    await noOverflow(page, 390);
+    await shot(page, "orders-roster-draft-phone");
+    await page.setViewportSize({ width: 1360, height: 900 });
 
     const table = page.getByTestId("ballot-table");
     const rows = await table.locator("tbody tr").count();
