@@ -92,3 +92,19 @@ describe("collapsing the majority graph", () => {
     expect(s).not.toContain("v01");
   });
 });
+
+describe("the cycle finding", () => {
+  it("names up to four versions of a cycle and counts a longer one", async () => {
+    const { buildFindings } = await import("../../../src/lib/estimates/findings.ts");
+    const ids = Array.from({ length: 6 }, (_, i) => `v${i + 1}`);
+    const rot = (k: number) => [...ids.slice(k), ...ids.slice(0, k)];
+    const r = report(ids, ids.map((_, k) => ({ ranking: rot(k) })));
+    expect(r.topCycle.length).toBe(6);
+    const labels = { measureKey: "measure", measureLabel: "HCA 1", amendments: {} };
+    const analysis = { procedure: "amendment" as const, threshold: "majority", alternatives: [], questions: [], constraints: [], majority: r, orders: 1, sincere: {}, sophisticated: {} };
+    const findings = buildFindings(analysis as never, { orders: [], count: 0, complete: true } as never, labels, "Test");
+    const cycle = findings.find((f) => f.id === "cycle")!;
+    expect(cycle.headline).toBe("No version beats all the others: the majority preferences cycle among 6 versions — see the majority matrix.");
+    expect(cycle.detail).toMatch(/\(and \d+ more wins within the cycle\)/);
+  });
+});
