@@ -21,11 +21,15 @@ export default function MajorityGraph({ versions, margins, highlight, shown }: {
     if (i !== j && m > 0) edges.push({ from: i, to: j, m });
   }));
   const hi = new Set(highlight);
+  // Past a dozen arrows the margins' labels overlap: they are left to the matrix.
+  const labelled = edges.length <= 12;
   const described = edges.length ? edges.map((e) => `${drawn[e.from].short} beats ${drawn[e.to].short} by ${e.m}`).join("; ") : "no version beats another";
   return (
+    <>
+    {!labelled && <p className="gw-hint">Too many arrows to label: the margins are in the matrix.</p>}
     <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-label={`Majority graph of ${n} version${n === 1 ? "" : "s"}: ${described}`} className="w-full max-w-xl" data-testid="majority-graph">
       <defs>
-        <marker id="gw-arrow" viewBox="0 0 10 10" refX="9" refY="5" markerWidth="7" markerHeight="7" orient="auto-start-reverse"><path d="M0,0 L10,5 L0,10 z" fill="currentColor" /></marker>
+        <marker id="gw-arrow" viewBox="0 0 10 10" refX="9" refY="5" markerUnits="userSpaceOnUse" markerWidth="11" markerHeight="11" orient="auto-start-reverse"><path d="M0,0 L10,5 L0,10 z" fill="currentColor" /></marker>
       </defs>
       {edges.map((e, k) => {
         const a = pos[e.from];
@@ -41,7 +45,7 @@ export default function MajorityGraph({ versions, margins, highlight, shown }: {
         return (
           <g key={k} className={cyc ? "text-brass-text" : "text-ink-soft"}>
             <line x1={s.x} y1={s.y} x2={t.x} y2={t.y} stroke="currentColor" strokeWidth={cyc ? 2.5 : 1.4} markerEnd="url(#gw-arrow)" />
-            <text x={s.x + (t.x - s.x) * 0.4 - uy * 10} y={s.y + (t.y - s.y) * 0.4 + ux * 10 + 4} fontSize="13" textAnchor="middle" fill="currentColor" className="font-semibold" paintOrder="stroke" stroke="white" strokeWidth="3">+{e.m}</text>
+            {labelled && <text x={s.x + (t.x - s.x) * 0.4 - uy * 10} y={s.y + (t.y - s.y) * 0.4 + ux * 10 + 4} fontSize="13" textAnchor="middle" fill="currentColor" className="font-semibold" paintOrder="stroke" stroke="white" strokeWidth="3">+{e.m}</text>}
           </g>
         );
       })}
@@ -58,5 +62,6 @@ export default function MajorityGraph({ versions, margins, highlight, shown }: {
         );
       })}
     </svg>
+    </>
   );
 }

@@ -37,10 +37,10 @@ export default function MajorityMatrix({ versions, margins, topCycle, condorcetW
           </caption>
           <thead>
             <tr>
-              <th scope="col" aria-sort={ariaSort("name")} className="min-w-[9rem]">{header("name", "Version")}</th>
-              <th scope="col" aria-sort={ariaSort("wins")}>{header("wins", "Wins")}</th>
-              <th scope="col" aria-sort={ariaSort("losses")}>{header("losses", "Losses")}</th>
-              <th scope="col" aria-sort={ariaSort("copeland")} className="min-w-[7.5rem]">{header("copeland", "Wins − losses")}</th>
+              <th scope="col" aria-sort={ariaSort("name")} className="min-w-[9rem]">{header("name", "Version", "whitespace-nowrap")}</th>
+              <th scope="col" aria-sort={ariaSort("wins")}>{header("wins", "Wins", "whitespace-nowrap")}</th>
+              <th scope="col" aria-sort={ariaSort("losses")}>{header("losses", "Losses", "whitespace-nowrap")}</th>
+              <th scope="col" aria-sort={ariaSort("copeland")}>{header("copeland", "Wins − losses", "whitespace-nowrap")}</th>
               {versions.map((v) => (
                 <th key={v.id} scope="col" aria-sort={ariaSort(`beats:${v.id}`)} className="min-w-[4.5rem] align-bottom text-xs">
                   {header(`beats:${v.id}`, `over ${v.short}`, "font-normal")}
