@@ -8,7 +8,8 @@ import { z } from "zod";
 import type { BallotRow } from "../../lib/estimates/estimate-content.ts";
 import { placesFromRanking, rankingFromPlaces } from "../../lib/estimates/ranking-places.ts";
 import { rankingText } from "../../lib/estimates/ballot-csv.ts";
-import { ApiError, apiCall } from "./api.ts";
+import { ApiError, apiCall } from "../shared/api.ts";
+import { Alert } from "../shared/Alert.tsx";
 
 interface Row {
   key: number;
@@ -154,12 +155,7 @@ export default function BallotTable({ estimateId, rows: initial, partial: initia
         <summary className="cursor-pointer">The versions in full ({versions.length})</summary>
         <ul className="mt-1 list-disc pl-6">{versions.map((v) => <li key={v.id}><strong>{v.short}</strong>: {v.words}</li>)}</ul>
       </details>
-      {error && (
-        <div role="alert">
-          <p className="gw-error">{error}</p>
-          {issues.length > 1 && <ul className="list-disc pl-6 text-sm text-verdict-bar">{issues.map((x, j) => <li key={j}>{x.message}</li>)}</ul>}
-        </div>
-      )}
+      <Alert issues={issues}>{error}</Alert>
       <button type="button" className="gw-btn" disabled={busy} onClick={() => void save()}>Save as version {basedOn + 1}</button>
     </div>
   );

@@ -4,7 +4,9 @@
  */
 import { useEffect, useState } from "react";
 import { z } from "zod";
-import { ApiError, apiCall, versionSchema } from "./api.ts";
+import { Alert } from "../shared/Alert.tsx";
+import { ApiError, apiCall } from "../shared/api.ts";
+import { versionSchema } from "./api.ts";
 
 const optionsSchema = z.object({ measures: z.array(z.object({ id: z.string(), number: z.string(), title: z.string() })) });
 const versionsSchema = z.object({ pending: z.array(z.object({ key: z.string(), title: z.string().nullable(), target: z.string(), form: z.string(), outOfOrder: z.string().nullable().optional() })), versions: z.array(versionSchema.extend({ amendments: z.array(z.string()) })) });
@@ -149,7 +151,7 @@ export default function NewEstimate() {
         <button className="gw-btn-quiet" onClick={() => void startBlank()} disabled={!measureId || !title.trim()}>Start from the roster and fill it in on the page</button>
       </div>
       <p className="gw-hint">{kind === "spatial" ? `Columns: member, bloc, weight, then one per dimension (${dimensions}). ` : ""}Ballots' columns: member, bloc, weight, ranking, and optionally chair ("yes" on the presiding officer's row, weight 1: its ranking gives the chair's vote under the rulebook's tie rule). Write the ranking best first with "&gt;" between places and "=" for equal ones, using the version names from the template's example row. Save the file as CSV UTF-8. Starting from the roster makes a draft to fill in on the page; it cannot be analysed until every row is filled in or marked unranked.</p>
-      {error && <div role="alert"><p className="gw-error">{error}</p>{issues.length > 1 && <ul className="list-disc pl-6 text-sm text-verdict-bar">{issues.map((i, k) => <li key={k}>{i.message}</li>)}</ul>}</div>}
+      <Alert issues={issues}>{error}</Alert>
       {preview?.content.members && (
         <p className="font-semibold">Preview: {preview.content.members.length} ideal point{preview.content.members.length === 1 ? "" : "s"}, {preview.content.members.reduce((a, r) => a + r.weight, 0)} votes in all.</p>
       )}
