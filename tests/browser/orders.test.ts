@@ -342,4 +342,29 @@ describe("voting orders", () => {
     await noOverflow(page, 390);
     await shot(page, "orders-matrix-phone");
   });
+
+  it("a spatial estimate started from the roster is a draft until the blocs are placed and saved", async () => {
+    const page = await browser.freshPage();
+    await signInAs(page, "clerk");
+    await page.goto(`${BASE_URL}/orders`);
+    await page.getByLabel("Measure").selectOption({ label: "HCA 12 — Harbour Lighting and Quayside Safety Ordinance" });
+    await page.getByRole("checkbox", { name: /^A1 \(/ }).check();
+    await visible(page.getByTestId("versions-to-rank").getByText("HCA 12 + A1", { exact: true }));
+    await page.getByLabel("Kind").selectOption("spatial");
+    await page.getByLabel("Policy dimensions").fill("Lighting, Cost");
+    await page.getByLabel("Title of the estimate").fill(`Spatial roster ${unique}`);
+    await Promise.all([page.waitForURL(/\/orders\/[0-9a-f-]{36}$/), page.getByRole("button", { name: "Start from the roster and fill it in on the page" }).click()]);
+    await visible(page.getByText(/version 1 of 1 — Started from the roster \(\d+ blocs\); positions are placeholders, not yet set/));
+    expect(await textOf(page.getByTestId("draft-notice"))).toMatch(/the positions are the roster's placeholders/);
+    await visible(page.getByTestId("analysis-refused"));
+    // Place one bloc with the keyboard and save: the positions are now the clerk's, and the analysis runs.
+    const bloc = page.getByRole("button", { name: /votes? at \(0, 0\)/ }).first();
+    await bloc.focus();
+    await page.keyboard.press("ArrowUp");
+    await page.getByRole("button", { name: "Save these positions as a new version" }).click();
+    await visible(page.getByText(/version 2 of 2 — Positions edited on the plot/));
+    expect(await page.getByTestId("draft-notice").count()).toBe(0);
+    await visible(page.getByRole("heading", { name: "Findings" }), 60_000);
+    await noOverflow(page);
+  });
 });
