@@ -12,7 +12,7 @@ export function syntheticRollCalls(members: number, votes: number, seed = 7, dim
   const xs = ids.map(() => Array.from({ length: dimensions }, gauss));
   const out: IdealPointsInput["votes"] = [];
   for (let j = 0; j < votes; j++) {
-    const beta = Array.from({ length: dimensions }, () => gauss() * 1.5);
+    const beta = Array.from({ length: dimensions }, () => gauss() * 2.5);
     const alpha = gauss() * 0.8;
     const yea: string[] = [];
     const nay: string[] = [];
