@@ -24,7 +24,7 @@ const FIRST = ["Ada", "Bram", "Cleo", "Dov", "Esme", "Fenn", "Gil", "Hana"];
 const LAST = ["Quill", "Marrow", "Tansy"];
 const members = LAST.flatMap((l) => FIRST.map((f) => `${f} ${l}`)); // ordered: all Quills, then Marrows, then Tansys
 const bloc = (i: number) => ["Harbour Progressives", "Civic Reform", "Moorland Union"][Math.floor(i / 8)];
-const rollCalls = Array.from({ length: 30 }, (_, k) => ({ id: `RC ${k + 1}`, cut: 2 + ((k * 7) % 20), rightYea: k % 3 === 0 }));
+const rollCalls = Array.from({ length: 30 }, (_, k) => ({ id: `RC ${k + 1}`, cut: 1 + ((k * 7) % 23), rightYea: k % 3 === 0 }));
 const position = (i: number, k: number) => {
   if ((i + k) % 24 === 5) return "not voting";
   const leftOfCut = i < rollCalls[k].cut;
@@ -82,7 +82,7 @@ describe("positions from recorded votes", () => {
     await page.getByRole("group", { name: "Status quo (the measure rejected)" }).getByLabel("Left to right").fill("1.2");
     await page.getByRole("group", { name: "HCA 12 as introduced" }).getByLabel("Left to right").fill("-0.8");
     await page.getByRole("button", { name: "Save as estimate" }).click();
-    expect(await textOf(page.getByRole("alert"))).toContain("Where amendment A1, if adopted, puts the measure, Left to right: give a number");
+    expect(await textOf(page.getByRole("alert"))).toContain("Amendment A1, Left to right: give a number");
     await page.getByRole("group", { name: "Where amendment A1, if adopted, puts the measure" }).getByLabel("Left to right").fill("0.1");
     await shot(page, "positions-save");
     await Promise.all([page.waitForURL(/\/orders\/[0-9a-f-]{36}$/), page.getByRole("button", { name: "Save as estimate" }).click()]);
