@@ -91,14 +91,18 @@ describe("positions from recorded votes", () => {
     await shot(page, "positions-analysis");
   });
 
-  it("reads at phone width", async () => {
+  it("two dimensions at phone width: the plane with each member's uncertainty and a roll call's cutting line", async () => {
     const page = await browser.freshPage();
     await page.setViewportSize({ width: 390, height: 844 });
     await signInAs(page, "staff");
     await page.goto(`${BASE_URL}/orders/positions`);
     await page.getByLabel("CSV file of recorded votes").setInputFiles(file("session.csv", MATRIX));
+    await page.getByLabel("Dimensions").selectOption({ label: "Two" });
     await page.getByRole("button", { name: "Estimate positions" }).click();
     await visible(page.getByRole("heading", { name: "3. Where members stand" }), 60_000);
+    await visible(page.getByRole("img", { name: /on two dimensions, with the cutting line of RC 1/ }));
+    await visible(page.getByTestId("cutting-line"));
+    await visible(page.getByRole("columnheader", { name: "Second dimension" }));
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(1);
     await shot(page, "positions-phone");
