@@ -45,6 +45,8 @@ export interface FitState {
 export interface EmOptions {
   maxIterations?: number;
   tolerance?: number;
+  /** SQUAREM acceleration (default true); false runs the plain EM iteration. */
+  accelerate?: boolean;
   /** Called after each iteration; may throw to stop (cancellation). */
   onIteration?: (iteration: number) => void;
 }
@@ -148,19 +150,77 @@ export function runEm(m: RollCallMatrix, start: FitState, opts: EmOptions = {}):
   const A = new Float64Array(e * e);
   const r = new Float64Array(e);
   const item = new Float64Array(e);
-  for (let it = 1; it <= maxIterations; it++) {
-    const prevX = Float64Array.from(s.x);
-    const prevB = Float64Array.from(s.beta);
-    if (d === 1) {
-      oneDimensionalStep(m, s, ystar);
-    } else {
-      twoStep(m, s, ystar, A, r, item, e);
+  const step = () => (d === 1 ? oneDimensionalStep(m, s, ystar) : twoStep(m, s, ystar, A, r, item, e));
+  const settled = (prevX: Float64Array, prevB: Float64Array) => {
+    let worst = 0;
+    for (let k = 0; k < d; k++) worst = Math.max(worst, 1 - correlation(prevX, s.x, d, k), 1 - correlation(prevB, s.beta, d, k));
+    return worst < tolerance;
+  };
+  if (opts.accelerate === false) {
+    for (let it = 1; it <= maxIterations; it++) {
+      const prevX = Float64Array.from(s.x);
+      const prevB = Float64Array.from(s.beta);
+      step();
+      s.iterations = it;
+      opts.onIteration?.(it);
+      if (settled(prevX, prevB)) {
+        s.converged = true;
+        break;
+      }
+    }
+    return s;
+  }
+  // SQUAREM (Varadhan and Roland 2008, Scand. J. Statist. 35:335–353, scheme S3; from memory): two EM
+  // steps θ1 = F(θ0), θ2 = F(θ1); r = θ1 − θ0, v = θ2 − θ1 − r; step a = −‖r‖/‖v‖ (at most −1, at least
+  // −stepMax); θ' = θ0 − 2a·r + a²·v; then one more EM step from θ' to stabilise. The fixed point is the
+  // EM's; a non-finite extrapolation falls back to θ2.
+  const parts = (st: FitState) => [st.x, st.alpha, st.beta];
+  const copy = () => parts(s).map((p) => Float64Array.from(p));
+  let stepMax = 1;
+  let it = 0;
+  while (it < maxIterations) {
+    const t0 = copy();
+    step();
+    const t1 = copy();
+    step();
+    const t2 = copy();
+    it += 2;
+    let rr = 0, vv = 0;
+    for (let q = 0; q < 3; q++) {
+      const a0 = t0[q], a1 = t1[q], a2 = t2[q];
+      for (let k = 0; k < a0.length; k++) {
+        const rk = a1[k] - a0[k];
+        const vk = a2[k] - 2 * a1[k] + a0[k];
+        rr += rk * rk;
+        vv += vk * vk;
+      }
+    }
+    let a = vv > 0 ? -Math.sqrt(rr / vv) : -1;
+    if (!Number.isFinite(a)) a = -1;
+    a = Math.max(-stepMax, Math.min(-1, a));
+    if (a < -1) {
+      const target = parts(s);
+      for (let q = 0; q < 3; q++) {
+        const a0 = t0[q], a1 = t1[q], a2 = t2[q], out = target[q];
+        for (let k = 0; k < a0.length; k++) {
+          const rk = a1[k] - a0[k];
+          const vk = a2[k] - 2 * a1[k] + a0[k];
+          out[k] = a0[k] - 2 * a * rk + a * a * vk;
+        }
+      }
+    }
+    if (a === -stepMax) stepMax *= 4;
+    if (it < maxIterations) {
+      step();
+      it++;
+    }
+    if (!parts(s).every((p) => p.every(Number.isFinite))) {
+      parts(s).forEach((p, q) => p.set(t2[q]));
+      stepMax = 1;
     }
     s.iterations = it;
     opts.onIteration?.(it);
-    let worst = 0;
-    for (let k = 0; k < d; k++) worst = Math.max(worst, 1 - correlation(prevX, s.x, d, k), 1 - correlation(prevB, s.beta, d, k));
-    if (worst < tolerance) {
+    if (settled(t0[0], t0[2])) {
       s.converged = true;
       break;
     }

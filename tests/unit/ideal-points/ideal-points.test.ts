@@ -168,3 +168,22 @@ describe("uncertainty, determinism and input", () => {
     expect(e.issues.map((i) => i.path)).toContain(path);
   });
 });
+
+describe("the EM iteration", () => {
+  it("SQUAREM acceleration reaches the plain EM's fixed point", async () => {
+    const { buildMatrix, runEm, startValues } = await import("../../../src/lib/ideal-points/em.ts");
+    const input = syntheticRollCalls(30, 50, 21);
+    const ids = new Map<string, number>();
+    const cells: Array<{ member: number; vote: number; yea: boolean }> = [];
+    input.votes.forEach((v, j) => {
+      for (const [list, yea] of [[v.yea, true], [v.nay, false]] as const) for (const m of list) cells.push({ member: ids.get(m) ?? (ids.set(m, ids.size), ids.size - 1), vote: j, yea });
+    });
+    const m = buildMatrix(ids.size, input.votes.length, cells);
+    const start = startValues(m, 1);
+    const plain = runEm(m, start, { accelerate: false, tolerance: 1e-13, maxIterations: 20_000 });
+    const fast = runEm(m, start, { tolerance: 1e-13, maxIterations: 20_000 });
+    expect(plain.converged && fast.converged).toBe(true);
+    expect(fast.iterations).toBeLessThan(plain.iterations);
+    for (let i = 0; i < plain.x.length; i++) expect(fast.x[i]).toBeCloseTo(plain.x[i], 3);
+  });
+});
