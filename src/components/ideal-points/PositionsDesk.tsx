@@ -287,12 +287,15 @@ function Chart({ result, colour, cut }: { result: Result; colour: (m: string) =>
   const H = W;
   const sy = (y: number) => H - pad - ((y + spread) / (2 * spread)) * (H - 2 * pad);
   let line: [number, number, number, number] | null = null;
+  let yeaMark: [number, number] | null = null;
   if (cut?.cut) {
     const [a, b] = cut.cut.normal;
     const at = cut.cut.at;
     const px = a * at, py = b * at; // closest point to the centre
     const L = spread * 3;
     line = [px - b * L, py + a * L, px + b * L, py - a * L];
+    const clamp = (v: number) => Math.max(-spread * 0.9, Math.min(spread * 0.9, v));
+    yeaMark = [clamp(px + a * spread * 0.15), clamp(py + b * spread * 0.15)];
   }
   return (
     <svg viewBox={`0 0 ${W} ${H}`} className="w-full max-w-2xl" role="img" aria-label={`Members' positions on two dimensions${cut ? `, with the cutting line of ${cut.id}` : ""}`} data-testid="positions-chart">
@@ -317,6 +320,7 @@ function Chart({ result, colour, cut }: { result: Result; colour: (m: string) =>
       {line && (
         <g data-testid="cutting-line" clipPath="url(#plot-area)">
           <line x1={sx(line[0])} y1={sy(line[1])} x2={sx(line[2])} y2={sy(line[3])} stroke="#111" strokeDasharray="5 4" />
+          {yeaMark && <text x={sx(yeaMark[0])} y={sy(yeaMark[1])} fontSize="12" textAnchor="middle" fill="#111">yea side</text>}
         </g>
       )}
     </svg>

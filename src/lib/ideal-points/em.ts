@@ -13,7 +13,7 @@
  *            x_i ← (I + Σ_j β_j β_jᵀ)⁻¹ Σ_j β_j (y*_ij − α_j),
  * sums over the votes actually cast (a member absent from a roll call contributes nothing to it),
  * the two conditional maximisations done one after the other (an ECM step). The fixed point is the
- * posterior mode. Stops when 1 − r between successive iterates (r = Pearson correlation, per
+ * posterior mode. The iteration is accelerated by SQUAREM (see runEm). Stops when 1 − r between successive iterates (r = Pearson correlation, per
  * dimension, of the ideal points and of the discrimination parameters) is below `tolerance`, as the
  * authors' software does, or after `maxIterations`. Pure and deterministic.
  */
