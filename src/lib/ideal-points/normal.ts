@@ -10,10 +10,11 @@ const SQRT_2_OVER_PI = 0.7978845608028654;
 
 /** exp(z²)·erfc(z). */
 export function erfcx(z: number): number {
-  if (z < 0) return 2 * Math.exp(z * z) - erfcx(-z);
-  const t = 1 / (1 + 0.5 * z);
-  const p = -1.26551223 + t * (1.00002368 + t * (0.37409196 + t * (0.09678418 + t * (-0.18628806 + t * (0.27886807 + t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277))))))));
-  return t * Math.exp(p);
+  const a = z < 0 ? -z : z;
+  const t = 1 / (1 + 0.5 * a);
+  const v = t * Math.exp(-1.26551223 + t * (1.00002368 + t * (0.37409196 + t * (0.09678418 + t * (-0.18628806 + t * (0.27886807 + t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))))));
+  // erfc(−a) = 2 − erfc(a), so erfcx(−a) = 2·exp(a²) − erfcx(a) (no recursion, so the engine inlines it).
+  return z < 0 ? 2 * Math.exp(a * a) - v : v;
 }
 
 /** Standard normal distribution function Φ(m). */
