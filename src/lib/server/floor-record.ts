@@ -36,10 +36,12 @@ export const boardSchema = z.object({
   voteTaken: z.boolean(),
   tabled: z.number().int().min(0),
   lastVote: z.object({ motion: idSchema, name: z.string(), result: z.enum(["adopted", "rejected"]), tally: tallySchema.nullable() }).nullable(),
+  /** Sitting as a Committee of the Whole (US House Rule XVIII); boards stored before this field read as false. */
+  committeeOfTheWhole: z.boolean().default(false),
 });
 export type Board = z.output<typeof boardSchema>;
 
-export const EMPTY_BOARD: Board = { pending: [], speaker: null, chairHasRuled: false, voteTaken: false, tabled: 0, lastVote: null };
+export const EMPTY_BOARD: Board = { pending: [], speaker: null, chairHasRuled: false, voteTaken: false, tabled: 0, lastVote: null, committeeOfTheWhole: false };
 
 const shortText = (max: number) => z.string().trim().max(max);
 
@@ -49,7 +51,7 @@ export const floorEventSchema = z.discriminatedUnion("kind", [
   z.object({ kind: z.literal("stated") }),
   z.object({ kind: z.literal("voted"), result: z.enum(["adopted", "rejected"]), tally: tallySchema.nullable().default(null), disposesBelow: z.boolean().default(false) }),
   z.object({ kind: z.literal("withdrawn"), key: z.string().min(1).max(40) }),
-  z.object({ kind: z.literal("floor"), speaker: shortText(200).nullable().optional(), debateBegun: z.boolean().optional(), chairHasRuled: z.boolean().optional() }),
+  z.object({ kind: z.literal("floor"), speaker: shortText(200).nullable().optional(), debateBegun: z.boolean().optional(), chairHasRuled: z.boolean().optional(), committeeOfTheWhole: z.boolean().optional() }),
   z.object({ kind: z.literal("close") }),
 ]);
 export type FloorEvent = z.output<typeof floorEventSchema>;
@@ -68,6 +70,7 @@ export function floorStateOf(board: Board): FloorStateInput {
       // The last vote recorded, so reconsider is judged by what was voted and how (RONR 1915 §36);
       // its day is not recorded, so no time limit is applied here.
       votes: board.lastVote ? [{ motion: board.lastVote.motion, result: board.lastVote.result }] : [],
+      committeeOfTheWhole: board.committeeOfTheWhole,
     },
   };
 }
@@ -136,6 +139,10 @@ export function applyFloorEvent(rulebook: Rulebook, board: Board, event: FloorEv
       if (event.chairHasRuled !== undefined) {
         next.chairHasRuled = event.chairHasRuled;
         parts.push(event.chairHasRuled ? "The chair has ruled" : "No ruling awaiting appeal");
+      }
+      if (event.committeeOfTheWhole !== undefined) {
+        next.committeeOfTheWhole = event.committeeOfTheWhole;
+        parts.push(event.committeeOfTheWhole ? "Sitting as a Committee of the Whole" : "Sitting as the chamber (out of Committee of the Whole)");
       }
       if (!parts.length) refuse("Say what changed on the floor.", "event");
       return { board: next, summary: parts.join("; ") };
