@@ -7,7 +7,8 @@
  */
 import { useEffect, useMemo, useRef, useState } from "react";
 import { z } from "zod";
-import { ApiError, apiCall } from "../shared/api.ts";
+import { ApiError, apiCall, type Issue } from "../shared/api.ts";
+import { Alert } from "../shared/Alert.tsx";
 
 const importSchema = z.object({
   layout: z.enum(["long", "matrix"]),
@@ -41,15 +42,16 @@ const pct = (v: number) => `${(v * 100).toFixed(1)}%`;
 const num = (v: number) => (Math.round(v * 100) / 100).toFixed(2);
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
-function problem(e: unknown, fallback: string): { message: string; issues: string[] } {
-  if (e instanceof ApiError) return { message: e.message, issues: e.issues.map((i) => i.message) };
+type Problem = { message: string; issues: Issue[] };
+function problem(e: unknown, fallback: string): Problem {
+  if (e instanceof ApiError) return { message: e.message, issues: e.issues };
   return { message: fallback, issues: [] };
 }
 
 export default function PositionsDesk() {
   const [data, setData] = useState<Imported | null>(null);
   const [fileName, setFileName] = useState("");
-  const [error, setError] = useState<{ message: string; issues: string[] } | null>(null);
+  const [error, setError] = useState<Problem | null>(null);
   const [dims, setDims] = useState<1 | 2>(1);
   const [left, setLeft] = useState("");
   const [right, setRight] = useState("");
@@ -150,12 +152,7 @@ export default function PositionsDesk() {
         )}
       </section>
 
-      {error && (
-        <div role="alert" className="gw-card">
-          <p className="gw-error">{error.message}</p>
-          {error.issues.length > 1 && <ul className="list-disc pl-6 text-sm text-verdict-bar">{error.issues.map((m, k) => <li key={k}>{m}</li>)}</ul>}
-        </div>
-      )}
+      <Alert look="box" issues={error?.issues}>{error?.message}</Alert>
 
       {data && (
         <section className="gw-card space-y-3" aria-labelledby="pos-est">
@@ -335,7 +332,7 @@ function SaveAsEstimate({ result, blocOf }: { result: Result; blocOf: (m: string
   const [title, setTitle] = useState("");
   const [names, setNames] = useState<string[]>(result.dimensions === 1 ? ["Left to right"] : ["First dimension", "Second dimension"]);
   const [places, setPlaces] = useState<Record<string, string[]>>({});
-  const [error, setError] = useState<{ message: string; issues: string[] } | null>(null);
+  const [error, setError] = useState<Problem | null>(null);
   const d = result.dimensions;
 
   useEffect(() => {
@@ -365,18 +362,18 @@ function SaveAsEstimate({ result, blocOf }: { result: Result; blocOf: (m: string
 
   const save = async () => {
     setError(null);
-    const issues: string[] = [];
+    const issues: Issue[] = [];
     const read = (key: string, label: string) =>
       place(key).map((v, k) => {
         const x = Number(v.trim());
-        if (v.trim() === "" || !Number.isFinite(x)) issues.push(`${label}, ${names[k]}: give a number (a point for decimals)`);
+        if (v.trim() === "" || !Number.isFinite(x)) issues.push({ path: `${key}.${k}`, message: `${label}, ${names[k]}: give a number (a point for decimals)` });
         return x;
       });
-    if (!title.trim()) issues.push("Give the estimate a title.");
+    if (!title.trim()) issues.push({ path: "title", message: "Give the estimate a title." });
     const statusQuo = read("Q", "Status quo");
     const measure = read("measure", measureNumber);
     const effects = Object.fromEntries(scope.map((a) => [a, { position: read(a, `Amendment ${a}`) }]));
-    if (issues.length) return setError({ message: issues.length === 1 ? issues[0] : "Some places are missing.", issues });
+    if (issues.length) return setError({ message: issues.length === 1 ? issues[0].message : `${issues.length} things to fix before saving.`, issues });
     try {
       const content = {
         kind: "spatial",
@@ -429,12 +426,7 @@ function SaveAsEstimate({ result, blocOf }: { result: Result; blocOf: (m: string
       {placeInputs("Q", "Status quo (the measure rejected)")}
       {placeInputs("measure", `${measureNumber} as introduced`)}
       {scope.map((a) => placeInputs(a, `Where amendment ${a}, if adopted, puts the measure`))}
-      {error && (
-        <div role="alert">
-          <p className="gw-error">{error.message}</p>
-          {error.issues.length > 1 && <ul className="list-disc pl-6 text-sm text-verdict-bar">{error.issues.map((m, k) => <li key={k}>{m}</li>)}</ul>}
-        </div>
-      )}
+      <Alert issues={error?.issues}>{error?.message}</Alert>
       <button className="gw-btn" onClick={() => void save()} disabled={!measureId}>Save as estimate</button>
     </div>
   );
