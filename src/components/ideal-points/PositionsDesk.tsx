@@ -375,9 +375,15 @@ function SaveAsEstimate({ result, blocOf }: { result: Result; blocOf: (m: string
     const effects = Object.fromEntries(scope.map((a) => [a, { position: read(a, `Amendment ${a}`) }]));
     if (issues.length) return setError({ message: issues.length === 1 ? issues[0].message : `${issues.length} things to fix before saving.`, issues });
     try {
+      // The plot's frame on each dimension: every member and every placed version, with a margin.
+      const ranges = names.map((_, k) => {
+        const xs = [...result.members.map((m) => m.ideal[k]), statusQuo[k], measure[k], ...Object.values(effects).map((e) => e.position[k])];
+        return [Math.floor(Math.min(...xs) * 2 - 1) / 2, Math.ceil(Math.max(...xs) * 2 + 1) / 2];
+      });
       const content = {
         kind: "spatial",
         dimensions: names.map((n, k) => n.trim() || `Dimension ${k + 1}`),
+        ranges,
         statusQuo,
         measure,
         effects,
