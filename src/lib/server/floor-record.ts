@@ -8,6 +8,7 @@
  * question takes what adheres to it with it, §27).
  */
 import { z } from "zod";
+import { safe, count } from "../schema-parts.ts";
 import { idSchema } from "../amendments/case-schema.ts";
 import { GavelError } from "../errors.ts";
 import type { FloorStateInput } from "../procedure/floor-state-schema.ts";
@@ -16,12 +17,12 @@ import type { Rulebook } from "../procedure/rulebook-schema.ts";
 export const STAGES = ["made", "seconded", "stated"] as const;
 
 export const pendingItemSchema = z.object({
-  key: z.string().min(1).max(40),
+  key: safe(z.string().min(1).max(40)),
   motion: idSchema,
-  name: z.string().max(200),
+  name: safe(z.string().max(200)),
   degree: z.number().int().min(1).max(10).nullable(),
-  text: z.string().max(2000),
-  mover: z.string().max(200),
+  text: safe(z.string().max(2000)),
+  mover: safe(z.string().max(200)),
   stage: z.enum(STAGES),
   debateBegun: z.boolean(),
 });
@@ -31,10 +32,10 @@ export const tallySchema = z.object({ yes: z.number().int().min(0).max(100_000),
 
 export const boardSchema = z.object({
   pending: z.array(pendingItemSchema).max(100),
-  speaker: z.string().max(200).nullable(),
+  speaker: safe(z.string().max(200)).nullable(),
   chairHasRuled: z.boolean(),
   voteTaken: z.boolean(),
-  tabled: z.number().int().min(0),
+  tabled: count(),
   lastVote: z.object({ motion: idSchema, name: z.string(), result: z.enum(["adopted", "rejected"]), tally: tallySchema.nullable() }).nullable(),
   /** Sitting as a Committee of the Whole (US House Rule XVIII); boards stored before this field read as false. */
   committeeOfTheWhole: z.boolean().default(false),
@@ -43,14 +44,14 @@ export type Board = z.output<typeof boardSchema>;
 
 export const EMPTY_BOARD: Board = { pending: [], speaker: null, chairHasRuled: false, voteTaken: false, tabled: 0, lastVote: null, committeeOfTheWhole: false };
 
-const shortText = (max: number) => z.string().trim().max(max);
+const shortText = (max: number) => safe(z.string().trim().max(max));
 
 export const floorEventSchema = z.discriminatedUnion("kind", [
   z.object({ kind: z.literal("made"), motion: idSchema, text: shortText(2000).default(""), mover: shortText(200).default(""), overrule: z.boolean().default(false) }),
   z.object({ kind: z.literal("seconded") }),
   z.object({ kind: z.literal("stated") }),
   z.object({ kind: z.literal("voted"), result: z.enum(["adopted", "rejected"]), tally: tallySchema.nullable().default(null), disposesBelow: z.boolean().default(false) }),
-  z.object({ kind: z.literal("withdrawn"), key: z.string().min(1).max(40) }),
+  z.object({ kind: z.literal("withdrawn"), key: safe(z.string().min(1).max(40)) }),
   z.object({ kind: z.literal("floor"), speaker: shortText(200).nullable().optional(), debateBegun: z.boolean().optional(), chairHasRuled: z.boolean().optional(), committeeOfTheWhole: z.boolean().optional() }),
   z.object({ kind: z.literal("close") }),
 ]);
