@@ -11,6 +11,7 @@
 import Papa from "papaparse";
 import { GavelError, type InputIssue } from "../errors.ts";
 import { cellIssue, decodeCsv, failRows } from "../estimates/csv-text.ts";
+import { restoreCell } from "../text/csv-cells.ts";
 
 export const MAX_ROLL_CALL_ROWS = 200_000;
 export const MAX_ROLL_CALL_BYTES = 8 * 1024 * 1024;
@@ -43,7 +44,8 @@ function position(raw: string): "yea" | "nay" | null | undefined {
 const BAD_POSITION = "is not a recorded position (use yea or nay; present, abstain, not voting, absent, recused or blank are not counted)";
 
 export function parseRollCallCsv(text: string): RollCallImport {
-  const data = Papa.parse<string[]>(text.replace(/\r\n?/g, "\n"), { skipEmptyLines: "greedy" }).data;
+  // A cell the app neutralised against formula injection when it wrote a CSV is read back without the apostrophe.
+  const data = Papa.parse<string[]>(text.replace(/\r\n?/g, "\n"), { skipEmptyLines: "greedy" }).data.map((r) => r.map((c) => restoreCell(c.trim())));
   if (data.length === 0) throw new GavelError("invalid-input", "the file is empty", { issues: [{ path: "file", message: "no header row" }] });
   const header = data[0].map((h) => h.trim());
   const lower = header.map((h) => h.toLowerCase());
