@@ -173,6 +173,7 @@ export const API_ROUTES: readonly ApiRoute[] = [
   { file: "api/ideal-points/runs/[id].ts", method: "GET", path: "/api/ideal-points/runs/:id", audience: ESTIMATORS, outsider: "refused", params: { id: "run" }, note: "only the person who started it" },
   { file: "api/ideal-points/runs/[id].ts", method: "DELETE", path: "/api/ideal-points/runs/:id", audience: ESTIMATORS, outsider: "refused", params: { id: "run" }, note: "only the person who started it" },
   { file: "api/estimates/import.ts", method: "POST", path: "/api/estimates/import", audience: ESTIMATORS, outsider: "refused", query: (s) => ({ measureId: s.measure, title: "Access import" }), raw: csv },
+  { file: "api/estimates/roster.ts", method: "POST", path: "/api/estimates/roster", audience: ESTIMATORS, outsider: "refused", body: (s) => ({ measureId: s.measure, title: "Access roster draft", scope: [] }), note: "an unfilled draft" },
   { file: "api/estimates/[id].ts", method: "GET", path: "/api/estimates/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "estimate" }, note: "private estimates only to their author" },
   { file: "api/estimates/[id]/analysis.ts", method: "GET", path: "/api/estimates/:id/analysis", audience: ALL_ROLES, outsider: "refused", params: { id: "estimate" } },
   { file: "api/estimates/[id]/duplicate.ts", method: "POST", path: "/api/estimates/:id/duplicate", audience: ESTIMATORS, outsider: "refused", params: { id: "estimate" }, body: () => ({}) },
