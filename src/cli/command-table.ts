@@ -15,6 +15,7 @@ export const COMMAND_TABLE = {
   majority: { usage: "majority FILE", summary: "Majority graph, Condorcet winner, top cycle, Schwartz, uncovered and Banks sets" },
   agendas: { usage: "agendas FILE", summary: "Count legal voting orders and the orders leading to each sincere/sophisticated outcome" },
   orders: { usage: "orders FILE", summary: "Alternatives, majority sets, legal voting orders and their outcomes for an amendment tree" },
+  "ideal-points": { usage: "ideal-points FILE", summary: "Members' positions on 1 or 2 dimensions estimated from recorded votes, with fit and cutting lines" },
 } satisfies Record<string, CommandInfo>;
 
 export type CommandName = keyof typeof COMMAND_TABLE;

@@ -18,6 +18,7 @@ const LOADERS: Record<CommandName, () => Promise<{ default: Command }>> = {
   majority: () => import("./commands/majority.ts"),
   agendas: () => import("./commands/agendas.ts"),
   orders: () => import("./commands/orders.ts"),
+  "ideal-points": () => import("./commands/ideal-points.ts"),
 };
 
 function help(io: CliIO): void {

@@ -47,7 +47,7 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
   // The dimensions' own scale when given (widened if a point lies outside it); otherwise the points' extent.
   const pad = content.ranges ? 0.5 : 2;
   const r = content.ranges;
-  const [x0, x1, y0, y1] = [Math.min(...xs, ...(r ? [r[0][0] + pad] : [])) - pad, Math.max(...xs, ...(r ? [r[0][1] - pad] : [])) + pad, Math.min(...ys, ...(r ? [r[1][0] + pad] : [])) - pad, Math.max(...ys, ...(r ? [r[1][1] - pad] : [])) + pad];
+  const [x0, x1, y0, y1] = [Math.min(...xs, ...(r ? [r[0][0] + pad] : [])) - pad, Math.max(...xs, ...(r ? [r[0][1] - pad] : [])) + pad, Math.min(...ys, ...(r?.[1] ? [r[1][0] + pad] : [])) - pad, Math.max(...ys, ...(r?.[1] ? [r[1][1] - pad] : [])) + pad];
   const span = Math.max(x1 - x0, y1 - y0);
   const W = 560;
   // The plot area (one scale on both axes, so indifference circles stay round), with room for ticks and names.

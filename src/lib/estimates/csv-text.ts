@@ -11,8 +11,8 @@ import { restoreCell } from "../text/csv-cells.ts";
 
 export const MAX_CSV_BYTES = 512 * 1024;
 
-export function decodeCsv(bytes: Uint8Array): string {
-  if (bytes.byteLength > MAX_CSV_BYTES) throw new GavelError("too-large", `the file is ${bytes.byteLength} bytes; the limit is ${MAX_CSV_BYTES}`);
+export function decodeCsv(bytes: Uint8Array, maxBytes = MAX_CSV_BYTES): string {
+  if (bytes.byteLength > maxBytes) throw new GavelError("too-large", `the file is ${bytes.byteLength} bytes; the limit is ${maxBytes}`);
   let text: string;
   try {
     text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
