@@ -88,7 +88,7 @@ export default function PositionsDesk() {
         else if (j.status === "done" && j.result) {
           setResult(j.result);
           setCutVote(j.result.votes.find((v) => v.used)?.id ?? "");
-        } else if (j.error && j.status === "failed") setError({ message: j.error.message, issues: j.error.issues.map((i) => i.message) });
+        } else if (j.error && j.status === "failed") setError({ message: j.error.message, issues: j.error.issues });
       },
       (e) => setError(problem(e, "Lost track of the estimate. Try again.")),
     );
