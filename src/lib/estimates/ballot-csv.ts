@@ -3,7 +3,7 @@
  *   member,bloc,weight,ranking
  *   Moorland Union,Moorland Union,14,measure+A1 > measure+A7 > Q = measure
  * `ranking` lists version ids best first, separated by ">"; "=" joins versions ranked equal.
- * Versions not listed are unranked (the estimate's partial-ballot convention decides, DOMAIN §1).
+ * Versions not listed are unranked (the estimate's partial-ballot convention decides, docs/sources.md §1).
  * An optional `chair` column marks the presiding officer's row ("yes"/"true"/"1"; empty or "no" otherwise).
  * Every problem is reported with its spreadsheet row and column; nothing is half-accepted.
  */

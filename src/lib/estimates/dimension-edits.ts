@@ -1,5 +1,5 @@
 /**
- * Adding and removing a policy dimension of a spatial estimate (DOMAIN §2, spatial model): every
+ * Adding and removing a policy dimension of a spatial estimate (docs/sources.md §2, spatial model): every
  * point of the estimate — members' ideal points, the status quo, the measure, each amendment's new
  * position or shift, and the drawing ranges — carries one coordinate per dimension, so a dimension
  * is added or removed in all of them at once.

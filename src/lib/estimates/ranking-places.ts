@@ -1,7 +1,7 @@
 /**
  * A ranked ballot as "places" (one number per version, 1 = best, equal numbers = a tie, blank =
  * unranked) and back: the shape a table editor shows, one column per version. Weak orders with
- * unranked alternatives, as in the estimate's ballots (DOMAIN §1; partial ballots follow the
+ * unranked alternatives, as in the estimate's ballots (docs/sources.md §1; partial ballots follow the
  * estimate's convention). Only the order of the numbers matters: places 1, 1, 3 and 2, 2, 7 are
  * the same ballot.
  */

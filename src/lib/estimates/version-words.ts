@@ -1,5 +1,5 @@
 /**
- * Plain-language names for the alternatives of an amendment tree (DOMAIN §1: versions of the text,
+ * Plain-language names for the alternatives of an amendment tree (docs/sources.md §1: versions of the text,
  * Q the status quo). Version ids come from the voting engine: "Q", the measure's key, and
  * "<measure>+<amendment keys>" (src/lib/voting/amendment-versions.ts).
  */

@@ -3,7 +3,7 @@
  * texts, the constraints on the order of questions, the thresholds, the quorum and the tie rule.
  * The voting engine (src/lib/voting) reads this section to list legal voting orders.
  *
- * Procedures (see docs/decisions and ../shared DOMAIN conventions):
+ * Procedures (see docs/decisions and docs/sources.md §1):
  *  - "amendment": pairwise votes; the survivor meets the next alternative (Anglo-American practice).
  *  - "successive": each alternative put to a yes/no vote in turn; the first adopted wins (continental practice).
  * Thresholds (docs/decisions/0008-thresholds-quorum-chair.md): one per question kind — amendments

@@ -1,7 +1,7 @@
 /**
  * Exact counts, over every legal order x1…xm, of the orders leading to each outcome, for the
  * amendment and successive procedures, sincere and sophisticated — without listing the orders
- * (DOMAIN §2). Each is one run of the counting engine (count-orders.ts) with a small state machine:
+ * (docs/sources.md §2). Each is one run of the counting engine (count-orders.ts) with a small state machine:
  *  - sincere amendment, forward: state = current survivor; O(I·n²) for I order ideals;
  *  - sophisticated amendment, backward (x_m first): state = (alternatives not yet placed that beat
  *    every member of the Shepsle–Weingast chain, top of the chain); at most ~3^n states;

@@ -1,7 +1,7 @@
 /**
  * The `agendas` analysis: for a majority input, a procedure and ordering constraints, the number of
  * legal voting orders x1…xm, the number of distinct amendment agendas (swapping x1 and x2 changes
- * nothing, DOMAIN §2), and how many orders lead to each outcome under sincere and sophisticated
+ * nothing, docs/sources.md §2), and how many orders lead to each outcome under sincere and sophisticated
  * voting; for one given order, both outcomes, the sophisticated chain and the votes with tallies.
  */
 import { z } from "zod";

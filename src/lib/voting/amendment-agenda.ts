@@ -1,6 +1,6 @@
 /**
  * Outcomes of one amendment agenda x1…xm (pairwise elimination: x1 meets x2, the survivor meets x3,
- * …). In each vote the earlier-listed alternative is the motion and a tie defeats it (DOMAIN §1;
+ * …). In each vote the earlier-listed alternative is the motion and a tie defeats it (docs/sources.md §1;
  * Robert's Rules of Order Revised, 1915, §46).
  *  - Sincere: each vote goes to the directly compared alternative the majority prefers.
  *  - Sophisticated: Shepsle & Weingast (1984, AJPS 28:49–74), linear form: chain C = [xm]; for

@@ -1,5 +1,5 @@
 /**
- * The alternatives of a measure under an amendment tree (DOMAIN §1–2; Ordeshook & Schwartz 1987,
+ * The alternatives of a measure under an amendment tree (docs/sources.md §1–2; Ordeshook & Schwartz 1987,
  * APSR 81:179–199): the status quo Q, the measure, and every version reachable by adopting
  * amendments consistently with the tree.
  *  - A second-degree amendment is only ever part of a version together with its parent.

@@ -1,6 +1,6 @@
 /**
  * Condorcet winner: the alternative that beats every other in the majority graph (Condorcet 1785;
- * DOMAIN §2). With ties (weak tournaments) there may be none.
+ * docs/sources.md §2). With ties (weak tournaments) there may be none.
  */
 import type { MajorityGraph } from "./majority-graph.ts";
 

@@ -1,5 +1,5 @@
 /**
- * The counting engine: dynamic programming over order ideals (DOMAIN §2, "counting outcomes without
+ * The counting engine: dynamic programming over order ideals (docs/sources.md §2, "counting outcomes without
  * listing orders"). Orders are built one item at a time — from the first position forward, or from
  * the last position backward — and a caller-supplied state machine folds each placed item into a
  * state. Orders that reach the same (placed set, state) are merged and counted together, so the cost

@@ -2,7 +2,7 @@
  * Exact arithmetic for spatial inputs: every JSON number is read at its shortest round-trip decimal
  * representation (what JavaScript prints for it; up to 17 significant digits, normally exactly what
  * was written) and scaled by a common power of ten to a BigInt, so squared distances and every
- * comparison made from them are exact (DOMAIN §2, spatial model).
+ * comparison made from them are exact (docs/sources.md §2, spatial model).
  */
 export interface Scaled {
   /** Each input times 10^scale, exactly. */

@@ -2,7 +2,7 @@
  * The majority graph (weak tournament) of a profile, or one given directly.
  *
  * Margins m(x,y) = support(x over y) − support(y over x); members indifferent or abstaining drop out
- * (DOMAIN §1–2). x beats y iff the motion "x over y" meets the threshold; a tie gives no edge
+ * (docs/sources.md §1–2). x beats y iff the motion "x over y" meets the threshold; a tie gives no edge
  * (Robert's Rules of Order Revised, 1915, §46: a tie defeats the motion) unless the tie rule gives
  * the chair a casting vote and the chair's ballot prefers x (docs/decisions/0008).
  * Thresholds "of the members" count against `ctx.members` (the chamber's membership); without a

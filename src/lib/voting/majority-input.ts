@@ -1,6 +1,6 @@
 /**
  * The majority-graph input shared by the `majority` and `agendas` commands, the API and the pages:
- * alternatives plus exactly one of weighted ballots, edges or margins (DOMAIN §1–2).
+ * alternatives plus exactly one of weighted ballots, edges or margins (docs/sources.md §1–2).
  *  - ballots: `{"ranking": ["a", ["b", "c"], "d"], "weight": 2}` — best first; an inner array is a
  *    group ranked equal; weights are positive integers (so every tally is exact);
  *  - edges: `[["winner", "loser"], …]`; pairs not listed are ties;

@@ -1,6 +1,6 @@
 /**
  * The rule that says which item of a voting order may come next, as bitmasks.
- *  - Precedence pairs ("a is voted before b"), transitively closed (DOMAIN §2). A cycle has no legal
+ *  - Precedence pairs ("a is voted before b"), transitively closed (docs/sources.md §2). A cycle has no legal
  *    order and is rejected.
  *  - Windows: an item of `excludes` may not be placed while the set `span` is partly placed, i.e.
  *    between the first and the last member of `span` in the order. A contiguous block B is the window

@@ -3,7 +3,7 @@
  *
  * Each member's order is stored as levels (smaller is preferred; equal levels are indifference;
  * -1 means the member does not compare that alternative and abstains on every pair with it).
- * Partial ballots follow one of two conventions (DOMAIN §1): "abstain" (convention A: a ballot
+ * Partial ballots follow one of two conventions (docs/sources.md §1): "abstain" (convention A: a ballot
  * counts for a pair only if it ranks both) or "bottom" (convention B: unranked alternatives sit
  * below all ranked ones, tied with each other).
  */

@@ -1,5 +1,5 @@
 /**
- * Voting on an amendment tree question by question (DOMAIN §2; Ordeshook & Schwartz 1987, APSR
+ * Voting on an amendment tree question by question (docs/sources.md §2; Ordeshook & Schwartz 1987, APSR
  * 81:179–199; Banks 1989, AJPS 33:25–43). Questions are the pending amendments plus final passage.
  * The state is the set of adopted questions (passage's bit meaning "passed"); a question order is a
  * binary voting tree: each question that is still in order is a vote, adoption its motion branch.

@@ -1,6 +1,6 @@
 /**
  * Schwartz set (GOCHA): the union of the minimal sets not beaten from outside under the strict
- * majority relation (Schwartz 1986; DOMAIN §2). x belongs iff every y that reaches x by a beat-path
+ * majority relation (Schwartz 1986; docs/sources.md §2). x belongs iff every y that reaches x by a beat-path
  * is reached back from x.
  */
 import type { MajorityGraph } from "./majority-graph.ts";

@@ -1,5 +1,5 @@
 /**
- * Spatial preferences (DOMAIN §2): policy dimensions, members' ideal points (weighted), positions of
+ * Spatial preferences (docs/sources.md §2): policy dimensions, members' ideal points (weighted), positions of
  * the alternatives. A member prefers x to y iff x is strictly nearer its ideal point (Euclidean),
  * compared on squared distances in exact integer arithmetic (exact-decimal.ts); equal distances are
  * indifference. For an amendment tree, versions get positions: Q sits at `statusQuo`, the measure at

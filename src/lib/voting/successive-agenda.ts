@@ -1,7 +1,7 @@
 /**
  * Outcomes of one successive agenda x1…xm (continental practice): x1 is put to a yes/no vote, then
- * x2, …; the first adopted wins; if all are rejected xm stands. A tie rejects the proposal (DOMAIN §1).
- *  - Sincere (definition used, DOMAIN §1 [MEM]): a member votes yes on xi iff xi is strictly preferred
+ * x2, …; the first adopted wins; if all are rejected xm stands. A tie rejects the proposal (docs/sources.md §1).
+ *  - Sincere (definition used, docs/sources.md §1 [MEM]): a member votes yes on xi iff xi is strictly preferred
  *    to every other alternative still available (xi+1…xm) that the member ranks; a member that ranks
  *    xi equal to or below one of them votes no; a member that does not rank xi abstains. This needs the
  *    members' rankings, not only the majority graph.

@@ -1,7 +1,7 @@
 /**
  * Top cycle (Smith set, GETCHA): the smallest set every member of which beats or ties every
  * alternative outside it; the top strongly connected component of the "beats or ties" relation
- * (Smith 1973; Miller 1977, AJPS 21:769–803; DOMAIN §2).
+ * (Smith 1973; Miller 1977, AJPS 21:769–803; docs/sources.md §2).
  */
 import type { MajorityGraph } from "./majority-graph.ts";
 import { reachability } from "./reachability.ts";

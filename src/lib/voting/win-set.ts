@@ -1,5 +1,5 @@
 /**
- * The win set W(q) of the status quo: the points a majority prefers to q (DOMAIN §2; McKelvey 1976,
+ * The win set W(q) of the status quo: the points a majority prefers to q (docs/sources.md §2; McKelvey 1976,
  * J. Econ. Theory 12:472–482). Member i prefers p to q iff p lies in the open ball centred on its ideal
  * point with radius |q − v_i|; so, away from the boundary circles, W(q) is the union over winning
  * coalitions of the intersections of their members' open balls. Returned exactly, for drawing:

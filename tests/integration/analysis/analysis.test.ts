@@ -2,7 +2,7 @@
 // content hash, cancelled without a trace, read back as summary, orders (paged, filtered, CSV),
 // walk-through and chair's script. Roles, anonymous and the other chamber.
 // Check values: the seeded estimate's majority cycle is the product's own demo (common practice,
-// no source); outcomes per order are the engine's (tested against DOMAIN §4 in tests/unit/voting).
+// no source); outcomes per order are the engine's (tested against docs/sources.md §4 in tests/unit/voting).
 import { beforeAll, describe, expect, it } from "vitest";
 import * as runs from "../../../src/pages/api/analysis/runs/index.ts";
 import * as run from "../../../src/pages/api/analysis/runs/[id].ts";

@@ -145,7 +145,7 @@ describe("the roster template per bloc", () => {
     const t = await call(template.GET, "GET", "/x", { as: s.as.member, query: { measureId, scope: SCOPE.join(","), kind: "spatial", dimensions: "Lighting,Cost", per: "bloc" } });
     expect(t.status).toBe(200);
     const rows = parseIdealCsv(t.body as string, ["Lighting", "Cost"]);
-    expect(rows.reduce((a, r) => a + r.weight, 0)).toBe(40); // the demo roster (DOMAIN: 40 legislators in four blocs)
+    expect(rows.reduce((a, r) => a + r.weight, 0)).toBe(40); // the demo roster (the fictional demo roster: 40 legislators in four blocs)
     expect(rows).toHaveLength(4);
     expect(new Set(rows.map((r) => r.ideal.join(","))).size).toBe(4);
     const perMember = await call(template.GET, "GET", "/x", { as: s.as.member, query: { measureId, kind: "spatial", dimensions: "Lighting,Cost", per: "member" } });

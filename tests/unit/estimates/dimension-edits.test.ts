@@ -1,5 +1,5 @@
 // Adding and removing a dimension of a spatial estimate (dimension-edits.ts). Check values: the
-// three-member spatial example worked by hand in DOMAIN §4; the rest is the product's own contract
+// three-member spatial example worked by hand in docs/sources.md §4; the rest is the product's own contract
 // (common practice, no source).
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
@@ -71,7 +71,7 @@ describe("edge cases", () => {
   });
 });
 
-describe("spatial example worked by hand (DOMAIN §4)", () => {
+describe("spatial example worked by hand (docs/sources.md §4)", () => {
   it("removing a third dimension from (0,0,5), (4,0,0), (0,3,0) gives the 2-D example: (2,0) beats (2,2) by 2–1", () => {
     const three: Spatial = { kind: "spatial", dimensions: ["x", "y", "z"], statusQuo: [2, 2, 0], measure: [2, 0, 0], effects: {}, members: [[0, 0, 5], [4, 0, 0], [0, 3, 0]].map((ideal, i) => ({ member: `m${i}`, bloc: "", weight: 1, ideal })) };
     const two = removeDimension(three, 2);

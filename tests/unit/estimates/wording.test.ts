@@ -1,5 +1,5 @@
 // Plain-language findings and the chair's script, built from the voting engine's own analysis of a
-// small tree. Check values: the Condorcet paradox profile (Condorcet 1785; DOMAIN §4) placed on the
+// small tree. Check values: the Condorcet paradox profile (Condorcet 1785; docs/sources.md §4) placed on the
 // versions of a one-section measure with two exclusive amendments; the killer-amendment finding is
 // the product's own definition (margins against the status quo; common practice, no source).
 import { describe, expect, it } from "vitest";
@@ -42,7 +42,7 @@ describe("version words", () => {
 });
 
 describe("findings", () => {
-  // Condorcet paradox over three versions (Condorcet 1785; DOMAIN §4): a>b>c, b>c>a, c>a>b.
+  // Condorcet paradox over three versions (Condorcet 1785; docs/sources.md §4): a>b>c, b>c>a, c>a>b.
   const paradox = input([
     { ranking: ["measure+A1", "measure+A2", "measure", "Q"], weight: 1 },
     { ranking: ["measure+A2", "measure", "measure+A1", "Q"], weight: 1 },
@@ -113,8 +113,8 @@ describe("walk-through and chair's script", () => {
 });
 
 describe("successive procedure: tallies in the walk-through and the chair's script", () => {
-  // Hand-computed, no source (sincere successive definition of DOMAIN §1 [MEM]; sophisticated voting by
-  // backward induction, DOMAIN §2). Groups: 4 rank +A2 > +A1 > measure > Q; 3 rank +A1 > +A2 > measure > Q;
+  // Hand-computed, no source (sincere successive definition of docs/sources.md §1 [MEM]; sophisticated voting by
+  // backward induction, docs/sources.md §2). Groups: 4 rank +A2 > +A1 > measure > Q; 3 rank +A1 > +A2 > measure > Q;
   // 2 rank measure > +A2 > Q > +A1; 1 ranks only Q (abstains on every other comparison).
   const successive = {
     rulebook: { voting: { ...voting, procedure: "successive" } },

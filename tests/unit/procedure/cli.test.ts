@@ -79,7 +79,7 @@ describe("gavelwright moves", () => {
     expect(r.err).toContain("rulebook.motions.0.rank");
   });
 
-  // Robert's Rules of Order Revised (1915) §§28, 29, 33, 34: DOMAIN §4 "Procedure" case.
+  // Robert's Rules of Order Revised (1915) §§28, 29, 33, 34: docs/sources.md §4 "Procedure" case.
   it("prints one verdict per motion, following the contract, for a rulebook given by relative path", async () => {
     file("gpl.json", rawTemplate("general-parliamentary-law"));
     const r = await run("moves", file("case.json", { rulebook: "gpl.json", pending: [{ motion: "main" }, { motion: "amend", degree: 1 }] }));

@@ -140,7 +140,7 @@ describe("general parliamentary law: verdicts (RONR 1915)", () => {
     expect((await moves([])).main.inOrder).toBe(true);
     expect((await moves([MAIN])).main.inOrder).toBe(false);
   });
-  it("DOMAIN §4 'Procedure': main and primary amendment pending (§§28, 29, 33, 34; Order of Precedence)", async () => {
+  it("docs/sources.md §4 'Procedure': main and primary amendment pending (§§28, 29, 33, 34; Order of Precedence)", async () => {
     const m = await moves([MAIN, AMEND]);
     expect(m["lay-on-table"].inOrder).toBe(true);
     expect(m["previous-question"].inOrder).toBe(true);
@@ -148,7 +148,7 @@ describe("general parliamentary law: verdicts (RONR 1915)", () => {
     expect(m["postpone-indefinitely"].reasons.map((r) => r.rule)).toContain("rank-precedence");
     expect([m.amend.inOrder, m.amend.degree]).toEqual([true, 2]);
   });
-  it("DOMAIN §4 'Procedure': an amendment to a secondary amendment is out of order (third degree, §33)", async () => {
+  it("docs/sources.md §4 'Procedure': an amendment to a secondary amendment is out of order (third degree, §33)", async () => {
     const v = (await moves([MAIN, AMEND, AMEND])).amend;
     expect([v.inOrder, v.degree]).toEqual([false, 3]);
     expect(v.reasons.map((r) => r.rule)).toContain("amend-degree-limit");

@@ -12,7 +12,7 @@ import { graphFromPairs, permutations, range, respects } from "./helpers.ts";
 
 const voting = { procedure: "amendment", citation: "Fictional Chamber Rule 12" };
 // A fictional bill: perfecting amendment A to section s1 with a second-degree A2, a substitute S with S2,
-// and an independent amendment C to section s2 (the Ordeshook & Schwartz 1987 shape, DOMAIN §2).
+// and an independent amendment C to section s2 (the Ordeshook & Schwartz 1987 shape, docs/sources.md §2).
 const measure = { id: "B", sections: [{ id: "s1" }, { id: "s2" }] };
 const amendments = [
   { id: "A", target: "s1", form: "strike-and-insert", lines: [1, 3] },
@@ -35,7 +35,7 @@ describe("invalid trees", () => {
   });
 });
 
-describe("versions of a measure (DOMAIN §1–2; decision record 0003)", () => {
+describe("versions of a measure (docs/sources.md §1–2; decision record 0003)", () => {
   it("combinations across different text, a second-degree only with its parent, no substitute with text it replaces", () => {
     const ids = amendmentTreeModel({ measure, amendments }).versions.map((v) => v.id);
     expect(ids).toEqual(["Q", "B", "B+A", "B+S", "B+C", "B+A+A2", "B+A+C", "B+S+S2", "B+A+A2+C"]);

@@ -9,14 +9,14 @@ import { scaleSpatial, spatialSchema, spatialTally } from "../../../src/lib/voti
 import { sincereSuccessive, sophisticatedSuccessive } from "../../../src/lib/voting/successive-agenda.ts";
 import { winSet } from "../../../src/lib/voting/win-set.ts";
 
-// Condorcet 1785, the standard paradox (DOMAIN §4).
+// Condorcet 1785, the standard paradox (docs/sources.md §4).
 const condorcet = {
   alternatives: ["a", "b", "c"],
   ballots: [{ ranking: ["a", "b", "c"] }, { ranking: ["b", "c", "a"] }, { ranking: ["c", "a", "b"] }],
 };
-// Tie rule: Robert's Rules of Order Revised (1915) §46 — a tie defeats the motion (DOMAIN §4).
+// Tie rule: Robert's Rules of Order Revised (1915) §46 — a tie defeats the motion (docs/sources.md §4).
 const tie = { alternatives: ["a", "b", "c"], ballots: [{ ranking: ["a", "b", "c"], weight: 2 }, { ranking: ["b", "c", "a"], weight: 2 }] };
-// pref_voting library documentation v1.18.1, four-alternative example (DOMAIN §4).
+// pref_voting library documentation v1.18.1, four-alternative example (docs/sources.md §4).
 const four = { alternatives: ["0", "1", "2", "3"], edges: [["0", "2"], ["0", "3"], ["1", "0"], ["2", "1"], ["2", "3"], ["3", "1"]] as Array<[string, string]> };
 
 describe("invalid input is rejected with its code", () => {
@@ -42,7 +42,7 @@ describe("edge cases", () => {
     expect([r.condorcetWinner, r.topCycle, r.banksSet]).toEqual(["only", ["only"], ["only"]]);
     expect(analyseAgendas({ alternatives: ["only"], ballots: [{ ranking: ["only"] }], procedure: "amendment" })).toMatchObject({ orders: 1, sincere: { only: 1 } });
   });
-  it("partial ballots: abstain drops the pair, bottom ranks unranked last (DOMAIN §1, conventions A and B)", () => {
+  it("partial ballots: abstain drops the pair, bottom ranks unranked last (docs/sources.md §1, conventions A and B)", () => {
     const input = { alternatives: ["a", "b", "c"], ballots: [{ ranking: ["a"] }, { ranking: ["b", "c"] }] };
     expect(majorityFromInput({ ...input, partial: "abstain" }).graph.margins[0][1]).toBe(0);
     expect(majorityFromInput({ ...input, partial: "bottom" }).graph.margins[0][1]).toBe(0);
@@ -61,7 +61,7 @@ describe("edge cases", () => {
   });
 });
 
-describe("Condorcet paradox (Condorcet 1785; DOMAIN §4)", () => {
+describe("Condorcet paradox (Condorcet 1785; docs/sources.md §4)", () => {
   const { graph, profile } = majorityFromInput(condorcet);
   it("majority a→b, b→c, c→a; no Condorcet winner; TC = UC = Banks = {a,b,c}", () => {
     expect([graph.beats[0][1], graph.beats[1][2], graph.beats[2][0]]).toEqual([true, true, true]);
@@ -94,7 +94,7 @@ describe("Condorcet paradox (Condorcet 1785; DOMAIN §4)", () => {
   });
 });
 
-describe("tie rule (Robert's Rules of Order Revised 1915, §46; DOMAIN §4)", () => {
+describe("tie rule (Robert's Rules of Order Revised 1915, §46; docs/sources.md §4)", () => {
   it("a–b and a–c tie, b beats c; order (b,a,c): sincere c, sophisticated b", () => {
     const { graph } = majorityFromInput(tie);
     expect([graph.margins[0][1], graph.margins[0][2], graph.beats[1][2]]).toEqual([0, 0, true]);
@@ -104,7 +104,7 @@ describe("tie rule (Robert's Rules of Order Revised 1915, §46; DOMAIN §4)", ()
   });
 });
 
-describe("four alternatives (pref_voting documentation v1.18.1; DOMAIN §4)", () => {
+describe("four alternatives (pref_voting documentation v1.18.1; docs/sources.md §4)", () => {
   it("top cycle {0,1,2,3}; uncovered = Banks = {0,1,2}", () => {
     const r = majorityReport(majorityFromInput(four).graph);
     expect(r.topCycle).toEqual(["0", "1", "2", "3"]);
@@ -119,7 +119,7 @@ describe("four alternatives (pref_voting documentation v1.18.1; DOMAIN §4)", ()
   });
 });
 
-describe("spatial check values (worked by hand, DOMAIN §4)", () => {
+describe("spatial check values (worked by hand, docs/sources.md §4)", () => {
   const s = scaleSpatial(spatialSchema.parse({ dimensions: ["x", "y"], members: [{ ideal: [0, 0] }, { ideal: [4, 0] }, { ideal: [0, 3] }], statusQuo: [2, 2] }));
   const pt = (x: number, y: number) => [BigInt(x), BigInt(y)];
   it("(2,0), (1,2) and (2,1) each beat (2,2) by 2–1", () => {
@@ -142,7 +142,7 @@ describe("spatial check values (worked by hand, DOMAIN §4)", () => {
   });
 });
 
-describe("counts (DOMAIN §4: amendment agendas n!/2)", () => {
+describe("counts (docs/sources.md §4: amendment agendas n!/2)", () => {
   it("n = 2…6 give 1, 3, 12, 60, 360 distinct agendas", () => {
     expect([2, 3, 4, 5, 6].map((n) => distinctAgendaCount(precedence(n, [])))).toEqual([1, 3, 12, 60, 360]);
   });

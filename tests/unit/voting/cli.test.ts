@@ -44,7 +44,7 @@ describe("bad input exits 2 and names the field", () => {
   });
 });
 
-describe("majority (Condorcet 1785; DOMAIN §4)", () => {
+describe("majority (Condorcet 1785; docs/sources.md §4)", () => {
   it("prints the margins and the sets in input order", async () => {
     const r = await run("majority", condorcet);
     expect(r.code).toBe(0);
@@ -69,7 +69,7 @@ describe("agendas", () => {
     const r = await run("agendas", { alternatives: ["0", "1", "2", "3"], edges: [["0", "2"], ["0", "3"], ["1", "0"], ["2", "1"], ["2", "3"], ["3", "1"]], procedure: "amendment" });
     expect(r.json).toEqual({ orders: 24, distinctAgendas: 12, sincere: { 0: 10, 1: 6, 2: 6, 3: 2 }, sophisticated: { 0: 12, 1: 6, 2: 6 } });
   });
-  it("Condorcet paradox, order (a,b,c): sincere c, sophisticated b, chain [c,b] (DOMAIN §4)", async () => {
+  it("Condorcet paradox, order (a,b,c): sincere c, sophisticated b, chain [c,b] (docs/sources.md §4)", async () => {
     const r = await run("agendas", { ...condorcet, procedure: "amendment", order: ["a", "b", "c"] });
     expect(r.json.order).toMatchObject({ sincere: "c", sophisticated: "b", chain: ["c", "b"] });
   });

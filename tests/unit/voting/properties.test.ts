@@ -32,7 +32,7 @@ const tally = (outcomes: number[], n: number) => {
   return out;
 };
 
-describe("tournaments: Miller 1977 and Banks 1985 (DOMAIN §2)", () => {
+describe("tournaments: Miller 1977 and Banks 1985 (docs/sources.md §2)", () => {
   it("sincere outcomes over all orders = top cycle; sophisticated = Banks set", () => {
     fc.assert(
       fc.property(tournament(2, 6), ([n, cells]) => {
@@ -78,7 +78,7 @@ describe("tournaments: Miller 1977 and Banks 1985 (DOMAIN §2)", () => {
   });
 });
 
-describe("weak tournaments (ties): the tie rule of DOMAIN §1", () => {
+describe("weak tournaments (ties): the tie rule of docs/sources.md §1", () => {
   it("Shepsle–Weingast equals full backward induction on every order", () => {
     fc.assert(
       fc.property(weakTournament(2, 6), ([n, cells]) => {
@@ -104,7 +104,7 @@ describe("weak tournaments (ties): the tie rule of DOMAIN §1", () => {
   });
 });
 
-describe("the counting DP equals brute-force enumeration (DOMAIN §2)", () => {
+describe("the counting DP equals brute-force enumeration (docs/sources.md §2)", () => {
   it("amendment and successive, sincere and sophisticated, with and without constraints", () => {
     fc.assert(
       fc.property(constrained(1, 6), ({ n, cells, before }) => {

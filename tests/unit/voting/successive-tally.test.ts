@@ -39,14 +39,14 @@ describe("edge cases", () => {
     const qa = questionAgenda(exclusive, majorityGraph(profile), null, "successive");
     expect(qa.sincereTally(1, 0, 0)).toBeNull();
   });
-  it("a tie on a successive proposal rejects it (Robert's Rules of Order Revised 1915, §46; DOMAIN §1)", () => {
+  it("a tie on a successive proposal rejects it (Robert's Rules of Order Revised 1915, §46; docs/sources.md §1)", () => {
     const qa = agenda(5, "successive");
     expect(qa.sincereTally(1, 0, 0)).toEqual({ forWeight: 5, againstWeight: 5 });
     expect(qa.sincereAdopts(1, 0, 0)).toBe(false);
   });
 });
 
-describe("successive procedure: worked example (hand-computed, no source; sincere definition of DOMAIN §1 [MEM])", () => {
+describe("successive procedure: worked example (hand-computed, no source; sincere definition of docs/sources.md §1 [MEM])", () => {
   // Order D, A, passage. Member groups (weight): 4 rank B+D > B+A > B > Q; 3 rank B+A > B+D > B > Q;
   // 2 rank B > B+D > Q > B+A; 1 ranks only Q (partial ballot, convention A: abstains elsewhere).
   const qa = agenda(4, "successive");
@@ -70,7 +70,7 @@ describe("successive procedure: worked example (hand-computed, no source; sincer
   });
 });
 
-// A perfecting amendment A with a second-degree A2, a substitute S, an independent C (DOMAIN §2 shape).
+// A perfecting amendment A with a second-degree A2, a substitute S, an independent C (docs/sources.md §2 shape).
 const tree = amendmentTreeModel({
   measure: { id: "B", sections: [{ id: "s1" }, { id: "s2" }] },
   amendments: [
