@@ -4,7 +4,6 @@
  * and answer hypothetical legal-moves questions. Every change is committed with its NOTIFY.
  */
 import { and, asc, desc, eq } from "drizzle-orm";
-import { randomUUID } from "node:crypto";
 import { z } from "zod";
 import { db } from "../db.ts";
 import { user } from "../../db/schema/auth.ts";
