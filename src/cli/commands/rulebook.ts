@@ -8,7 +8,7 @@ import { dirname, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { z } from "zod";
 import { GavelError, parseWith } from "../../lib/errors.ts";
-import { parseRulebook } from "../../lib/procedure/parse-rulebook.ts";
+import { parseRulebook, parseRulebookWithNotes } from "../../lib/procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../lib/procedure/rulebook-schema.ts";
 import { printJson, readJsonFile, type CliIO } from "../io.ts";
 import type { Command } from "../main.ts";
@@ -64,7 +64,7 @@ export default {
   async run(args, io) {
     const [sub, file] = args;
     if (sub !== "check") throw new GavelError("invalid-input", `unknown subcommand ${JSON.stringify(sub ?? "")}; use "rulebook check FILE"`, { issues: [{ path: "(argument)", message: "expected \"check\"" }] });
-    const rulebook = parseRulebook(readJsonFile(file, io, "rulebook file"));
+    const { rulebook, migrations } = parseRulebookWithNotes(readJsonFile(file, io, "rulebook file"));
     printJson(io, {
       valid: true,
       id: rulebook.id,
@@ -75,6 +75,7 @@ export default {
       rules: { motion: rulebook.rules.filter((r) => r.scope === "motion").length, amendment: rulebook.rules.filter((r) => r.scope === "amendment").length },
       maxDegree: rulebook.amendments.maxDegree,
       procedure: rulebook.voting.procedure,
+      migrations,
     });
     return 0;
   },

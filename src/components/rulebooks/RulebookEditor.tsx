@@ -3,7 +3,7 @@ import { z } from "zod";
 import { AMENDMENT_FORMS } from "../../lib/amendments/case-schema.ts";
 import { isGavelError } from "../../lib/errors.ts";
 import { parseRulebook } from "../../lib/procedure/parse-rulebook.ts";
-import { FINDING_SEVERITIES, MOTION_CLASSES, rulebookSchema, type MotionInput, type RulebookInput } from "../../lib/procedure/rulebook-schema.ts";
+import { FINDING_SEVERITIES, MOTION_CLASSES, RECONSIDERABLE, rulebookSchema, type MotionInput, type RulebookInput } from "../../lib/procedure/rulebook-schema.ts";
 import { RULE_SCOPES } from "../../lib/procedure/rule-vocabulary.ts";
 import { ORDER_CONSTRAINTS, VOTE_THRESHOLDS } from "../../lib/procedure/voting-section.ts";
 import { ApiError, day, getJson, sendJson, when, type Issue } from "./api.ts";
@@ -236,8 +236,10 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
   );
 }
 
+const RECONSIDERABLE_LABELS = { both: "Either result", affirmative: "Affirmative only", negative: "Negative only", neither: "Neither" } as const;
+
 function MotionTable({ doc, at, readOnly, setMotion, update }: { doc: RulebookInput; at: IssueLookup; readOnly: boolean; setMotion: (i: number, p: Partial<MotionInput>) => void; update: (p: Partial<RulebookInput>) => void }) {
-  const flag = (i: number, m: MotionInput, k: "second" | "debatable" | "amendable" | "interrupt" | "reconsiderable", label: string) => (
+  const flag = (i: number, m: MotionInput, k: "second" | "debatable" | "amendable" | "interrupt", label: string) => (
     <td className="text-center">
       <input type="checkbox" aria-label={`${label}: ${m.name}`} checked={Boolean(m[k])} disabled={readOnly} onChange={(e) => setMotion(i, { [k]: e.target.checked })} aria-invalid={at(`motions.${i}.${k}`).length > 0 || undefined} />
       <Messages path={`motions.${i}.${k}`} at={at} />
@@ -264,7 +266,7 @@ function MotionTable({ doc, at, readOnly, setMotion, update }: { doc: RulebookIn
                 {flag(i, m, "amendable", "Amendable")}
                 <td><SelectField className="min-w-[11rem]" hideLabel path={`motions.${i}.vote`} label={`Vote required for ${m.id}`} at={at} disabled={readOnly} value={m.vote} options={VOTE_THRESHOLDS} labels={VOTE_LABELS} onChange={(v) => setMotion(i, { vote: v })} /></td>
                 {flag(i, m, "interrupt", "May interrupt a speaker")}
-                {flag(i, m, "reconsiderable", "Reconsiderable")}
+                <td><SelectField className="min-w-[8.5rem]" hideLabel path={`motions.${i}.reconsiderable`} label={`Which vote on ${m.id} may be reconsidered`} at={at} disabled={readOnly} value={typeof m.reconsiderable === "boolean" ? (m.reconsiderable ? "both" : "neither") : m.reconsiderable} options={RECONSIDERABLE} labels={RECONSIDERABLE_LABELS} onChange={(v) => setMotion(i, { reconsiderable: v })} /></td>
                 <td><TextField className="min-w-[18rem]" hideLabel path={`motions.${i}.citation`} label={`Citation for ${m.id}`} at={at} disabled={readOnly} value={m.citation} onChange={(v) => setMotion(i, { citation: v })} /></td>
                 {!readOnly && (
                   <td>
@@ -277,7 +279,7 @@ function MotionTable({ doc, at, readOnly, setMotion, update }: { doc: RulebookIn
         </table>
       </div>
       {!readOnly && (
-        <button type="button" className="gw-btn-quiet" onClick={() => update({ motions: [...doc.motions, { id: `new-motion-${doc.motions.length + 1}`, name: "New motion", class: "incidental", rank: null, second: true, debatable: false, amendable: false, vote: "majority", interrupt: false, reconsiderable: false, citation: "Standing orders" }] })}>
+        <button type="button" className="gw-btn-quiet" onClick={() => update({ motions: [...doc.motions, { id: `new-motion-${doc.motions.length + 1}`, name: "New motion", class: "incidental", rank: null, second: true, debatable: false, amendable: false, vote: "majority", interrupt: false, reconsiderable: "neither", citation: "Standing orders" }] })}>
           + Add a motion
         </button>
       )}

@@ -22,6 +22,19 @@ const MAX_ISSUES = 100;
 
 /** Parse rulebook JSON text (an upload or file body). */
 export function parseRulebookText(text: string): Rulebook {
+  return parseRulebookTextWithNotes(text).rulebook;
+}
+
+/** One change made while reading a rulebook written for an earlier revision of the format. */
+export interface MigrationNote {
+  path: string;
+  from: unknown;
+  to: unknown;
+  message: string;
+}
+
+/** Parse rulebook JSON text and report what was migrated. */
+export function parseRulebookTextWithNotes(text: string): { rulebook: Rulebook; migrations: MigrationNote[] } {
   const bytes = new TextEncoder().encode(text).length;
   if (bytes > MAX_RULEBOOK_BYTES) throw new GavelError("too-large", `the rulebook is ${bytes} bytes; the limit is ${MAX_RULEBOOK_BYTES}`, { issues: [{ path: "(root)", message: "too large" }] });
   let value: unknown;
@@ -30,14 +43,40 @@ export function parseRulebookText(text: string): Rulebook {
   } catch (e) {
     throw new GavelError("invalid-input", `the rulebook is not valid JSON: ${(e as Error).message}`, { issues: [{ path: "(root)", message: "not valid JSON" }] });
   }
-  return parseRulebook(value);
+  return parseRulebookWithNotes(value);
+}
+
+/**
+ * The changes reading `input` makes to bring it to the current revision of format version 1.
+ * Today: `reconsiderable` written as a boolean (before the affirmative/negative distinction of
+ * Robert's Rules of Order Revised, 1915, §36) becomes "both" (true) or "neither" (false).
+ */
+export function migrationNotes(input: unknown): MigrationNote[] {
+  const notes: MigrationNote[] = [];
+  if (input === null || typeof input !== "object" || Array.isArray(input)) return notes;
+  const motions = (input as { motions?: unknown }).motions;
+  if (!Array.isArray(motions)) return notes;
+  motions.forEach((m, i) => {
+    const r = m !== null && typeof m === "object" ? (m as { reconsiderable?: unknown }).reconsiderable : undefined;
+    if (typeof r === "boolean") {
+      const to = r ? "both" : "neither";
+      notes.push({ path: `motions.${i}.reconsiderable`, from: r, to, message: `reconsiderable ${r} read as "${to}"; state "affirmative" or "negative" where only one result of the vote may be reconsidered` });
+    }
+  });
+  return notes;
 }
 
 /** Validate a rulebook object and resolve ranks from precedence chains. Pure; throws GavelError. */
 export function parseRulebook(input: unknown): Rulebook {
+  return parseRulebookWithNotes(input).rulebook;
+}
+
+/** parseRulebook, also returning the migration notes (what was read in an earlier form, and how). */
+export function parseRulebookWithNotes(input: unknown): { rulebook: Rulebook; migrations: MigrationNote[] } {
   if (input === null || typeof input !== "object" || Array.isArray(input)) {
     throw new GavelError("invalid-input", "a rulebook must be a JSON object", { issues: [{ path: "(root)", message: "expected an object" }] });
   }
+  const migrations = migrationNotes(input);
   let rulebook: Rulebook;
   try {
     rulebook = parseWith(rulebookSchema, input, "rulebook");
@@ -50,6 +89,12 @@ export function parseRulebook(input: unknown): Rulebook {
   rulebook.motions.forEach((m, i) => {
     if (motionIds.has(m.id)) issues.push({ path: `motions.${i}.id`, message: `duplicate motion id "${m.id}"` });
     motionIds.add(m.id);
+  });
+  rulebook.motions.forEach((m, i) => {
+    (m.variants ?? []).forEach((v, k) => checkCondition(v.when, `motions.${i}.variants.${k}.when`, "motion", motionIds, issues, { nodes: 0 }, 0, true));
+    (m.voteAlternatives ?? []).forEach((a, k) => {
+      if (a.when !== undefined) checkCondition(a.when, `motions.${i}.voteAlternatives.${k}.when`, "motion", motionIds, issues, { nodes: 0 }, 0, true);
+    });
   });
   const ruleIds = new Set<string>();
   rulebook.rules.forEach((r, i) => {
@@ -72,8 +117,8 @@ export function parseRulebook(input: unknown): Rulebook {
     }),
   );
   if (issues.length) throw new GavelError("invalid-input", `rulebook: ${issues[0].path}: ${issues[0].message}${issues.length > 1 ? ` (and ${issues.length - 1} more)` : ""}`, { issues: issues.slice(0, MAX_ISSUES) });
-  if (rulebook.precedence?.length) return { ...rulebook, motions: rankFromPrecedence(rulebook) };
-  return rulebook;
+  if (rulebook.precedence?.length) return { rulebook: { ...rulebook, motions: rankFromPrecedence(rulebook) }, migrations };
+  return { rulebook, migrations };
 }
 
 /** Ranks from chains: a motion's rank is the length of the longest chain below it, so every stated relation holds. */
@@ -180,7 +225,7 @@ function checkFactRef(fact: unknown, factPath: unknown, path: string, scope: Rul
 }
 
 /** Facts whose `$.id` / `$.motion` hold a catalogue motion id, so values compared with them must be motion ids. */
-const MOTION_ID_REFS = new Set(["motion:$.id", "immediatelyPending:$.motion", "pendingMotions:"]);
+const MOTION_ID_REFS = new Set(["motion:$.id", "immediatelyPending:$.motion", "pendingMotions:", "amendTarget:$.motion", "lastVote:$.motion"]);
 
 function checkLeaf(node: Record<string, unknown>, path: string, scope: RuleScope, motionIds: Set<string>, issues: InputIssue[]): void {
   for (const k of Object.keys(node)) if (!LEAF_KEYS.has(k)) issues.push({ path: `${path}.${k}`, message: `unexpected key "${k}" in a condition` });

@@ -11,7 +11,7 @@ export const RULE_SCOPES = ["motion", "amendment"] as const;
 export type RuleScope = (typeof RULE_SCOPES)[number];
 
 /** Facts available to motion-scope rules (see docs/rulebook-format.md for each field). */
-export const MOTION_FACTS = ["motion", "immediatelyPending", "pending", "pendingMotions", "pendingCount", "amendDegree", "floor", "limits"] as const;
+export const MOTION_FACTS = ["motion", "immediatelyPending", "pending", "pendingMotions", "pendingCount", "amendDegree", "amendTarget", "lastVote", "floor", "limits"] as const;
 
 /** Facts available to amendment-scope rules. */
 export const AMENDMENT_FACTS = ["amendment", "target", "measure", "limits", "voting", "tree", "filing", "germaneness", "conflictsWith", "perfectingSiblings", "cycleMembers"] as const;

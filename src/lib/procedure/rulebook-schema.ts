@@ -41,6 +41,65 @@ export const FINDING_CODES = [
 const text = (max: number) => z.string().trim().min(1).max(max);
 export const findingCodeSchema = z.string().regex(/^[a-z][a-z0-9-]{0,63}$/, "must be lower-case letters, digits and '-'");
 
+/**
+ * Which vote on a motion may be reconsidered, for the question as put (Robert's Rules of Order
+ * Revised, 1915, §36 and the Table of Rules notes): both results, only an affirmative (adopting)
+ * vote, only a negative one, or neither.
+ */
+export const RECONSIDERABLE = ["both", "affirmative", "negative", "neither"] as const;
+export type Reconsiderable = (typeof RECONSIDERABLE)[number];
+
+/**
+ * `reconsiderable` as written: the enum, or the boolean of rulebooks saved before the enum existed,
+ * migrated on read (true → "both", false → "neither"); parseRulebookWithNotes reports each change.
+ */
+export const reconsiderableSchema = z.union([z.enum(RECONSIDERABLE), z.boolean().transform((b): Reconsiderable => (b ? "both" : "neither"))]);
+
+/** How long after the vote it applies to a motion may be made; null = no limit. */
+export const motionWindowSchema = z.object({
+  days: z.number().int().min(0).max(3660).nullable().default(null),
+  sittings: z.number().int().min(0).max(100_000).nullable().default(null),
+  citation: citationSchema,
+});
+
+/** Characteristics a variant may set when its condition holds. */
+export const variantSetSchema = z
+  .object({
+    class: z.enum(MOTION_CLASSES),
+    rank: z.number().int().min(0).max(1000).nullable(),
+    second: z.boolean(),
+    debatable: z.boolean(),
+    amendable: z.boolean(),
+    vote: z.enum(VOTE_THRESHOLDS),
+    interrupt: z.boolean(),
+    reconsiderable: z.enum(RECONSIDERABLE),
+  })
+  .partial()
+  .strict()
+  .refine((o) => Object.keys(o).length > 0, { message: "a variant sets at least one characteristic" });
+
+/** A json-rules-engine condition tree; its nodes are checked by parseRulebook with exact paths. */
+export const conditionTreeSchema = z.record(z.string(), z.unknown());
+
+/** Characteristics that hold only in some floor states (a recess moved when nothing is pending…). */
+export const motionVariantSchema = z.object({
+  when: conditionTreeSchema,
+  set: variantSetSchema,
+  citation: citationSchema,
+  note: z.string().max(1000).optional(),
+});
+
+/** Another threshold: adopted also by it (`or`), or it replaces `vote` (`instead`), in the circumstance stated. */
+export const voteAlternativeSchema = z.object({
+  kind: z.enum(["or", "instead"]),
+  vote: z.enum(VOTE_THRESHOLDS),
+  /** The circumstance in words, for the clerk and the chair. */
+  if: z.string().trim().min(1).max(500),
+  /** Optional: the circumstance as a condition over motion-scope facts; absent = for the chair to apply. */
+  when: conditionTreeSchema.optional(),
+  citation: citationSchema,
+});
+
 export const motionSchema = z.object({
   id: idSchema,
   name: text(200),
@@ -55,7 +114,13 @@ export const motionSchema = z.object({
   vote: z.enum(VOTE_THRESHOLDS),
   /** In order when another member has the floor. */
   interrupt: z.boolean(),
-  reconsiderable: z.boolean(),
+  reconsiderable: reconsiderableSchema,
+  /** Other thresholds, in the alternative or in stated circumstances; `vote` stays the ordinary one. */
+  voteAlternatives: z.array(voteAlternativeSchema).max(8).optional(),
+  /** How long after the vote it applies to the motion may be made (reconsider: RONR 1915 §36). */
+  window: motionWindowSchema.optional(),
+  /** Characteristics that depend on the floor state, applied in order when their condition holds. */
+  variants: z.array(motionVariantSchema).max(10).optional(),
   citation: citationSchema,
   note: z.string().max(1000).optional(),
 });
@@ -116,9 +181,6 @@ export const sourceSchema = z.object({
   note: z.string().max(2000).optional(),
 });
 
-/** A json-rules-engine condition tree; its nodes are checked by parseRulebook with exact paths. */
-export const conditionTreeSchema = z.record(z.string(), z.unknown());
-
 export const ruleSchema = z.object({
   id: idSchema,
   scope: z.enum(RULE_SCOPES),
@@ -154,6 +216,8 @@ export const rulebookSchema = z.object({
 });
 
 export type MotionInput = z.input<typeof motionSchema>;
+export type MotionVariant = z.output<typeof motionVariantSchema>;
+export type VoteAlternative = z.output<typeof voteAlternativeSchema>;
 export type Motion = z.output<typeof motionSchema>;
 export type AmendmentRules = z.output<typeof amendmentRulesSchema>;
 export type RuleDefinition = z.output<typeof ruleSchema>;

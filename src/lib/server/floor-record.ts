@@ -98,7 +98,16 @@ export function floorStateOf(board: Board): FloorStateInput {
   const top = board.pending[board.pending.length - 1];
   return {
     pending: board.pending.map((p) => (p.degree !== null ? { motion: p.motion, degree: p.degree } : { motion: p.motion })),
-    floor: { speakerHasFloor: board.speaker !== null, debateBegun: top?.debateBegun ?? false, chairHasRuled: board.chairHasRuled, voteTaken: board.voteTaken, tabled: board.tabled },
+    floor: {
+      speakerHasFloor: board.speaker !== null,
+      debateBegun: top?.debateBegun ?? false,
+      chairHasRuled: board.chairHasRuled,
+      voteTaken: board.voteTaken,
+      tabled: board.tabled,
+      // The last vote recorded, so reconsider is judged by what was voted and how (RONR 1915 §36);
+      // its day is not recorded, so no time limit is applied here.
+      votes: board.lastVote ? [{ motion: board.lastVote.motion, result: board.lastVote.result }] : [],
+    },
   };
 }
 

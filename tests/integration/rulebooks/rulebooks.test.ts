@@ -11,6 +11,7 @@ import * as importRoute from "../../../src/pages/api/rulebooks/import.ts";
 import * as compare from "../../../src/pages/api/rulebooks/compare.ts";
 import * as template from "../../../src/pages/api/rulebooks/templates/[id].ts";
 import { seedRulebooks } from "../../../src/lib/server/seed/rulebooks.ts";
+import { loadRulebook } from "../../../src/lib/server/services/rulebooks.ts";
 import { call } from "../../support/app.ts";
 import { tableCounts } from "../../support/db.ts";
 import { seedChambers, type Seeded } from "../../support/fixtures.ts";
@@ -152,6 +153,22 @@ describe("POST /api/rulebooks (save a new version)", () => {
     expect(await tableCounts()).toEqual(before);
     // A first save needs basedOn null only while the chamber has no version.
     expect((await call(list.POST, "POST", "/api/rulebooks", { as: s.as.clerk, body: { basedOn: null, document: demo } })).status).toBe(409);
+  });
+});
+
+describe("a version saved before reconsiderable named the result (rulebook format, December 2026 revision)", () => {
+  it("is stored as written and loads migrated: true reads as \"both\", false as \"neither\"", async () => {
+    const v = await latest();
+    const older = structuredClone(demo);
+    for (const m of older.motions) m.reconsiderable = m.reconsiderable !== "neither";
+    const saved = await call(list.POST, "POST", "/api/rulebooks", { as: s.as.clerk, body: { basedOn: v.id, note: "As saved by an earlier version", document: older } });
+    expect(saved.status).toBe(201);
+    const stored = await call(one.GET, "GET", `/api/rulebooks/${saved.body.id}`, { as: s.as.clerk, params: { id: saved.body.id } });
+    expect(stored.body.document.motions.map((m: { reconsiderable: unknown }) => typeof m.reconsiderable)).toEqual(older.motions.map(() => "boolean"));
+    const loaded = await loadRulebook(s.chambers.harrowmere, saved.body.id);
+    const byId = Object.fromEntries(loaded.rulebook.motions.map((m) => [m.id, m.reconsiderable]));
+    expect(byId.main).toBe("both");
+    expect(byId.adjourn).toBe("neither");
   });
 });
 

@@ -30,7 +30,22 @@ describe("gavelwright rulebook check", () => {
     const r = await run("rulebook", "check", templatePath("general-parliamentary-law"));
     expect(r.code).toBe(0);
     const summary = JSON.parse(r.out);
-    expect(summary).toMatchObject({ valid: true, id: "general-parliamentary-law", motions: 23 });
+    // 23 motions of the Order of Precedence and §§11-37, plus filling a blank (§33 p. 149), a nomination and
+    // closing nominations (§§25, 66) of Robert's Rules of Order Revised (1915).
+    expect(summary).toMatchObject({ valid: true, id: "general-parliamentary-law", motions: 26, migrations: [] });
+  });
+
+  it("reads a rulebook saved before reconsiderable named the result, and says what it migrated (RONR 1915 §36)", async () => {
+    const rb = rawTemplate("general-parliamentary-law");
+    rb.motions[0].reconsiderable = true;
+    rb.motions[1].reconsiderable = false;
+    const r = await run("rulebook", "check", file("old.json", rb));
+    expect(r.code).toBe(0);
+    const summary = JSON.parse(r.out);
+    expect(summary.migrations).toEqual([
+      expect.objectContaining({ path: "motions.0.reconsiderable", from: true, to: "both" }),
+      expect.objectContaining({ path: "motions.1.reconsiderable", from: false, to: "neither" }),
+    ]);
   });
 });
 
@@ -40,6 +55,20 @@ describe("gavelwright moves", () => {
     const r = await run("moves", file("bad-pending.json", { rulebook: "general-parliamentary-law", pending: [{ motion: "main" }, { motion: "quorum-call" }] }));
     expect(r.code).toBe(2);
     expect(r.err).toContain("pending.1.motion");
+  });
+
+  it("exits 2 naming a recent vote on a motion the rulebook does not have", async () => {
+    const r = await run("moves", file("bad-vote.json", { rulebook: "general-parliamentary-law", pending: [], floor: { votes: [{ motion: "quorum-call", result: "adopted" }] } }));
+    expect(r.code).toBe(2);
+    expect(r.err).toContain("floor.votes.0.motion");
+  });
+
+  // Robert's Rules of Order Revised (1915) §33 p. 134: "To Amend takes precedence of the motion to postpone indefinitely".
+  it("answers amend above postpone indefinitely with the question it applies to", async () => {
+    const r = await run("moves", file("pi.json", { rulebook: "general-parliamentary-law", pending: [{ motion: "main" }, { motion: "postpone-indefinitely" }] }));
+    expect(r.code).toBe(0);
+    const amend = (JSON.parse(r.out) as Array<Record<string, unknown>>).find((v) => v.motion === "amend");
+    expect(amend).toMatchObject({ inOrder: true, degree: 1, appliesTo: "main" });
   });
 
   it("prefixes rulebook errors with the case member", async () => {
@@ -56,9 +85,9 @@ describe("gavelwright moves", () => {
     const r = await run("moves", file("case.json", { rulebook: "gpl.json", pending: [{ motion: "main" }, { motion: "amend", degree: 1 }] }));
     expect(r.code).toBe(0);
     const list = JSON.parse(r.out) as Array<Record<string, unknown>>;
-    expect(list).toHaveLength(23);
+    expect(list).toHaveLength(rawTemplate("general-parliamentary-law").motions.length);
     for (const v of list) {
-      expect(Object.keys(v)).toEqual(expect.arrayContaining(["motion", "inOrder", "reasons", "second", "debatable", "amendable", "vote"]));
+      expect(Object.keys(v)).toEqual(expect.arrayContaining(["motion", "inOrder", "reasons", "second", "debatable", "amendable", "vote", "reconsiderable"]));
     }
     const by = Object.fromEntries(list.map((v) => [v.motion, v]));
     expect(by["lay-on-table"].inOrder).toBe(true);

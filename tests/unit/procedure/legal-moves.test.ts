@@ -3,11 +3,12 @@ import { describe, expect, it } from "vitest";
 import { GavelError } from "../../../src/lib/errors.ts";
 import { legalMoves, type MotionVerdict } from "../../../src/lib/procedure/legal-moves.ts";
 import { parseRulebook } from "../../../src/lib/procedure/parse-rulebook.ts";
+import { EMPTY_BOARD, floorStateOf } from "../../../src/lib/server/floor-record.ts";
 import { template } from "./fixtures.ts";
 
 const gpl = template("general-parliamentary-law");
 
-async function moves(pending: Array<{ motion: string; degree?: number }>, floor?: Record<string, unknown>) {
+async function moves(pending: Array<{ motion: string; degree?: number; independentParts?: boolean; hasBlank?: boolean }>, floor?: Record<string, unknown>) {
   const list = await legalMoves(gpl, { pending, floor });
   return Object.fromEntries(list.map((v) => [v.motion, v])) as Record<string, MotionVerdict>;
 }
@@ -211,25 +212,72 @@ describe("property: precedence by rank", () => {
   const ranked = gpl.motions.filter((m) => m.rank !== null && m.class !== "main").map((m) => m.id);
   const rankOf = new Map(gpl.motions.map((m) => [m.id, m.rank]));
 
+  // The question an amendment would apply to, as the manual states it: the immediately pending question,
+  // except that "To Amend takes precedence of the motion to postpone indefinitely" (§33 p. 134), which
+  // "cannot be amended" (§34) — so above it an amendment applies to the question beneath, with the degree
+  // it would have there. Computed here from the stack independently of the engine.
+  function amendTargetOf(pending: Array<{ motion: string }>): { amendable: boolean; degree: number } {
+    const degrees: number[] = [];
+    const targetIndex = (upTo: number) => {
+      let i = upTo;
+      while (i > 0 && pending[i].motion === "postpone-indefinitely") i--;
+      return i;
+    };
+    pending.forEach((p, i) => {
+      const t = i === 0 ? -1 : targetIndex(i - 1);
+      degrees.push(p.motion === "amend" ? (t >= 0 && pending[t].motion === "amend" ? degrees[t] + 1 : 1) : 0);
+    });
+    const t = targetIndex(pending.length - 1);
+    const id = pending[t].motion;
+    const amendable = id === "amend" ? degrees[t] < gpl.amendments.maxDegree : gpl.motions.find((m) => m.id === id)!.amendable;
+    return { amendable, degree: id === "amend" ? degrees[t] + 1 : 1 };
+  }
+
   // RONR (1915) Order of Precedence: a motion cannot be made while a higher-ranking question is
-  // immediately pending. The one exception the manual states: amend applies to the question it
-  // amends and so takes its precedence (§33), when that question is amendable.
+  // immediately pending. The exceptions the manual states: amend applies to the question it amends and
+  // so takes its precedence (§33), when that question is amendable; and amend "takes precedence of the
+  // motion to postpone indefinitely" (§33 p. 134), applying beneath it (covered by the second property).
   it("under general parliamentary law a motion ranked below the immediately pending question is never in order", async () => {
     await fc.assert(
       fc.asyncProperty(fc.array(fc.constantFrom(...ranked), { maxLength: 6 }), async (stack) => {
         const pending = [{ motion: "main" }, ...stack.map((motion) => ({ motion }))];
         const list = await legalMoves(gpl, { pending });
         const top = pending[pending.length - 1].motion;
-        let topDegree = 0;
-        for (const p of pending) topDegree = p.motion === "amend" ? topDegree + 1 : 0;
-        const topAmendable = top === "amend" ? topDegree < gpl.amendments.maxDegree : gpl.motions.find((m) => m.id === top)!.amendable;
+        const target = amendTargetOf(pending);
         for (const v of list) {
           if (v.rank === null || v.rank >= rankOf.get(top)!) continue;
-          if (v.motion === "amend" && topAmendable) continue;
+          if (v.motion === "amend" && target.amendable) continue;
           expect(v.inOrder, `${v.motion} with ${top} pending`).toBe(false);
         }
       }),
       { numRuns: 150 },
+    );
+  });
+
+  it("amend is in order exactly when the question it would apply to can be amended, with that question's degree (§33 pp. 134-135, §34)", async () => {
+    await fc.assert(
+      fc.asyncProperty(fc.array(fc.constantFrom(...ranked, "postpone-indefinitely", "amend"), { maxLength: 6 }), async (stack) => {
+        const pending = [{ motion: "main" }, ...stack.map((motion) => ({ motion }))];
+        const v = (await legalMoves(gpl, { pending })).find((x) => x.motion === "amend")!;
+        const target = amendTargetOf(pending);
+        expect(v.degree, JSON.stringify(stack)).toBe(target.degree);
+        expect(v.inOrder, JSON.stringify(stack)).toBe(target.amendable);
+      }),
+      { numRuns: 200 },
+    );
+  });
+
+  // §13 p. 56: incidental motions "take precedence of and must be decided before the question out of which
+  // they rise … They yield to privileged motions, and generally to the motion to lay on the table."
+  it("suspend the rules is in order exactly when the immediately pending question is neither privileged nor lay on the table (§13)", async () => {
+    await fc.assert(
+      fc.asyncProperty(fc.array(fc.constantFrom(...ranked), { maxLength: 6 }), async (stack) => {
+        const pending = [{ motion: "main" }, ...stack.map((motion) => ({ motion }))];
+        const top = gpl.motions.find((m) => m.id === pending[pending.length - 1].motion)!;
+        const v = (await legalMoves(gpl, { pending })).find((x) => x.motion === "suspend-rules")!;
+        expect(v.inOrder, JSON.stringify(stack)).toBe(!(top.class === "privileged" || top.id === "lay-on-table"));
+      }),
+      { numRuns: 100 },
     );
   });
 
@@ -258,5 +306,168 @@ describe("property: precedence by rank", () => {
       ),
       { numRuns: 100 },
     );
+  });
+});
+
+// Robert's Rules of Order Revised (1915) [public domain], read at en.wikisource.org (Page:Robert's Rules of
+// Order - 1915.djvu and Page:Roberts Rules of Order Revised 4th Edition (1915).djvu) and bartleby.com/176.
+// Quoted words are the manual's; everything else in a test name is our paraphrase.
+describe("F8: amend takes precedence of postpone indefinitely (RONR 1915 §33 p. 134, §34)", () => {
+  const PI = { motion: "postpone-indefinitely" };
+  it('§33 p. 134 "To Amend takes precedence of the motion to postpone indefinitely": with it pending, amend is in order and applies to the main question, degree 1', async () => {
+    const v = (await moves([MAIN, PI])).amend;
+    expect([v.inOrder, v.degree, v.appliesTo]).toEqual([true, 1, "main"]);
+    expect(v.reasons).toEqual([]);
+  });
+  it("§34 postpone indefinitely \"cannot be amended\", so the amendment is debatable as the main question is (Table of Rules note 4)", async () => {
+    const m = await moves([MAIN, PI]);
+    expect(m["postpone-indefinitely"].amendable).toBe(false);
+    expect(m.amend.debatable).toBe(true);
+  });
+  it("an amendment made above postpone indefinitely is of the first degree, and one to it of the second (§33 p. 135)", async () => {
+    await expect(legalMoves(gpl, { pending: [MAIN, PI, { motion: "amend", degree: 1 }] })).resolves.toBeDefined();
+    await expect(legalMoves(gpl, { pending: [MAIN, PI, { motion: "amend", degree: 2 }] })).rejects.toMatchObject({ issues: [{ path: "pending.2.degree" }] });
+    const v = (await moves([MAIN, PI, AMEND])).amend;
+    expect([v.inOrder, v.degree, v.appliesTo]).toEqual([true, 2, "amend"]);
+    const third = (await moves([MAIN, PI, AMEND, AMEND])).amend;
+    expect([third.inOrder, third.degree]).toEqual([false, 3]);
+  });
+  it("the exception is for a motion ranked below amend: the previous question, which outranks amend and cannot be amended (§29), still refuses it", async () => {
+    const v = (await moves([MAIN, { motion: "previous-question" }])).amend;
+    expect(v.inOrder).toBe(false);
+    expect(v.reasons.map((r) => r.rule)).toEqual(expect.arrayContaining(["amend-needs-amendable", "rank-precedence"]));
+  });
+});
+
+describe("F9: incidental motions yield to privileged motions and to lay on the table (RONR 1915 §13 p. 56)", () => {
+  // §13: incidental motions "take precedence of and must be decided before the question out of which they rise
+  // … They yield to privileged motions, and generally to the motion to lay on the table."
+  for (const top of ["adjourn", "lay-on-table", "recess"]) {
+    it(`with ${top} immediately pending, suspend the rules, division of a question and leave to withdraw are out of order`, async () => {
+      const m = await moves([MAIN, { motion: top }]);
+      for (const id of ["suspend-rules", "division-of-question", "withdraw"]) {
+        expect(m[id].inOrder, id).toBe(false);
+        expect(m[id].reasons.map((r) => r.rule), id).toContain("incidental-yields-to-privileged");
+      }
+    });
+  }
+  it("with only the main question pending, the same incidental motions take precedence of it (§13)", async () => {
+    const m = await moves([MAIN]);
+    for (const id of ["suspend-rules", "division-of-question", "withdraw"]) expect(m[id].inOrder, id).toBe(true);
+  });
+  it('a question of order, an appeal from a ruling and a division of the assembly arise out of what is before the assembly and stay in order (§13: "arise out of another question which is pending"; §§21, 25)', async () => {
+    const m = await moves([MAIN, { motion: "adjourn" }], { chairHasRuled: true });
+    for (const id of ["point-of-order", "appeal", "division-of-assembly"]) expect(m[id].inOrder, id).toBe(true);
+  });
+  it("leave to withdraw the privileged motion itself arises out of it and is in order (§27(c); floor fact arisesFromPending)", async () => {
+    expect((await moves([MAIN, { motion: "adjourn" }], { arisesFromPending: true })).withdraw.inOrder).toBe(true);
+  });
+});
+
+describe("F10, F15, F18: reconsider (RONR 1915 §36 p. 156; Table of Rules notes 2, 4, 16)", () => {
+  const vote = (motion: string, result: "adopted" | "rejected", day: number, extra: Record<string, unknown> = {}) => ({ motion, result, day, ...extra });
+  it('"It can be made only on the day the vote to be reconsidered was taken, or on the next succeeding day"', async () => {
+    expect((await moves([], { day: 4, votes: [vote("main", "adopted", 4)] })).reconsider.inOrder).toBe(true);
+    expect((await moves([], { day: 5, votes: [vote("main", "adopted", 4)] })).reconsider.inOrder).toBe(true);
+    const late = (await moves([], { day: 6, votes: [vote("main", "adopted", 4)] })).reconsider;
+    expect(late.inOrder).toBe(false);
+    expect(late.reasons.map((r) => r.rule)).toEqual(["reconsider-time-limit"]);
+    expect(late.reasons[0].message).toContain("2 days ago");
+  });
+  it('"It must be made by one who voted with the prevailing side": refused when the mover did not, left to the chair when it is not known', async () => {
+    const no = (await moves([], { day: 1, votes: [vote("main", "rejected", 1, { moverOnPrevailingSide: false })] })).reconsider;
+    expect(no.reasons.map((r) => r.rule)).toEqual(["reconsider-prevailing-side"]);
+    expect((await moves([], { day: 1, votes: [vote("main", "rejected", 1, { moverOnPrevailingSide: true })] })).reconsider.inOrder).toBe(true);
+    expect((await moves([], { day: 1, votes: [vote("main", "rejected", 1)] })).reconsider.inOrder).toBe(true);
+  });
+  it('postpone indefinitely, §34: "An affirmative vote on it may be reconsidered, but not a negative vote."', async () => {
+    expect((await moves([], { votes: [vote("postpone-indefinitely", "adopted", 1)] })).reconsider.inOrder).toBe(true);
+    const v = (await moves([], { votes: [vote("postpone-indefinitely", "rejected", 1)] })).reconsider;
+    expect(v.reasons.map((r) => r.rule)).toEqual(["reconsider-result-not-reconsiderable"]);
+  });
+  it('lay on the table, Table of Rules note 2: "An affirmative vote on this motion cannot be reconsidered." — a negative one can (F15)', async () => {
+    expect((await moves([], { votes: [vote("lay-on-table", "adopted", 1)] })).reconsider.inOrder).toBe(false);
+    expect((await moves([], { votes: [vote("lay-on-table", "rejected", 1)] })).reconsider.inOrder).toBe(true);
+    expect((await moves([MAIN]))["lay-on-table"].reconsiderable).toBe("negative");
+  });
+  it("adjourn and suspend the rules cannot be reconsidered (1876 Pocket Manual §27: \"except to Adjourn and to Suspend the Rules\")", async () => {
+    for (const id of ["adjourn", "suspend-rules"]) for (const result of ["adopted", "rejected"] as const) {
+      expect((await moves([], { votes: [vote(id, result, 1)] })).reconsider.inOrder, `${id} ${result}`).toBe(false);
+    }
+  });
+  it("the vote to reconsider may be named among the recent votes; by default it is the latest", async () => {
+    const votes = [vote("main", "adopted", 1), vote("adjourn", "rejected", 1)];
+    expect((await moves([], { votes })).reconsider.inOrder).toBe(false);
+    expect((await moves([], { votes, reconsiderVote: 0 })).reconsider.inOrder).toBe(true);
+  });
+  it('reconsider is "Undebatable when the motion to be … reconsidered is undebatable" (Table of Rules note 4)', async () => {
+    expect((await moves([], { votes: [vote("previous-question", "adopted", 1)] })).reconsider.debatable).toBe(false);
+    expect((await moves([], { votes: [vote("main", "adopted", 1)] })).reconsider.debatable).toBe(true);
+  });
+  it("the live floor passes the last recorded vote, so an adopted motion to lay on the table is not reconsiderable there (note 2)", async () => {
+    const board = { ...EMPTY_BOARD, voteTaken: true, lastVote: { motion: "lay-on-table", name: "Lay on the table", result: "adopted" as const, tally: null } };
+    expect((await legalMoves(gpl, floorStateOf(board))).find((v) => v.motion === "reconsider")!.inOrder).toBe(false);
+    const main = { ...board, lastVote: { ...board.lastVote, motion: "main", name: "Main motion" } };
+    expect((await legalMoves(gpl, floorStateOf(main))).find((v) => v.motion === "reconsider")!.inOrder).toBe(true);
+  });
+  it("a floor state of an earlier version (voteTaken, no votes listed) answers as before", async () => {
+    expect((await moves([], { voteTaken: true })).reconsider.inOrder).toBe(true);
+    expect((await moves([])).reconsider.reasons.map((r) => r.rule)).toEqual(["reconsider-needs-vote"]);
+  });
+  it("refuses votes that name no catalogue motion, a vote after today, and a reconsiderVote beyond the list", async () => {
+    await expect(legalMoves(gpl, { floor: { votes: [{ motion: "filibuster", result: "adopted" }] } })).rejects.toMatchObject({ code: "invalid-input", issues: [{ path: "floor.votes.0.motion" }] });
+    await expect(legalMoves(gpl, { floor: { day: 2, votes: [vote("main", "adopted", 3)] } })).rejects.toMatchObject({ issues: [{ path: "floor.votes.0.day" }] });
+    await expect(legalMoves(gpl, { floor: { votes: [vote("main", "adopted", 1)], reconsiderVote: 1 } })).rejects.toMatchObject({ issues: [{ path: "floor.reconsiderVote" }] });
+    await expect(legalMoves(gpl, { floor: { votes: [{ motion: "main", result: "carried" }] } })).rejects.toMatchObject({ issues: [{ path: "floor.votes.0.result" }] });
+  });
+});
+
+describe("F12, F13: characteristics that depend on the floor state (RONR 1915 §§14, 16; Table of Rules notes 10, 11)", () => {
+  it('fix the time to which to adjourn, §16 p. 59: "if made in an assembly when no question is pending, this is a main motion and may be debated"; note 11: "Undebatable if made when another question is before the assembly."', async () => {
+    const none = (await moves([]))["fix-time-to-adjourn"];
+    expect([none.class, none.debatable, none.inOrder, none.variantsApplied?.length]).toEqual(["main", true, true, 1]);
+    const pending = (await moves([MAIN]))["fix-time-to-adjourn"];
+    expect([pending.class, pending.debatable, pending.variantsApplied]).toEqual(["privileged", false, []]);
+  });
+  it('take a recess is privileged "(if made when another question is pending)" (§14 p. 58), otherwise a debatable main motion', async () => {
+    expect([(await moves([])).recess.class, (await moves([])).recess.debatable]).toEqual(["main", true]);
+    expect([(await moves([MAIN])).recess.class, (await moves([MAIN])).recess.debatable]).toEqual(["privileged", false]);
+  });
+  it('note 10: propositions on independent subjects "must be divided on the request of a single member, which can be made when another has the floor"', async () => {
+    const independent = (await moves([{ motion: "main", independentParts: true }], { speakerHasFloor: true }))["division-of-question"];
+    expect([independent.inOrder, independent.second, independent.vote, independent.interrupt]).toEqual([true, false, "none", true]);
+  });
+  it('note 10: "If they relate to the same subject and yet each part can stand alone, they may be divided only on a regular motion and vote"', async () => {
+    const regular = (await moves([MAIN]))["division-of-question"];
+    expect([regular.second, regular.vote, regular.interrupt]).toEqual([true, "majority", false]);
+    expect((await moves([MAIN], { speakerHasFloor: true }))["division-of-question"].inOrder).toBe(false);
+  });
+});
+
+describe("F11, F14: thresholds in the alternative or in stated circumstances", () => {
+  it('rescind, §63 p. 256: "by a majority vote, if notice … was given …; or, without any notice, … by a majority of the entire membership, or by a two-thirds vote"', async () => {
+    const plain = (await moves([])).rescind;
+    expect(plain.vote).toBe("two-thirds");
+    expect(plain.voteAlternatives?.map((a) => [a.kind, a.vote, a.applies])).toEqual([["or", "majority", false], ["or", "majority-of-members", null]]);
+    const noticed = (await moves([], { noticeGiven: true })).rescind;
+    expect(noticed.voteAlternatives?.[0]).toMatchObject({ vote: "majority", applies: true });
+  });
+  it('postpone definitely, §31 p. 121: "When it makes a question a special order it requires a two-thirds vote."', async () => {
+    const v = (await moves([MAIN]))["postpone-definitely"];
+    expect(v.vote).toBe("majority");
+    expect(v.voteAlternatives).toEqual([expect.objectContaining({ kind: "instead", vote: "two-thirds", if: "it makes the question a special order", applies: null })]);
+  });
+});
+
+describe("filling blanks and nominations (RONR 1915 §33 p. 149, §66 p. 263)", () => {
+  it("a proposal to fill a blank needs a pending question with a blank; it takes no second and cannot be amended", async () => {
+    const v = (await moves([{ motion: "main", hasBlank: true }]))["fill-blank"];
+    expect([v.inOrder, v.second, v.amendable]).toEqual([true, false, false]);
+    expect((await moves([MAIN]))["fill-blank"].reasons.map((r) => r.rule)).toEqual(["blank-needs-question-with-blank"]);
+  });
+  it('§66: "The nomination need not be seconded"; closing nominations takes two-thirds (§25 p. 96)', async () => {
+    const m = await moves([{ motion: "main", hasBlank: true }]);
+    expect([m.nominate.inOrder, m.nominate.second]).toEqual([true, false]);
+    expect([m["close-nominations"].inOrder, m["close-nominations"].vote]).toEqual([true, "two-thirds"]);
   });
 });

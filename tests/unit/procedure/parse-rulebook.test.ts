@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { GavelError } from "../../../src/lib/errors.ts";
-import { MAX_RULEBOOK_BYTES, parseRulebook, parseRulebookText } from "../../../src/lib/procedure/parse-rulebook.ts";
+import { MAX_RULEBOOK_BYTES, parseRulebook, parseRulebookText, parseRulebookWithNotes } from "../../../src/lib/procedure/parse-rulebook.ts";
 import { rawTemplate, TEMPLATE_IDS } from "./fixtures.ts";
 
 function failure(fn: () => unknown): GavelError {
@@ -170,6 +170,50 @@ describe("shipped templates", () => {
   it("templates use the trade names of the motion catalogue (issue 3 item 6)", () => {
     const names = ["main", "postpone-indefinitely", "amend", "commit", "postpone-definitely", "limit-debate", "previous-question", "lay-on-table", "orders-of-the-day", "question-of-privilege", "recess", "adjourn", "fix-time-to-adjourn", "point-of-order", "appeal", "suspend-rules", "division-of-question", "division-of-assembly", "withdraw", "objection-to-consideration", "reconsider", "rescind", "take-from-table"];
     const ids = rawTemplate("general-parliamentary-law").motions.map((m: { id: string }) => m.id);
-    expect(ids.sort()).toEqual([...names].sort());
+    // Beyond the Order of Precedence: filling blanks (RONR 1915 §33 p. 149), nominations (§66 p. 263), closing them (§25 p. 96).
+    expect(ids.sort()).toEqual([...names, "fill-blank", "nominate", "close-nominations"].sort());
+  });
+});
+
+describe("reconsiderable, variants and vote alternatives (rulebook format, December 2026 revision)", () => {
+  it("reads a boolean reconsiderable saved by an earlier version as both/neither and reports each change", () => {
+    const rb = gpl();
+    rb.motions[0].reconsiderable = true;
+    rb.motions[7].reconsiderable = false;
+    const { rulebook, migrations } = parseRulebookWithNotes(rb);
+    expect([rulebook.motions[0].reconsiderable, rulebook.motions[7].reconsiderable]).toEqual(["both", "neither"]);
+    expect(migrations.map((m) => [m.path, m.from, m.to])).toEqual([["motions.0.reconsiderable", true, "both"], ["motions.7.reconsiderable", false, "neither"]]);
+    expect(parseRulebookWithNotes(gpl()).migrations).toEqual([]);
+  });
+
+  it("refuses a reconsiderable outside the four values, at its path", () => {
+    const rb = gpl();
+    rb.motions[2].reconsiderable = "sometimes";
+    expect(failure(() => parseRulebook(rb)).issues.map((i) => i.path)).toContain("motions.2.reconsiderable");
+  });
+
+  it("checks variant and alternative conditions like rules, at their exact paths", () => {
+    const rb = gpl();
+    const recess = rb.motions.findIndex((m: { id: string }) => m.id === "recess");
+    rb.motions[recess].variants[0].when = { all: [{ fact: "pendingCuont", operator: "equal", value: 0 }] };
+    const rescind = rb.motions.findIndex((m: { id: string }) => m.id === "rescind");
+    rb.motions[rescind].voteAlternatives[0].when = { all: [{ fact: "floor", path: "$.noticeGiven", operator: "sameAs", value: true }] };
+    const paths = failure(() => parseRulebook(rb)).issues.map((i) => i.path);
+    expect(paths).toEqual(expect.arrayContaining([`motions.${recess}.variants.0.when.all.0.fact`, `motions.${rescind}.voteAlternatives.0.when.all.0.operator`]));
+  });
+
+  it("refuses a variant that sets nothing or sets an unknown characteristic, and an alternative without its circumstance", () => {
+    const rb = gpl();
+    rb.motions[0].variants = [{ when: { all: [{ fact: "pendingCount", operator: "equal", value: 0 }] }, set: {}, citation: "x" }];
+    rb.motions[1].variants = [{ when: { all: [{ fact: "pendingCount", operator: "equal", value: 0 }] }, set: { colour: "red" }, citation: "x" }];
+    rb.motions[2].voteAlternatives = [{ kind: "or", vote: "majority", citation: "x" }];
+    const paths = failure(() => parseRulebook(rb)).issues.map((i) => i.path);
+    expect(paths).toEqual(expect.arrayContaining(["motions.0.variants.0.set", "motions.1.variants.0.set", "motions.2.voteAlternatives.0.if"]));
+  });
+
+  it("motion ids compared with amendTarget or lastVote must be in the catalogue", () => {
+    const rb = gpl();
+    rb.rules.push({ id: "x", scope: "motion", citation: "x", message: "x", conditions: { all: [{ fact: "lastVote", path: "$.motion", operator: "equal", value: "filibuster" }] } });
+    expect(failure(() => parseRulebook(rb)).issues[0].path).toBe(`rules.${rb.rules.length - 1}.conditions.all.0.value`);
   });
 });

@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { legalMoves, type MotionVerdict } from "../../../src/lib/procedure/legal-moves.ts";
-import { template } from "./fixtures.ts";
+import { template, TEMPLATE_IDS } from "./fixtures.ts";
 
-async function moves(id: string, pending: Array<{ motion: string }>, floor?: Record<string, unknown>) {
+async function moves(id: string, pending: Array<{ motion: string; independentParts?: boolean }>, floor?: Record<string, unknown>) {
   const list = await legalMoves(template(id), { pending, floor });
   return Object.fromEntries(list.map((v) => [v.motion, v])) as Record<string, MotionVerdict>;
 }
@@ -24,6 +24,10 @@ describe("four-amendment legislature (Rules of the US House of Representatives)"
     expect(v.inOrder).toBe(false);
     expect(v.reasons.map((r) => r.rule)).toContain("not-entertained");
   });
+  it("Rule XVI cl. 4(a) ranks to amend above to postpone indefinitely: with postpone indefinitely pending, an amendment is in order and applies to the bill (F8)", async () => {
+    const v = (await moves("four-amendment-legislature", [MAIN, { motion: "postpone-indefinitely" }])).amend;
+    expect([v.inOrder, v.degree, v.appliesTo]).toEqual([true, 1, "main"]);
+  });
   it("an amendment to an amendment to an amendment is out of order (Rule XVI cl. 6)", async () => {
     const v = (await moves("four-amendment-legislature", [MAIN, { motion: "amend" }, { motion: "amend" }])).amend;
     expect([v.inOrder, v.degree]).toEqual([false, 3]);
@@ -38,7 +42,21 @@ describe("continental successive (common practice, no source)", () => {
   });
 });
 
+describe("every template: amend applies beneath postpone indefinitely (RONR 1915 §33 p. 134: \"To Amend takes precedence of the motion to postpone indefinitely\")", () => {
+  for (const id of TEMPLATE_IDS) {
+    it(id, async () => {
+      const v = (await moves(id, [MAIN, { motion: "postpone-indefinitely" }])).amend;
+      expect([v.inOrder, v.degree, v.appliesTo]).toEqual([true, 1, "main"]);
+    });
+  }
+});
+
 describe("Harrowmere Assembly (fictional Standing Orders)", () => {
+  it("incidental motions yield to adjourn (fictional SO 20, as RONR 1915 §13) and reconsider keeps to its window (fictional SO 50)", async () => {
+    expect((await moves("demo-chamber", [MAIN, { motion: "adjourn" }]))["suspend-rules"].inOrder).toBe(false);
+    expect((await moves("demo-chamber", [], { day: 3, votes: [{ motion: "main", result: "adopted", day: 1 }] })).reconsider.inOrder).toBe(false);
+    expect((await moves("demo-chamber", [], { day: 2, votes: [{ motion: "main", result: "adopted", day: 1 }] })).reconsider.inOrder).toBe(true);
+  });
   it("ranks come from the precedence chain of SO 20: lay on the table outranks close debate, postpone indefinitely does not outrank amend", async () => {
     const m = await moves("demo-chamber", [MAIN, { motion: "amend" }]);
     expect(m["postpone-indefinitely"].inOrder).toBe(false);
