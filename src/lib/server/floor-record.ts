@@ -12,6 +12,7 @@ import { idSchema } from "../amendments/case-schema.ts";
 import { GavelError } from "../errors.ts";
 import type { FloorStateInput } from "../procedure/floor-state-schema.ts";
 import type { Rulebook } from "../procedure/rulebook-schema.ts";
+import { questionName } from "../procedure/question-name.ts";
 
 export const STAGES = ["made", "seconded", "stated"] as const;
 
@@ -115,30 +116,7 @@ function refuse(message: string, path = "event.kind"): never {
   throw new GavelError("unprocessable", message, { issues: [{ path, message }] });
 }
 
-const clip = (text: string, max = 80) => (text.length > max ? `${text.slice(0, max - 1).trimEnd()}…` : text);
-
-/** How a question is referred to inside another's name: its reference, or what it is. */
-function shortName(item: PendingItem): string {
-  if (item.degree !== null) return item.ref ? `Amendment ${item.ref}` : "the amendment";
-  if (item.ref) return `${item.name} ${item.ref}`;
-  return item.motion === "main" ? "the main motion" : `“${item.name}”`;
-}
-
-/**
- * The question as the clerk reads it in forms, confirmations and the history: "Amendment A2 to
- * Amendment A1", "Main motion M1 — “That the Assembly …”". `pending` is the stack (bottom first).
- */
-export function questionName(pending: readonly PendingItem[], index: number): string {
-  const item = pending[index];
-  if (!item) return "";
-  const wording = item.text ? ` — “${clip(item.text)}”` : "";
-  if (item.degree !== null) {
-    const target = pending[index - 1];
-    const own = item.ref ? `Amendment ${item.ref}` : item.degree > 1 ? `An amendment of degree ${item.degree}` : "An amendment";
-    return `${own}${target ? ` to ${shortName(target)}` : ""}${wording}`;
-  }
-  return `${item.name}${item.ref ? ` ${item.ref}` : ""}${wording}`;
-}
+export { questionName };
 
 /** "12–20, 3 abstaining" */
 export function tallyWords(tally: Tally | null): string {

@@ -10,7 +10,7 @@ import { user } from "../../db/schema/auth.ts";
 import { floorEvents, sittings } from "../../db/schema/floor.ts";
 import { GavelError, parseWith } from "../../errors.ts";
 import { legalMoves } from "../../procedure/legal-moves.ts";
-import { applyFloorEvent, boardSchema, checkVote, EMPTY_BOARD, floorEventSchema, floorStateOf, questionName, replayBoard, storedKey, withQuestion, type Board, type Entry, type FloorEvent } from "../floor-record.ts";
+import { applyFloorEvent, boardSchema, checkVote, EMPTY_BOARD, floorEventSchema, floorStateOf, questionName, questionThreshold, replayBoard, storedKey, thresholdNeedsCount, thresholdWords, withQuestion, type Board, type Entry, type FloorEvent } from "../floor-record.ts";
 import type { Rulebook } from "../../procedure/rulebook-schema.ts";
 import { notifyFloor } from "../floor-bus.ts";
 import { loadRulebook, rulebookInForce, versionIdSchema } from "./rulebooks.ts";
@@ -111,10 +111,17 @@ export async function getSitting(actor: Actor, id: string) {
     board,
     state,
     /** The immediately pending question as the clerk reads it, with the threshold that decides it. */
-    question: board.pending.length ? { key: board.pending[board.pending.length - 1].key, name: questionName(board.pending, board.pending.length - 1) } : null,
+    question: questionOf(rb.rulebook, board),
     moves: await legalMoves(rb.rulebook, state),
     history,
   };
+}
+
+function questionOf(rulebook: Rulebook, board: Board) {
+  const i = board.pending.length - 1;
+  if (i < 0) return null;
+  const threshold = questionThreshold(rulebook, board.pending[i]);
+  return { key: board.pending[i].key, name: questionName(board.pending, i), threshold: thresholdWords(threshold), needsCount: thresholdNeedsCount(threshold) };
 }
 
 /** Record one event on the floor: checked, applied, stored with its history line and NOTIFY, atomically. */
