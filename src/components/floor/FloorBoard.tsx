@@ -66,8 +66,8 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
     setOutOfOrder(null);
     try {
       const r = await sendJson(`/api/floor/sittings/${sittingId}/events`, "POST", { revision: data.sitting.revision, event }, recordedSchema);
-      setNotice(`Recorded: ${r.summary}`);
       await load();
+      setNotice(`Recorded: ${r.summary}`);
       requestAnimationFrame(() => noticeRef.current?.focus());
       return { ok: true };
     } catch (e) {
@@ -231,7 +231,7 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
                   <button type="button" className="gw-btn-quiet" disabled={busy || top.stage === "stated"} onClick={() => void record({ kind: "stated" })}>Stated by the chair</button>
                   <button type="button" className="gw-btn-quiet" disabled={busy} onClick={() => void record({ kind: "floor", debateBegun: !top.debateBegun })}>{top.debateBegun ? "Debate not begun" : "Debate begun"}</button>
                 </div>
-                {data.question && <VoteForm key={data.question.key} question={data.question} busy={busy} record={post} />}
+                {data.question && <VoteForm question={data.question} busy={busy} record={post} />}
               </div>
             )}
 

@@ -52,15 +52,15 @@ export default function VoteFields({ id, value, onChange, errors, needsCount, di
           </label>
         </div>
         {needsCount && <p className="gw-hint">This question needs a count: its threshold cannot be judged by voice.</p>}
+        {value.method === "counted" && <p className="gw-hint">Leave Abstaining empty if no one abstained.</p>}
         <FieldError id={`${id}-method-err`}>{errors.method}</FieldError>
       </fieldset>
       {value.method === "counted" && (
         <div className="flex flex-wrap items-start gap-3">
           {(["yes", "no", "abstain"] as const).map((k) => (
-            <div key={k} className="w-28 text-sm">
+            <div key={k} className="w-32 text-sm">
               <label className="gw-label" htmlFor={`${id}-${k}`}>
                 {VOTE_FIELD_LABELS[k]}
-                {k === "abstain" ? " (if any)" : ""}
               </label>
               <input id={`${id}-${k}`} className="gw-input" inputMode="numeric" autoComplete="off" value={value[k]} disabled={disabled} maxLength={7} onChange={(e) => set({ [k]: e.target.value })} {...err(k)} />
             </div>
