@@ -1,8 +1,15 @@
 #!/usr/bin/env node
-// Gavelwright command line: runs the TypeScript CLI through tsx (a runtime dependency),
-// so it works right after `npm install`, with no build, server or database.
-import { register } from "tsx/esm/api";
+// Gavelwright command line. Runs the bundle that `npm install` (prepare) and the build write to
+// dist/cli/ (plain JavaScript, no TypeScript loader); a checkout without it runs the sources
+// through tsx instead.
+import { existsSync } from "node:fs";
 
-register();
-const { main } = await import("../src/cli/main.ts");
+const bundle = new URL("../dist/cli/gavelwright.js", import.meta.url);
+let main;
+if (existsSync(bundle)) ({ main } = await import(bundle.href));
+else {
+  const { register } = await import("tsx/esm/api");
+  register();
+  ({ main } = await import("../src/cli/main.ts"));
+}
 process.exitCode = await main(process.argv.slice(2));

@@ -282,4 +282,5 @@ export function runTs(script, env = {}) {
 export function build(env = {}) {
   log("building the app (astro build)…");
   runNode([join(ROOT, "node_modules", "astro", "astro.js"), "build"], { ASTRO_TELEMETRY_DISABLED: "1", ...env });
+  runNode([join(ROOT, "scripts", "build-cli.mjs")], env);
 }

@@ -1,6 +1,7 @@
 /** Input and output helpers shared by every CLI command. */
-import { readFileSync, statSync } from "node:fs";
-import { resolve } from "node:path";
+import { existsSync, readFileSync, statSync } from "node:fs";
+import { dirname, join, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
 import { GavelError } from "../lib/errors.ts";
 
 export interface CliIO {
@@ -8,6 +9,17 @@ export interface CliIO {
   stderr: (text: string) => void;
   /** Directory that relative paths in arguments are resolved against. */
   cwd: string;
+}
+
+/**
+ * The package's root folder (where package.json and rulebooks/ are), found from this module's own
+ * location, so the same code works from src/ (through tsx) and from the bundle in dist/.
+ */
+export function packageRoot(from = dirname(fileURLToPath(import.meta.url))): string {
+  for (let dir = from; ; dir = dirname(dir)) {
+    if (existsSync(join(dir, "package.json")) && existsSync(join(dir, "rulebooks"))) return dir;
+    if (dirname(dir) === dir) throw new Error(`gavelwright: cannot find the package root above ${from}`);
+  }
 }
 
 export const MAX_INPUT_BYTES = 5 * 1024 * 1024;

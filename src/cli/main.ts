@@ -5,14 +5,13 @@
  */
 import { isGavelError } from "../lib/errors.ts";
 import type { CliIO } from "./io.ts";
+import { COMMAND_TABLE, type CommandName } from "./command-table.ts";
 
 export interface Command {
-  summary: string;
-  usage: string;
   run(args: string[], io: CliIO): Promise<number>;
 }
 
-const COMMANDS: Record<string, () => Promise<{ default: Command }>> = {
+const LOADERS: Record<CommandName, () => Promise<{ default: Command }>> = {
   moves: () => import("./commands/moves.ts"),
   rulebook: () => import("./commands/rulebook.ts"),
   check: () => import("./commands/check.ts"),
@@ -21,37 +20,32 @@ const COMMANDS: Record<string, () => Promise<{ default: Command }>> = {
   orders: () => import("./commands/orders.ts"),
 };
 
-async function help(io: CliIO): Promise<void> {
+function help(io: CliIO): void {
   const lines = ["usage: gavelwright <command> [arguments]", "", "commands:"];
-  for (const [name, load] of Object.entries(COMMANDS)) {
-    try {
-      const cmd = (await load()).default;
-      lines.push(`  ${cmd.usage.padEnd(34)} ${cmd.summary}`);
-    } catch {
-      lines.push(`  ${name.padEnd(34)} (not available in this build)`);
-    }
-  }
+  for (const { usage, summary } of Object.values(COMMAND_TABLE)) lines.push(`  ${usage.padEnd(34)} ${summary}`);
   lines.push("", "Input and output are JSON; see README.md, section \"Command line\".");
   io.stdout(lines.join("\n") + "\n");
 }
 
+const isCommand = (name: string): name is CommandName => Object.hasOwn(COMMAND_TABLE, name);
+
 export async function main(argv: string[], io: CliIO = defaultIO()): Promise<number> {
   const [name, ...rest] = argv;
   if (!name || name === "help" || name === "--help" || name === "-h") {
-    await help(io);
+    help(io);
     return name ? 0 : 2;
   }
-  const load = COMMANDS[name];
-  if (!load) {
+  if (!isCommand(name)) {
     io.stderr(`gavelwright: unknown command "${name}". Run "gavelwright help" for the list.\n`);
     return 2;
   }
   try {
-    const cmd = (await load()).default;
     if (rest[0] === "--help" || rest[0] === "-h") {
-      io.stdout(`usage: gavelwright ${cmd.usage}\n${cmd.summary}\n`);
+      const { usage, summary } = COMMAND_TABLE[name];
+      io.stdout(`usage: gavelwright ${usage}\n${summary}\n`);
       return 0;
     }
+    const cmd = (await LOADERS[name]()).default;
     return await cmd.run(rest, io);
   } catch (e) {
     if (isGavelError(e)) {

@@ -4,8 +4,6 @@ import type { Command } from "../main.ts";
 import { printJson, readJsonFile } from "../io.ts";
 
 export default {
-  summary: "Count legal voting orders and the orders leading to each sincere/sophisticated outcome",
-  usage: "agendas FILE",
   async run(args, io) {
     printJson(io, analyseAgendas(readJsonFile(args[0], io)));
     return 0;

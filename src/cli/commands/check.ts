@@ -20,8 +20,6 @@ const checkCaseSchema = z.looseObject({
 });
 
 export default {
-  summary: "Validate a measure's amendment tree against a rulebook and list the findings.",
-  usage: "check CASE.json",
   async run(args, io) {
     const { raw, rulebook } = readCase(args[0], io, checkCaseSchema);
     const { findings, tree } = await validateTree({ rulebook, measure: raw.measure, amendments: raw.amendments, asOf: raw.asOf, overrides: raw.overrides });

@@ -10,8 +10,6 @@ import { printJson, readJsonFile } from "../io.ts";
 const schema = majorityInputSchema.extend({ uncovered: z.enum(UNCOVERED_VARIANTS).default("gillies") });
 
 export default {
-  summary: "Majority graph, Condorcet winner, top cycle, Schwartz, uncovered and Banks sets",
-  usage: "majority FILE",
   async run(args, io) {
     const input = parseWith(schema, readJsonFile(args[0], io), "majority input");
     const { graph } = parsedMajorityGraph(input);

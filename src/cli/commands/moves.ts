@@ -16,8 +16,6 @@ const movesCaseSchema = z.looseObject({
 });
 
 export default {
-  summary: "List every motion of the rulebook as in or out of order for a floor state, with reasons.",
-  usage: "moves CASE.json",
   async run(args, io) {
     const { raw, rulebook } = readCase(args[0], io, movesCaseSchema);
     printJson(io, await legalMoves(rulebook, { pending: raw.pending, floor: raw.floor }));

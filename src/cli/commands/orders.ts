@@ -10,8 +10,6 @@ import type { Command } from "../main.ts";
 import { printJson, readJsonFile } from "../io.ts";
 
 export default {
-  summary: "Alternatives, majority sets, legal voting orders and their outcomes for an amendment tree",
-  usage: "orders FILE",
   async run(args, io) {
     const input = readJsonFile(args[0], io);
     if (input && typeof input === "object" && !Array.isArray(input) && typeof (input as { rulebook?: unknown }).rulebook === "string") {

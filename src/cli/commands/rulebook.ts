@@ -5,16 +5,15 @@
  */
 import { existsSync } from "node:fs";
 import { dirname, resolve } from "node:path";
-import { fileURLToPath } from "node:url";
 import { z } from "zod";
 import { GavelError, parseWith } from "../../lib/errors.ts";
 import { parseRulebook, parseRulebookWithNotes } from "../../lib/procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../lib/procedure/rulebook-schema.ts";
-import { printJson, readJsonFile, type CliIO } from "../io.ts";
+import { packageRoot, printJson, readJsonFile, type CliIO } from "../io.ts";
 import type { Command } from "../main.ts";
 
 /** The shipped templates (rulebooks/*.json at the package root). */
-export const TEMPLATE_DIR = resolve(dirname(fileURLToPath(import.meta.url)), "../../../rulebooks");
+export const TEMPLATE_DIR = resolve(packageRoot(), "rulebooks");
 
 /** Prefix the issue paths of a GavelError with the member the value came from ("rulebook.motions.3.rank"). */
 function prefixed(e: unknown, prefix: string): unknown {
@@ -59,8 +58,6 @@ export function loadRulebookRef(ref: unknown, caseDir: string, io: CliIO): Ruleb
 }
 
 export default {
-  summary: "Validate a rulebook file (exit 0 with a summary, or 2 with path-precise errors).",
-  usage: "rulebook check FILE",
   async run(args, io) {
     const [sub, file] = args;
     if (sub !== "check") throw new GavelError("invalid-input", `unknown subcommand ${JSON.stringify(sub ?? "")}; use "rulebook check FILE"`, { issues: [{ path: "(argument)", message: "expected \"check\"" }] });

@@ -19,7 +19,8 @@ import { amendmentTreeModel } from "../voting/amendment-versions.ts";
 import { ordersInputSchema, PASSAGE } from "../voting/analyse-orders.ts";
 import { rankingsToIndices } from "../voting/majority-input.ts";
 import { majorityGraph } from "../voting/majority-graph.ts";
-import { questionConstraints } from "../voting/order-constraints.ts";
+import { questionConstraints, questionPrecedence } from "../voting/order-constraints.ts";
+import { isLegalOrder } from "../voting/precedence.ts";
 import { pairSupport, profileFromRankings, type Profile } from "../voting/profile.ts";
 import { questionAgenda, sincereQuestionPath, sophisticatedValue } from "../voting/question-agenda.ts";
 import { scaleSpatial, spatialProfile, versionPosition } from "../voting/spatial-profile.ts";
@@ -82,6 +83,9 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
   const pos = new Map(order.map((x, i) => [x, i]));
   for (const [a, b] of questionConstraints(model, voting.constraints))
     if (pos.get(a)! > pos.get(b)!) throw new GavelError("unprocessable", `order: ${qids[a]} must be put before ${qids[b]} under the rulebook`, { issues: [{ path: "order", message: `${qids[a]} must come before ${qids[b]}` }] });
+  // Contiguous blocks and "not between" rules (primary-contiguous, perfecting-after-rejected-substitute).
+  if (!isLegalOrder(questionPrecedence(model, voting.constraints), order))
+    throw new GavelError("unprocessable", "order: the rulebook does not allow this order (one primary amendment is pending at a time, and a substitute's amendments and the substitute are voted together)", { issues: [{ path: "order", message: "not a legal order under the rulebook's constraints" }] });
 
   const sincereTally = (x: number, decided: number, adopted: number) => {
     const t = qa.sincereTally(x, decided, adopted)!;

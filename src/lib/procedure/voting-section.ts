@@ -25,6 +25,10 @@ export const ORDER_CONSTRAINTS = [
   "textual-order",
   /** The measure (as amended) is put last, against the status quo. */
   "passage-last",
+  /** One primary amendment pending at a time: an amendment and everything amending it are voted as one contiguous block. */
+  "primary-contiguous",
+  /** With perfecting-before-substitute: a perfecting amendment may also be voted after the substitute is rejected (it falls if the substitute was adopted). */
+  "perfecting-after-rejected-substitute",
 ] as const;
 export type OrderConstraint = (typeof ORDER_CONSTRAINTS)[number];
 

@@ -18,11 +18,10 @@ import { legalOrderPage } from "./legal-orders.ts";
 import { ballotSchema, rankingsToIndices } from "./majority-input.ts";
 import { majorityGraph } from "./majority-graph.ts";
 import { majorityReport, type MajorityReport } from "./majority-report.ts";
-import { precedence } from "./precedence.ts";
 import { profileFromRankings, type Profile } from "./profile.ts";
 import { questionAgenda, sincereQuestionPath, sophisticatedQuestionOutcome, type QuestionStep } from "./question-agenda.ts";
 import { sincereQuestionCounts, sophisticatedQuestionCounts } from "./question-counts.ts";
-import { questionConstraints } from "./order-constraints.ts";
+import { questionOrderRules, questionPrecedence } from "./order-constraints.ts";
 import { scaleSpatial, spatialProfile, spatialSchema, versionPosition } from "./spatial-profile.ts";
 import { UNCOVERED_VARIANTS } from "./uncovered-set.ts";
 import { toThreshold } from "./vote-threshold.ts";
@@ -50,8 +49,12 @@ export interface OrdersAnalysis {
   procedure: "amendment" | "successive";
   threshold: string;
   alternatives: Array<{ id: string; amendments: string[] }>;
-  questions: Array<{ id: string; kind: "amendment" | "passage"; degree?: 1 | 2; amends?: string; form?: string }>;
+  questions: Array<{ id: string; kind: "amendment" | "passage"; degree?: 1 | 2; amends?: string; form?: string; substituteFor?: string }>;
   constraints: Array<[string, string]>;
+  /** primary-contiguous: each list of questions is voted as one contiguous block. */
+  blocks: string[][];
+  /** perfecting-after-rejected-substitute: none of `excludes` is voted between the first and the last question of `span`. */
+  notBetween: Array<{ span: string[]; excludes: string[] }>;
   majority: MajorityReport;
   orders: JsonCount;
   sincere: Record<string, JsonCount>;
@@ -97,15 +100,18 @@ export function analyseOrders(raw: unknown, opts: AnalyseOptions = {}): OrdersAn
   const graph = majorityGraph(built.profile, threshold);
   const qa = questionAgenda(model, graph, built.profile, voting.procedure);
   const qids = [...model.amendments.map((a) => a.id), PASSAGE];
-  const pairs = questionConstraints(model, voting.constraints);
-  const prec = precedence(qa.k + 1, pairs, "rulebook.voting.constraints");
+  const rules = questionOrderRules(model, voting.constraints);
+  const pairs = rules.pairs;
+  const prec = questionPrecedence(model, voting.constraints);
   const phase = (name: "orders" | "sincere" | "sophisticated"): RunControl => ({ ...opts, onProgress: (f) => opts.onPhase?.(name, f) });
   const total = countLegalOrders(prec, phase("orders"));
+  if (Number(total) === 0) throw new GavelError("unprocessable", "the rulebook's ordering constraints leave no legal voting order for this tree", { issues: [{ path: "rulebook.voting.constraints", message: "no order satisfies every constraint" }] });
   const sincere = sincereQuestionCounts(qa, prec, phase("sincere"));
   const sophisticated = sophisticatedQuestionCounts(qa, prec, phase("sophisticated"));
   const pageOrders = legalOrderPage(prec, input.page, input.pageSize);
   const firstRank = (input.page - 1) * input.pageSize + 1;
   const versionName = (v: number) => model.versions[v].id;
+  const idsOf = (mask: number) => qids.filter((_, i) => mask & (1 << i));
   const stepJson = (s: QuestionStep) => ({ question: qids[s.question], put: s.put, ...(s.adopted === undefined ? {} : { adopted: s.adopted }) });
   const page = pageOrders.map((o, i) => {
     const path = sincereQuestionPath(qa, o);
@@ -117,10 +123,12 @@ export function analyseOrders(raw: unknown, opts: AnalyseOptions = {}): OrdersAn
     threshold,
     alternatives: model.versions,
     questions: [
-      ...model.amendments.map((a, i) => ({ id: a.id, kind: "amendment" as const, degree: (model.parent[i] < 0 ? 1 : 2) as 1 | 2, amends: a.target, form: a.form })),
+      ...model.amendments.map((a, i) => ({ id: a.id, kind: "amendment" as const, degree: model.degree[i], amends: a.target, form: a.form, ...(model.substituteFor[i] >= 0 ? { substituteFor: a.target } : {}) })),
       { id: PASSAGE, kind: "passage" as const },
     ],
     constraints: [...new Set(pairs.map(([a, b]) => `${a},${b}`))].map((s) => s.split(",").map((x) => qids[Number(x)]) as [string, string]),
+    blocks: rules.blocks.map(idsOf),
+    notBetween: rules.notBetween.map((w) => ({ span: idsOf(w.span), excludes: idsOf(w.excludes) })),
     majority: majorityReport(graph, { uncovered: input.uncovered }),
     orders: countToJson(total),
     sincere: countsByName(graph, sincere),

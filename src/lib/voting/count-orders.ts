@@ -3,7 +3,9 @@
  * listing orders"). Orders are built one item at a time — from the first position forward, or from
  * the last position backward — and a caller-supplied state machine folds each placed item into a
  * state. Orders that reach the same (placed set, state) are merged and counted together, so the cost
- * is the number of distinct such pairs, never the number of orders.
+ * is the number of distinct such pairs, never the number of orders. Which item may come next is the
+ * precedence's one availability rule (`availableMask`: the pairs, and the windows such as contiguous
+ * blocks, which depend on the placed set); a partial order from which nothing can follow is dropped.
  *
  * Every count in the product (legal orders, outcomes of sincere and sophisticated voting, orders
  * of question trees) is one run of this engine. Counts are exact: float64 while n! < 2^53 (n ≤ 18;
@@ -11,7 +13,7 @@
  */
 import { GavelError } from "../errors.ts";
 import type { Count } from "./count-json.ts";
-import type { Precedence } from "./precedence.ts";
+import { availableMask, type Precedence } from "./precedence.ts";
 
 export interface OrderMachine<S extends number | string> {
   start: S;
@@ -37,7 +39,6 @@ export const DEFAULT_MAX_STATES = 4_000_000;
  */
 export function countOrders<S extends number | string>(prec: Precedence, machine: OrderMachine<S>, direction: "forward" | "backward" = "forward", control: RunControl = {}): Map<S, Count> {
   const { n } = prec;
-  const req = direction === "forward" ? prec.pred : prec.succ;
   const useBig = n > 18;
   const one: Count = useBig ? 1n : 1;
   const maxStates = control.maxStates ?? DEFAULT_MAX_STATES;
@@ -51,10 +52,9 @@ export function countOrders<S extends number | string>(prec: Precedence, machine
       // Poll at the start of every layer and every 1024 sets within one.
       if (control.shouldCancel && (polled++ & 1023) === 0 && control.shouldCancel())
         throw new GavelError("limit-exceeded", "the analysis was cancelled", { details: { cancelled: true } });
-      for (let x = 0; x < n; x++) {
-        const bit = 1 << x;
-        if (placed & bit || (req[x] & ~placed) !== 0) continue;
-        const to = placed | bit;
+      for (let avail = availableMask(prec, placed, direction); avail !== 0; avail &= avail - 1) {
+        const x = 31 - Math.clz32(avail & -avail);
+        const to = placed | (1 << x);
         let target = next.get(to);
         if (!target) {
           target = new Map();

@@ -15,7 +15,8 @@ export { banksSet, BANKS_MAX_EXACT, BANKS_MAX_NODES, type BanksResult } from "./
 export { sincereAmendment, shepsleWeingast } from "./amendment-agenda.ts";
 export { sincereSuccessive, sophisticatedSuccessive } from "./successive-agenda.ts";
 export { amendmentTree, successiveTree, twoStageTree, sophisticatedValue, votePath, type VotingTree, type VoteRecord } from "./voting-tree.ts";
-export { precedence, type Precedence } from "./precedence.ts";
+export { precedence, availableMask, isLegalOrder, type Precedence, type OrderWindow } from "./precedence.ts";
+export { questionOrderRules, questionPrecedence, questionConstraints, type QuestionOrderRules } from "./order-constraints.ts";
 export { legalOrders, legalOrderPage } from "./legal-orders.ts";
 export { countOrders, countLegalOrders, type OrderMachine, type RunControl } from "./count-orders.ts";
 export { countToJson, type Count, type JsonCount } from "./count-json.ts";

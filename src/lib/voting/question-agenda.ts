@@ -8,7 +8,8 @@
  * amendment whose parent was already decided or itself falls; when it is exclusive with an adopted
  * amendment (the first adopted makes the rest fall); or when an adopted substitute replaced its text.
  * A vote on amendment x compares the version with x adopted against the version without it, both
- * with x's parent taken as adopted (a second-degree amendment perfects its parent). Passage compares
+ * with what x amends taken as adopted (a second-degree amendment perfects its parent; a substitute for
+ * a first-degree amendment A compares A as amended by the substitute with A as perfected). Passage compares
  * the version reached with Q. A tie defeats the motion.
  *
  * Sincere voting: "amendment" procedure — members vote for the preferred of the two versions the vote
@@ -32,6 +33,8 @@ export interface QuestionAgenda {
   k: number;
   passage: number;
   falls(x: number, decided: number, adopted: number): boolean;
+  /** The amendments whose adoption can make x fall (for a fixed decided set, falls(x) reads only these bits of adopted). */
+  fallsRelevant(x: number): number;
   /** The two versions a vote on x compares, and the state after adoption / rejection. */
   vote(x: number, adopted: number): { yesState: number; noState: number; yesVersion: number; noVersion: number };
   /** Final outcome (version index) of a completed state. */
@@ -53,8 +56,11 @@ export function questionAgenda(model: AmendmentTreeModel, g: MajorityGraph, prof
   const passage = k;
   const P = 1 << passage;
   const Q = 0;
+  // An adopted substitute replaced x's text. A substitute for a first-degree amendment is voted before
+  // that amendment, so its adoption makes the amendments to the amendment's text fall at once (they are
+  // perfecting amendments of text no longer there) even though the amendment itself is still undecided.
   const superseding = (adopted: number, x: number) => {
-    for (let s = 0; s < k; s++) if (adopted & (1 << s) && model.supersedes[s] & (1 << x) && (model.parent[s] < 0 || adopted & (1 << model.parent[s]))) return true;
+    for (let s = 0; s < k; s++) if (adopted & (1 << s) && model.supersedes[s] & (1 << x)) return true;
     return false;
   };
   const falls = (x: number, decided: number, adopted: number): boolean => {
@@ -64,10 +70,22 @@ export function questionAgenda(model: AmendmentTreeModel, g: MajorityGraph, prof
     if (par >= 0 && (decided & (1 << par) || falls(par, decided, adopted))) return true;
     return (model.exclusive[x] & adopted & ~P) !== 0 || superseding(adopted, x);
   };
+  const relevant: number[] = [];
+  const fallsRelevant = (x: number): number => {
+    if (x === passage) return 0;
+    if (relevant[x] === undefined) {
+      let r = model.exclusive[x];
+      for (let s = 0; s < k; s++) if (model.supersedes[s] & (1 << x)) r |= 1 << s;
+      relevant[x] = r | (model.parent[x] >= 0 ? fallsRelevant(model.parent[x]) : 0);
+    }
+    return relevant[x];
+  };
+  // The motion branch's state is always adopted | (1 << x) (question-counts.ts relies on it).
   const vote = (x: number, adopted: number) => {
     if (x === passage) return { yesState: adopted | P, noState: adopted, yesVersion: model.versionOf(adopted & ~P), noVersion: Q };
-    const par = model.parent[x];
-    const assumed = par >= 0 ? adopted | (1 << par) : adopted;
+    // Everything x amends is taken as adopted (a second-degree amendment perfects its parent; an
+    // amendment of a substitute for A perfects the substitute, which would replace A's text).
+    const assumed = adopted | model.ancestors[x];
     return { yesState: adopted | (1 << x), noState: adopted, yesVersion: model.versionOf((assumed | (1 << x)) & ~P), noVersion: model.versionOf(assumed & ~P) };
   };
   const outcome = (adopted: number) => (adopted & P ? model.versionOf(adopted & ~P) : Q);
@@ -115,7 +133,7 @@ export function questionAgenda(model: AmendmentTreeModel, g: MajorityGraph, prof
     const t = sincereTally(x, decided, adopted)!;
     return adopts(t.forWeight, t.againstWeight, profile.totalWeight, g.threshold);
   };
-  return { model, k, passage, falls, vote, outcome, sincereAdopts, sincereTally, successiveField, beats };
+  return { model, k, passage, falls, fallsRelevant, vote, outcome, sincereAdopts, sincereTally, successiveField, beats };
 }
 
 export interface QuestionStep {

@@ -23,13 +23,6 @@ export function sincereQuestionCounts(qa: QuestionAgenda, prec: Precedence, cont
   return byOutcome(countOrders(prec, m, "forward", control), qa.outcome, qa.model.versions.length);
 }
 
-/** Index of A's bits among the set bits of C. */
-function compress(a: number, bitsOfC: readonly number[]): number {
-  let r = 0;
-  for (let i = 0; i < bitsOfC.length; i++) if (a & (1 << bitsOfC[i])) r |= 1 << i;
-  return r;
-}
-
 /** Total entries of all interned value tables; beyond it the count stops with limit-exceeded. */
 export const MAX_TABLE_ENTRIES = 30_000_000;
 
@@ -38,18 +31,27 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
   const full = (2 ** n - 1) | 0;
   const bitsOf = (c: number) => [...Array(n).keys()].filter((i) => c & (1 << i));
   const tables: Array<{ c: number; bits: number[]; values: Int32Array }> = [];
-  const ids = new Map<string, number>();
+  // Interned by (set, FNV-1a hash of the values); equal hashes are compared entry by entry.
+  const ids = new Map<string, number[]>();
   let entries = 0;
   const intern = (c: number, bits: number[], values: Int32Array): number => {
-    const key = `${c}|${values.join(",")}`;
-    let id = ids.get(key);
-    if (id === undefined) {
-      id = tables.length;
-      entries += values.length;
-      if (entries > MAX_TABLE_ENTRIES) throw new GavelError("limit-exceeded", `the sophisticated count needs more than ${MAX_TABLE_ENTRIES} table entries`, { details: { tables: tables.length } });
-      tables.push({ c, bits, values });
-      ids.set(key, id);
-    }
+    let h = 0x811c9dc5;
+    for (let i = 0; i < values.length; i++) h = Math.imul(h ^ values[i], 0x01000193);
+    const key = `${c}:${h >>> 0}`;
+    const same = ids.get(key);
+    if (same)
+      for (const id of same) {
+        const v = tables[id].values;
+        let eq = true;
+        for (let i = 0; i < v.length && eq; i++) eq = v[i] === values[i];
+        if (eq) return id;
+      }
+    const id = tables.length;
+    entries += values.length;
+    if (entries > MAX_TABLE_ENTRIES) throw new GavelError("limit-exceeded", `the sophisticated count needs more than ${MAX_TABLE_ENTRIES} table entries`, { details: { tables: tables.length } });
+    tables.push({ c, bits, values });
+    if (same) same.push(id);
+    else ids.set(key, [id]);
     return id;
   };
   const startBits = bitsOf(full);
@@ -61,6 +63,7 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
   }
   const startId = intern(full, startBits, start);
   const stepMemo = new Map<number, number>();
+  let adoptedOf = new Int32Array(0);
   const m: OrderMachine<number> = {
     start: startId,
     step: (id, x) => {
@@ -69,15 +72,29 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
       if (hit !== undefined) return hit;
       const { c, bits, values } = tables[id];
       const c2 = c & ~(1 << x);
-      const bits2 = bitsOf(c2);
-      const next = new Int32Array(2 ** bits2.length);
-      for (let i = 0; i < next.length; i++) {
-        let a = 0;
-        for (let j = 0; j < bits2.length; j++) if (i & (1 << j)) a |= 1 << bits2[j];
-        const no = values[compress(a, bits)];
-        if (qa.falls(x, c2, a)) next[i] = no;
+      const bits2 = bits.filter((b) => b !== x);
+      // Index i of the new table (adopted sets of bits2) is index j of the old one with a 0 (no) or 1 (yes)
+      // inserted at x's position; the motion branch's state is adopted | (1 << x).
+      const pos = bits.indexOf(x);
+      const low = (1 << pos) - 1;
+      const size = 2 ** bits2.length;
+      const next = new Int32Array(size);
+      if (adoptedOf.length < size) adoptedOf = new Int32Array(size);
+      const relevant = qa.fallsRelevant(x);
+      const fallsMemo = new Map<number, boolean>();
+      for (let i = 0; i < size; i++) {
+        const a = i === 0 ? 0 : adoptedOf[i & (i - 1)] | (1 << bits2[31 - Math.clz32(i & -i)]);
+        adoptedOf[i] = a;
+        const j = ((i & ~low) << 1) | (i & low);
+        const no = values[j];
+        let f = fallsMemo.get(a & relevant);
+        if (f === undefined) {
+          f = qa.falls(x, c2, a);
+          fallsMemo.set(a & relevant, f);
+        }
+        if (f) next[i] = no;
         else {
-          const yes = values[compress(qa.vote(x, a).yesState, bits)];
+          const yes = values[j | (1 << pos)];
           next[i] = qa.beats(yes, no) ? yes : no;
         }
       }
