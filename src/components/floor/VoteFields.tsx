@@ -47,15 +47,15 @@ export default function VoteFields({ id, value, onChange, errors, needsCount, di
             By voice (the chair declared it, no count)
           </label>
           <label className="flex items-center gap-2 text-sm">
-            <input type="radio" name={`${id}-method`} value="counted" checked={value.method === "counted"} disabled={disabled} onChange={() => set({ method: "counted" })} {...err("method")} />
+            <input type="radio" name={`${id}-method`} value="division" checked={value.method === "division"} disabled={disabled} onChange={() => set({ method: "division" })} {...err("method")} />
             Counted
           </label>
         </div>
         {needsCount && <p className="gw-hint">This question needs a count: its threshold cannot be judged by voice.</p>}
-        {value.method === "counted" && <p className="gw-hint">Leave Abstaining empty if no one abstained.</p>}
+        {value.method === "division" && <p className="gw-hint">Leave Abstaining empty if no one abstained.</p>}
         <FieldError id={`${id}-method-err`}>{errors.method}</FieldError>
       </fieldset>
-      {value.method === "counted" && (
+      {value.method === "division" && (
         <div className="flex flex-wrap items-start gap-3">
           {(["yes", "no", "abstain"] as const).map((k) => (
             <div key={k} className="w-32 text-sm">

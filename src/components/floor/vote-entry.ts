@@ -6,7 +6,7 @@
  */
 export interface VoteDraft {
   result: "" | "adopted" | "rejected";
-  method: "" | "voice" | "counted";
+  method: "" | "voice" | "division";
   yes: string;
   no: string;
   abstain: string;
@@ -18,7 +18,7 @@ export const VOTE_FIELD_LABELS: Record<VoteField, string> = { result: "Result", 
 
 export interface VoteEvent {
   result: "adopted" | "rejected";
-  method: "voice" | "counted";
+  method: "voice" | "division";
   tally: { yes: number; no: number; abstain: number } | null;
 }
 
@@ -30,7 +30,7 @@ export function checkDraft(d: VoteDraft, needsCount: boolean): { errors: Partial
   if (!d.result) errors.result = "Result: choose adopted or rejected.";
   if (!d.method) errors.method = "How it was decided: choose by voice or counted.";
   else if (d.method === "voice" && needsCount) errors.method = "How it was decided: this question cannot be decided without a count; choose counted.";
-  if (d.method === "counted") {
+  if (d.method === "division") {
     for (const k of ["yes", "no"] as const) {
       const v = d[k].trim();
       if (!v) errors[k] = `${VOTE_FIELD_LABELS[k]}: enter the number (0 if none).`;
@@ -40,7 +40,7 @@ export function checkDraft(d: VoteDraft, needsCount: boolean): { errors: Partial
     if (a && !WHOLE.test(a)) errors.abstain = `Abstaining: “${a}” is not a whole number; leave it empty if no one abstained.`;
   }
   if (Object.keys(errors).length || !d.result || !d.method) return { errors, vote: null };
-  const tally = d.method === "counted" ? { yes: Number(d.yes.trim()), no: Number(d.no.trim()), abstain: d.abstain.trim() ? Number(d.abstain.trim()) : 0 } : null;
+  const tally = d.method === "division" ? { yes: Number(d.yes.trim()), no: Number(d.no.trim()), abstain: d.abstain.trim() ? Number(d.abstain.trim()) : 0 } : null;
   return { errors, vote: { result: d.result, method: d.method, tally } };
 }
 

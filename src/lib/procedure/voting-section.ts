@@ -10,6 +10,7 @@
  * (Robert's Rules of Order Revised, 1915, §46); on an appeal a tie sustains the chair.
  */
 import { z } from "zod";
+import { votingMethodsSchema } from "./voting-methods.ts";
 
 export const VOTE_THRESHOLDS = ["majority", "two-thirds", "majority-of-members", "none"] as const;
 export type VoteThreshold = (typeof VOTE_THRESHOLDS)[number];
@@ -46,6 +47,8 @@ export const votingSectionSchema = z.object({
     .object({ kind: z.enum(["majority-of-members", "number", "none"]), value: z.number().int().min(1).optional() })
     .refine((q) => q.kind !== "number" || q.value !== undefined, { message: "a quorum of kind \"number\" needs a value", path: ["value"] })
     .default({ kind: "majority-of-members" }),
+  /** How votes are taken and what orders a recorded vote (voting-methods.ts); optional. */
+  methods: votingMethodsSchema.optional(),
   citation: citationSchema,
 });
 

@@ -13,6 +13,7 @@ import { GavelError } from "../errors.ts";
 import type { FloorStateInput } from "../procedure/floor-state-schema.ts";
 import type { Rulebook } from "../procedure/rulebook-schema.ts";
 import { questionName } from "../procedure/question-name.ts";
+import { demandNeeded, ROLL_POSITIONS, VOTING_METHODS, type VotingMethod } from "../procedure/voting-methods.ts";
 
 export const STAGES = ["made", "seconded", "stated"] as const;
 
@@ -34,14 +35,13 @@ const count = z.number({ error: "must be a whole number (0 or more)" }).int("mus
 export const tallySchema = z.object({ yes: count, no: count, abstain: count.default(0) });
 export type Tally = z.output<typeof tallySchema>;
 
-/**
- * How a vote was taken. "voice": the chair declared the result from the voices (or a show of
- * hands not counted) — "The ayes have it" (Robert's Rules of Order Revised, 1915, §46 p. 190);
- * "counted": the votes were counted (a counted division, tellers, or the yeas and nays), so the
- * tally is part of the record.
- */
-export const VOTE_METHODS = ["voice", "counted"] as const;
-export type VoteMethod = (typeof VOTE_METHODS)[number];
+/** How a vote was taken: voice, division (counted) or recorded (roll call); see voting-methods.ts. */
+export const VOTE_METHODS = VOTING_METHODS;
+export type VoteMethod = VotingMethod;
+
+/** One member's answer on a recorded vote (a legislator of the chamber's roster). */
+export const rollEntrySchema = z.object({ member: z.uuid(), position: z.enum(ROLL_POSITIONS) });
+export type RollEntry = z.output<typeof rollEntrySchema>;
 
 export const boardSchema = z.object({
   pending: z.array(pendingItemSchema).max(100),
@@ -63,9 +63,16 @@ export const votedEventSchema = z.object({
   /** The key of the question the clerk was recording (the immediately pending one); refused if another is pending now. */
   question: questionKey.optional(),
   result: z.enum(["adopted", "rejected"]),
-  /** How the vote was taken; absent (older clients): "counted" when a tally is given, else "voice". */
+  /** How the vote was taken; absent (older clients): "division" when a tally is given, else "voice". */
   method: z.enum(VOTE_METHODS).optional(),
+  /** Recorded: the count (for a recorded vote, computed from the roll: yeas, nays, present). */
   tally: tallySchema.nullable().default(null),
+  /** Recorded vote: each member's answer; members of the roster left out did not vote. */
+  roll: z.array(rollEntrySchema).max(5000).optional(),
+  /** Recorded vote: the chair's casting vote on an equal division, where the rulebook gives one. */
+  casting: z.enum(["yea", "nay"]).optional(),
+  /** Recorded vote: how many members demanded it (checked against the rulebook's share of those present). */
+  demandedBy: z.number().int().min(1).max(100_000).optional(),
   /** The clerk confirms the chair declared a result the count does not give under the threshold. */
   againstCount: z.boolean().default(false),
   disposesBelow: z.boolean().default(false),
@@ -122,6 +129,14 @@ export { questionName };
 export function tallyWords(tally: Tally | null): string {
   if (!tally) return "by voice";
   return `${tally.yes}–${tally.no}${tally.abstain ? `, ${tally.abstain} abstaining` : ""}`;
+}
+
+/** "21–12, 3 present, 2 not voting (recorded vote; the chair's casting vote: yea)", or the tally's words. */
+export function voteCountWords(event: VotedEvent): string {
+  if (!event.roll || !event.tally) return tallyWords(event.tally);
+  const n = (p: string) => event.roll!.filter((r) => r.position === p).length;
+  const extra = [n("present") && `${n("present")} present`, n("not-voting") && `${n("not-voting")} not voting`, n("recused") && `${n("recused")} recused`].filter(Boolean).join(", ");
+  return `${event.tally.yes}–${event.tally.no}${extra ? `, ${extra}` : ""} (recorded vote${event.casting ? `; the chair's casting vote: ${event.casting}` : ""})`;
 }
 
 /** A threshold as a rulebook writes it: an id, or (rulebooks with fixed numbers) `{ kind: "number", value }`. */
@@ -193,7 +208,7 @@ function invalid(path: string, message: string): never {
  * declared result is recorded only when the clerk confirms the chair declared it so.
  * Returns the vote with its question and method filled in, as stored.
  */
-export function checkVote(rulebook: Rulebook, board: Board, event: VotedEvent): VotedEvent {
+export function checkVote(rulebook: Rulebook, board: Board, event: VotedEvent, roster?: Roster): VotedEvent {
   const i = board.pending.length - 1;
   const top = board.pending[i];
   if (!top) refuse("Nothing is pending to vote on.");
@@ -205,21 +220,90 @@ export function checkVote(rulebook: Rulebook, board: Board, event: VotedEvent): 
       details: { pending: { key: top.key, name } },
     });
   }
-  const method = event.method ?? (event.tally ? "counted" : "voice");
+  const method = event.method ?? (event.roll ? "recorded" : event.tally ? "division" : "voice");
+  const methods = rulebook.voting.methods;
+  if (methods && !methods.available.includes(method)) invalid("event.method", `The rulebook provides for ${methods.available.map((m) => METHOD_WORDS[m]).join(", ")} only (${methods.citation}).`);
   const threshold = questionThreshold(rulebook, top);
-  if (method === "counted" && !event.tally) invalid("event.tally", "A counted vote needs the ayes and the noes.");
-  if (method === "voice" && event.tally) invalid("event.method", "A vote by voice has no count; choose a counted vote to record the ayes and noes.");
-  if (method === "voice" && thresholdNeedsCount(threshold)) invalid("event.method", `${name} needs ${thresholdWords(threshold)}, which cannot be judged without a count; record the count.`);
-  if (event.tally && !event.againstCount) {
-    const adopts = countAdopts(threshold, event.tally, rulebook.chamber.members);
+  let tally = event.tally;
+  let effective = event.tally;
+  let quorumShort: string | null = null;
+  if (method === "recorded") {
+    if (!event.roll?.length) invalid("event.roll", "A recorded vote needs each member's vote.");
+    if (!roster) throw new Error("checkVote: a recorded vote needs the roster");
+    const seen = new Set<string>();
+    event.roll.forEach((r, n) => {
+      if (!roster.ids.has(r.member)) invalid(`event.roll.${n}.member`, "not a member on the chamber's roster");
+      if (seen.has(r.member)) invalid(`event.roll.${n}.member`, "this member's vote is given twice");
+      seen.add(r.member);
+    });
+    const count = (p: string) => event.roll!.filter((r) => r.position === p).length;
+    tally = { yes: count("yea"), no: count("nay"), abstain: count("present") };
+    effective = tally;
+    if (event.casting) {
+      if (!CASTING_RULES.has(rulebook.voting.tieRule)) invalid("event.casting", "The rulebook gives the chair no casting vote.");
+      if (tally.yes !== tally.no) invalid("event.casting", "The chair's casting vote is given only when the votes are equally divided.");
+      effective = { ...tally, yes: tally.yes + (event.casting === "yea" ? 1 : 0), no: tally.no + (event.casting === "nay" ? 1 : 0) };
+    }
+    const present = tally.yes + tally.no + tally.abstain + count("recused");
+    const members = rulebook.chamber.members ?? roster.size;
+    const needed = quorumNeeded(rulebook, members);
+    if (needed !== null && present < needed) quorumShort = `${present} ${present === 1 ? "member answered" : "members answered"} (yea, nay, present or recused); the quorum is ${needed}`;
+    if (event.demandedBy !== undefined) {
+      const need = demandNeeded(methods?.recordedOnDemand, present);
+      if (need !== null && event.demandedBy < need) invalid("event.demandedBy", `A demand by ${event.demandedBy} does not order a recorded vote: ${need} of the ${present} present are needed (${methods!.recordedOnDemand!.citation}).`);
+    }
+  } else {
+    if (event.roll) invalid("event.roll", "Only a recorded vote has a roll.");
+    if (event.casting) invalid("event.casting", "The chair's casting vote is recorded with a recorded vote.");
+    if (method === "division" && !event.tally) invalid("event.tally", "A counted vote needs the ayes and the noes.");
+    if (method === "voice" && event.tally) invalid("event.method", "A vote by voice has no count; choose a counted vote to record the ayes and noes.");
+    if (method === "voice" && thresholdNeedsCount(threshold)) invalid("event.method", `${name} needs ${thresholdWords(threshold)}, which cannot be judged without a count; record the count.`);
+  }
+  if (quorumShort && !event.againstCount) {
+    throw new GavelError("unprocessable", `No quorum: ${quorumShort}. Nothing was recorded. If the chair declared the result nonetheless, confirm that.`, {
+      issues: [{ path: "event.roll", message: "no quorum" }],
+      details: { noQuorum: true },
+    });
+  }
+  if (effective && !event.againstCount) {
+    const adopts = countAdopts(threshold, effective, rulebook.chamber.members ?? roster?.size);
     if (adopts !== null && adopts !== (event.result === "adopted")) {
-      throw new GavelError("unprocessable", `A count of ${tallyWords(event.tally)} ${adopts ? "adopts" : "does not adopt"} ${name} under ${thresholdWords(threshold)}, but the result given is ${event.result}. Check the count; if the chair declared it ${event.result}, confirm that.`, {
+      throw new GavelError("unprocessable", `A count of ${tallyWords(effective)} ${adopts ? "adopts" : "does not adopt"} ${name} under ${thresholdWords(threshold)}, but the result given is ${event.result}. Check the count; if the chair declared it ${event.result}, confirm that.`, {
         issues: [{ path: "event.result", message: `the count gives ${adopts ? "adopted" : "rejected"}` }],
         details: { countGives: adopts ? "adopted" : "rejected" },
       });
     }
   }
-  return { ...event, question: top.key, method };
+  return { ...event, question: top.key, method, tally };
+}
+
+/** The chamber's roster as a recorded vote is checked against it. */
+export interface Roster {
+  ids: ReadonlySet<string>;
+  size: number;
+}
+
+const METHOD_WORDS: Record<VotingMethod, string> = { voice: "a vote by voice", division: "a division (counted)", recorded: "a recorded vote (roll call)" };
+/** Tie rules under which the chair may give a casting vote (voting-section.ts, TIE_RULES). */
+const CASTING_RULES = new Set<string>(["chair-casting-vote", "chair-may-make-or-break-tie"]);
+
+/**
+ * Members whose presence makes a quorum, from the voting section: a majority of the members
+ * (US Constitution art. I §5 cl. 1: "a Majority of each shall constitute a Quorum to do Business"),
+ * a fixed number, or a fraction of the members; null when the rulebook sets none.
+ */
+export function quorumNeeded(rulebook: Rulebook, members: number): number | null {
+  const q = rulebook.voting.quorum as { kind: string; value?: number; numerator?: number; denominator?: number };
+  switch (q.kind) {
+    case "majority-of-members":
+      return Math.floor(members / 2) + 1;
+    case "number":
+      return q.value ?? null;
+    case "fraction":
+      return q.numerator && q.denominator ? Math.ceil((members * q.numerator) / q.denominator) : null;
+    default:
+      return null;
+  }
 }
 
 /** Refuse an event that names a question other than the immediately pending one (a replayed entry after a correction). */
@@ -265,7 +349,7 @@ export function applyFloorEvent(rulebook: Rulebook, board: Board, event: FloorEv
       const tabled = top.motion === "lay-on-table" && event.result === "adopted" ? board.tabled + 1 : board.tabled;
       return {
         board: { ...board, pending: rest, speaker: null, voteTaken: true, tabled, lastVote: { motion: top.motion, name: top.name, result: event.result, tally: event.tally } },
-        summary: `Voted: ${topName} — ${event.result}, ${tallyWords(event.tally)}${event.againstCount ? " (as the chair declared it)" : ""}${rest.length < pending.length - 1 ? "; the questions below leave the floor with it" : ""}`,
+        summary: `Voted: ${topName} — ${event.result}, ${voteCountWords(event)}${event.againstCount ? " (as the chair declared it)" : ""}${rest.length < pending.length - 1 ? "; the questions below leave the floor with it" : ""}`,
       };
     }
     case "withdrawn": {

@@ -3,14 +3,15 @@
  * board (pending stack, floor facts, history) with the legal moves the core computes for it,
  * and answer hypothetical legal-moves questions. Every change is committed with its NOTIFY.
  */
-import { and, asc, desc, eq } from "drizzle-orm";
+import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "../db.ts";
 import { user } from "../../db/schema/auth.ts";
 import { floorEvents, sittings } from "../../db/schema/floor.ts";
+import { legislators } from "../../db/schema/chamber.ts";
 import { GavelError, parseWith } from "../../errors.ts";
 import { legalMoves } from "../../procedure/legal-moves.ts";
-import { applyFloorEvent, boardSchema, checkVote, EMPTY_BOARD, floorEventSchema, floorStateOf, questionName, questionThreshold, replayBoard, storedKey, thresholdNeedsCount, thresholdWords, withQuestion, type Board, type Entry, type FloorEvent } from "../floor-record.ts";
+import { applyFloorEvent, boardSchema, checkVote, EMPTY_BOARD, floorEventSchema, floorStateOf, questionName, questionThreshold, replayBoard, storedKey, thresholdNeedsCount, thresholdWords, withQuestion, type Board, type Entry, type FloorEvent, type Roster } from "../floor-record.ts";
 import type { Rulebook } from "../../procedure/rulebook-schema.ts";
 import { notifyFloor } from "../floor-bus.ts";
 import { loadRulebook, rulebookInForce, versionIdSchema } from "./rulebooks.ts";
@@ -158,10 +159,11 @@ export async function recordEvent(actor: Actor, id: string, input: z.output<type
       payload = { kind: "rulebook", version: inForce.versionId, from: rb.versionId };
     } else {
       await checkInOrder(rb.rulebook, board, event);
-      const checked = withQuestion(board, event.kind === "voted" ? checkVote(rb.rulebook, board, event) : event);
+      const checked = withQuestion(board, event.kind === "voted" ? checkVote(rb.rulebook, board, event, event.roll ? await rosterOf(tx, actor.chamber.id) : undefined) : event);
       const key = `q${revision}`;
       ({ board: next, summary } = applyFloorEvent(rb.rulebook, board, checked, key));
-      payload = checked.kind === "made" ? { ...checked, key } : { ...checked };
+      // A vote keeps the name of its question, so recorded votes can be read without replaying the sitting.
+      payload = checked.kind === "made" ? { ...checked, key } : checked.kind === "voted" ? { ...checked, name: questionName(board.pending, board.pending.length - 1) } : { ...checked };
     }
     await tx
       .update(sittings)
@@ -174,6 +176,53 @@ export async function recordEvent(actor: Actor, id: string, input: z.output<type
 }
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+/** The chamber's roster as a recorded vote is checked against it. */
+async function rosterOf(tx: Tx, chamberId: string): Promise<Roster> {
+  const rows = await tx.select({ id: legislators.id }).from(legislators).where(eq(legislators.chamberId, chamberId));
+  return { ids: new Set(rows.map((r) => r.id)), size: rows.length };
+}
+
+export const recordedVotesQuerySchema = z.object({ sitting: z.uuid().optional() });
+
+/**
+ * The chamber's recorded votes (roll calls) as the record now stands: a struck-out vote is left
+ * out, a vote recorded in its place by a correction is in. Each with the members by their answer
+ * (legislator ids), so they can be read as {id, yea: [...], nay: [...]}. Oldest first.
+ */
+export async function recordedVotes(actor: Actor, query: z.output<typeof recordedVotesQuerySchema> = {}) {
+  const rows = await db
+    .select({ id: floorEvents.id, sittingId: floorEvents.sittingId, sitting: sittings.title, seq: floorEvents.seq, kind: floorEvents.kind, payload: floorEvents.payload, at: floorEvents.createdAt })
+    .from(floorEvents)
+    .innerJoin(sittings, eq(floorEvents.sittingId, sittings.id))
+    .where(and(eq(floorEvents.chamberId, actor.chamber.id), inArray(floorEvents.kind, ["voted", "strike"]), ...(query.sitting ? [eq(floorEvents.sittingId, query.sitting)] : [])))
+    .orderBy(asc(floorEvents.createdAt), asc(floorEvents.seq));
+  const struck = new Set(rows.filter((r) => r.kind === "strike").map((r) => `${r.sittingId}:${(r.payload as { entry?: number }).entry}`));
+  type Stored = { method?: string; result?: string; name?: string; casting?: string; roll?: Array<{ member: string; position: string }> };
+  const votes = [];
+  for (const r of rows) {
+    const vote = (r.kind === "strike" ? (r.payload as { replacement?: Stored }).replacement : (r.payload as Stored)) ?? null;
+    if (!vote || vote.method !== "recorded" || !vote.roll) continue;
+    if (r.kind === "voted" && struck.has(`${r.sittingId}:${r.seq}`)) continue;
+    const by = (p: string) => vote.roll!.filter((x) => x.position === p).map((x) => x.member);
+    votes.push({
+      id: r.id,
+      sittingId: r.sittingId,
+      sitting: r.sitting,
+      entry: r.seq,
+      question: vote.name ?? "",
+      result: vote.result,
+      casting: vote.casting ?? null,
+      at: r.at,
+      yea: by("yea"),
+      nay: by("nay"),
+      present: by("present"),
+      notVoting: by("not-voting"),
+      recused: by("recused"),
+    });
+  }
+  return { votes };
+}
 const UNSTRIKABLE: Record<string, string> = {
   strike: "a correction is not struck out; record a new correction of the entry it struck",
   rulebook: "a change of rulebook version is not struck out; the version in force judges the sitting",
@@ -210,8 +259,8 @@ async function strikeEntry(tx: Tx, chamberId: string, row: typeof sittings.$infe
     const before = replayBoard(entries.filter((e) => e.seq < target.seq || rows.find((r) => r.seq === e.seq)?.kind === "strike"), initial, rulebookOf);
     const versionThen = [...rows].filter((r) => r.kind === "rulebook" && r.seq < target.seq).map((r) => (r.payload as { version: string }).version).pop() ?? initial;
     const question = (target.payload as { question?: string }).question;
-    const vote = checkVote(rulebookOf(versionThen), before, { ...event.replacement, question: question ?? event.replacement.question });
-    replacement = vote;
+    const vote = checkVote(rulebookOf(versionThen), before, { ...event.replacement, question: question ?? event.replacement.question }, event.replacement.roll ? await rosterOf(tx, chamberId) : undefined);
+    replacement = { ...vote, name: questionName(before.pending, before.pending.length - 1) } as FloorEvent;
     instead = `; recorded instead: ${applyFloorEvent(rulebookOf(versionThen), before, vote, storedKey(target.payload, target.seq)).summary.replace(/^Voted: /, "")}`;
   }
   const payload = { kind: "strike", entry: target.seq, reason: event.reason, ...(replacement ? { replacement } : {}) };
