@@ -72,19 +72,19 @@ describe("recording a vote", () => {
     const b = await read();
     expect(b.question.name).toBe("Amendment A2 to Amendment A1 — “Insert 'and byways' after 'bridleways'”");
     const a1 = b.board.pending.find((p: Pending) => p.ref === "A1").key;
-    const wrong = await refused({ kind: "voted", question: a1, result: "rejected", method: "counted", tally: { yes: 12, no: 20, abstain: 3 } }, 409);
+    const wrong = await refused({ kind: "voted", question: a1, result: "rejected", method: "division", tally: { yes: 12, no: 20, abstain: 3 } }, 409);
     expect(wrong.issues[0].path).toBe("event.question");
     expect(wrong.message).toContain("Amendment A2 to Amendment A1");
     const top = b.question.key;
-    const v = await ok({ kind: "voted", question: top, result: "rejected", method: "counted", tally: { yes: 12, no: 20, abstain: 3 } });
+    const v = await ok({ kind: "voted", question: top, result: "rejected", method: "division", tally: { yes: 12, no: 20, abstain: 3 } });
     expect(v.summary).toBe("Voted: Amendment A2 to Amendment A1 — “Insert 'and byways' after 'bridleways'” — rejected, 12–20, 3 abstaining");
     expect(v.board.pending.map((p) => p.ref)).toEqual(["M1", "A1"]);
   });
 
   it("requires the count a counted vote needs and refuses a count that is not a whole number, naming the field", async () => {
-    const noTally = await refused({ kind: "voted", result: "rejected", method: "counted" }, 400);
+    const noTally = await refused({ kind: "voted", result: "rejected", method: "division" }, 400);
     expect(noTally.issues.map((i) => i.path)).toEqual(["event.tally"]);
-    const abc = await refused({ kind: "voted", result: "rejected", method: "counted", tally: { yes: 12, no: 20, abstain: "abc" } }, 400);
+    const abc = await refused({ kind: "voted", result: "rejected", method: "division", tally: { yes: 12, no: 20, abstain: "abc" } }, 400);
     expect(abc.issues.map((i) => i.path)).toEqual(["event.tally.abstain"]);
     const noResult = await refused({ kind: "voted", method: "voice" }, 400);
     expect(noResult.issues.map((i) => i.path)).toEqual(["event.result"]);
@@ -92,17 +92,17 @@ describe("recording a vote", () => {
 
   it("checks the count against the question's threshold: a tie loses; two-thirds of the votes cast", async () => {
     // A tie under a majority: "On a tie vote the motion is lost" (RONR 1915 §46 pp. 191–192).
-    const tie = await refused({ kind: "voted", result: "adopted", method: "counted", tally: { yes: 16, no: 16 } }, 422);
+    const tie = await refused({ kind: "voted", result: "adopted", method: "division", tally: { yes: 16, no: 16 } }, 422);
     expect(tie.issues[0].path).toBe("event.result");
     expect(tie.details?.countGives).toBe("rejected");
     // The clerk may still record what the chair declared; the history says so.
-    const declared = await ok({ kind: "voted", result: "adopted", method: "counted", tally: { yes: 16, no: 16 }, againstCount: true });
+    const declared = await ok({ kind: "voted", result: "adopted", method: "division", tally: { yes: 16, no: 16 }, againstCount: true });
     expect(declared.summary).toContain("as the chair declared it");
     // Close debate (previous question) needs two-thirds of the votes cast (§48 p. 204): 20–12 is short (20 < 21.33).
     await move("previous-question", "");
-    const short = await refused({ kind: "voted", result: "adopted", method: "counted", tally: { yes: 20, no: 12 } }, 422);
+    const short = await refused({ kind: "voted", result: "adopted", method: "division", tally: { yes: 20, no: 12 } }, 422);
     expect(short.message).toContain("two-thirds of those voting");
-    await ok({ kind: "voted", result: "adopted", method: "counted", tally: { yes: 22, no: 11 } });
+    await ok({ kind: "voted", result: "adopted", method: "division", tally: { yes: 22, no: 11 } });
   });
 
   it("refuses a vote by voice where the threshold needs a count (a majority of all the members)", async () => {
@@ -113,24 +113,24 @@ describe("recording a vote", () => {
     expect(voice.issues[0].path).toBe("event.method");
     expect(voice.message).toContain("a majority of the members");
     // 20 of 40 is not more than half of the members; 21 is.
-    await refused({ kind: "voted", result: "adopted", method: "counted", tally: { yes: 20, no: 2 } }, 422);
-    await ok({ kind: "voted", result: "adopted", method: "counted", tally: { yes: 21, no: 2 } });
+    await refused({ kind: "voted", result: "adopted", method: "division", tally: { yes: 20, no: 2 } }, 422);
+    await ok({ kind: "voted", result: "adopted", method: "division", tally: { yes: 21, no: 2 } });
   });
 });
 
 describe("corrections", () => {
   it("strikes a vote with a reason and records the right one in its place; the history keeps both, struck through with who and why", async () => {
-    const v = await ok({ kind: "voted", result: "rejected", method: "counted", tally: { yes: 12, no: 20, abstain: 3 } });
+    const v = await ok({ kind: "voted", result: "rejected", method: "division", tally: { yes: 12, no: 20, abstain: 3 } });
     const voteEntry = v.revision;
     const noReason = await refused({ kind: "strike", entry: voteEntry, reason: "  " }, 400);
     expect(noReason.issues.map((i) => i.path)).toEqual(["event.reason"]);
     const missingReason = await refused({ kind: "strike", entry: voteEntry }, 400);
     expect(missingReason.issues.map((i) => i.path)).toEqual(["event.reason"]);
     // The replacement is checked like any vote: 12–20 does not adopt.
-    const bad = await refused({ kind: "strike", entry: voteEntry, reason: "Tellers' count transposed", replacement: { kind: "voted", result: "adopted", method: "counted", tally: { yes: 12, no: 20 } } }, 422);
+    const bad = await refused({ kind: "strike", entry: voteEntry, reason: "Tellers' count transposed", replacement: { kind: "voted", result: "adopted", method: "division", tally: { yes: 12, no: 20 } } }, 422);
     expect(bad.issues[0].path).toBe("event.result");
 
-    const c = await ok({ kind: "strike", entry: voteEntry, reason: "Tellers' count transposed", replacement: { kind: "voted", result: "adopted", method: "counted", tally: { yes: 20, no: 12, abstain: 3 } } });
+    const c = await ok({ kind: "strike", entry: voteEntry, reason: "Tellers' count transposed", replacement: { kind: "voted", result: "adopted", method: "division", tally: { yes: 20, no: 12, abstain: 3 } } });
     expect(c.summary).toContain(`Struck out entry ${voteEntry}`);
     expect(c.summary).toContain("Reason: Tellers' count transposed");
     expect(c.summary).toContain("recorded instead: Amendment A2 to Amendment A1");
@@ -158,7 +158,7 @@ describe("corrections", () => {
     const b = await read();
     expect(b.question.name).toMatch(/^Amendment A2 to Amendment A1/);
     expect(b.board).toEqual(c.board);
-    const again = await ok({ kind: "voted", question: b.question.key, result: "adopted", method: "counted", tally: { yes: 21, no: 19 } });
+    const again = await ok({ kind: "voted", question: b.question.key, result: "adopted", method: "division", tally: { yes: 21, no: 19 } });
     expect(again.board.pending.map((p) => p.ref)).toEqual(["M1", "A1"]);
   });
 
