@@ -71,10 +71,10 @@ describe("the floor record", () => {
     const before = await history().count();
     await form.getByRole("button", { name: "Record the vote…" }).click();
     await visible(form.getByText("Result: choose adopted or rejected."));
-    await visible(form.getByText("How it was decided: choose by voice or counted."));
+    await visible(form.getByText("How it was decided: choose how the vote was taken."));
 
     await form.getByRole("radio", { name: "Rejected" }).check();
-    await form.getByRole("radio", { name: "Counted" }).check();
+    await form.getByRole("radio", { name: "Division (counted)" }).check();
     await form.getByLabel("Ayes").fill("12");
     await form.getByLabel("Noes").fill("20");
     await form.getByLabel(/Abstaining/).fill("abc");
@@ -129,7 +129,7 @@ describe("the floor record", () => {
     await visible(fix.getByText("Reason: say why the entry is struck out (it is kept on the record)."));
     await fix.getByLabel("Reason for the correction (required)").fill("The tellers' figures were read the wrong way round");
     await fix.getByRole("radio", { name: "Adopted" }).check();
-    await fix.getByRole("radio", { name: "Counted" }).check();
+    await fix.getByRole("radio", { name: "Division (counted)" }).check();
     await fix.getByLabel("Ayes").fill("20");
     await fix.getByLabel("Noes").fill("12");
     await fix.getByLabel(/Abstaining/).fill("3");

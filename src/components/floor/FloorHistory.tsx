@@ -59,6 +59,7 @@ function Correction({ line, busy, record, onDone }: { line: HistoryLine; busy: b
   const [errors, setErrors] = useState<Partial<Record<VoteField | "reason", string>>>({});
   const [confirm, setConfirm] = useState<{ reason: string; vote: VoteEvent | null } | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
+  const [rosterSize, setRosterSize] = useState(0);
   const id = `fix-${line.seq}`;
 
   async function send(c: { reason: string; vote: VoteEvent | null }, againstCount = false) {
@@ -92,7 +93,7 @@ function Correction({ line, busy, record, onDone }: { line: HistoryLine; busy: b
         e.preventDefault();
         const errs: Partial<Record<VoteField | "reason", string>> = {};
         if (!reason.trim()) errs.reason = "Reason: say why the entry is struck out (it is kept on the record).";
-        const v = replace ? checkDraft(draft, false) : { errors: {}, vote: null };
+        const v = replace ? checkDraft(draft, false, rosterSize) : { errors: {}, vote: null };
         Object.assign(errs, v.errors);
         setErrors(errs);
         setConfirm(Object.keys(errs).length ? null : { reason: reason.trim(), vote: v.vote });
@@ -110,7 +111,7 @@ function Correction({ line, busy, record, onDone }: { line: HistoryLine; busy: b
             <input type="checkbox" checked={replace} onChange={(e) => { setReplace(e.target.checked); setConfirm(null); }} /> Record the right result in its place
           </label>
           {!replace && <p className="gw-hint">Without a result in its place, the question is pending again, as if the vote had not been recorded.</p>}
-          {replace && <VoteFields id={id} value={draft} onChange={(v) => { setDraft(v); setConfirm(null); setErrors({}); }} errors={errors} needsCount={false} disabled={busy} />}
+          {replace && <VoteFields id={id} value={draft} onChange={(v) => { setDraft(v); setConfirm(null); setErrors({}); }} errors={errors} needsCount={false} disabled={busy} onRoster={setRosterSize} />}
         </>
       )}
       {failure && <p role="alert" className="gw-error">{failure}</p>}

@@ -1,5 +1,32 @@
-import type { ReactNode } from "react";
-import { VOTE_FIELD_LABELS, type VoteDraft, type VoteField } from "./vote-entry.ts";
+import { useEffect, useState, type ReactNode } from "react";
+import { apiCall } from "../shared/api.ts";
+import RollCall from "./RollCall.tsx";
+import { rosterSchema, type RosterMember } from "./schemas.ts";
+import { rollCounts, VOTE_FIELD_LABELS, type VoteDraft, type VoteField } from "./vote-entry.ts";
+
+export interface VoteRules {
+  /** The ways of voting the rulebook provides for. */
+  methods: ReadonlyArray<"voice" | "division" | "recorded">;
+  quorum: number | null;
+  /** What orders a recorded vote, in words, if the rulebook says. */
+  demand: string | null;
+  /** The chair has a casting vote on an equal division. */
+  casting: boolean;
+}
+export const ANY_VOTE: VoteRules = { methods: ["voice", "division", "recorded"], quorum: null, demand: null, casting: false };
+
+// The roster is read once per page.
+let rosterOnce: Promise<RosterMember[]> | null = null;
+function loadRoster(): Promise<RosterMember[]> {
+  rosterOnce ??= apiCall(rosterSchema, "/api/measures/sponsors").then(
+    (r) => r.legislators,
+    (e) => {
+      rosterOnce = null;
+      throw e;
+    },
+  );
+  return rosterOnce;
+}
 
 interface Props {
   /** Unique per form on the page (ids of inputs and messages). */
@@ -10,6 +37,9 @@ interface Props {
   /** The threshold cannot be judged without a count: voice is not offered. */
   needsCount: boolean;
   disabled?: boolean;
+  rules?: VoteRules;
+  /** Told the roster's size once it is loaded (a recorded vote must answer for every member). */
+  onRoster?: (size: number) => void;
 }
 
 function FieldError({ id, children }: { id: string; children?: ReactNode }) {
@@ -22,8 +52,21 @@ function FieldError({ id, children }: { id: string; children?: ReactNode }) {
 }
 
 /** Result, how the vote was decided and the count: no default, every field named in its error. */
-export default function VoteFields({ id, value, onChange, errors, needsCount, disabled }: Props) {
+export default function VoteFields({ id, value, onChange, errors, needsCount, disabled, rules = ANY_VOTE, onRoster }: Props) {
   const set = (patch: Partial<VoteDraft>) => onChange({ ...value, ...patch });
+  const [roster, setRoster] = useState<RosterMember[] | null>(null);
+  const [rosterError, setRosterError] = useState<string | null>(null);
+  useEffect(() => {
+    if (value.method !== "recorded" || roster) return;
+    loadRoster().then(
+      (r) => {
+        setRoster(r);
+        onRoster?.(r.length);
+      },
+      (e) => setRosterError(e instanceof Error ? e.message : "Could not read the roster."),
+    );
+  }, [value.method, roster, onRoster]);
+  const counts = rollCounts(value.roll);
   const err = (f: VoteField) => (errors[f] ? { "aria-invalid": true as const, "aria-describedby": `${id}-${f}-err` } : {});
   return (
     <div className="space-y-3">
@@ -42,19 +85,57 @@ export default function VoteFields({ id, value, onChange, errors, needsCount, di
       <fieldset {...(errors.method ? { "aria-describedby": `${id}-method-err` } : {})}>
         <legend className="gw-label">How it was decided</legend>
         <div className="flex flex-wrap gap-4">
-          <label className="flex items-center gap-2 text-sm">
-            <input type="radio" name={`${id}-method`} value="voice" checked={value.method === "voice"} disabled={disabled || needsCount} onChange={() => set({ method: "voice", yes: "", no: "", abstain: "" })} {...err("method")} />
-            By voice (the chair declared it, no count)
-          </label>
-          <label className="flex items-center gap-2 text-sm">
-            <input type="radio" name={`${id}-method`} value="division" checked={value.method === "division"} disabled={disabled} onChange={() => set({ method: "division" })} {...err("method")} />
-            Counted
-          </label>
+          {rules.methods.includes("voice") && (
+            <label className="flex items-center gap-2 text-sm">
+              <input type="radio" name={`${id}-method`} value="voice" checked={value.method === "voice"} disabled={disabled || needsCount} onChange={() => set({ method: "voice", yes: "", no: "", abstain: "" })} {...err("method")} />
+              By voice (the chair declared it, no count)
+            </label>
+          )}
+          {rules.methods.includes("division") && (
+            <label className="flex items-center gap-2 text-sm">
+              <input type="radio" name={`${id}-method`} value="division" checked={value.method === "division"} disabled={disabled} onChange={() => set({ method: "division" })} {...err("method")} />
+              Division (counted)
+            </label>
+          )}
+          {rules.methods.includes("recorded") && (
+            <label className="flex items-center gap-2 text-sm">
+              <input type="radio" name={`${id}-method`} value="recorded" checked={value.method === "recorded"} disabled={disabled} onChange={() => set({ method: "recorded", yes: "", no: "", abstain: "" })} {...err("method")} />
+              Recorded vote (roll call)
+            </label>
+          )}
         </div>
         {needsCount && <p className="gw-hint">This question needs a count: its threshold cannot be judged by voice.</p>}
         {value.method === "division" && <p className="gw-hint">Leave Abstaining empty if no one abstained.</p>}
         <FieldError id={`${id}-method-err`}>{errors.method}</FieldError>
       </fieldset>
+      {value.method === "recorded" && (
+        <div className="space-y-2">
+          {rules.demand && (
+            <div className="flex flex-wrap items-end gap-3 text-sm">
+              <p className="gw-hint basis-full">A recorded vote is ordered by {rules.demand}.</p>
+              <div className="w-40">
+                <label className="gw-label" htmlFor={`${id}-demandedBy`}>Demanded by (members, optional)</label>
+                <input id={`${id}-demandedBy`} className="gw-input" inputMode="numeric" autoComplete="off" maxLength={7} value={value.demandedBy} disabled={disabled} onChange={(e) => set({ demandedBy: e.target.value })} {...err("demandedBy")} />
+              </div>
+              <FieldError id={`${id}-demandedBy-err`}>{errors.demandedBy}</FieldError>
+            </div>
+          )}
+          {rosterError && <p className="gw-error">{rosterError}</p>}
+          {!roster && !rosterError && <p className="text-sm text-ink-soft">Reading the roster…</p>}
+          {roster && <RollCall id={id} roster={roster} roll={value.roll} onChange={(roll) => set({ roll, ...(rollCounts(roll).yea !== rollCounts(roll).nay ? { casting: "" } : {}) })} quorum={rules.quorum} disabled={disabled} error={errors.roll} />}
+          {rules.casting && counts.yea === counts.nay && counts.yea > 0 && (
+            <div className="w-64 text-sm">
+              <label className="gw-label" htmlFor={`${id}-casting`}>The chair&apos;s casting vote (the votes are equal)</label>
+              <select id={`${id}-casting`} className="gw-input" value={value.casting} disabled={disabled} onChange={(e) => set({ casting: e.target.value === "yea" ? "yea" : e.target.value === "nay" ? "nay" : "" })} {...err("casting")}>
+                <option value="">Not given</option>
+                <option value="yea">Yea</option>
+                <option value="nay">Nay</option>
+              </select>
+              <FieldError id={`${id}-casting-err`}>{errors.casting}</FieldError>
+            </div>
+          )}
+        </div>
+      )}
       {value.method === "division" && (
         <div className="flex flex-wrap items-start gap-3">
           {(["yes", "no", "abstain"] as const).map((k) => (

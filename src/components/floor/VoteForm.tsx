@@ -2,12 +2,13 @@ import { useState } from "react";
 import { ApiError } from "../shared/api.ts";
 import ConfirmBox from "./ConfirmBox.tsx";
 import VoteFields from "./VoteFields.tsx";
+import type { Question } from "./schemas.ts";
 import { checkDraft, EMPTY_VOTE, fieldOfPath, VOTE_FIELD_LABELS, voteWords, type VoteDraft, type VoteEvent, type VoteField } from "./vote-entry.ts";
 
 export type Outcome = { ok: true } | { ok: false; error: unknown };
 
 interface Props {
-  question: { key: string; name: string; threshold: string; needsCount: boolean };
+  question: Question;
   busy: boolean;
   record: (event: Record<string, unknown>) => Promise<Outcome>;
 }
@@ -27,6 +28,7 @@ export default function VoteForm({ question, busy, record }: Props) {
   const [confirm, setConfirm] = useState<VoteEvent | null>(null);
   const [mismatch, setMismatch] = useState<{ message: string; vote: VoteEvent } | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
+  const [rosterSize, setRosterSize] = useState(0);
 
   const target = forQuestion ?? { key: question.key, name: question.name };
   const retargeted = forQuestion !== null && forQuestion.key !== question.key;
@@ -55,7 +57,7 @@ export default function VoteForm({ question, busy, record }: Props) {
     if (r.ok) return reset();
     setConfirm(null);
     const e = r.error;
-    if (e instanceof ApiError && e.details && typeof e.details.countGives === "string") {
+    if (e instanceof ApiError && e.details && (typeof e.details.countGives === "string" || e.details.noQuorum === true)) {
       setMismatch({ message: e.message, vote });
       return;
     }
@@ -82,7 +84,7 @@ export default function VoteForm({ question, busy, record }: Props) {
       onSubmit={(e) => {
         e.preventDefault();
         if (retargeted) return;
-        const c = checkDraft(draft, question.needsCount);
+        const c = checkDraft(draft, question.needsCount, rosterSize);
         setErrors(c.errors);
         setConfirm(c.vote);
       }}
@@ -102,7 +104,7 @@ export default function VoteForm({ question, busy, record }: Props) {
           </button>
         </div>
       )}
-      <VoteFields id="vote" value={draft} onChange={change} errors={errors} needsCount={question.needsCount} disabled={busy || retargeted} />
+      <VoteFields id="vote" value={draft} onChange={change} errors={errors} needsCount={question.needsCount} disabled={busy || retargeted} rules={question} onRoster={setRosterSize} />
       <label className="flex items-center gap-2 text-sm">
         <input type="checkbox" checked={disposesBelow} disabled={busy || retargeted} onChange={(e) => { if (!forQuestion) setForQuestion({ key: question.key, name: question.name }); setDisposesBelow(e.target.checked); setConfirm(null); }} /> Adopting it disposes of the questions below (tabled, referred, postponed)
       </label>

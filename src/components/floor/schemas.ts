@@ -2,6 +2,7 @@
 import { z } from "zod";
 import { VOTE_THRESHOLDS } from "../../lib/procedure/voting-section.ts";
 import { MOTION_CLASSES } from "../../lib/procedure/rulebook-schema.ts";
+import { VOTING_METHODS } from "../../lib/procedure/voting-methods.ts";
 
 export const verdictSchema = z.object({
   motion: z.string(),
@@ -58,7 +59,19 @@ export const sittingSchema = z.object({
   superseded: z.boolean().default(false),
   board: boardSchema,
   /** The immediately pending question as the clerk reads it, and the threshold that decides it. */
-  question: z.object({ key: z.string(), name: z.string(), threshold: z.string(), needsCount: z.boolean() }).nullable().default(null),
+  question: z
+    .object({
+      key: z.string(),
+      name: z.string(),
+      threshold: z.string(),
+      needsCount: z.boolean(),
+      methods: z.array(z.enum(VOTING_METHODS)).default([...VOTING_METHODS]),
+      quorum: z.number().nullable().default(null),
+      demand: z.string().nullable().default(null),
+      casting: z.boolean().default(false),
+    })
+    .nullable()
+    .default(null),
   moves: z.array(verdictSchema),
   history: z.array(historyLineSchema),
 });
@@ -72,3 +85,7 @@ export const VOTE_LABELS: Record<(typeof VOTE_THRESHOLDS)[number], string> = {
   "majority-of-members": "Majority of the members",
   none: "No vote (chair decides)",
 };
+
+export type Question = NonNullable<Sitting["question"]>;
+export const rosterSchema = z.object({ legislators: z.array(z.object({ id: z.string(), name: z.string(), bloc: z.string() })) });
+export type RosterMember = z.output<typeof rosterSchema>["legislators"][number];

@@ -11,7 +11,7 @@ import { floorEvents, sittings } from "../../db/schema/floor.ts";
 import { legislators } from "../../db/schema/chamber.ts";
 import { GavelError, parseWith } from "../../errors.ts";
 import { legalMoves } from "../../procedure/legal-moves.ts";
-import { applyFloorEvent, boardSchema, checkVote, EMPTY_BOARD, floorEventSchema, floorStateOf, questionName, questionThreshold, replayBoard, storedKey, thresholdNeedsCount, thresholdWords, withQuestion, type Board, type Entry, type FloorEvent, type Roster } from "../floor-record.ts";
+import { applyFloorEvent, boardSchema, checkVote, EMPTY_BOARD, floorEventSchema, floorStateOf, questionName, questionThreshold, quorumNeeded, replayBoard, storedKey, thresholdNeedsCount, thresholdWords, withQuestion, type Board, type Entry, type FloorEvent, type Roster } from "../floor-record.ts";
 import type { Rulebook } from "../../procedure/rulebook-schema.ts";
 import { notifyFloor } from "../floor-bus.ts";
 import { loadRulebook, rulebookInForce, versionIdSchema } from "./rulebooks.ts";
@@ -112,17 +112,31 @@ export async function getSitting(actor: Actor, id: string) {
     board,
     state,
     /** The immediately pending question as the clerk reads it, with the threshold that decides it. */
-    question: questionOf(rb.rulebook, board),
+    question: questionOf(rb.rulebook, board, (await db.select({ id: legislators.id }).from(legislators).where(eq(legislators.chamberId, actor.chamber.id))).length),
     moves: await legalMoves(rb.rulebook, state),
     history,
   };
 }
 
-function questionOf(rulebook: Rulebook, board: Board) {
+function questionOf(rulebook: Rulebook, board: Board, rosterSize: number) {
   const i = board.pending.length - 1;
   if (i < 0) return null;
   const threshold = questionThreshold(rulebook, board.pending[i]);
-  return { key: board.pending[i].key, name: questionName(board.pending, i), threshold: thresholdWords(threshold), needsCount: thresholdNeedsCount(threshold) };
+  const methods = rulebook.voting.methods;
+  const demand = methods?.recordedOnDemand;
+  return {
+    key: board.pending[i].key,
+    name: questionName(board.pending, i),
+    threshold: thresholdWords(threshold),
+    needsCount: thresholdNeedsCount(threshold),
+    /** The ways of voting the rulebook provides for (all three when it does not say). */
+    methods: methods?.available ?? ["voice", "division", "recorded"],
+    /** Members whose presence makes a quorum (null: the rulebook sets none), and what orders a recorded vote, in words. */
+    quorum: quorumNeeded(rulebook, rulebook.chamber.members ?? rosterSize),
+    demand: demand ? `${demand.kind === "share-of-present" ? `a demand by ${demand.numerator === 1 && demand.denominator === 5 ? "one fifth" : `${demand.numerator}/${demand.denominator}`} of those present` : demand.kind === "majority-vote" ? "a majority vote of the assembly" : "the demand of any member"} (${demand.citation})` : null,
+    /** The rulebook gives the chair a casting vote on an equal division. */
+    casting: ["chair-casting-vote", "chair-may-make-or-break-tie"].includes(rulebook.voting.tieRule),
+  };
 }
 
 /** Record one event on the floor: checked, applied, stored with its history line and NOTIFY, atomically. */
