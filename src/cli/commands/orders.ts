@@ -1,13 +1,15 @@
 /**
  * `gavelwright orders FILE`: the voting orders of an amendment tree under a rulebook's voting section.
- * `rulebook` is an inline object or a path relative to the case file's folder; only its `voting`
- * section is read.
+ * `rulebook` is an inline object, a path relative to the case file's folder, or a shipped template's
+ * id (old ids included); only its `voting` section is read.
  */
+import { existsSync } from "node:fs";
 import { dirname, resolve } from "node:path";
 import { GavelError } from "../../lib/errors.ts";
 import { analyseOrders } from "../../lib/voting/analyse-orders.ts";
 import type { Command } from "../main.ts";
 import { printJson, readJsonFile } from "../io.ts";
+import { templateFile } from "./rulebook.ts";
 
 export default {
   async run(args, io) {
@@ -17,7 +19,9 @@ export default {
       const base = args[0] === "-" ? io.cwd : dirname(resolve(io.cwd, args[0]!));
       let rulebook: unknown;
       try {
-        rulebook = readJsonFile(resolve(base, rel), { ...io, cwd: base }, "rulebook file");
+        // A path relative to the case file; failing that, a shipped template's id (old ids included).
+        const file = existsSync(resolve(base, rel)) ? resolve(base, rel) : (templateFile(rel) ?? resolve(base, rel));
+        rulebook = readJsonFile(file, { ...io, cwd: base }, "rulebook file");
       } catch (e) {
         if (e instanceof GavelError) throw new GavelError(e.code, `rulebook: ${e.message}`, { issues: [{ path: "rulebook", message: e.message }] });
         throw e;

@@ -9,11 +9,25 @@ import { z } from "zod";
 import { GavelError, parseWith } from "../../lib/errors.ts";
 import { parseRulebook, parseRulebookWithNotes } from "../../lib/procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../lib/procedure/rulebook-schema.ts";
+import { templateIdCandidates } from "../../lib/procedure/template-ids.ts";
 import { packageRoot, printJson, readJsonFile, type CliIO } from "../io.ts";
 import type { Command } from "../main.ts";
 
 /** The shipped templates (rulebooks/*.json at the package root). */
 export const TEMPLATE_DIR = resolve(packageRoot(), "rulebooks");
+
+/**
+ * The file of a shipped template named by `id`, or null: the current id, or an old id kept as an
+ * alias ("four-amendment-legislature" → "us-house"; src/lib/procedure/template-ids.ts).
+ */
+export function templateFile(id: string): string | null {
+  if (!/^[a-z0-9-]+$/.test(id)) return null;
+  for (const c of templateIdCandidates(id)) {
+    const f = resolve(TEMPLATE_DIR, `${c}.json`);
+    if (existsSync(f)) return f;
+  }
+  return null;
+}
 
 /** Prefix the issue paths of a GavelError with the member the value came from ("rulebook.motions.3.rank"). */
 function prefixed(e: unknown, prefix: string): unknown {
@@ -34,13 +48,12 @@ export function readCase<S extends z.ZodType<{ rulebook: unknown }>>(file: strin
 
 /**
  * Resolve a case file's `rulebook`: an inline object; a path relative to the case file;
- * or the id of a shipped template ("general-parliamentary-law").
+ * or the id of a shipped template ("general-parliamentary-law"), old ids included.
  */
 export function loadRulebookRef(ref: unknown, caseDir: string, io: CliIO): Rulebook {
   if (typeof ref === "string") {
     const asPath = resolve(caseDir, ref);
-    const template = resolve(TEMPLATE_DIR, `${ref}.json`);
-    const file = existsSync(asPath) ? asPath : /^[a-z0-9-]+$/.test(ref) && existsSync(template) ? template : null;
+    const file = existsSync(asPath) ? asPath : templateFile(ref);
     if (!file) throw new GavelError("not-found", `rulebook "${ref}" is neither a file (relative to the case file) nor a template id`, { issues: [{ path: "rulebook", message: "no such file or template" }] });
     const value = readJsonFile(file, io, "rulebook file");
     try {

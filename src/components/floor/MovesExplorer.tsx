@@ -15,8 +15,10 @@ interface Facts {
   chairHasRuled: boolean;
   voteTaken: boolean;
   tabled: number;
+  quorumPresent: boolean;
+  committeeOfTheWhole: boolean;
 }
-const NO_FACTS: Facts = { speakerHasFloor: false, debateBegun: false, chairHasRuled: false, voteTaken: false, tabled: 0 };
+const NO_FACTS: Facts = { speakerHasFloor: false, debateBegun: false, chairHasRuled: false, voteTaken: false, tabled: 0, quorumPresent: true, committeeOfTheWhole: false };
 
 /** Pose a hypothetical floor (push and pop pending motions, set the floor facts) and see every motion's verdict. Never touches a sitting. */
 export default function MovesExplorer() {
@@ -63,13 +65,13 @@ export default function MovesExplorer() {
       const s = await getJson(`/api/floor/sittings/${open.id}`, sittingSchema);
       setPending(s.board.pending.map((p) => ({ motion: p.motion })));
       const top = s.board.pending[s.board.pending.length - 1];
-      setFacts({ speakerHasFloor: s.board.speaker !== null, debateBegun: top?.debateBegun ?? false, chairHasRuled: s.board.chairHasRuled, voteTaken: s.board.voteTaken, tabled: s.board.tabled });
+      setFacts({ speakerHasFloor: s.board.speaker !== null, debateBegun: top?.debateBegun ?? false, chairHasRuled: s.board.chairHasRuled, voteTaken: s.board.voteTaken, tabled: s.board.tabled, quorumPresent: facts.quorumPresent, committeeOfTheWhole: facts.committeeOfTheWhole });
     } catch (e) {
       setError({ message: e instanceof Error ? e.message : "Could not copy the floor.", issues: [] });
     }
   }
 
-  const toggle = (k: keyof Omit<Facts, "tabled">, label: string) => (
+  const toggle = (k: keyof Omit<Facts, "tabled" | "quorumPresent">, label: string) => (
     <label className="flex items-center gap-2 text-sm">
       <input type="checkbox" checked={facts[k]} onChange={(e) => setFacts({ ...facts, [k]: e.target.checked })} /> {label}
     </label>
@@ -140,6 +142,10 @@ export default function MovesExplorer() {
             {toggle("debateBegun", "Debate on the pending question has begun")}
             {toggle("chairHasRuled", "The chair has just ruled")}
             {toggle("voteTaken", "A vote has been taken this sitting")}
+            {toggle("committeeOfTheWhole", "Sitting as a Committee of the Whole")}
+            <label className="flex items-center gap-2 text-sm">
+              <input type="checkbox" checked={!facts.quorumPresent} onChange={(e) => setFacts({ ...facts, quorumPresent: !e.target.checked })} /> No quorum is present
+            </label>
             <label className="flex items-center gap-2 text-sm">
               Questions on the table
               <input type="number" min={0} max={99} className="gw-input w-20" value={facts.tabled} onChange={(e) => setFacts({ ...facts, tabled: Math.max(0, Math.min(99, Number(e.target.value) || 0)) })} />

@@ -84,6 +84,9 @@ export const VOTE_LABELS: Record<(typeof VOTE_THRESHOLDS)[number], string> = {
   "two-thirds": "Two-thirds",
   "majority-of-members": "Majority of the members",
   none: "No vote (chair decides)",
+  "two-thirds-of-members": "Two-thirds of the members",
+  "three-fifths-of-members": "Three-fifths of the members",
+  "two-thirds-of-present": "Two-thirds of the members present",
 };
 
 export type Question = NonNullable<Sitting["question"]>;

@@ -23,7 +23,7 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
   async function onSubmit(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const fd = new FormData(e.currentTarget);
-    const draft = (e.nativeEvent as SubmitEvent).submitter?.getAttribute("value") === "draft";
+    const draft = e.nativeEvent.submitter?.getAttribute("value") === "draft";
     const fields = readAmendmentFields(fd);
     if (!fields) {
       setErrors({ lines: LINES_HINT });

@@ -8,6 +8,7 @@ import { z } from "zod";
 import { ApiError, apiCall, ordersPageSchema, runResultSchema, walkSchema, type Step } from "./api.ts";
 import MajorityGraph from "./MajorityGraph.tsx";
 import OutcomeChart from "./OutcomeChart.tsx";
+import { thresholdInWords } from "../../lib/estimates/version-words.ts";
 
 type RunResult = z.output<typeof runResultSchema>;
 type OrdersPage = z.output<typeof ordersPageSchema>;
@@ -108,7 +109,7 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
   const m = a.majority;
   return (
     <div className="space-y-6">
-      <p className="text-sm text-ink-soft">Rulebook: {result.run.rulebook}. Procedure: {a.procedure === "amendment" ? "amendment procedure (pairwise votes)" : "successive procedure (yes/no in turn)"}. {result.run.cached ? "Answered from the stored analysis of identical inputs." : "Freshly computed."}</p>
+      <p className="text-sm text-ink-soft">Rulebook: {result.run.rulebook}. Procedure: {a.procedure === "amendment" ? "amendment procedure (pairwise votes)" : "successive procedure (yes/no in turn)"}. {a.thresholds ? `Votes required: amendments ${thresholdInWords(a.thresholds.amendment)}; passage ${thresholdInWords(a.thresholds.passage)}${a.thresholds.passageFrom === "main-motion" ? " (the main motion's vote in the rulebook)" : ""}. ` : ""}{a.quorum ? (a.quorum.met === null ? `Quorum not checked (no membership known); ${a.quorum.present} attending. ` : `Quorum ${a.quorum.required}, ${a.quorum.present} attending. `) : ""}{a.tieRule && a.tieRule !== "motion-fails" ? `Tie rule: ${a.tieRule}. ` : ""}{result.run.cached ? "Answered from the stored analysis of identical inputs." : "Freshly computed."}</p>
 
       <section className="gw-card" aria-labelledby="findings-h">
         <h2 id="findings-h" className="text-lg font-semibold">Findings</h2>

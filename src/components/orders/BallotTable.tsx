@@ -16,6 +16,8 @@ interface Row {
   bloc: string;
   weight: string;
   places: Record<string, string>;
+  /** The presiding officer's row (its ranking is the chair's vote under the rulebook's tie rule). */
+  chair: boolean;
 }
 
 interface Props {
@@ -30,7 +32,7 @@ interface Props {
 function toRows(rows: BallotRow[]): Row[] {
   return rows.map((r, i) => {
     const p = placesFromRanking(r.ranking);
-    return { key: i, member: r.member, bloc: r.bloc, weight: String(r.weight), places: Object.fromEntries(Object.entries(p).map(([k, v]) => [k, String(v)])) };
+    return { key: i, member: r.member, bloc: r.bloc, weight: String(r.weight), places: Object.fromEntries(Object.entries(p).map(([k, v]) => [k, String(v)])), chair: r.chair === true };
   });
 }
 
@@ -63,6 +65,7 @@ export default function BallotTable({ estimateId, rows: initial, partial: initia
   const problems = rows.map((r) => {
     if (!r.member.trim()) return "name the member or bloc";
     if (!/^\d{1,4}$/.test(r.weight.trim()) || Number(r.weight) < 1 || Number(r.weight) > 1000) return "weight must be a whole number from 1 to 1000";
+    if (r.chair && Number(r.weight) !== 1) return "the chair's row has weight 1";
     const k = rankingOf(r, order);
     return "error" in k ? k.error : null;
   });
@@ -76,7 +79,7 @@ export default function BallotTable({ estimateId, rows: initial, partial: initia
     if (rows.length === 0) return setError("Add at least one row.");
     setBusy(true);
     try {
-      const content = { kind: "ballots" as const, partial, rows: rows.map((r) => ({ member: r.member.trim(), bloc: r.bloc.trim(), weight: Number(r.weight), ranking: (rankingOf(r, order) as { ranking: Array<string | string[]> }).ranking })) };
+      const content = { kind: "ballots" as const, partial, rows: rows.map((r) => ({ member: r.member.trim(), bloc: r.bloc.trim(), weight: Number(r.weight), ranking: (rankingOf(r, order) as { ranking: Array<string | string[]> }).ranking, ...(r.chair ? { chair: true } : {}) })) };
       await apiCall(z.object({ id: z.string(), version: z.number() }), `/api/estimates/${estimateId}/versions`, { method: "POST", body: { basedOn, scope, content, note: note.trim() || "Ballots edited in the table" } });
       window.location.href = `/orders/${estimateId}`;
     } catch (e) {
@@ -101,6 +104,7 @@ export default function BallotTable({ estimateId, rows: initial, partial: initia
               <th scope="col">Weight</th>
               {versions.map((v) => <th key={v.id} scope="col" title={v.words} className="font-mono text-xs">{v.id}</th>)}
               <th scope="col">Ranking, best first</th>
+              <th scope="col" title="The presiding officer's row (weight 1): its ranking gives the chair's vote under the rulebook's tie rule">Chair</th>
               <th scope="col"><span className="sr-only">Remove</span></th>
             </tr>
           </thead>
@@ -116,6 +120,7 @@ export default function BallotTable({ estimateId, rows: initial, partial: initia
                     <td key={v.id}><input className="gw-input mt-0 w-14 text-center" aria-label={`Row ${i + 1}: place of ${v.id}`} inputMode="numeric" value={r.places[v.id] ?? ""} onChange={(e) => setPlace(i, v.id, e.target.value)} /></td>
                   ))}
                   <td className="font-mono text-xs">{"error" in k ? <span className="text-verdict-bar">{k.error}</span> : rankingText(k.ranking)}</td>
+                  <td><input type="checkbox" aria-label={`Row ${i + 1}: the chair`} checked={r.chair} onChange={(e) => setRows((all) => all.map((x, j) => ({ ...x, chair: j === i ? e.target.checked : e.target.checked ? false : x.chair })))} /></td>
                   <td><button type="button" className="gw-btn-quiet px-2 py-0.5" aria-label={`Remove row ${i + 1}`} onClick={() => setRows((all) => all.filter((_, j) => j !== i))}>✕</button></td>
                 </tr>
               );
@@ -124,7 +129,7 @@ export default function BallotTable({ estimateId, rows: initial, partial: initia
         </table>
       </div>
       <div className="flex flex-wrap items-end gap-3">
-        <button type="button" className="gw-btn-quiet" onClick={() => { setRows((all) => [...all, { key: next, member: "", bloc: "", weight: "1", places: {} }]); setNext((n) => n + 1); }}>Add a row</button>
+        <button type="button" className="gw-btn-quiet" onClick={() => { setRows((all) => [...all, { key: next, member: "", bloc: "", weight: "1", places: {}, chair: false }]); setNext((n) => n + 1); }}>Add a row</button>
         <label className="gw-label">Versions a row leaves out
           <select className="gw-input" value={partial} onChange={(e) => setPartial(e.target.value as "abstain" | "bottom")}>
             <option value="abstain">abstain between them</option>

@@ -8,7 +8,7 @@ import { ApiError, apiCall, versionSchema } from "./api.ts";
 
 const optionsSchema = z.object({ measures: z.array(z.object({ id: z.string(), number: z.string(), title: z.string() })) });
 const versionsSchema = z.object({ pending: z.array(z.object({ key: z.string(), title: z.string().nullable(), target: z.string(), form: z.string() })), versions: z.array(versionSchema.extend({ amendments: z.array(z.string()) })) });
-const previewSchema = z.object({ preview: z.literal(true), content: z.object({ kind: z.string(), rows: z.array(z.object({ member: z.string(), bloc: z.string(), weight: z.number(), ranking: z.array(z.union([z.string(), z.array(z.string())])) })).optional(), members: z.array(z.object({ member: z.string(), bloc: z.string(), weight: z.number(), ideal: z.array(z.number()) })).optional() }) });
+const previewSchema = z.object({ preview: z.literal(true), content: z.object({ kind: z.string(), rows: z.array(z.object({ member: z.string(), bloc: z.string(), weight: z.number(), ranking: z.array(z.union([z.string(), z.array(z.string())])), chair: z.boolean().optional() })).optional(), members: z.array(z.object({ member: z.string(), bloc: z.string(), weight: z.number(), ideal: z.array(z.number()) })).optional() }) });
 
 export default function NewEstimate() {
   const [measures, setMeasures] = useState<z.output<typeof optionsSchema>["measures"]>([]);
@@ -141,7 +141,7 @@ export default function NewEstimate() {
         <span className="text-sm text-ink-soft">or</span>
         <button className="gw-btn-quiet" onClick={() => void startBlank()} disabled={!measureId || !title.trim()}>Start from the roster and fill it in on the page</button>
       </div>
-      <p className="gw-hint">{kind === "spatial" ? `Columns: member, bloc, weight, then one per dimension (${dimensions}). ` : ""}Ballots' columns: member, bloc, weight, ranking. Write the ranking best first with "&gt;" between places and "=" for equal ones, e.g. <code>measure+A1 &gt; measure = Q</code>. Save the file as CSV UTF-8.</p>
+      <p className="gw-hint">{kind === "spatial" ? `Columns: member, bloc, weight, then one per dimension (${dimensions}). ` : ""}Ballots' columns: member, bloc, weight, ranking, and optionally chair ("yes" on the presiding officer's row, weight 1: its ranking gives the chair's vote under the rulebook's tie rule). Write the ranking best first with "&gt;" between places and "=" for equal ones, e.g. <code>measure+A1 &gt; measure = Q</code>. Save the file as CSV UTF-8.</p>
       {error && <div role="alert"><p className="gw-error">{error}</p>{issues.length > 1 && <ul className="list-disc pl-6 text-sm text-verdict-bar">{issues.map((i, k) => <li key={k}>{i.message}</li>)}</ul>}</div>}
       {preview?.content.members && (
         <p className="font-semibold">Preview: {preview.content.members.length} ideal point{preview.content.members.length === 1 ? "" : "s"}, {preview.content.members.reduce((a, r) => a + r.weight, 0)} votes in all.</p>
@@ -151,7 +151,7 @@ export default function NewEstimate() {
           <h3 className="font-semibold">Preview: {preview.content.rows.length} row{preview.content.rows.length === 1 ? "" : "s"}, {preview.content.rows.reduce((a, r) => a + r.weight, 0)} votes in all</h3>
           <table className="gw-table mt-1">
             <thead><tr><th scope="col">Member or bloc</th><th scope="col">Bloc</th><th scope="col">Weight</th><th scope="col">Ranking, best first</th></tr></thead>
-            <tbody>{preview.content.rows.slice(0, 50).map((r, i) => <tr key={i}><td>{r.member}</td><td>{r.bloc}</td><td>{r.weight}</td><td className="font-mono text-xs">{r.ranking.map((x) => (typeof x === "string" ? x : x.join(" = "))).join(" > ")}</td></tr>)}</tbody>
+            <tbody>{preview.content.rows.slice(0, 50).map((r, i) => <tr key={i}><td>{r.member}{r.chair ? " (chair)" : ""}</td><td>{r.bloc}</td><td>{r.weight}</td><td className="font-mono text-xs">{r.ranking.map((x) => (typeof x === "string" ? x : x.join(" = "))).join(" > ")}</td></tr>)}</tbody>
           </table>
         </div>
       )}

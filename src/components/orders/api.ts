@@ -23,6 +23,9 @@ export const runSchema = z.object({
 export const analysisSchema = z.object({
   procedure: z.enum(["amendment", "successive"]),
   threshold: z.string(),
+  thresholds: z.object({ amendment: z.string(), passage: z.string(), passageFrom: z.string(), members: z.number().nullable(), membersFrom: z.string().nullable() }).optional(),
+  tieRule: z.string().optional(),
+  quorum: z.object({ kind: z.string(), required: z.number().nullable(), present: z.number(), met: z.boolean().nullable() }).optional(),
   alternatives: z.array(z.object({ id: z.string(), amendments: z.array(z.string()) })),
   questions: z.array(z.object({ id: z.string(), kind: z.string() })),
   constraints: z.array(z.tuple([z.string(), z.string()])),

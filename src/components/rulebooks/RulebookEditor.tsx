@@ -5,7 +5,7 @@ import { isGavelError } from "../../lib/errors.ts";
 import { parseRulebook } from "../../lib/procedure/parse-rulebook.ts";
 import { FINDING_SEVERITIES, MOTION_CLASSES, RECONSIDERABLE, rulebookSchema, type MotionInput, type RulebookInput } from "../../lib/procedure/rulebook-schema.ts";
 import { RULE_SCOPES } from "../../lib/procedure/rule-vocabulary.ts";
-import { ORDER_CONSTRAINTS, VOTE_THRESHOLDS } from "../../lib/procedure/voting-section.ts";
+import { ORDER_CONSTRAINTS, QUORUM_KINDS, TIE_RULES, VOTE_THRESHOLDS } from "../../lib/procedure/voting-section.ts";
 import { ApiError, day, getJson, sendJson, when, type Issue } from "./api.ts";
 import ConditionBuilder, { OperatorList } from "./ConditionBuilder.tsx";
 import { CheckField, issueLookup, Messages, NumberField, SelectField, TextField, type IssueLookup } from "./fields.tsx";
@@ -30,7 +30,8 @@ interface Loaded {
   latest: { id: string; number: number } | null;
 }
 
-const VOTE_LABELS: Record<(typeof VOTE_THRESHOLDS)[number], string> = { majority: "Majority", "two-thirds": "Two-thirds", "majority-of-members": "Majority of members", none: "None" };
+const VOTE_LABELS: Record<(typeof VOTE_THRESHOLDS)[number], string> = { majority: "Majority", "two-thirds": "Two-thirds", "majority-of-members": "Majority of members", none: "None", "two-thirds-of-members": "Two-thirds of members", "three-fifths-of-members": "Three-fifths of members", "two-thirds-of-present": "Two-thirds of members present" };
+const TIE_LABELS: Record<(typeof TIE_RULES)[number], string> = { "motion-fails": "A tie defeats the motion", "chair-casting-vote": "The chair votes only to break a tie", "chair-votes": "The chair votes on every question", "chair-may-make-or-break-tie": "The chair may vote to make or break a tie" };
 
 /** Validation with the core's own parser, run as the clerk types; the server runs the same on save. */
 function validate(doc: unknown): Issue[] {
@@ -68,12 +69,16 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
         } else {
           const lib = await getJson("/api/rulebooks", librarySchema);
           let d: RulebookInput;
-          if (template) d = documentSchema.parse((await getJson(`/api/rulebooks/templates/${encodeURIComponent(template)}`, templateSchema)).document);
-          else if (lib.latest) d = documentSchema.parse((await getJson(`/api/rulebooks/${lib.latest.id}`, versionSchema)).document);
+          let templateTitle: string | null = null;
+          if (template) {
+            const t = await getJson(`/api/rulebooks/templates/${encodeURIComponent(template)}`, templateSchema);
+            templateTitle = t.title;
+            d = documentSchema.parse(t.document);
+          } else if (lib.latest) d = documentSchema.parse((await getJson(`/api/rulebooks/${lib.latest.id}`, versionSchema)).document);
           else throw new Error("Choose a template to start from.");
           setLoaded({ doc: d, basedOn: lib.latest?.id ?? null, meta: null, latest: lib.latest });
           setDoc(d);
-          if (template) setNote(`Started from the template ${template}`);
+          if (templateTitle) setNote(`Started from the template “${templateTitle}”`);
         }
       } catch (e) {
         setLoadError(e instanceof Error ? e.message : "Could not load the rulebook.");
@@ -380,10 +385,20 @@ function SectionsPanel({ doc, at, readOnly, update }: { doc: RulebookInput; at: 
           <Messages path="voting.constraints" at={at} />
         </div>
         <div className="grid grid-cols-2 gap-3">
-          <SelectField path="voting.tieRule" label="Tie rule" at={at} disabled={readOnly} value={v.tieRule ?? "motion-fails"} options={["motion-fails"] as const} labels={{ "motion-fails": "A tie defeats the motion" }} onChange={(x) => setV({ tieRule: x })} />
-          <SelectField path="voting.amendmentThreshold" label="Threshold to adopt an amendment" at={at} disabled={readOnly} value={v.amendmentThreshold ?? "majority"} options={VOTE_THRESHOLDS} labels={VOTE_LABELS} onChange={(x) => setV({ amendmentThreshold: x })} />
-          <SelectField path="voting.quorum.kind" label="Quorum" at={at} disabled={readOnly} value={quorum.kind} options={["majority-of-members", "number", "none"] as const} onChange={(x) => setV({ quorum: { ...quorum, kind: x } })} />
+          <SelectField path="voting.tieRule" label="Tie rule" at={at} disabled={readOnly} value={v.tieRule ?? "motion-fails"} options={TIE_RULES} labels={TIE_LABELS} onChange={(x) => setV({ tieRule: x })} />
+          <SelectField path="voting.amendmentThreshold" label="Threshold to adopt an amendment" at={at} disabled={readOnly} value={typeof v.amendmentThreshold === "string" ? v.amendmentThreshold : "majority"} options={VOTE_THRESHOLDS} labels={VOTE_LABELS} onChange={(x) => setV({ amendmentThreshold: x })} />
+          <SelectField path="voting.passageThreshold" label="Threshold for final passage (unset: the main motion's vote)" at={at} disabled={readOnly} value={typeof v.passageThreshold === "string" ? v.passageThreshold : "none"} options={VOTE_THRESHOLDS} labels={{ ...VOTE_LABELS, none: "The main motion's vote" }} onChange={(x) => setV({ passageThreshold: x === "none" ? undefined : x })} />
+          {(typeof v.amendmentThreshold === "object" || typeof v.passageThreshold === "object") && (
+            <p className="gw-hint col-span-2">
+              {typeof v.amendmentThreshold === "object" ? `Amendments need a fixed number: at least ${v.amendmentThreshold.value} votes in favour. ` : ""}
+              {typeof v.passageThreshold === "object" ? `Passage needs a fixed number: at least ${v.passageThreshold.value} votes in favour. ` : ""}
+              Choosing a threshold above replaces the fixed number.
+            </p>
+          )}
+          <SelectField path="voting.quorum.kind" label="Quorum" at={at} disabled={readOnly} value={quorum.kind} options={QUORUM_KINDS} onChange={(x) => setV({ quorum: { ...quorum, kind: x } })} />
           {quorum.kind === "number" && <NumberField path="voting.quorum.value" label="Quorum (members)" at={at} disabled={readOnly} value={quorum.value ?? null} nullable min={1} onChange={(x) => setV({ quorum: { ...quorum, value: x ?? undefined } })} />}
+          {quorum.kind === "fraction" && <NumberField path="voting.quorum.numerator" label="Quorum: numerator (of the members)" at={at} disabled={readOnly} value={quorum.numerator ?? null} nullable min={1} onChange={(x) => setV({ quorum: { ...quorum, numerator: x ?? undefined } })} />}
+          {quorum.kind === "fraction" && <NumberField path="voting.quorum.denominator" label="Quorum: denominator" at={at} disabled={readOnly} value={quorum.denominator ?? null} nullable min={1} onChange={(x) => setV({ quorum: { ...quorum, denominator: x ?? undefined } })} />}
         </div>
         <TextField path="voting.citation" label="Citation for the voting rules" at={at} disabled={readOnly} value={v.citation} onChange={(x) => setV({ citation: x })} />
       </fieldset>
@@ -396,9 +411,31 @@ function SectionsPanel({ doc, at, readOnly, update }: { doc: RulebookInput; at: 
           <TextField path="chamber.name" label="Chamber name" at={at} disabled={readOnly} value={doc.chamber.name} onChange={(x) => update({ chamber: { ...doc.chamber, name: x } })} />
           <NumberField nullable path="chamber.members" label="Members" at={at} disabled={readOnly} value={doc.chamber.members ?? null} min={1} onChange={(x) => update({ chamber: { ...doc.chamber, members: x ?? undefined } })} />
           <TextField path="source.title" label="Source" at={at} disabled={readOnly} value={doc.source.title} onChange={(x) => update({ source: { ...doc.source, title: x } })} />
+          <TextField path="source.edition" label="Edition of the source" at={at} disabled={readOnly} value={doc.source.edition} onChange={(x) => update({ source: { ...doc.source, edition: x || undefined } })} />
+          <TextField path="source.date" label="Date of the text used" at={at} disabled={readOnly} value={doc.source.date} onChange={(x) => update({ source: { ...doc.source, date: x || undefined } })} />
         </div>
+        <VerifyField doc={doc} at={at} readOnly={readOnly} update={update} />
       </fieldset>
     </div>
+  );
+}
+
+/** The "verify before use" list, one point per line; blank lines are dropped from the rulebook but kept while typing. */
+function VerifyField({ doc, at, readOnly, update }: { doc: RulebookInput; at: IssueLookup; readOnly: boolean; update: (p: Partial<RulebookInput>) => void }) {
+  const [text, setText] = useState(() => (doc.source.verify ?? []).join("\n"));
+  return (
+    <TextField
+      multiline
+      path="source.verify"
+      label="Verify before use (one point per line)"
+      at={at}
+      disabled={readOnly}
+      value={text}
+      onChange={(x) => {
+        setText(x);
+        update({ source: { ...doc.source, verify: x.split("\n").map((l) => l.trim()).filter(Boolean) } });
+      }}
+    />
   );
 }
 

@@ -1,6 +1,47 @@
 import { useEffect, useState } from "react";
 import { ApiError, day, getJson, sendForm, when, type Issue } from "./api.ts";
-import { librarySchema, savedSchema, type Library } from "./schemas.ts";
+import { librarySchema, savedSchema, type Library, type TemplateMeta } from "./schemas.ts";
+
+/** "from the template …" in the clerk's words: the template's title, never its file id. */
+export function originLabel(origin: string, templates: TemplateMeta[]): string | null {
+  if (!origin.startsWith("template:")) return origin === "edit" ? null : origin;
+  const id = origin.slice("template:".length);
+  const t = templates.find((x) => x.id === id || x.aliases.includes(id));
+  return t ? `from the template “${t.title}”` : "from a template";
+}
+
+/** One template: what it follows, the date of that text, its licence, and what to verify before use. */
+export function TemplateEntry({ t }: { t: TemplateMeta }) {
+  const s = t.source;
+  const when = [s?.edition, s?.date].filter(Boolean).join("; ");
+  return (
+    <li className="rounded-md border border-rule p-3" data-testid="template">
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <span><span className="font-semibold">{t.title}</span> <span className="text-sm text-ink-soft">— {t.chamber}</span></span>
+        <a className="gw-btn-quiet no-underline" href={`/rulebooks/new?template=${encodeURIComponent(t.id)}`}>Start from this</a>
+      </div>
+      {s && (
+        <p className="mt-1 text-sm" data-testid="template-source">
+          Follows: {s.url ? <a href={s.url}>{s.title}</a> : s.title}
+          {when && <>, {when}</>}
+          {s.license && <span className="text-ink-soft"> ({s.license})</span>}
+        </p>
+      )}
+      {t.verify.length > 0 && (
+        <details className="mt-1 text-sm" data-testid="template-verify">
+          <summary>Verify before use ({t.verify.length})</summary>
+          <ul className="mt-1 list-disc pl-5">{t.verify.map((v, i) => <li key={i}>{v}</li>)}</ul>
+        </details>
+      )}
+      {s?.note && (
+        <details className="mt-1 text-sm" data-testid="template-note">
+          <summary>{t.verify.length > 0 ? "How this template was read" : "Notes on the source"}</summary>
+          <p className="mt-1">{s.note}</p>
+        </details>
+      )}
+    </li>
+  );
+}
 
 /** The chamber's rulebook versions, adoptions, templates, import and compare. */
 export default function RulebookLibrary({ canEdit }: { canEdit: boolean }) {
@@ -74,7 +115,7 @@ export default function RulebookLibrary({ canEdit }: { canEdit: boolean }) {
                 {lib.versions.map((v) => (
                   <tr key={v.id}>
                     <td className="font-semibold">{v.number}</td>
-                    <td><a href={`/rulebooks/${v.id}`}>{v.title}</a>{v.origin !== "edit" && <span className="ml-1 text-xs text-ink-soft">({v.origin.replace("template:", "from template ")})</span>}</td>
+                    <td><a href={`/rulebooks/${v.id}`}>{v.title}</a>{originLabel(v.origin, lib.templates) && <span className="ml-1 text-xs text-ink-soft">({originLabel(v.origin, lib.templates)})</span>}</td>
                     <td className="max-w-xs">{v.note}</td>
                     <td className="whitespace-nowrap">{when(v.createdAt)}</td>
                     <td>{v.author ?? "—"}</td>
@@ -118,13 +159,9 @@ export default function RulebookLibrary({ canEdit }: { canEdit: boolean }) {
           <section className="gw-card" aria-labelledby="tpl-h">
             <h2 id="tpl-h" className="text-step-1">Start from a template</h2>
             <p className="gw-hint">Opens the template in the editor; saving it adds a new version of this chamber's rulebook.</p>
+            <p className="gw-hint">Each template follows the published rules named below, as of the date given; the chamber's own rules and the chair's rulings prevail. Check the “verify before use” points against your rules before adopting.</p>
             <ul className="mt-2 space-y-2">
-              {lib.templates.map((t) => (
-                <li key={t.id} className="flex flex-wrap items-center justify-between gap-2">
-                  <span><span className="font-semibold">{t.title}</span> <span className="text-sm text-ink-soft">— {t.chamber}</span></span>
-                  <a className="gw-btn-quiet no-underline" href={`/rulebooks/new?template=${encodeURIComponent(t.id)}`}>Start from this</a>
-                </li>
-              ))}
+              {lib.templates.map((t) => <TemplateEntry key={t.id} t={t} />)}
             </ul>
             {lib.latest && <p className="mt-3"><a href="/rulebooks/new">Or edit the latest version (no. {lib.latest.number}) →</a></p>}
           </section>

@@ -16,12 +16,25 @@ export const versionMetaSchema = z.object({
 });
 export type VersionMeta = z.output<typeof versionMetaSchema>;
 
+/** A shipped template as the library lists it: what it follows, how recent that text is, and what to verify. */
+export const templateMetaSchema = z.object({
+  id: z.string(),
+  title: z.string(),
+  chamber: z.string(),
+  aliases: z.array(z.string()).default([]),
+  source: z
+    .object({ title: z.string(), edition: z.string().optional(), date: z.string().optional(), license: z.string().optional(), url: z.string().optional(), note: z.string().optional() })
+    .optional(),
+  verify: z.array(z.string()).default([]),
+});
+export type TemplateMeta = z.output<typeof templateMetaSchema>;
+
 export const librarySchema = z.object({
   versions: z.array(versionMetaSchema),
   adoptions: z.array(z.object({ id: z.string(), versionId: z.string(), number: z.number(), effectiveFrom: date, note: z.string(), adoptedBy: z.string().nullable(), adoptedAt: date })),
   inForce: z.object({ adoptionId: z.string(), versionId: z.string(), number: z.number(), title: z.string(), effectiveFrom: date }).nullable(),
   latest: z.object({ id: z.string(), number: z.number() }).nullable(),
-  templates: z.array(z.object({ id: z.string(), title: z.string(), chamber: z.string() })),
+  templates: z.array(templateMetaSchema),
 });
 export type Library = z.output<typeof librarySchema>;
 

@@ -4,13 +4,14 @@
  *   Moorland Union,Moorland Union,14,measure+A1 > measure+A7 > Q = measure
  * `ranking` lists version ids best first, separated by ">"; "=" joins versions ranked equal.
  * Versions not listed are unranked (the estimate's partial-ballot convention decides, DOMAIN §1).
+ * An optional `chair` column marks the presiding officer's row ("yes"/"true"/"1"; empty or "no" otherwise).
  * Every problem is reported with its spreadsheet row and column; nothing is half-accepted.
  */
 import type { InputIssue } from "../errors.ts";
 import { cellIssue, checkColumns, failRows, readCsv } from "./csv-text.ts";
 import { MAX_ROWS, type BallotRow } from "./estimate-content.ts";
 
-export const BALLOT_COLUMNS = { required: ["member", "ranking"], optional: ["bloc", "weight"] } as const;
+export const BALLOT_COLUMNS = { required: ["member", "ranking"], optional: ["bloc", "weight", "chair"] } as const;
 
 /** "a > b = c > d" → ["a", ["b", "c"], "d"]; null with a message when malformed. */
 export function parseRankingText(text: string): { ranking: Array<string | string[]> } | { error: string } {
@@ -62,7 +63,10 @@ export function parseBallotCsv(text: string, versionIds: readonly string[]): Bal
       }
       seen.add(name);
     }
-    if (ok && member && weight !== null) out.push({ member, bloc: cells.bloc ?? "", weight, ranking: r.ranking });
+    const chairText = (cells.chair ?? "").trim().toLowerCase();
+    const chair = ["yes", "true", "1", "y"].includes(chairText);
+    if (chairText && !chair && !["no", "false", "0", "n"].includes(chairText)) issues.push(cellIssue(row, "chair", `"${cells.chair}" is not yes or no`));
+    if (ok && member && weight !== null) out.push({ member, bloc: cells.bloc ?? "", weight, ranking: r.ranking, ...(chair ? { chair: true } : {}) });
   }
   if (issues.length) failRows(issues);
   return out;

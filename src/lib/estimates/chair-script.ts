@@ -81,7 +81,7 @@ function stepFor(s: WalkStep, n: number, labels: TreeLabels, amendThreshold: str
       : a.degree === 2
         ? `Amendment ${a.target} stays as filed; if it is then agreed to, the text becomes: ${versionInWords(s.base ?? labels.measureKey, labels)}.${falls(s.fallsIfRejected, labels)}`
         : `The amendment is not agreed to; the text remains: ${versionInWords(s.base ?? labels.measureKey, labels)}.${falls(s.fallsIfRejected, labels)}`,
-    projection: `Projected: ${s.adopted ? "adopted" : "rejected"} (${tally}).${reach}`,
+    projection: `Projected: ${s.adopted ? "adopted" : "rejected"} (${tally}${s.castingVote ? `; the votes being equally divided, the chair gives a casting vote ${s.castingVote === "for" ? "in favour" : "against"}` : ""}).${reach}`,
   };
 }
 
@@ -89,7 +89,7 @@ export function chairScript(walk: WalkThrough, labels: TreeLabels, passageThresh
   return {
     title: `Chair's script: ${labels.measureLabel}, questions in the order ${walk.order.join(", ")}`,
     order: walk.order,
-    steps: walk.sincere.steps.map((s, i) => stepFor(s, i + 1, labels, walk.threshold, passageThreshold)),
+    steps: walk.sincere.steps.map((s, i) => stepFor(s, i + 1, labels, walk.threshold, walk.thresholds?.passage ?? passageThreshold)),
     advisory: `Prepared by Gavelwright as an aid. The projections come from the estimate “${estimateTitle}” under sincere voting; they are not a forecast. The presiding officer's rulings, the chamber's own rules and its counsel prevail.`,
   };
 }

@@ -21,13 +21,23 @@ export const ballotRowSchema = z.object({
   bloc: z.string().trim().max(120).default(""),
   weight: z.number().int().min(1).max(1000).default(1),
   ranking: ballotSchema.shape.ranking.min(1),
+  /** The presiding officer's row: its ranking is the chair's preference under the rulebook's tie rule (docs/decisions/0008). */
+  chair: z.boolean().optional(),
 });
 export type BallotRow = z.output<typeof ballotRowSchema>;
 
 export const ballotContentSchema = z.object({
   kind: z.literal("ballots"),
   partial: z.enum(["abstain", "bottom"]).default("abstain"),
-  rows: z.array(ballotRowSchema).min(1).max(MAX_ROWS),
+  rows: z
+    .array(ballotRowSchema)
+    .min(1)
+    .max(MAX_ROWS)
+    .superRefine((rows, ctx) => {
+      const chairs = rows.flatMap((r, i) => (r.chair ? [i] : []));
+      if (chairs.length > 1) ctx.addIssue({ code: "custom", path: [chairs[1], "chair"], message: `only one row can be the chair's (row ${chairs[0]} already is)` });
+      if (chairs.length >= 1 && rows[chairs[0]].weight !== 1) ctx.addIssue({ code: "custom", path: [chairs[0], "weight"], message: "the chair's row has weight 1" });
+    }),
 });
 
 export const idealRowSchema = z.object({ member: label, bloc: z.string().trim().max(120).default(""), weight: z.number().int().min(1).max(1000).default(1), ideal: z.array(coord).min(1).max(MAX_DIMENSIONS) });
@@ -83,7 +93,7 @@ export function spatialInput(c: Extract<EstimateContent, { kind: "spatial" }>): 
 }
 
 /** The `profile` member of analyseOrders' input. */
-export function toOrdersProfile(c: EstimateContent): { ballots: Array<{ ranking: Array<string | string[]>; weight: number }>; partial: "abstain" | "bottom" } | { spatial: z.input<typeof spatialSchema> } {
-  if (c.kind === "ballots") return { ballots: c.rows.map((r) => ({ ranking: r.ranking, weight: r.weight })), partial: c.partial };
+export function toOrdersProfile(c: EstimateContent): { ballots: Array<{ ranking: Array<string | string[]>; weight: number; chair?: boolean }>; partial: "abstain" | "bottom" } | { spatial: z.input<typeof spatialSchema> } {
+  if (c.kind === "ballots") return { ballots: c.rows.map((r) => ({ ranking: r.ranking, weight: r.weight, ...(r.chair ? { chair: true } : {}) })), partial: c.partial };
   return { spatial: spatialInput(c) };
 }

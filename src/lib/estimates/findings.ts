@@ -7,7 +7,7 @@
  * the caution that it is a projection from an estimate and that the chair and the rules decide.
  */
 import type { OrdersAnalysis } from "../voting/analyse-orders.ts";
-import { listInWords, STATUS_QUO_ID, versionInWords, versionShort, type TreeLabels } from "./version-words.ts";
+import { listInWords, STATUS_QUO_ID, thresholdInWords, versionInWords, versionShort, type TreeLabels } from "./version-words.ts";
 
 export interface Finding {
   id: "order-decides" | "order-indifferent" | "condorcet-defeated" | "condorcet-holds" | "cycle" | "strategic" | "sincere-holds" | "kills" | "saves";
@@ -22,7 +22,7 @@ export interface OrderListing {
   complete: boolean;
 }
 
-type Analysis = Pick<OrdersAnalysis, "alternatives" | "majority" | "orders" | "sincere" | "sophisticated">;
+type Analysis = Pick<OrdersAnalysis, "alternatives" | "majority" | "orders" | "sincere" | "sophisticated"> & Partial<Pick<OrdersAnalysis, "passesAgainstQ" | "thresholds">>;
 
 const num = (c: number | string) => (typeof c === "number" ? c : Number(c));
 const orders = (c: number | string) => `${c} legal order${num(c) === 1 ? "" : "s"}`;
@@ -78,7 +78,9 @@ export function buildFindings(a: Analysis, listing: OrderListing, labels: TreeLa
     out.push({ id: "sincere-holds", headline: `Strategic voting changes nothing in ${listing.complete ? "any legal order" : "the listed orders"}.`, detail: "Sincere and sophisticated voting reach the same version in each.", caution: c });
 
   const ids = new Set(a.alternatives.map((v) => v.id));
-  const beatsQ = (v: string) => (a.majority.margins[v]?.[STATUS_QUO_ID] ?? 0) > 0;
+  // Under the passage threshold when the analysis gives it (decision 0008), else a simple majority.
+  const beatsQ = (v: string) => a.passesAgainstQ?.[v] ?? (a.majority.margins[v]?.[STATUS_QUO_ID] ?? 0) > 0;
+  const needs = a.thresholds && a.thresholds.passage !== "majority" ? ` (passage needs ${thresholdInWords(a.thresholds.passage)})` : "";
   const seen = new Set<string>();
   for (const v of a.alternatives) {
     if (v.amendments.length === 0 || v.amendments.length > 2) continue;
@@ -89,10 +91,10 @@ export function buildFindings(a: Analysis, listing: OrderListing, labels: TreeLa
     const name = labels.amendments[last]?.title ? `${last} (${labels.amendments[last].title})` : last;
     if (beatsQ(baseId) && !beatsQ(v.id)) {
       seen.add(last);
-      out.push({ id: "kills", headline: `${name} would kill the measure.`, detail: `${versionShort(baseId, labels)} is projected to pass against no change (margin ${a.majority.margins[baseId][STATUS_QUO_ID]}); with ${last} adopted it is projected to fail (margin ${a.majority.margins[v.id][STATUS_QUO_ID]}).`, caution: c });
+      out.push({ id: "kills", headline: `${name} would kill the measure.`, detail: `${versionShort(baseId, labels)} is projected to pass against no change (margin ${a.majority.margins[baseId][STATUS_QUO_ID]}); with ${last} adopted it is projected to fail (margin ${a.majority.margins[v.id][STATUS_QUO_ID]})${needs}.`, caution: c });
     } else if (!beatsQ(baseId) && beatsQ(v.id)) {
       seen.add(last);
-      out.push({ id: "saves", headline: `${name} would save the measure.`, detail: `${versionShort(baseId, labels)} is projected to fail against no change (margin ${a.majority.margins[baseId][STATUS_QUO_ID]}); with ${last} adopted it is projected to pass (margin ${a.majority.margins[v.id][STATUS_QUO_ID]}).`, caution: c });
+      out.push({ id: "saves", headline: `${name} would save the measure.`, detail: `${versionShort(baseId, labels)} is projected to fail against no change (margin ${a.majority.margins[baseId][STATUS_QUO_ID]}); with ${last} adopted it is projected to pass (margin ${a.majority.margins[v.id][STATUS_QUO_ID]})${needs}.`, caution: c });
     }
   }
   return out;

@@ -41,8 +41,13 @@ const THRESHOLD_WORDS: Record<string, string> = {
   "two-thirds": "two-thirds of the votes cast",
   "majority-of-members": "a majority of all members",
   none: "a majority of the votes cast (a tie defeats the question)",
+  "two-thirds-of-members": "two-thirds of all members",
+  "three-fifths-of-members": "three-fifths of all members",
+  "two-thirds-of-present": "two-thirds of the members present",
 };
 
 export function thresholdInWords(t: string): string {
+  const fixed = /^(\d+) votes$/.exec(t);
+  if (fixed) return `at least ${fixed[1]} votes in favour, and more for than against`;
   return THRESHOLD_WORDS[t] ?? t;
 }

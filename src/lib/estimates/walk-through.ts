@@ -21,10 +21,13 @@ import { rankingsToIndices } from "../voting/majority-input.ts";
 import { majorityGraph } from "../voting/majority-graph.ts";
 import { questionConstraints, questionPrecedence } from "../voting/order-constraints.ts";
 import { isLegalOrder } from "../voting/precedence.ts";
-import { pairSupport, profileFromRankings, type Profile } from "../voting/profile.ts";
+import { attendingWeight, pairSupport, profileFromRankings, type Profile } from "../voting/profile.ts";
 import { questionAgenda, sincereQuestionPath, sophisticatedValue } from "../voting/question-agenda.ts";
+import { chairSide } from "../voting/majority-graph.ts";
+import { successiveTally } from "../voting/successive-agenda.ts";
 import { scaleSpatial, spatialProfile, versionPosition } from "../voting/spatial-profile.ts";
-import { toThreshold } from "../voting/vote-threshold.ts";
+import { thresholdText } from "../voting/vote-threshold.ts";
+import { questionGraphs, quorumStatus, requireQuorum, thresholdsJson, voteRules } from "../voting/vote-rules.ts";
 
 export interface WalkStep {
   question: string;
@@ -37,6 +40,8 @@ export interface WalkStep {
   /** Successive procedure, sincere path: the other versions still within reach that members weighed the motion against. */
   withinReach?: string[];
   adopted?: boolean;
+  /** The votes were equally divided and the chair's casting vote decided (tie rule "chair-casting-vote"). */
+  castingVote?: "for" | "against";
   /** Later questions that fall if this one is adopted / rejected. */
   fallsIfAdopted?: string[];
   fallsIfRejected?: string[];
@@ -46,6 +51,9 @@ export interface WalkThrough {
   order: string[];
   procedure: "amendment" | "successive";
   threshold: string;
+  /** Each question kind's threshold, the membership counted against, and the tie rule. */
+  thresholds: { amendment: string; passage: string; passageFrom: string; members: number | null; membersFrom: string | null };
+  tieRule: string;
   totalWeight: number;
   sincere: { outcome: string; steps: WalkStep[] };
   sophisticated: { outcome: string; steps: WalkStep[] };
@@ -53,10 +61,10 @@ export interface WalkThrough {
 
 export const walkOrderSchema = z.array(z.string().min(1).max(40)).min(1).max(40);
 
-function buildProfile(input: z.output<typeof ordersInputSchema>, names: string[], versions: Array<{ amendments: string[] }>): Profile {
+function buildProfile(input: z.output<typeof ordersInputSchema>, names: string[], versions: Array<{ amendments: string[] }>, chairApart: boolean): Profile {
   if ("ballots" in input.profile) {
     const index = new Map(names.map((n, i) => [n, i]));
-    return profileFromRankings(names, rankingsToIndices(input.profile.ballots, index, "profile.ballots"), input.profile.partial);
+    return profileFromRankings(names, rankingsToIndices(input.profile.ballots, index, "profile.ballots"), input.profile.partial, { chairApart });
   }
   const s = scaleSpatial(input.profile.spatial, "profile.spatial");
   const positions = versions.map((v, i) => (i === 0 ? s.statusQuo : versionPosition(s, v.amendments)));
@@ -69,9 +77,11 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
   const voting = parseWith(votingSectionSchema, input.rulebook.voting, "rulebook voting section", "rulebook.voting");
   const model = amendmentTreeModel({ measure: input.measure, amendments: input.amendments ?? [] });
   const names = model.versions.map((v) => v.id);
-  const profile = buildProfile(input, names, model.versions);
-  const g = majorityGraph(profile, toThreshold(voting.amendmentThreshold));
-  const qa = questionAgenda(model, g, profile, voting.procedure);
+  const rules = voteRules(input.rulebook, voting, input.membership);
+  const profile = buildProfile(input, names, model.versions, rules.tieRule === "chair-casting-vote");
+  requireQuorum(quorumStatus(rules.quorum, rules.members, attendingWeight(profile)));
+  const graphs = questionGraphs(profile, rules, model.amendments.length);
+  const qa = questionAgenda(model, graphs.amendment, profile, voting.procedure, graphs.graphFor);
   const qids = [...model.amendments.map((a) => a.id), PASSAGE];
   const order = orderIds.map((id, i) => {
     const x = qids.indexOf(id);
@@ -96,6 +106,20 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
     const s = pairSupport(profile, yes, no);
     return { for: s.forX, against: s.forY };
   };
+  // The chair's casting vote, shown where it decided an equal division.
+  const casting = (t: { for: number; against: number }, side: number): Pick<WalkStep, "castingVote"> =>
+    rules.tieRule === "chair-casting-vote" && profile.chair && t.for === t.against && t.for > 0 && side !== 0 ? { castingVote: side > 0 ? "for" : "against" } : {};
+  const castingOnSincere = (x: number, decided: number, adopted: number) => {
+    const t = qa.sincereTally(x, decided, adopted)!;
+    const v = qa.vote(x, adopted);
+    const successive = voting.procedure === "successive" && x !== qa.passage;
+    let side = chairSide(profile, v.yesVersion, v.noVersion);
+    if (successive && profile.chair) {
+      const c = successiveTally({ alternatives: profile.alternatives, members: [profile.chair], totalWeight: profile.chair.weight }, v.yesVersion, qa.successiveField(x, decided, adopted));
+      side = c.forWeight > 0 ? 1 : c.againstWeight > 0 ? -1 : 0;
+    }
+    return casting({ for: t.forWeight, against: t.againstWeight }, side);
+  };
   const fallsAfter = (i: number, decided: number, adopted: number) => order.slice(i + 1).filter((y) => qa.falls(y, decided, adopted)).map((y) => qids[y]);
 
   const sincerePath = sincereQuestionPath(qa, order);
@@ -116,6 +140,7 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
           motion: names[v.yesVersion],
           base: names[v.noVersion],
           ...sincereTally(x, decided, adopted),
+          ...castingOnSincere(x, decided, adopted),
           adopted: s.adopted,
           fallsIfAdopted: fallsAfter(i, d2, v.yesState).filter((q) => !before.has(q)),
           fallsIfRejected: fallsAfter(i, d2, v.noState).filter((q) => !before.has(q)),
@@ -139,9 +164,9 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
         const d2 = decided | (1 << x);
         const yes = value(i + 1, d2, v.yesState);
         const no = value(i + 1, d2, v.noState);
-        const ok = qa.beats(yes, no);
+        const ok = qa.beatsOn(x, yes, no);
         const before = new Set(fallsAfter(i, decided, adopted));
-        sophSteps.push({ question: qids[x], put: true, motion: names[yes], base: names[no], ...pairTally(yes, no), adopted: ok, fallsIfAdopted: fallsAfter(i, d2, v.yesState).filter((q) => !before.has(q)), fallsIfRejected: fallsAfter(i, d2, v.noState).filter((q) => !before.has(q)) });
+        sophSteps.push({ question: qids[x], put: true, motion: names[yes], base: names[no], ...pairTally(yes, no), ...casting(pairTally(yes, no), chairSide(profile, yes, no)), adopted: ok, fallsIfAdopted: fallsAfter(i, d2, v.yesState).filter((q) => !before.has(q)), fallsIfRejected: fallsAfter(i, d2, v.noState).filter((q) => !before.has(q)) });
         if (ok) adopted = v.yesState;
       }
       decided |= 1 << x;
@@ -150,7 +175,9 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
   return {
     order: orderIds,
     procedure: voting.procedure,
-    threshold: voting.amendmentThreshold,
+    threshold: thresholdText(voting.amendmentThreshold),
+    thresholds: thresholdsJson(rules),
+    tieRule: rules.tieRule,
     totalWeight: profile.totalWeight,
     sincere: { outcome: names[sincerePath.outcome], steps: sincereSteps },
     sophisticated: { outcome: names[value(0, 0, 0)], steps: sophSteps },

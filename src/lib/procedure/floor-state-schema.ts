@@ -57,6 +57,10 @@ export const floorSchema = z.looseObject({
   noticeGiven: z.boolean().default(false),
   /** The incidental motion about to be made arises out of the immediately pending question (e.g. leave to withdraw it). */
   arisesFromPending: z.boolean().default(false),
+  /** The chamber is sitting as a Committee of the Whole (US House: Rule XVIII), whose motions differ. */
+  committeeOfTheWhole: z.boolean().default(false),
+  /** A quorum is present; when false, the rulebook's `no-quorum` rule leaves only `voting.quorum.withoutQuorum` in order (RONR 1915 §64). */
+  quorumPresent: z.boolean().default(true),
 });
 
 const FLOOR_DEFAULTS = {
@@ -71,6 +75,8 @@ const FLOOR_DEFAULTS = {
   reconsiderVote: null,
   noticeGiven: false,
   arisesFromPending: false,
+  committeeOfTheWhole: false,
+  quorumPresent: true,
 };
 
 export const floorStateSchema = z

@@ -189,12 +189,14 @@ export function lastVoteFact(rulebook: Rulebook, state: FloorState): LastVoteFac
 
 type AsMade = Pick<Motion, "class" | "rank" | "second" | "debatable" | "amendable" | "vote" | "interrupt" | "reconsiderable">;
 
-function motionFact(m: Motion, made: AsMade) {
+function motionFact(m: Motion, made: AsMade, withoutQuorum: readonly string[] = []) {
   return {
     id: m.id,
     name: m.name,
     ...made,
     window: { days: m.window?.days ?? null, sittings: m.window?.sittings ?? null },
+    /** In order without a quorum present (the rulebook's voting.quorum.withoutQuorum; RONR 1915 §64). */
+    withoutQuorum: withoutQuorum.includes(m.id),
   };
 }
 
@@ -273,7 +275,7 @@ export async function legalMoves(rulebook: Rulebook, stateInput: unknown): Promi
       const set = new ConditionSet();
       const variantIdx = (m.variants ?? []).map((v) => set.add(v.when));
       const altIdx = (m.voteAlternatives ?? []).map((a) => (a.when ? set.add(a.when) : -1));
-      const holds = await set.run({ ...shared, motion: motionFact(m, made) });
+      const holds = await set.run({ ...shared, motion: motionFact(m, made, rulebook.voting.quorum.withoutQuorum ?? []) });
       if (m.variants) {
         applied = [];
         m.variants.forEach((v, k) => {
@@ -286,7 +288,7 @@ export async function legalMoves(rulebook: Rulebook, stateInput: unknown): Promi
     } else if (m.voteAlternatives) {
       alternatives = m.voteAlternatives.map((a) => ({ kind: a.kind, vote: a.vote, if: a.if, citation: a.citation, applies: null }));
     }
-    const fired = await runner.run({ ...shared, motion: motionFact(m, made) });
+    const fired = await runner.run({ ...shared, motion: motionFact(m, made, rulebook.voting.quorum.withoutQuorum ?? []) });
     verdicts.push({
       motion: m.id,
       name: m.name,

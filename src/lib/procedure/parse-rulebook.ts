@@ -109,6 +109,9 @@ export function parseRulebookWithNotes(input: unknown): { rulebook: Rulebook; mi
     checkCondition(r.conditions, `rules.${i}.conditions`, r.scope, motionIds, issues, { nodes: 0 }, 0, true);
   });
   if (!motionIds.has(rulebook.amendments.motion)) issues.push({ path: "amendments.motion", message: `no motion "${rulebook.amendments.motion}" in the catalogue` });
+  (rulebook.voting.quorum.withoutQuorum ?? []).forEach((id, i) => {
+    if (!motionIds.has(id)) issues.push({ path: `voting.quorum.withoutQuorum.${i}`, message: `no motion "${id}" in the catalogue` });
+  });
   (rulebook.precedence ?? []).forEach((chain, i) =>
     chain.forEach((id, j) => {
       if (!motionIds.has(id)) issues.push({ path: `precedence.${i}.${j}`, message: `no motion "${id}" in the catalogue` });

@@ -36,6 +36,10 @@ export const FINDING_CODES = [
   "cycle",
   "form-not-allowed",
   "voted-after-perfecting",
+  "whole-text",
+  "several-parts",
+  "needs-selection",
+  "two-part-question",
 ] as const;
 
 const text = (max: number) => z.string().trim().min(1).max(max);
@@ -176,9 +180,13 @@ export const chamberSchema = z.object({
 export const sourceSchema = z.object({
   title: text(500),
   edition: z.string().max(200).optional(),
+  /** The date (or term, or session) of the text the rulebook was written from, as the clerk would say it. */
+  date: z.string().max(200).optional(),
   url: z.url().max(2000).optional(),
   license: z.string().max(200).optional(),
   note: z.string().max(2000).optional(),
+  /** "Verify before use": what the source does not settle, or the engine cannot express, listed for a clerk to check. */
+  verify: z.array(text(1000)).max(60).default([]),
 });
 
 export const ruleSchema = z.object({
@@ -194,6 +202,8 @@ export const ruleSchema = z.object({
   severity: z.enum(FINDING_SEVERITIES).optional(),
   /** Amendment scope: a fact (an array of amendment ids) listed as the finding's `related`. */
   related: z.enum(["conflictsWith", "perfectingSiblings", "cycleMembers"]).optional(),
+  /** For the clerk: what the source says beyond the citation, what is from memory, what the engine cannot express. */
+  note: z.string().max(2000).optional(),
 });
 
 export const rulebookSchema = z.object({

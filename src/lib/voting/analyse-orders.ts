@@ -16,15 +16,15 @@ import { corePoint, type CoreResult } from "./core-point.ts";
 import { exactText, unscale } from "./exact-decimal.ts";
 import { legalOrderPage } from "./legal-orders.ts";
 import { ballotSchema, rankingsToIndices } from "./majority-input.ts";
-import { majorityGraph } from "./majority-graph.ts";
 import { majorityReport, type MajorityReport } from "./majority-report.ts";
-import { profileFromRankings, type Profile } from "./profile.ts";
+import { attendingWeight, profileFromRankings, type Profile } from "./profile.ts";
 import { questionAgenda, sincereQuestionPath, sophisticatedQuestionOutcome, type QuestionStep } from "./question-agenda.ts";
 import { sincereQuestionCounts, sophisticatedQuestionCounts } from "./question-counts.ts";
 import { questionOrderRules, questionPrecedence } from "./order-constraints.ts";
 import { scaleSpatial, spatialProfile, spatialSchema, versionPosition } from "./spatial-profile.ts";
 import { UNCOVERED_VARIANTS } from "./uncovered-set.ts";
-import { toThreshold } from "./vote-threshold.ts";
+import { thresholdText } from "./vote-threshold.ts";
+import { questionGraphs, quorumStatus, requireQuorum, thresholdsJson, voteRules, type QuorumStatus } from "./vote-rules.ts";
 import { winSet, type WinSet } from "./win-set.ts";
 
 export const PASSAGE = "passage";
@@ -33,6 +33,11 @@ export const MAX_PAGE_SIZE = 200;
 export const ordersInputSchema = z.object({
   /** Only `voting` is read; a path must be resolved to the rulebook object by the caller. */
   rulebook: z.object({ voting: z.unknown() }).passthrough(),
+  /**
+   * The chamber's membership when the rulebook gives no `chamber.members` (the server passes its roster
+   * size): what thresholds "of the members" and the quorum count against. Never the ballots' total.
+   */
+  membership: z.number().int().min(1).max(100_000).optional(),
   measure: z.unknown(),
   amendments: z.unknown().optional(),
   profile: z.union([
@@ -47,7 +52,15 @@ export type OrdersInput = z.input<typeof ordersInputSchema>;
 
 export interface OrdersAnalysis {
   procedure: "amendment" | "successive";
+  /** The amendment threshold (as before); `thresholds` has each question kind's. */
   threshold: string;
+  thresholds: { amendment: string; passage: string; passageFrom: string; members: number | null; membersFrom: string | null };
+  tieRule: string;
+  /** Whether the estimate marks a ballot as the chair's. */
+  chairBallot: boolean;
+  quorum: QuorumStatus;
+  /** For each version other than Q: whether it beats Q under the passage threshold (head to head). */
+  passesAgainstQ: Record<string, boolean>;
   alternatives: Array<{ id: string; amendments: string[] }>;
   questions: Array<{ id: string; kind: "amendment" | "passage"; degree?: 1 | 2; amends?: string; form?: string; substituteFor?: string }>;
   constraints: Array<[string, string]>;
@@ -68,11 +81,11 @@ export interface AnalyseOptions extends RunControl {
   onPhase?: (phase: "orders" | "sincere" | "sophisticated" | "page", fraction: number) => void;
 }
 
-function buildProfile(input: z.output<typeof ordersInputSchema>, model: AmendmentTreeModel): { profile: Profile; spatial?: OrdersAnalysis["spatial"]; s?: ReturnType<typeof scaleSpatial> } {
+function buildProfile(input: z.output<typeof ordersInputSchema>, model: AmendmentTreeModel, chairApart: boolean): { profile: Profile; spatial?: OrdersAnalysis["spatial"]; s?: ReturnType<typeof scaleSpatial> } {
   const names = model.versions.map((v) => v.id);
   if ("ballots" in input.profile) {
     const index = new Map(names.map((n, i) => [n, i]));
-    return { profile: profileFromRankings(names, rankingsToIndices(input.profile.ballots, index, "profile.ballots"), input.profile.partial) };
+    return { profile: profileFromRankings(names, rankingsToIndices(input.profile.ballots, index, "profile.ballots"), input.profile.partial, { chairApart }) };
   }
   const s = scaleSpatial(input.profile.spatial, "profile.spatial");
   if (!s.measure) throw new GavelError("invalid-input", "profile.spatial.measure: the measure's position is required", { issues: [{ path: "profile.spatial.measure", message: "required to place the versions" }] });
@@ -95,13 +108,16 @@ export function analyseOrders(raw: unknown, opts: AnalyseOptions = {}): OrdersAn
   const input = parseWith(ordersInputSchema, raw, "orders input");
   const voting = parseWith(votingSectionSchema, input.rulebook.voting, "rulebook voting section", "rulebook.voting");
   const model = amendmentTreeModel({ measure: input.measure, amendments: input.amendments ?? [] });
-  const threshold = toThreshold(voting.amendmentThreshold);
-  const built = buildProfile(input, model);
-  const graph = majorityGraph(built.profile, threshold);
-  const qa = questionAgenda(model, graph, built.profile, voting.procedure);
+  const rules = voteRules(input.rulebook, voting, input.membership);
+  const built = buildProfile(input, model, rules.tieRule === "chair-casting-vote");
+  const quorum = quorumStatus(rules.quorum, rules.members, attendingWeight(built.profile));
+  requireQuorum(quorum);
+  const graphs = questionGraphs(built.profile, rules, model.amendments.length);
+  const graph = graphs.amendment;
+  const qa = questionAgenda(model, graph, built.profile, voting.procedure, graphs.graphFor);
   const qids = [...model.amendments.map((a) => a.id), PASSAGE];
-  const rules = questionOrderRules(model, voting.constraints);
-  const pairs = rules.pairs;
+  const orderRules = questionOrderRules(model, voting.constraints);
+  const pairs = orderRules.pairs;
   const prec = questionPrecedence(model, voting.constraints);
   const phase = (name: "orders" | "sincere" | "sophisticated"): RunControl => ({ ...opts, onProgress: (f) => opts.onPhase?.(name, f) });
   const total = countLegalOrders(prec, phase("orders"));
@@ -120,15 +136,20 @@ export function analyseOrders(raw: unknown, opts: AnalyseOptions = {}): OrdersAn
   opts.onPhase?.("page", 1);
   return {
     procedure: voting.procedure,
-    threshold,
+    threshold: thresholdText(rules.amendment),
+    thresholds: thresholdsJson(rules),
+    tieRule: rules.tieRule,
+    chairBallot: "ballots" in input.profile && input.profile.ballots.some((b) => b.chair === true),
+    quorum,
+    passesAgainstQ: Object.fromEntries(model.versions.slice(1).map((v, i) => [v.id, graphs.passage.beats[i + 1][0]])),
     alternatives: model.versions,
     questions: [
       ...model.amendments.map((a, i) => ({ id: a.id, kind: "amendment" as const, degree: model.degree[i], amends: a.target, form: a.form, ...(model.substituteFor[i] >= 0 ? { substituteFor: a.target } : {}) })),
       { id: PASSAGE, kind: "passage" as const },
     ],
     constraints: [...new Set(pairs.map(([a, b]) => `${a},${b}`))].map((s) => s.split(",").map((x) => qids[Number(x)]) as [string, string]),
-    blocks: rules.blocks.map(idsOf),
-    notBetween: rules.notBetween.map((w) => ({ span: idsOf(w.span), excludes: idsOf(w.excludes) })),
+    blocks: orderRules.blocks.map(idsOf),
+    notBetween: orderRules.notBetween.map((w) => ({ span: idsOf(w.span), excludes: idsOf(w.excludes) })),
     majority: majorityReport(graph, { uncovered: input.uncovered }),
     orders: countToJson(total),
     sincere: countsByName(graph, sincere),

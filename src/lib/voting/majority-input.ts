@@ -23,6 +23,8 @@ export const alternativeNameSchema = z.string().min(1).max(200);
 export const ballotSchema = z.object({
   ranking: z.array(z.union([alternativeNameSchema, z.array(alternativeNameSchema).min(1)])).max(MAX_ALTERNATIVES),
   weight: z.number().int().min(1).max(1_000_000_000).default(1),
+  /** The presiding officer's ballot: its preference gives the chair's vote under the rulebook's tie rule (at most one, weight 1). */
+  chair: z.boolean().optional(),
 });
 export type BallotInput = z.input<typeof ballotSchema>;
 
@@ -33,6 +35,8 @@ export const majorityInputSchema = z.object({
   margins: z.record(alternativeNameSchema, z.record(alternativeNameSchema, z.number().finite())).optional(),
   partial: z.enum(["abstain", "bottom"]).default("abstain"),
   quota: z.enum(VOTE_THRESHOLDS).optional(),
+  /** The membership the "…-of-members" quotas count against; absent: the ballots are the whole membership. */
+  members: z.number().int().min(1).max(1_000_000_000).optional(),
 });
 export type MajorityInput = z.input<typeof majorityInputSchema>;
 
@@ -51,7 +55,10 @@ export function indexAlternatives(names: readonly string[], path = "alternatives
 }
 
 /** Rankings over names → rankings over indices, with path-precise errors. */
-export function rankingsToIndices(ballots: ReadonlyArray<z.output<typeof ballotSchema>>, index: Map<string, number>, path: string): Array<{ ranking: Array<number | number[]>; weight: number }> {
+export function rankingsToIndices(ballots: ReadonlyArray<z.output<typeof ballotSchema>>, index: Map<string, number>, path: string): Array<{ ranking: Array<number | number[]>; weight: number; chair?: boolean }> {
+  const chairs = ballots.flatMap((b, i) => (b.chair ? [i] : []));
+  if (chairs.length > 1) fail([{ path: `${path}.${chairs[1]}.chair`, message: `only one ballot can be the chair's (ballot ${chairs[0]} already is)` }], "ballots");
+  if (chairs.length === 1 && ballots[chairs[0]].weight !== 1) fail([{ path: `${path}.${chairs[0]}.weight`, message: "the chair's ballot has weight 1" }], "ballots");
   return ballots.map((b, i) => {
     const seen = new Set<number>();
     const look = (name: string, p: string): number => {
@@ -63,6 +70,7 @@ export function rankingsToIndices(ballots: ReadonlyArray<z.output<typeof ballotS
     };
     return {
       weight: b.weight,
+      ...(b.chair ? { chair: true } : {}),
       ranking: b.ranking.map((e, j) => (typeof e === "string" ? look(e, `${path}.${i}.ranking.${j}`) : e.map((name, k) => look(name, `${path}.${i}.ranking.${j}.${k}`)))),
     };
   });
@@ -76,7 +84,7 @@ export function parsedMajorityGraph(input: z.output<typeof majorityInputSchema>)
   const n = names.length;
   if (input.ballots) {
     const profile = profileFromRankings(names, rankingsToIndices(input.ballots, index, "ballots"), input.partial);
-    return { graph: majorityGraph(profile, toThreshold(input.quota ?? "majority")), profile };
+    return { graph: majorityGraph(profile, toThreshold(input.quota ?? "majority"), input.members === undefined ? {} : { members: input.members }), profile };
   }
   if (input.quota !== undefined && toThreshold(input.quota) !== "majority") fail([{ path: "quota", message: "a quota needs ballots; edges and margins are read as simple majority" }], "majority input");
   const look = (name: string, path: string): number => {

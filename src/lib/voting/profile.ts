@@ -14,8 +14,20 @@ export interface Member {
 
 export interface Profile {
   alternatives: string[];
+  /** The members whose votes are counted (the chair's ballot included unless kept apart). */
   members: Member[];
+  /** Weight of `members`. */
   totalWeight: number;
+  /**
+   * The chair's ballot kept apart from the count (tie rule "chair-casting-vote"): it is added only when
+   * the votes are equally divided. Counted as present (attendance), never among the votes cast.
+   */
+  chair?: Member;
+}
+
+/** Attending weight: every ballot, the chair's included (quorum; thresholds of the members present). */
+export function attendingWeight(p: Profile): number {
+  return p.totalWeight + (p.chair?.weight ?? 0);
 }
 
 export type PartialConvention = "abstain" | "bottom";
@@ -46,18 +58,25 @@ export function pairSupport(p: Profile, x: number, y: number): { forX: number; f
  */
 export function profileFromRankings(
   alternatives: string[],
-  ballots: ReadonlyArray<{ ranking: ReadonlyArray<number | readonly number[]>; weight: number }>,
+  ballots: ReadonlyArray<{ ranking: ReadonlyArray<number | readonly number[]>; weight: number; chair?: boolean }>,
   partial: PartialConvention,
+  opts: { chairApart?: boolean } = {},
 ): Profile {
   const n = alternatives.length;
   let totalWeight = 0;
-  const members = ballots.map((b) => {
+  let chair: Member | undefined;
+  const members: Member[] = [];
+  for (const b of ballots) {
     const level = new Int32Array(n).fill(partial === "abstain" ? -1 : b.ranking.length);
     b.ranking.forEach((entry, pos) => {
       for (const x of typeof entry === "number" ? [entry] : entry) level[x] = pos;
     });
+    if (b.chair && opts.chairApart) {
+      chair = { weight: b.weight, level };
+      continue;
+    }
     totalWeight += b.weight;
-    return { weight: b.weight, level };
-  });
-  return { alternatives, members, totalWeight };
+    members.push({ weight: b.weight, level });
+  }
+  return { alternatives, members, totalWeight, ...(chair ? { chair } : {}) };
 }

@@ -24,7 +24,7 @@ import type { MajorityGraph } from "./majority-graph.ts";
 import type { Profile } from "./profile.ts";
 import { successiveTally } from "./successive-agenda.ts";
 import { pairSupport } from "./profile.ts";
-import { adopts } from "./vote-threshold.ts";
+import { decides, type ChairSide } from "./vote-threshold.ts";
 import type { Procedure } from "./agenda-counts.ts";
 
 export interface QuestionAgenda {
@@ -48,10 +48,17 @@ export interface QuestionAgenda {
   sincereTally(x: number, decided: number, adopted: number): { forWeight: number; againstWeight: number } | null;
   /** Successive procedure: the versions a sincere vote on x weighs the adopted text against (x's own version first). */
   successiveField(x: number, decided: number, adopted: number): number[];
+  /** v beats w on the amendment graph (kept for callers that compare versions without a question). */
   beats(v: number, w: number): boolean;
+  /** v beats w when question x puts them: each question is decided under its own threshold (passage, amendments). */
+  beatsOn(x: number, v: number, w: number): boolean;
 }
 
-export function questionAgenda(model: AmendmentTreeModel, g: MajorityGraph, profile: Profile | null, procedure: Procedure): QuestionAgenda {
+/**
+ * `graphFor(question)` gives the majority graph a question is decided on (its threshold, membership
+ * and tie rule: docs/decisions/0008); by default every question uses `g`.
+ */
+export function questionAgenda(model: AmendmentTreeModel, g: MajorityGraph, profile: Profile | null, procedure: Procedure, graphFor: (question: number) => MajorityGraph = () => g): QuestionAgenda {
   const k = model.amendments.length;
   const passage = k;
   const P = 1 << passage;
@@ -90,6 +97,8 @@ export function questionAgenda(model: AmendmentTreeModel, g: MajorityGraph, prof
   };
   const outcome = (adopted: number) => (adopted & P ? model.versionOf(adopted & ~P) : Q);
   const beats = (v: number, w: number) => v !== w && g.beats[v][w];
+  const graphs = [...Array(k + 1).keys()].map((x) => graphFor(x));
+  const beatsOn = (x: number, v: number, w: number) => v !== w && graphs[x].beats[v][w];
   // Versions still available if x is rejected: Q and every consistent adoption of the undecided amendments.
   const available = (x: number, decided: number, adopted: number): number[] => {
     const open = [...Array(k).keys()].filter((a) => a !== x && !(decided & (1 << a)));
@@ -125,15 +134,23 @@ export function questionAgenda(model: AmendmentTreeModel, g: MajorityGraph, prof
     }
     return t;
   };
+  // The chair's yes or no on a successive question, read from the ballot kept apart (casting vote only).
+  const chairOnSuccessive = (x: number, decided: number, adopted: number): ChairSide => {
+    const c = profile?.chair;
+    if (!c) return 0;
+    const t = successiveTally({ alternatives: profile!.alternatives, members: [c], totalWeight: c.weight }, vote(x, adopted).yesVersion, successiveField(x, decided, adopted));
+    return t.forWeight > 0 ? 1 : t.againstWeight > 0 ? -1 : 0;
+  };
   const sincereAdopts = (x: number, decided: number, adopted: number): boolean => {
     if (!successive(x) || !profile) {
       const v = vote(x, adopted);
-      return beats(v.yesVersion, v.noVersion);
+      return beatsOn(x, v.yesVersion, v.noVersion);
     }
     const t = sincereTally(x, decided, adopted)!;
-    return adopts(t.forWeight, t.againstWeight, profile.totalWeight, g.threshold);
+    const gx = graphs[x];
+    return decides(t.forWeight, t.againstWeight, gx.base ?? profile.totalWeight, gx.threshold, gx.tieRule, chairOnSuccessive(x, decided, adopted), profile.chair?.weight ?? 1);
   };
-  return { model, k, passage, falls, fallsRelevant, vote, outcome, sincereAdopts, sincereTally, successiveField, beats };
+  return { model, k, passage, falls, fallsRelevant, vote, outcome, sincereAdopts, sincereTally, successiveField, beats, beatsOn };
 }
 
 export interface QuestionStep {
@@ -178,7 +195,7 @@ export function sophisticatedValue(qa: QuestionAgenda, order: readonly number[])
       const v = qa.vote(x, adopted);
       const yes = value(i + 1, decided | (1 << x), v.yesState);
       const no = value(i + 1, decided | (1 << x), v.noState);
-      r = qa.beats(yes, no) ? yes : no;
+      r = qa.beatsOn(x, yes, no) ? yes : no;
     }
     memo.set(key, r);
     return r;

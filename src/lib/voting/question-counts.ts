@@ -95,7 +95,7 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
         if (f) next[i] = no;
         else {
           const yes = values[j | (1 << pos)];
-          next[i] = qa.beats(yes, no) ? yes : no;
+          next[i] = qa.beatsOn(x, yes, no) ? yes : no;
         }
       }
       const r = intern(c2, bits2, next);

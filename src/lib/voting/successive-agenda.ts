@@ -9,7 +9,7 @@
  *    (backward induction on the successive voting tree).
  */
 import type { MajorityGraph } from "./majority-graph.ts";
-import type { Profile } from "./profile.ts";
+import { attendingWeight, type Profile } from "./profile.ts";
 import { adopts, type Threshold } from "./vote-threshold.ts";
 
 /** Yes and no weight on proposal x when the alternatives in `available` (indices, x included) remain. */
@@ -36,7 +36,7 @@ export function successiveTally(p: Profile, x: number, available: readonly numbe
 
 export function successivePasses(p: Profile, threshold: Threshold, x: number, available: readonly number[]): boolean {
   const t = successiveTally(p, x, available);
-  return adopts(t.forWeight, t.againstWeight, p.totalWeight, threshold);
+  return adopts(t.forWeight, t.againstWeight, attendingWeight(p), threshold);
 }
 
 export function sincereSuccessive(p: Profile, threshold: Threshold, order: readonly number[]): number {

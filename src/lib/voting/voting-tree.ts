@@ -14,7 +14,7 @@
 import type { MajorityGraph } from "./majority-graph.ts";
 import { pairSupport, type Profile } from "./profile.ts";
 import { successiveTally } from "./successive-agenda.ts";
-import { adopts } from "./vote-threshold.ts";
+import { decides } from "./vote-threshold.ts";
 
 export type SincereRule = { kind: "pair"; motion: number; base: number } | { kind: "proposal"; proposal: number; available: number[] };
 
@@ -108,7 +108,9 @@ export function votePath(tree: VotingTree, g: MajorityGraph, profile: Profile | 
       const rule = node.sincere;
       const t = successiveTally(profile, rule.proposal, rule.available);
       tally = { for: t.forWeight, against: t.againstWeight };
-      adopted = adopts(t.forWeight, t.againstWeight, profile.totalWeight, g.threshold);
+      const c = profile.chair ? successiveTally({ alternatives: profile.alternatives, members: [profile.chair], totalWeight: profile.chair.weight }, rule.proposal, rule.available) : null;
+      const side = c ? (c.forWeight > 0 ? 1 : c.againstWeight > 0 ? -1 : 0) : 0;
+      adopted = decides(t.forWeight, t.againstWeight, g.base ?? profile.totalWeight, g.threshold, g.tieRule, side, profile.chair?.weight ?? 1);
       motionName = names[rule.proposal];
       baseName = rule.available.filter((y) => y !== rule.proposal).map((y) => names[y]).join(", ");
     }

@@ -75,11 +75,24 @@ describe("running and caching", () => {
   });
 
   it("analyses a tree with no amendments (final passage only: one order)", async () => {
-    const created = await call(list.POST, "POST", "/api/estimates", { as: s.as.clerk, body: { measureId, title: "Spatial, passage only", scope: [], content: { kind: "spatial", dimensions: ["x"], statusQuo: [0], measure: [1], members: [{ member: "a", ideal: [1] }] } } });
+    // Weight 13: the demo chamber's quorum (13 of 40) must be present for any outcome (decision 0008).
+    const created = await call(list.POST, "POST", "/api/estimates", { as: s.as.clerk, body: { measureId, title: "Spatial, passage only", scope: [], content: { kind: "spatial", dimensions: ["x"], statusQuo: [0], measure: [1], members: [{ member: "a", ideal: [1], weight: 13 }] } } });
     expect(created.status).toBe(201);
     const done = await finished((await start(created.body.id)).body.runId);
     expect(done.run.status).toBe("done");
     expect(done.analysis.orders).toBe(1);
+    expect(done.analysis.quorum).toMatchObject({ required: 13, present: 13, met: true });
+    expect(done.analysis.thresholds).toMatchObject({ passage: "majority", passageFrom: "main-motion", members: 40, membersFrom: "chamber.members" });
+  });
+
+  it("an estimate whose attending weight is below the quorum gets no outcomes, and says why (RONR 1915 §64 p. 260: \"no question can be decided in the absence of a quorum\")", async () => {
+    const created = await call(list.POST, "POST", "/api/estimates", { as: s.as.clerk, body: { measureId, title: "Too few present", scope: [], content: { kind: "ballots", rows: [{ member: "a", weight: 12, ranking: ["measure", "Q"] }] } } });
+    expect(created.status).toBe(201);
+    const done = await finished((await start(created.body.id)).body.runId);
+    expect(done.run.status).toBe("failed");
+    expect(done.run.error.code).toBe("unprocessable");
+    expect(done.run.error.message).toMatch(/no quorum/);
+    expect(done.analysis).toBeUndefined();
   });
 
   it("a run that fails inside the worker is recorded as failed and writes no cache row", async () => {

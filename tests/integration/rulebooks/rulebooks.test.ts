@@ -45,7 +45,9 @@ describe("GET /api/rulebooks", () => {
       expect(r.status, role).toBe(200);
       expect(r.body.versions.length).toBe(1);
       expect(r.body.inForce.versionId).toBe(r.body.versions[0].id);
-      expect(r.body.templates.map((t: { id: string }) => t.id)).toEqual(expect.arrayContaining(["continental-successive", "demo-chamber", "four-amendment-legislature", "general-parliamentary-law"]));
+      expect(r.body.templates.map((t: { id: string }) => t.id)).toEqual(expect.arrayContaining(["continental", "demo-chamber", "general-parliamentary-law", "us-house", "us-senate", "westminster"]));
+      // A former id resolves but is not listed twice (issue 14: old ids keep working as aliases).
+      expect(r.body.templates.map((t: { id: string }) => t.id)).not.toContain("four-amendment-legislature");
     }
   });
   it("keeps chambers apart", async () => {
@@ -90,7 +92,24 @@ describe("GET /api/rulebooks/:id and export", () => {
     expect(r.status).toBe(200);
     expect(r.body.document.id).toBe("general-parliamentary-law");
     expect((await call(template.GET, "GET", "/api/rulebooks/templates/nope", { as: s.as.member, params: { id: "nope" } })).status).toBe(404);
+  });
+  it("serves a template under its old id (alias) and lists each template's source and verify-before-use points (issue 14)", async () => {
+    const r = await call(template.GET, "GET", "/api/rulebooks/templates/continental-successive", { as: s.as.member, params: { id: "continental-successive" } });
+    expect(r.status).toBe(200);
+    expect(r.body.id).toBe("continental");
+    expect(r.body.aliases).toEqual(["continental-successive"]);
+    const lib = (await call(list.GET, "GET", "/api/rulebooks", { as: s.as.member })).body;
+    const ep = lib.templates.find((t: { id: string }) => t.id === "continental");
+    expect(ep.source.title).toBe("Rules of Procedure of the European Parliament");
+    expect(ep.source.date).toMatch(/2019/);
+    expect(ep.verify.length).toBeGreaterThan(0);
+    expect(lib.templates.map((t: { id: string }) => t.id)).not.toContain("continental-successive");
     expect((await call(template.GET, "GET", "/api/rulebooks/templates/nope", { as: null, params: { id: "nope" } })).status).toBe(401);
+  });
+  it("serves the House template under its former id four-amendment-legislature (issue 14 alias)", async () => {
+    const r = await call(template.GET, "GET", "/api/rulebooks/templates/four-amendment-legislature", { as: s.as.member, params: { id: "four-amendment-legislature" } });
+    expect(r.status).toBe(200);
+    expect([r.body.id, r.body.document.id]).toEqual(["us-house", "us-house"]);
   });
 });
 

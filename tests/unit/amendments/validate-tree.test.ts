@@ -7,7 +7,7 @@ import { rawTemplate, template } from "../procedure/fixtures.ts";
 
 const gpl = template("general-parliamentary-law");
 const house = template("four-amendment-legislature");
-const continental = template("continental-successive");
+const continental = template("continental");
 const demo = template("demo-chamber");
 
 const measure: MeasureInput = {
@@ -349,7 +349,7 @@ describe("general parliamentary law: perfecting the text while a substitute is p
   });
 });
 
-describe("continental successive template (European Parliament rule on order of voting; common practice)", () => {
+describe("continental template (European Parliament Rules of Procedure, 8th term: Rule 174(2) order of voting, Rule 170(1)(a) admissibility — T6)", () => {
   it("amendments to amendments are not put; mutually exclusive ones are flagged for information", async () => {
     const a = am("s1", { form: "strike", lines: [1, 2], filedAt: "2025-03-01T08:00:00Z" });
     const b = am("s1", { form: "substitute", filedAt: "2025-03-01T08:00:00Z" });

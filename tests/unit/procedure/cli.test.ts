@@ -95,3 +95,15 @@ describe("gavelwright moves", () => {
     expect(by.amend).toMatchObject({ inOrder: true, degree: 2 });
   });
 });
+
+describe("template ids in case files", () => {
+  it("the former id four-amendment-legislature still names the House template (issue 14 alias), and us-senate loads", async () => {
+    const old = await run("moves", file("old-id.json", { rulebook: "four-amendment-legislature", pending: [{ motion: "main" }] }));
+    expect(old.code).toBe(0);
+    const now = await run("moves", file("new-id.json", { rulebook: "us-house", pending: [{ motion: "main" }] }));
+    expect(JSON.parse(old.out)).toEqual(JSON.parse(now.out));
+    const senate = await run("moves", file("senate.json", { rulebook: "us-senate", pending: [{ motion: "main" }] }));
+    expect(senate.code).toBe(0);
+    expect((JSON.parse(senate.out) as Array<{ motion: string; inOrder: boolean }>).find((v) => v.motion === "previous-question")!.inOrder).toBe(false);
+  });
+});

@@ -34,16 +34,31 @@ describe("four-amendment legislature (Rules of the US House of Representatives)"
   });
 });
 
-describe("continental successive (common practice, no source)", () => {
-  it("amendments are to the text only: an amendment to a pending amendment is out of order", async () => {
-    const m = await moves("continental-successive", [MAIN, { motion: "amend" }]);
+describe("continental (European Parliament Rules of Procedure, 8th term, Rules 170 and 174; no written sub-amendments in plenary, from memory — T7)", () => {
+  it("amendments are to the text only in the EP plenary: an amendment to a pending amendment is out of order", async () => {
+    const m = await moves("continental", [MAIN, { motion: "amend" }]);
     expect([m.amend.inOrder, m.amend.degree]).toEqual([false, 2]);
-    expect((await moves("continental-successive", [MAIN])).amend.inOrder).toBe(true);
+    expect((await moves("continental", [MAIN])).amend.inOrder).toBe(true);
+  });
+  it("the old id continental-successive still names the template (alias)", async () => {
+    expect(template("continental-successive").id).toBe("continental");
   });
 });
 
 describe("every template: amend applies beneath postpone indefinitely (RONR 1915 §33 p. 134: \"To Amend takes precedence of the motion to postpone indefinitely\")", () => {
-  for (const id of TEMPLATE_IDS) {
+  // Only where the catalogue has postpone indefinitely ranked below amend, as in general parliamentary law:
+  // the Senate ranks it above amend (Standing Rules of the Senate, Rule XXII cl. 1), and the Westminster
+  // and continental catalogues have no such motion.
+  const rankOf = (id: string, motion: string) => template(id).motions.find((m) => m.id === motion)?.rank ?? null;
+  const applies = TEMPLATE_IDS.filter((id) => {
+    const pi = rankOf(id, "postpone-indefinitely");
+    const amend = rankOf(id, "amend");
+    return pi !== null && amend !== null && amend > pi;
+  });
+  it("applies to the general-parliamentary-law family", () => {
+    expect(applies).toEqual(expect.arrayContaining(["general-parliamentary-law", "demo-chamber", "us-house"]));
+  });
+  for (const id of applies) {
     it(id, async () => {
       const v = (await moves(id, [MAIN, { motion: "postpone-indefinitely" }])).amend;
       expect([v.inOrder, v.degree, v.appliesTo]).toEqual([true, 1, "main"]);

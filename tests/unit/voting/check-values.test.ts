@@ -53,7 +53,7 @@ describe("edge cases", () => {
     expect(majorityFromInput({ alternatives: ["a", "b", "c"], ballots: [{ ranking: ["a"] }], partial: "bottom" }).graph.margins[0][1]).toBe(1);
     expect(majorityFromInput({ alternatives: ["a", "b", "c"], ballots: [{ ranking: ["a"] }], partial: "abstain" }).graph.margins[0][1]).toBe(0);
   });
-  it("a two-thirds quota leaves a 3–2 pair without an edge (two-thirds of the votes cast: Robert's Rules of Order Revised 1915; DOMAIN §3)", () => {
+  it("a two-thirds quota leaves a 3–2 pair without an edge (Robert's Rules of Order Revised 1915, §48 p. 204: \"A two-thirds vote means two-thirds of the votes cast, ignoring blanks\"; §68 p. 270: \"two-thirds of the votes cast, a quorum being present\")", () => {
     const ballots = [{ ranking: ["a", "b"], weight: 3 }, { ranking: ["b", "a"], weight: 2 }];
     expect(majorityFromInput({ alternatives: ["a", "b"], ballots }).graph.beats[0][1]).toBe(true);
     const g = majorityFromInput({ alternatives: ["a", "b"], ballots, quota: "two-thirds" }).graph;

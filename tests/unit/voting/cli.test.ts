@@ -103,4 +103,20 @@ describe("orders", () => {
     expect(r.json.sincere).toEqual({ [r.json.page.orders[0].sincere]: 1 });
     expect(r.json.majority.condorcetWinner).toBe("B+A");
   });
+  it("a whole rulebook file: membership from chamber.members, passage from the main motion, quorum checked; below quorum exits with unprocessable (decision 0008; RONR 1915 §64)", async () => {
+    const { readFileSync } = await import("node:fs");
+    const { resolve } = await import("node:path");
+    const demo = JSON.parse(readFileSync(resolve(import.meta.dirname, "../../../rulebooks/demo-chamber.json"), "utf8"));
+    const base = { rulebook: "demo.json", measure: { id: "B" } };
+    const ok = await run("orders", { ...base, profile: { ballots: [{ ranking: ["B", "Q"], weight: 21 }, { ranking: ["Q", "B"], weight: 19 }] } }, { "demo.json": demo });
+    expect(ok.code).toBe(0);
+    expect(ok.json.thresholds).toEqual({ amendment: "majority", passage: "majority", passageFrom: "main-motion", members: 40, membersFrom: "chamber.members" });
+    expect(ok.json.quorum).toEqual({ kind: "number", required: 13, present: 40, met: true });
+    expect(ok.json.tieRule).toBe("motion-fails");
+    expect(ok.json.chairBallot).toBe(false);
+    expect(ok.json.passesAgainstQ).toEqual({ B: true });
+    const few = await run("orders", { ...base, profile: { ballots: [{ ranking: ["B", "Q"], weight: 12 }] } }, { "demo.json": demo });
+    expect(few.code).toBe(2);
+    expect(few.err).toContain("no quorum");
+  });
 });

@@ -6,11 +6,12 @@
  * script. Every read checks that the actor may see the estimate the run belongs to.
  */
 import { createHash } from "node:crypto";
-import { and, desc, eq } from "drizzle-orm";
+import { and, count, desc, eq } from "drizzle-orm";
 import Papa from "papaparse";
 import { z } from "zod";
 import { db } from "../db.ts";
 import { analysisCache, analysisRuns } from "../../db/schema/estimates.ts";
+import { legislators } from "../../db/schema/chamber.ts";
 import { GavelError } from "../../errors.ts";
 import type { Actor } from "../http.ts";
 import { toOrdersProfile, type EstimateContent } from "../../estimates/estimate-content.ts";
@@ -25,7 +26,7 @@ import { loadRulebook } from "./rulebooks.ts";
 import { estimateRow, treeFor, versionRow } from "./estimates.ts";
 
 /** Bump when the engine's output changes meaning, so old cache rows are not reused. */
-export const ENGINE_VERSION = 1;
+export const ENGINE_VERSION = 2; // 2: passage threshold from the catalogue, membership thresholds, quorum, chair's vote (decision 0008)
 
 export const startSchema = z.object({ estimateId: z.string().min(1).max(100), version: z.number().int().min(1).optional(), rulebookVersionId: z.string().min(1).max(100).nullable().optional() });
 export const ordersQuerySchema = z.object({
@@ -70,7 +71,17 @@ export async function startAnalysis(actor: Actor, input: z.output<typeof startSc
   const rb = input.rulebookVersionId ? await loadRulebook(actor.chamber.id, input.rulebookVersionId).then((r) => ({ rulebook: r.rulebook, source: `version ${r.number}: ${r.title}`, versionId: r.versionId })) : await adoptedRulebookOf(actor.chamber.id);
   const tree = await treeFor(actor.chamber.id, e.measureId, v.scope);
   const content = v.content as EstimateContent;
-  const ordersInput = { rulebook: { voting: rb.rulebook.voting }, measure: tree.case.measure, amendments: tree.case.amendments, profile: toOrdersProfile(content) };
+  // Thresholds "of the members" and the quorum count against the rulebook's membership, else the roster (decision 0008).
+  const main = rb.rulebook.motions.find((m) => m.class === "main");
+  const members = rb.rulebook.chamber.members;
+  const roster = members === undefined ? (await db.select({ n: count() }).from(legislators).where(eq(legislators.chamberId, actor.chamber.id)))[0]?.n ?? 0 : 0;
+  const ordersInput = {
+    rulebook: { voting: rb.rulebook.voting, ...(members !== undefined ? { chamber: { members } } : {}), ...(main ? { motions: [{ class: main.class, vote: main.vote }] } : {}) },
+    ...(roster > 0 ? { membership: roster } : {}),
+    measure: tree.case.measure,
+    amendments: tree.case.amendments,
+    profile: toOrdersProfile(content),
+  };
   const hash = contentHash({ engine: ENGINE_VERSION, ...ordersInput });
   const [hit] = await db.select({ hash: analysisCache.hash }).from(analysisCache).where(and(eq(analysisCache.chamberId, actor.chamber.id), eq(analysisCache.hash, hash)));
   const base = { chamberId: actor.chamber.id, estimateId: e.id, estimateVersion: v.number, rulebookVersionId: rb.versionId, rulebookLabel: rb.source, hash, requestedBy: actor.user.id };
@@ -80,11 +91,10 @@ export async function startAnalysis(actor: Actor, input: z.output<typeof startSc
   }
   if (activeCount() >= MAX_WORKERS) throw new GavelError("rate-limited", `${MAX_WORKERS} analyses are already running on this server; try again when one has finished.`);
   const [run] = await db.insert(analysisRuns).values({ ...base, status: "running" }).returning();
-  const main = rb.rulebook.motions.find((m) => m.class === "main");
   void launchRun({ id: run.id, chamberId: actor.chamber.id, hash }, ordersInput, {
     input: ordersInput,
     labels: tree.labels,
-    passageThreshold: main?.vote ?? "majority",
+    passageThreshold: typeof rb.rulebook.voting.passageThreshold === "string" ? rb.rulebook.voting.passageThreshold : rb.rulebook.voting.passageThreshold ? `${rb.rulebook.voting.passageThreshold.value} votes` : (main?.vote ?? "majority"),
     rulebook: { label: rb.source, versionId: rb.versionId },
     versions: tree.versions.map(({ id, short, words }) => ({ id, short, words })),
   });

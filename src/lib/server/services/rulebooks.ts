@@ -107,7 +107,7 @@ export async function listRulebooks(actor: Actor) {
     .leftJoin(user, eq(rulebookAdoptions.adoptedBy, user.id))
     .where(eq(rulebookAdoptions.chamberId, actor.chamber.id))
     .orderBy(desc(rulebookAdoptions.effectiveFrom), desc(rulebookAdoptions.adoptedAt));
-  const templates = (await rulebookTemplates()).map((t) => ({ id: t.id, title: t.title, chamber: t.chamber }));
+  const templates = (await rulebookTemplates()).map((t) => ({ id: t.id, title: t.title, chamber: t.chamber, aliases: t.aliases, source: t.source, verify: t.verify }));
   return { versions, adoptions, inForce: await rulebookInForce(actor.chamber.id), latest: versions[0] ? { id: versions[0].id, number: versions[0].number } : null, templates };
 }
 
