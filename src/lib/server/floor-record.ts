@@ -13,6 +13,9 @@ import { GavelError } from "../errors.ts";
 import type { FloorStateInput } from "../procedure/floor-state-schema.ts";
 import type { Rulebook } from "../procedure/rulebook-schema.ts";
 import { questionName } from "../procedure/question-name.ts";
+import type { ThresholdSpec } from "../procedure/voting-section.ts";
+import { adopts, needsMembership, toThreshold } from "../voting/vote-threshold.ts";
+import { quorumStatus } from "../voting/vote-rules.ts";
 import { demandNeeded, ROLL_POSITIONS, VOTING_METHODS, type VotingMethod } from "../procedure/voting-methods.ts";
 
 export const STAGES = ["made", "seconded", "stated"] as const;
@@ -139,48 +142,37 @@ export function voteCountWords(event: VotedEvent): string {
   return `${event.tally.yes}–${event.tally.no}${extra ? `, ${extra}` : ""} (recorded vote${event.casting ? `; the chair's casting vote: ${event.casting}` : ""})`;
 }
 
-/** A threshold as a rulebook writes it: an id, or (rulebooks with fixed numbers) `{ kind: "number", value }`. */
-export type ThresholdLike = string | { kind: string; value?: number };
+/** A threshold as a rulebook writes it: an id, or `{ kind: "number", value }`. */
+export type ThresholdLike = ThresholdSpec;
 
-/** The threshold the rulebook sets for deciding this question: amendments by the voting section's, others by the catalogue. */
-export function questionThreshold(rulebook: Rulebook, item: PendingItem): ThresholdLike {
-  if (item.degree !== null || item.motion === rulebook.amendments.motion) return rulebook.voting.amendmentThreshold as ThresholdLike;
-  return (rulebook.motions.find((m) => m.id === item.motion)?.vote ?? "majority") as ThresholdLike;
+/**
+ * The threshold the rulebook sets for deciding this question: amendments by the voting section's
+ * `amendmentThreshold`, the main motion by `passageThreshold` where the rulebook gives one, any
+ * other motion by its catalogue entry.
+ */
+export function questionThreshold(rulebook: Rulebook, item: PendingItem): ThresholdSpec {
+  if (item.degree !== null || item.motion === rulebook.amendments.motion) return rulebook.voting.amendmentThreshold;
+  const motion = rulebook.motions.find((m) => m.id === item.motion);
+  if (motion?.class === "main" && rulebook.voting.passageThreshold) return rulebook.voting.passageThreshold;
+  return motion?.vote ?? "majority";
 }
 
 /** Thresholds that cannot be judged without counting (of the members, of those present, a fixed number). */
-export function thresholdNeedsCount(threshold: ThresholdLike): boolean {
+export function thresholdNeedsCount(threshold: ThresholdSpec): boolean {
   if (typeof threshold !== "string") return true;
-  return threshold.endsWith("-of-members") || threshold.endsWith("-of-present");
+  return needsMembership(threshold) || threshold === "two-thirds-of-present";
 }
 
 /**
- * Whether a counted tally adopts the question under the threshold; null when it cannot be told
- * (a membership threshold and the rulebook gives no number of members). A tie loses under every
- * threshold: "On a tie vote the motion is lost" (Robert's Rules of Order Revised, 1915, §46
- * pp. 191–192); a majority is of the votes cast and two-thirds is of the votes cast (§48 p. 204),
- * "of the members present" counts those present (here: those voting and abstaining).
+ * Whether a counted tally adopts the question under the threshold (the core's `adopts`); null when
+ * it cannot be told (a threshold of the members and the rulebook gives no number of members). A
+ * tie loses: "On a tie vote the motion is lost" (Robert's Rules of Order Revised, 1915, §46 pp.
+ * 191–192). Those present are those voting and those answering present (abstaining).
  */
-export function countAdopts(threshold: ThresholdLike, tally: Tally, members: number | undefined): boolean | null {
-  const { yes, no, abstain } = tally;
-  if (typeof threshold !== "string") return threshold.kind === "number" && threshold.value !== undefined ? yes >= threshold.value : null;
-  switch (threshold) {
-    case "majority":
-    case "none":
-      return yes > no;
-    case "two-thirds":
-      return yes > 0 && 3 * yes >= 2 * (yes + no);
-    case "two-thirds-of-present":
-      return yes > 0 && 3 * yes >= 2 * (yes + no + abstain);
-    case "majority-of-members":
-      return members === undefined ? null : 2 * yes > members;
-    case "two-thirds-of-members":
-      return members === undefined ? null : 3 * yes >= 2 * members;
-    case "three-fifths-of-members":
-      return members === undefined ? null : 5 * yes >= 3 * members;
-    default:
-      return null;
-  }
+export function countAdopts(threshold: ThresholdSpec, tally: Tally, members: number | undefined): boolean | null {
+  const t = toThreshold(threshold);
+  if (needsMembership(t) && members === undefined) return null;
+  return adopts(tally.yes, tally.no, { members: members ?? null, present: tally.yes + tally.no + tally.abstain }, t);
 }
 
 export const THRESHOLD_WORDS: Record<string, string> = {
@@ -192,8 +184,8 @@ export const THRESHOLD_WORDS: Record<string, string> = {
   "three-fifths-of-members": "three-fifths of the members",
   "two-thirds-of-present": "two-thirds of the members present",
 };
-export function thresholdWords(threshold: ThresholdLike): string {
-  if (typeof threshold !== "string") return threshold.value !== undefined ? `${threshold.value} votes in favour` : "the rulebook's threshold";
+export function thresholdWords(threshold: ThresholdSpec): string {
+  if (typeof threshold !== "string") return `${threshold.value} votes in favour`;
   return THRESHOLD_WORDS[threshold] ?? threshold;
 }
 
@@ -288,22 +280,13 @@ const METHOD_WORDS: Record<VotingMethod, string> = { voice: "a vote by voice", d
 const CASTING_RULES = new Set<string>(["chair-casting-vote", "chair-may-make-or-break-tie"]);
 
 /**
- * Members whose presence makes a quorum, from the voting section: a majority of the members
- * (US Constitution art. I §5 cl. 1: "a Majority of each shall constitute a Quorum to do Business"),
- * a fixed number, or a fraction of the members; null when the rulebook sets none.
+ * Members whose presence makes a quorum under the voting section (the core's `quorumStatus`): a
+ * majority of the members (US Constitution art. I §5 cl. 1: "a Majority of each shall constitute a
+ * Quorum to do Business"), a fraction of them, or a fixed number; null when the rulebook sets none.
  */
 export function quorumNeeded(rulebook: Rulebook, members: number): number | null {
-  const q = rulebook.voting.quorum as { kind: string; value?: number; numerator?: number; denominator?: number };
-  switch (q.kind) {
-    case "majority-of-members":
-      return Math.floor(members / 2) + 1;
-    case "number":
-      return q.value ?? null;
-    case "fraction":
-      return q.numerator && q.denominator ? Math.ceil((members * q.numerator) / q.denominator) : null;
-    default:
-      return null;
-  }
+  const required = quorumStatus(rulebook.voting.quorum, members, 0).required;
+  return required === 0 ? null : required;
 }
 
 /** Refuse an event that names a question other than the immediately pending one (a replayed entry after a correction). */

@@ -11,6 +11,10 @@ import * as sittingsRoute from "../../../src/pages/api/floor/sittings/index.ts";
 import * as eventsRoute from "../../../src/pages/api/floor/sittings/[id]/events.ts";
 import * as votesRoute from "../../../src/pages/api/floor/recorded-votes.ts";
 import * as rosterRoute from "../../../src/pages/api/measures/sponsors.ts";
+import * as sittingRoute from "../../../src/pages/api/floor/sittings/[id].ts";
+import * as versionsRoute from "../../../src/pages/api/rulebooks/index.ts";
+import * as versionRoute from "../../../src/pages/api/rulebooks/[id].ts";
+import * as adoptRoute from "../../../src/pages/api/rulebooks/[id]/adopt.ts";
 import { seedRulebooks } from "../../../src/lib/server/seed/rulebooks.ts";
 import { call } from "../../support/app.ts";
 import { tableCounts } from "../../support/db.ts";
@@ -121,5 +125,22 @@ describe("a recorded vote", () => {
     for (const role of ["chief-clerk", "clerk", "member", "staff", "observer"] as const) expect((await call(votesRoute.GET, "GET", "/x", { as: s.as[role] })).status, role).toBe(200);
     expect((await call(votesRoute.GET, "GET", "/x", { as: null })).status).toBe(401);
     expect(await votes(s.outsider)).toEqual([]);
+  });
+
+  it("takes the chair's casting vote on an equal division where the rulebook gives one (US Constitution art. I §3 cl. 4: \"shall have no Vote, unless they be equally divided\")", async () => {
+    const b = (await call(sittingRoute.GET, "GET", "/x", { as: s.as.clerk, params: { id } })).body;
+    const current = (await call(versionRoute.GET, "GET", "/x", { as: s.as.clerk, params: { id: b.rulebook.versionId } })).body;
+    const document = { ...current.document, voting: { ...current.document.voting, tieRule: "chair-casting-vote" } };
+    const saved = await call(versionsRoute.POST, "POST", "/api/rulebooks", { as: s.as.clerk, body: { basedOn: b.rulebook.versionId, note: "Casting vote", document } });
+    expect(saved.status, JSON.stringify(saved.body)).toBe(201);
+    expect((await call(adoptRoute.POST, "POST", "/x", { as: s.as.clerk, params: { id: saved.body.id }, body: {} })).status).toBe(201);
+    await ok({ kind: "rulebook", version: saved.body.id });
+    expect((await refused({ kind: "voted", result: "adopted", method: "recorded", roll: roll(11, 10), casting: "yea" }, 400)).issues[0].path).toBe("event.casting");
+    // Equally divided, the chair votes nay: the amendment is lost.
+    expect((await refused({ kind: "voted", result: "adopted", method: "recorded", roll: roll(10, 10), casting: "nay" }, 422)).details?.countGives).toBe("rejected");
+    const v = await ok({ kind: "voted", result: "adopted", method: "recorded", roll: roll(10, 10), casting: "yea" });
+    expect(v.summary).toContain("adopted, 10–10 (recorded vote; the chair's casting vote: yea)");
+    const [vote] = (await votes(s.as.observer, id)).filter((x) => x.entry === v.revision);
+    expect(vote).toMatchObject({ result: "adopted", casting: "yea" });
   });
 });
