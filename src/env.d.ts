@@ -8,11 +8,11 @@ declare global {
       user: AuthSession["user"] | null;
       session: AuthSession["session"] | null;
       /** The chamber the user is working in (their active organization), if any. */
-      chamber: { id: string; name: string; slug: string } | null;
+      chamber: { id: string; name: string; slug: string; timeZone: string } | null;
       /** The user's role in `chamber`. */
       role: ChamberRole | null;
       /** Every chamber the user belongs to, for the switcher. */
-      chambers: Array<{ id: string; name: string; slug: string; role: ChamberRole }>;
+      chambers: Array<{ id: string; name: string; slug: string; timeZone: string; role: ChamberRole }>;
       /** Per-request nonce for the content security policy. */
       requestId: string;
       /** The TCP peer of the connection, set by scripts/serve.mjs (never from a header). */

@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import { ensureMigrated } from "./lib/server/db.ts";
 import { contextFor, forgetAccessAfter } from "./lib/server/context.ts";
 import { startOutboxWorker } from "./lib/server/mail.ts";
-import { errorResponse } from "./lib/server/http.ts";
+import { errorResponse, isDatabaseUnavailable } from "./lib/server/http.ts";
 import { describeError } from "./lib/server/log-safe.ts";
 import { GavelError } from "./lib/errors.ts";
 import { baseUrl } from "./lib/server/auth.ts";
@@ -33,9 +33,14 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
       if (!path.startsWith("/api/auth/")) Object.assign(ctx.locals, await contextFor(ctx.request.headers));
       else Object.assign(ctx.locals, { user: null, session: null, chamber: null, role: null, chambers: [] });
     } catch (e) {
-      console.error("[request] database unavailable:", describeError(e));
-      if (path.startsWith("/api/")) return errorResponse(new GavelError("unavailable", "Gavelwright cannot reach its database just now. Nothing was changed; try again in a moment."));
-      return new Response("Gavelwright cannot reach its database just now. Nothing was changed. Try again in a moment.", { status: 503, headers: { "content-type": "text/plain; charset=utf-8", "retry-after": "5" } });
+      // Only a database outage is a 503 (retry shortly); anything else is a bug: a logged 500.
+      if (path.startsWith("/api/")) return errorResponse(e);
+      if (isDatabaseUnavailable(e)) {
+        console.error("[request] database unavailable:", describeError(e));
+        return new Response("Gavelwright cannot reach its database just now. Nothing was changed. Try again in a moment.", { status: 503, headers: { "content-type": "text/plain; charset=utf-8", "retry-after": "5" } });
+      }
+      console.error("[request] unexpected error:", describeError(e));
+      return new Response("Something went wrong on the server. Nothing was changed.", { status: 500, headers: { "content-type": "text/plain; charset=utf-8" } });
     }
   }
   const res = await next();

@@ -1,7 +1,9 @@
-import { useState, type FormEvent } from "react";
+import { useState, type SubmitEvent } from "react";
 import { authClient } from "../lib/auth-client.ts";
 import { safeNext } from "../lib/safe-next.ts";
 import { fieldErrors, forgotSchema, resetSchema, signInSchema, signUpSchema, type FieldErrors } from "../lib/account-schemas.ts";
+import { Alert } from "./shared/Alert.tsx";
+import { issueLookup, TextField } from "./shared/fields.tsx";
 
 type Mode = "sign-in" | "sign-up" | "forgot" | "reset";
 
@@ -15,43 +17,12 @@ interface Props {
 
 const SUBMIT: Record<Mode, string> = { "sign-in": "Sign in", "sign-up": "Create account", forgot: "Send reset link", reset: "Set new password" };
 
-function Field(props: { name: string; label: string; type?: string; autoComplete?: string; error?: string; defaultValue?: string; hint?: string }) {
-  const id = `f-${props.name}`;
-  return (
-    <div>
-      <label htmlFor={id} className="gw-label">
-        {props.label}
-      </label>
-      <input
-        id={id}
-        name={props.name}
-        type={props.type ?? "text"}
-        autoComplete={props.autoComplete}
-        defaultValue={props.defaultValue}
-        aria-invalid={props.error ? true : undefined}
-        aria-describedby={props.error ? `${id}-err` : props.hint ? `${id}-hint` : undefined}
-        className="gw-input"
-      />
-      {props.hint && !props.error && (
-        <p id={`${id}-hint`} className="gw-hint">
-          {props.hint}
-        </p>
-      )}
-      {props.error && (
-        <p id={`${id}-err`} className="gw-error">
-          {props.error}
-        </p>
-      )}
-    </div>
-  );
-}
-
 export default function AccountForm({ mode, next = "/", token, email }: Props) {
   const [errors, setErrors] = useState<FieldErrors>({});
   const [message, setMessage] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
-  async function onSubmit(e: FormEvent<HTMLFormElement>) {
+  async function onSubmit(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const data = Object.fromEntries(new FormData(e.currentTarget)) as Record<string, string>;
     setMessage(null);
@@ -97,30 +68,25 @@ export default function AccountForm({ mode, next = "/", token, email }: Props) {
     }
   }
 
+  // A reset token's problem is shown at the new password, the one field of that form.
+  const at = issueLookup(Object.entries(errors).map(([path, message]) => ({ path: path === "token" ? "password" : path, message })));
   return (
     <form onSubmit={onSubmit} noValidate className="gw-card space-y-4" aria-describedby={errors.form ? "form-err" : undefined}>
-      {mode === "sign-up" && <Field name="name" label="Full name" autoComplete="name" error={errors.name} />}
-      {mode !== "reset" && <Field name="email" label="E-mail" type="email" autoComplete="email" error={errors.email} defaultValue={email} />}
+      {mode === "sign-up" && <TextField path="name" name="name" label="Full name" autoComplete="name" at={at} />}
+      {mode !== "reset" && <TextField path="email" name="email" label="E-mail" type="email" autoComplete="email" at={at} defaultValue={email} />}
       {(mode === "sign-in" || mode === "sign-up" || mode === "reset") && (
-        <Field
+        <TextField
+          path="password"
           name="password"
           label={mode === "reset" ? "New password" : "Password"}
           type="password"
           autoComplete={mode === "sign-in" ? "current-password" : "new-password"}
-          error={errors.password ?? errors.token}
+          at={at}
           hint={mode === "sign-in" ? undefined : "At least 10 characters."}
         />
       )}
-      {errors.form && (
-        <p id="form-err" role="alert" className="gw-error">
-          {errors.form}
-        </p>
-      )}
-      {message && (
-        <p role="status" className="rounded-md bg-verdict-ok-tint px-3 py-2 text-sm font-semibold text-verdict-ok">
-          {message}
-        </p>
-      )}
+      <Alert id="form-err">{errors.form}</Alert>
+      <Alert tone="ok" look="box">{message}</Alert>
       <button type="submit" className="gw-btn" disabled={busy}>
         {SUBMIT[mode]}
       </button>

@@ -1,5 +1,6 @@
 import { useState } from "react";
 import { authClient } from "../lib/auth-client.ts";
+import { Alert } from "./shared/Alert.tsx";
 
 interface Props {
   chambers: Array<{ id: string; name: string; role: string }>;
@@ -53,7 +54,7 @@ export default function ChamberBar({ chambers, activeId, userName }: Props) {
       <button type="button" onClick={signOut} disabled={busy} className="rounded-md border border-white/50 px-2 py-1 font-semibold text-white hover:bg-white/10">
         Sign out
       </button>
-      {error && <span role="alert" className="font-semibold text-brass-tint">{error}</span>}
+      <Alert look="on-dark">{error}</Alert>
     </div>
   );
 }

@@ -50,7 +50,7 @@ describe("floor-day digest in the browser", () => {
     expect(text).toContain(account("chief-clerk").email);
     expect(text).toContain(account("clerk").email);
     // The sending is listed under "Sent" with its delivery counts.
-    await expect.poll(() => page.getByRole("region", { name: "Sent" }).getByText(`floor-day digest — ${sitting}, 2026-05-14`).count()).toBe(1);
+    await expect.poll(() => page.getByRole("region", { name: "Sent" }).getByText(`floor-day digest — ${sitting}, 14 May 2026`).count()).toBe(1);
     await shot(page, "digest-2-sent");
   });
 
@@ -85,7 +85,7 @@ describe("floor-day digest in the browser", () => {
     await switchTo("chief-clerk");
     await page.goto(`${BASE_URL}/dev/mail`);
     const caught = page.getByTestId("caught");
-    const mine = caught.locator("li", { hasText: `${sitting}, 2026-05-14` });
+    const mine = caught.locator("li", { hasText: `${sitting}, 14 May 2026` });
     await expect.poll(async () => mine.count(), { timeout: 20_000 }).toBeGreaterThanOrEqual(2);
     await mine.first().locator("summary").click();
     const body = await mine.first().locator("pre").innerText();
@@ -93,7 +93,7 @@ describe("floor-day digest in the browser", () => {
     expect(body).toContain("2. Amendment 1 as amended — if Amendment 2 is adopted");
     await shot(page, "digest-3-caught");
     // The digest sent to the chosen list reached its one address, not the clerks.
-    const readers = caught.locator("li", { hasText: `${readersSitting}, 2026-05-15` });
+    const readers = caught.locator("li", { hasText: `${readersSitting}, 15 May 2026` });
     await expect.poll(async () => readers.count(), { timeout: 20_000 }).toBe(1);
     expect(await readers.innerText()).toContain(readersAddress);
   });

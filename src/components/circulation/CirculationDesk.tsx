@@ -2,7 +2,11 @@ import { useEffect, useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import { CHAMBER_ROLES, ROLE_LABELS, isChamberRole } from "../../lib/permissions.ts";
 import FloorDigestForm from "./FloorDigestForm.tsx";
-import { api, ApiError, listsView, messageView, STATUS_CHIP, STATUS_LABEL, type ListView } from "../rulings/api.ts";
+import { apiCall, ApiError } from "../shared/api.ts";
+import { listsView, messageView, STATUS_CHIP, STATUS_LABEL, type ListView } from "../rulings/api.ts";
+import { Alert } from "../shared/Alert.tsx";
+import { when } from "../shared/dates.ts";
+import { issueLookup, noIssues, TextField, type IssueLookup } from "../shared/fields.tsx";
 
 const peopleView = z.object({ members: z.array(z.object({ userId: z.string(), name: z.string(), email: z.string(), role: z.string() })) });
 const STATUSES = ["queued", "sending", "sent", "failed", "uncertain"] as const;
@@ -51,6 +55,7 @@ function ListEditor({ list, people, onSaved, onCancel }: { list: ListView | null
   const [users, setUsers] = useState<string[]>(list?.entries.flatMap((e) => (e.kind === "user" ? [e.userId] : [])) ?? []);
   const [addresses, setAddresses] = useState(list?.entries.flatMap((e) => (e.kind === "address" ? [e.name ? `${e.name} <${e.email}>` : e.email] : [])).join("\n") ?? "");
   const [error, setError] = useState<string | null>(null);
+  const [at, setAt] = useState<IssueLookup>(() => noIssues);
   const [busy, setBusy] = useState(false);
   const idp = list ? list.id.slice(0, 8) : "new";
 
@@ -58,22 +63,25 @@ function ListEditor({ list, people, onSaved, onCancel }: { list: ListView | null
     e.preventDefault();
     setBusy(true);
     setError(null);
+    setAt(() => noIssues);
     const entries = [...roles.map((role) => ({ kind: "role", role })), ...users.map((userId) => ({ kind: "user", userId })), ...parseAddresses(addresses)];
     const body = { name, description, purpose: clerks ? "clerks" : null, entries, ...(list ? { version: list.version } : {}) };
     try {
-      await api(list ? `/api/circulation/lists/${list.id}` : "/api/circulation/lists", z.object({ id: z.string() }), { method: list ? "PUT" : "POST", body });
+      await apiCall(z.object({ id: z.string() }), list ? `/api/circulation/lists/${list.id}` : "/api/circulation/lists", { method: list ? "PUT" : "POST", body });
       onSaved();
     } catch (err) {
       const issues = err instanceof ApiError ? err.issues : [];
       const addressCount = roles.length + users.length;
-      setError(
-        issues.length
-          ? issues.map((i) => {
-              const m = /^entries\.(\d+)\.email$/.exec(i.path);
-              return m ? `Outside address on line ${Number(m[1]) - addressCount + 1}: ${i.message}` : `${i.path}: ${i.message}`;
-            }).join("; ")
-          : (err as Error).message,
+      // An outside address's problem is shown at the addresses box, by its line there.
+      setAt(() =>
+        issueLookup(
+          issues.map((i) => {
+            const m = /^entries\.(\d+)\.email$/.exec(i.path);
+            return m ? { path: "addresses", message: `Line ${Number(m[1]) - addressCount + 1}: ${i.message}` } : i;
+          }),
+        ),
       );
+      setError((err as Error).message);
     } finally {
       setBusy(false);
     }
@@ -82,18 +90,8 @@ function ListEditor({ list, people, onSaved, onCancel }: { list: ListView | null
   return (
     <form onSubmit={submit} className="space-y-3" aria-label={list ? `Edit ${list.name}` : "New distribution list"}>
       <div className="grid gap-3 sm:grid-cols-2">
-        <div>
-          <label htmlFor={`l-name-${idp}`} className="gw-label">
-            List name
-          </label>
-          <input id={`l-name-${idp}`} className="gw-input" value={name} onChange={(e) => setName(e.target.value)} />
-        </div>
-        <div>
-          <label htmlFor={`l-desc-${idp}`} className="gw-label">
-            Description
-          </label>
-          <input id={`l-desc-${idp}`} className="gw-input" value={description} onChange={(e) => setDescription(e.target.value)} />
-        </div>
+        <TextField id={`l-name-${idp}`} path="name" label="List name" at={at} value={name} onChange={setName} />
+        <TextField id={`l-desc-${idp}`} path="description" label="Description" at={at} value={description} onChange={setDescription} />
       </div>
       <fieldset>
         <legend className="gw-label">Everyone holding a role</legend>
@@ -117,22 +115,23 @@ function ListEditor({ list, people, onSaved, onCancel }: { list: ListView | null
           ))}
         </div>
       </fieldset>
-      <div>
-        <label htmlFor={`l-addr-${idp}`} className="gw-label">
-          Outside addresses
-        </label>
-        <textarea id={`l-addr-${idp}`} rows={3} className="gw-input font-mono text-sm" value={addresses} onChange={(e) => setAddresses(e.target.value)} placeholder={"Harrowmere Courier <desk@courier.example.org>\nwire@example.org"} />
-        <p className="gw-hint">One per line: an address, or a name followed by the address in angle brackets.</p>
-      </div>
+      <TextField
+        id={`l-addr-${idp}`}
+        path="addresses"
+        label="Outside addresses"
+        at={at}
+        multiline
+        rows={3}
+        value={addresses}
+        onChange={setAddresses}
+        placeholder={"Harrowmere Courier <desk@courier.example.org>\nwire@example.org"}
+        hint="One per line: an address, or a name followed by the address in angle brackets."
+      />
       <label className="inline-flex items-center gap-1.5 text-sm">
         <input type="checkbox" checked={clerks} onChange={(e) => setClerks(e.target.checked)} />
         This is the clerks' list (floor-day digests go here)
       </label>
-      {error && (
-        <p role="alert" className="gw-error">
-          {error}
-        </p>
-      )}
+      <Alert>{error}</Alert>
       <div className="flex gap-2">
         <button type="submit" className="gw-btn" disabled={busy}>
           {list ? "Save list" : "Create list"}
@@ -148,7 +147,7 @@ function ListEditor({ list, people, onSaved, onCancel }: { list: ListView | null
 function Deliveries({ id }: { id: string }) {
   const [msgs, setMsgs] = useState<z.output<typeof messageView>[] | null>(null);
   useEffect(() => {
-    api(`/api/circulation/${id}`, circulationDetail).then((d) => setMsgs(d.messages), () => setMsgs([]));
+    apiCall(circulationDetail, `/api/circulation/${id}`).then((d) => setMsgs(d.messages), () => setMsgs([]));
   }, [id]);
   if (!msgs) return <p className="text-sm text-ink-soft">Loading…</p>;
   return (
@@ -173,15 +172,15 @@ export default function CirculationDesk({ canEditLists, canSendDigest }: { canEd
 
   async function load() {
     try {
-      setLists((await api("/api/circulation/lists", listsView)).lists);
-      setSent((await api("/api/circulation", circulationsView)).circulations);
+      setLists((await apiCall(listsView, "/api/circulation/lists")).lists);
+      setSent((await apiCall(circulationsView, "/api/circulation")).circulations);
     } catch (e) {
       setError((e as Error).message);
     }
   }
   useEffect(() => {
     void load();
-    api("/api/people", peopleView).then((p) => setPeople(p.members), () => setPeople([]));
+    apiCall(peopleView, "/api/people").then((p) => setPeople(p.members), () => setPeople([]));
   }, []);
   useEffect(() => {
     if (!sent.some((c) => c.status.queued + c.status.sending > 0)) return;
@@ -192,7 +191,7 @@ export default function CirculationDesk({ canEditLists, canSendDigest }: { canEd
   async function remove(l: ListView) {
     if (!confirm(`Delete the list "${l.name}"? Past sendings keep their record.`)) return;
     try {
-      await api(`/api/circulation/lists/${l.id}`, z.object({ deleted: z.string() }), { method: "DELETE" });
+      await apiCall(z.object({ deleted: z.string() }), `/api/circulation/lists/${l.id}`, { method: "DELETE" });
       await load();
     } catch (e) {
       setError((e as Error).message);
@@ -210,11 +209,7 @@ export default function CirculationDesk({ canEditLists, canSendDigest }: { canEd
             </button>
           )}
         </div>
-        {error && (
-          <p role="alert" className="gw-error">
-            {error}
-          </p>
-        )}
+        <Alert>{error}</Alert>
         {editing === "new" && (
           <div className="gw-card mt-3">
             <ListEditor list={null} people={people} onCancel={() => setEditing(null)} onSaved={() => (setEditing(null), void load())} />
@@ -288,7 +283,7 @@ export default function CirculationDesk({ canEditLists, canSendDigest }: { canEd
                     <summary className="cursor-pointer">
                       <span className="font-semibold">{c.subject}</span>
                       <span className="block text-sm text-ink-soft">
-                        To {c.listName} · {c.sentByName} · {new Date(c.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}
+                        To {c.listName} · {c.sentByName} · {when(c.createdAt)}
                       </span>
                       <span className="mt-1 flex flex-wrap gap-1">
                         {STATUSES.filter((s) => c.status[s] > 0).map((s) => (

@@ -1,7 +1,11 @@
 import { useCallback, useEffect, useState, type SubmitEvent } from "react";
 import { z } from "zod";
-import { api, ApiError, messageView, type ListView } from "../rulings/api.ts";
+import { apiCall } from "../shared/api.ts";
+import { messageView, type ListView } from "../rulings/api.ts";
 import DeliveryTable from "./DeliveryTable.tsx";
+import { Alert } from "../shared/Alert.tsx";
+import { dateInput, day, today } from "../shared/dates.ts";
+import { describedBy, FieldMessages, issueLookup, noIssues, TextField, type IssueLookup } from "../shared/fields.tsx";
 
 const sittingsView = z.object({
   sittings: z.array(
@@ -41,7 +45,6 @@ interface FindingRow {
 
 const OTHER = "__other";
 const recipients = (n: number | undefined) => (n === undefined ? "? recipients" : `${n} recipient${n === 1 ? "" : "s"}`);
-const today = () => new Date().toISOString().slice(0, 10);
 
 /** "Label — note" or "Label", one question per line. */
 function parseOrder(text: string) {
@@ -59,7 +62,7 @@ function parseOrder(text: string) {
 function DigestDelivery({ id }: { id: string }) {
   const [d, setD] = useState<z.output<typeof detailView> | null>(null);
   const [error, setError] = useState<string | null>(null);
-  const load = useCallback(() => api(`/api/circulation/${id}`, detailView).then(setD, (e: Error) => setError(e.message)), [id]);
+  const load = useCallback(() => apiCall(detailView, `/api/circulation/${id}`).then(setD, (e: Error) => setError(e.message)), [id]);
   useEffect(() => void load(), [load]);
   const pending = d?.messages.some((m) => m.status === "queued" || m.status === "sending") ?? false;
   useEffect(() => {
@@ -70,19 +73,14 @@ function DigestDelivery({ id }: { id: string }) {
 
   async function retry(messageId: string) {
     try {
-      await api(`/api/circulation/messages/${messageId}/retry`, z.object({ id: z.string() }), { method: "POST" });
+      await apiCall(z.object({ id: z.string() }), `/api/circulation/messages/${messageId}/retry`, { method: "POST" });
       await load();
     } catch (e) {
       setError((e as Error).message);
     }
   }
 
-  if (error)
-    return (
-      <p role="alert" className="gw-error">
-        {error}
-      </p>
-    );
+  if (error) return <Alert>{error}</Alert>;
   if (!d) return <p className="text-sm text-ink-soft">Loading…</p>;
   return (
     <DeliveryTable testId="digest-delivery" messages={d.messages} skipped={d.circulation.skipped} onRetry={retry} />
@@ -105,12 +103,13 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
   const [note, setNote] = useState("");
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
+  const [at, setAt] = useState<IssueLookup>(() => noIssues);
   const [sent, setSent] = useState<z.output<typeof sentView> | null>(null);
   const [nextKey, setNextKey] = useState(1);
   const [listId, setListId] = useState("");
 
   useEffect(() => {
-    api("/api/floor/sittings", sittingsView).then(
+    apiCall(sittingsView, "/api/floor/sittings").then(
       (s) => {
         setSittings(s.sittings);
         if (s.sittings.length) pickSitting(s.sittings[0].id, s.sittings);
@@ -124,7 +123,7 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
     const s = from.find((x) => x.id === id);
     if (s) {
       setSitting(s.title);
-      setDate(s.openedAt.slice(0, 10));
+      setDate(dateInput(s.openedAt));
     } else setSitting("");
   }
 
@@ -136,6 +135,7 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
     e.preventDefault();
     setBusy(true);
     setError(null);
+    setAt(() => noIssues);
     setSent(null);
     const body = {
       sitting,
@@ -151,15 +151,15 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
       ...(chosen ? { listId: chosen.id } : {}),
     };
     try {
-      const s = await api("/api/circulation/digest", sentView, {
+      const s = await apiCall(sentView, "/api/circulation/digest", {
         method: "POST",
         body,
       });
       setSent(s);
       onSent();
     } catch (err) {
-      const issues = err instanceof ApiError ? err.issues : [];
-      setError(issues.length ? issues.map((i) => `${i.path}: ${i.message}`).join("; ") : (err as Error).message);
+      setAt(() => issueLookup(err, { byField: true }));
+      setError((err as Error).message);
     } finally {
       setBusy(false);
     }
@@ -177,33 +177,18 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
           <select id="dg-sitting-pick" className="gw-input" value={sittingId} onChange={(e) => pickSitting(e.target.value)}>
             {sittings.map((s) => (
               <option key={s.id} value={s.id}>
-                {s.title} ({s.status}, {s.openedAt.slice(0, 10)})
+                {s.title} ({s.status}, {day(s.openedAt)})
               </option>
             ))}
             <option value={OTHER}>Another sitting…</option>
           </select>
         </div>
-        <div>
-          <label htmlFor="dg-date" className="gw-label">
-            Day
-          </label>
-          <input id="dg-date" type="date" className="gw-input" value={date} onChange={(e) => setDate(e.target.value)} required />
-        </div>
+        <TextField id="dg-date" path="date" type="date" label="Day" at={at} value={date} onChange={setDate} />
       </div>
       {sittingId === OTHER && (
-        <div>
-          <label htmlFor="dg-sitting" className="gw-label">
-            Sitting name
-          </label>
-          <input id="dg-sitting" className="gw-input" value={sitting} onChange={(e) => setSitting(e.target.value)} required maxLength={200} />
-        </div>
+        <TextField id="dg-sitting" path="sitting" label="Sitting name" at={at} value={sitting} onChange={setSitting} maxLength={200} />
       )}
-      <div>
-        <label htmlFor="dg-measure" className="gw-label">
-          Measure (optional)
-        </label>
-        <input id="dg-measure" className="gw-input" value={measure} onChange={(e) => setMeasure(e.target.value)} maxLength={300} />
-      </div>
+      <TextField id="dg-measure" path="measure" label="Measure (optional)" at={at} value={measure} onChange={setMeasure} maxLength={300} />
       <fieldset>
         <legend className="gw-label">Findings on the amendment tree</legend>
         {findings.length === 0 && <p className="gw-hint">None added; the digest will say there are none.</p>}
@@ -226,13 +211,15 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
                 <label htmlFor={`dg-f-sub-${f.key}`} className="gw-label">
                   Finding {i + 1}: about
                 </label>
-                <input id={`dg-f-sub-${f.key}`} className="gw-input" value={f.subject} onChange={(e) => setFinding(f.key, { subject: e.target.value })} placeholder="Amendment 4" />
+                <input id={`dg-f-sub-${f.key}`} className="gw-input" value={f.subject} onChange={(e) => setFinding(f.key, { subject: e.target.value })} placeholder="Amendment 4" {...describedBy(`dg-f-sub-${f.key}`, `findings.${i}.subject`, at)} />
+                <FieldMessages id={`dg-f-sub-${f.key}`} path={`findings.${i}.subject`} at={at} />
               </div>
               <div className="sm:col-span-3 sm:row-start-2">
                 <label htmlFor={`dg-f-msg-${f.key}`} className="gw-label">
                   Finding {i + 1}: what
                 </label>
-                <input id={`dg-f-msg-${f.key}`} className="gw-input" value={f.message} onChange={(e) => setFinding(f.key, { message: e.target.value })} />
+                <input id={`dg-f-msg-${f.key}`} className="gw-input" value={f.message} onChange={(e) => setFinding(f.key, { message: e.target.value })} {...describedBy(`dg-f-msg-${f.key}`, `findings.${i}.message`, at)} />
+                <FieldMessages id={`dg-f-msg-${f.key}`} path={`findings.${i}.message`} at={at} />
               </div>
               <button type="button" className="gw-btn-quiet" onClick={() => setFindings(findings.filter((x) => x.key !== f.key))} aria-label={`Remove finding ${i + 1}`}>
                 Remove
@@ -264,18 +251,14 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
           placeholder={"Amendment 2 to Amendment 1\nAmendment 1 as amended — if Amendment 2 is adopted\nPassage"}
         />
         <p className="gw-hint">One question per line, in the order they would be put. To add a note, follow the question with a spaced dash: "Passage — if time allows".</p>
+        <FieldMessages id="dg-order" path="proposedOrder" at={at} />
       </div>
-      <div>
-        <label htmlFor="dg-note" className="gw-label">
-          Covering note (optional)
-        </label>
-        <textarea id="dg-note" rows={2} className="gw-input text-sm" value={note} onChange={(e) => setNote(e.target.value)} maxLength={4000} />
-      </div>
+      <TextField id="dg-note" path="note" label="Covering note (optional)" at={at} multiline rows={2} value={note} onChange={setNote} maxLength={4000} />
       <div>
         <label htmlFor="dg-list" className="gw-label">
           Send to
         </label>
-        <select id="dg-list" className="gw-input" value={chosen?.id ?? ""} onChange={(e) => setListId(e.target.value)}>
+        <select id="dg-list" className="gw-input" value={chosen?.id ?? ""} onChange={(e) => setListId(e.target.value)} {...describedBy("dg-list", "listId", at)}>
           <option value="">{clerksList ? `The clerks' list (${clerksList.name})` : "Every chief clerk and clerk"}</option>
           {(lists ?? [])
             .filter((l) => l !== clerksList)
@@ -285,6 +268,7 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
               </option>
             ))}
         </select>
+        <FieldMessages id="dg-list" path="listId" at={at} />
       </div>
       <p className="text-sm" data-testid="digest-destination">
         Goes to{" "}
@@ -303,20 +287,16 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
         )}
       </p>
       <p className="gw-advisory">The digest is advisory: the presiding officer's ruling, the chamber's own rules and its counsel prevail. The e-mail says so.</p>
-      {error && (
-        <p role="alert" className="gw-error">
-          {error}
-        </p>
-      )}
+      <Alert>{error}</Alert>
       <button type="submit" className="gw-btn" disabled={busy || !sitting.trim() || !date}>
         Send the digest
       </button>
       {sent && (
         <div className="gw-card mt-2" aria-label="Digest sent">
-          <p role="status">
+          <Alert tone="ok">
             Queued {sent.queued} message{sent.queued === 1 ? "" : "s"} to {sent.listName}
             {sent.skipped.length ? `; ${sent.skipped.length} unsubscribed address${sent.skipped.length === 1 ? "" : "es"} left out` : ""}.
-          </p>
+          </Alert>
           <p className="text-sm text-ink-soft">{sent.subject}</p>
           <DigestDelivery id={sent.id} />
         </div>

@@ -1,6 +1,7 @@
 import { useState } from "react";
 import { z } from "zod";
-import { api } from "../rulings/api.ts";
+import { apiCall } from "../shared/api.ts";
+import { Alert } from "../shared/Alert.tsx";
 
 export default function UnsubscribeConfirm({ token, already }: { token: string; already: boolean }) {
   const [done, setDone] = useState(already);
@@ -8,9 +9,9 @@ export default function UnsubscribeConfirm({ token, already }: { token: string; 
   const [busy, setBusy] = useState(false);
   if (done)
     return (
-      <p role="status" className="mt-4 font-semibold text-verdict-ok">
+      <Alert tone="ok" className="mt-4">
         You are unsubscribed. Later mail to this list will not be sent to this address.
-      </p>
+      </Alert>
     );
   return (
     <div className="mt-4">
@@ -21,7 +22,7 @@ export default function UnsubscribeConfirm({ token, already }: { token: string; 
         onClick={async () => {
           setBusy(true);
           try {
-            await api("/api/circulation/unsubscribe", z.object({ unsubscribed: z.boolean() }), { method: "POST", body: { token } });
+            await apiCall(z.object({ unsubscribed: z.boolean() }), "/api/circulation/unsubscribe", { method: "POST", body: { token } });
             setDone(true);
           } catch (e) {
             setError((e as Error).message);
@@ -32,11 +33,7 @@ export default function UnsubscribeConfirm({ token, already }: { token: string; 
       >
         Unsubscribe
       </button>
-      {error && (
-        <p role="alert" className="gw-error">
-          {error}
-        </p>
-      )}
+      <Alert>{error}</Alert>
     </div>
   );
 }

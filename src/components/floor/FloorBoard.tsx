@@ -1,5 +1,7 @@
 import { useCallback, useEffect, useRef, useState } from "react";
-import { ApiError, getJson, sendJson, when } from "../rulebooks/api.ts";
+import { apiCall, ApiError } from "../shared/api.ts";
+import { when } from "../shared/dates.ts";
+import { Alert } from "../shared/Alert.tsx";
 import ConfirmBox from "./ConfirmBox.tsx";
 import FloorHistory from "./FloorHistory.tsx";
 import LegalMovesList from "./LegalMovesList.tsx";
@@ -35,7 +37,7 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
 
   const load = useCallback(async () => {
     try {
-      const d = await getJson(`/api/floor/sittings/${sittingId}`, sittingSchema);
+      const d = await apiCall(sittingSchema, `/api/floor/sittings/${sittingId}`);
       if (d.sitting.revision >= latest.current) {
         latest.current = d.sitting.revision;
         setData(d);
@@ -65,7 +67,7 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
     setNotice(null);
     setOutOfOrder(null);
     try {
-      const r = await sendJson(`/api/floor/sittings/${sittingId}/events`, "POST", { revision: data.sitting.revision, event }, recordedSchema);
+      const r = await apiCall(recordedSchema, `/api/floor/sittings/${sittingId}/events`, { method: "POST", body: { revision: data.sitting.revision, event } });
       await load();
       setNotice(`Recorded: ${r.summary}`);
       requestAnimationFrame(() => noticeRef.current?.focus());
@@ -89,7 +91,7 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
     return false;
   }
 
-  if (error && !data) return <p className="gw-error" role="alert">{error}</p>;
+  if (error && !data) return <Alert>{error}</Alert>;
   if (!data) return <p className="text-ink-soft">Loading the floor…</p>;
   const { board, sitting } = data;
   const top = board.pending[board.pending.length - 1];
@@ -185,7 +187,7 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
           <section aria-labelledby="record-h" className="gw-card space-y-4">
             <h2 id="record-h" className="text-step-1">Record the floor</h2>
             <p ref={noticeRef} tabIndex={-1} role="status" className="text-sm font-semibold empty:hidden" data-testid="record-notice">{notice}</p>
-            {outOfOrder && <p role="alert" className="gw-error">{outOfOrder}</p>}
+            <Alert>{outOfOrder}</Alert>
             <form
               className="space-y-2"
               onSubmit={async (e) => {
@@ -252,6 +254,7 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
               </form>
               <div className="flex flex-wrap gap-2">
                 <button type="button" className="gw-btn-quiet" disabled={busy} onClick={() => void record({ kind: "floor", chairHasRuled: !board.chairHasRuled })}>{board.chairHasRuled ? "Appeal time over" : "The chair has ruled"}</button>
+                <button type="button" className="gw-btn-quiet" disabled={busy} aria-pressed={board.committeeOfTheWhole} onClick={() => void record({ kind: "floor", committeeOfTheWhole: !board.committeeOfTheWhole })}>{board.committeeOfTheWhole ? "Leave Committee of the Whole" : "Into Committee of the Whole"}</button>
                 <button type="button" className="gw-btn-danger" disabled={busy} onClick={() => { if (confirm("Close this sitting? Nothing more can be recorded in it.")) void record({ kind: "close" }); }}>Close the sitting</button>
               </div>
             </div>

@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { ApiError } from "../shared/api.ts";
-import { when } from "../rulebooks/api.ts";
+import { when } from "../shared/dates.ts";
 import ConfirmBox from "./ConfirmBox.tsx";
 import VoteFields from "./VoteFields.tsx";
 import type { HistoryLine } from "./schemas.ts";

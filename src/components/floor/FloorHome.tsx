@@ -1,8 +1,10 @@
 import { useEffect, useState } from "react";
-import { getJson, sendJson, when } from "../rulebooks/api.ts";
+import { apiCall } from "../shared/api.ts";
+import { when } from "../shared/dates.ts";
 import FloorBoard from "./FloorBoard.tsx";
 import { sittingsSchema } from "./schemas.ts";
 import { z } from "zod";
+import { Alert } from "../shared/Alert.tsx";
 
 /** The sittings of the chamber, with the board of the chosen one (the latest open sitting by default). */
 export default function FloorHome({ canRecord, initial }: { canRecord: boolean; initial: string | null }) {
@@ -13,7 +15,7 @@ export default function FloorHome({ canRecord, initial }: { canRecord: boolean; 
 
   async function load() {
     try {
-      const r = await getJson("/api/floor/sittings", sittingsSchema);
+      const r = await apiCall(sittingsSchema, "/api/floor/sittings");
       setList(r.sittings);
       setChosen((c) => c ?? r.sittings.find((s) => s.status === "open")?.id ?? r.sittings[0]?.id ?? null);
     } catch (e) {
@@ -44,7 +46,7 @@ export default function FloorHome({ canRecord, initial }: { canRecord: boolean; 
               e.preventDefault();
               setError(null);
               try {
-                const s = await sendJson("/api/floor/sittings", "POST", { title }, z.object({ id: z.string() }));
+                const s = await apiCall(z.object({ id: z.string() }), "/api/floor/sittings", { method: "POST", body: { title } });
                 setTitle("");
                 setChosen(s.id);
                 await load();
@@ -62,7 +64,7 @@ export default function FloorHome({ canRecord, initial }: { canRecord: boolean; 
         )}
         <a href="/floor/moves" className="text-sm">Ask about a hypothetical floor →</a>
       </div>
-      {error && <p className="gw-error" role="alert">{error}</p>}
+      <Alert>{error}</Alert>
       {list && list.length === 0 && <p className="text-ink-soft">No sittings yet.{canRecord ? " Open one above." : ""}</p>}
       {chosen && <FloorBoard key={chosen} sittingId={chosen} canRecord={canRecord} />}
     </div>

@@ -1,9 +1,10 @@
 import { useEffect, useState } from "react";
 import { z } from "zod";
-import { ApiError, getJson, sendJson } from "../rulebooks/api.ts";
+import { apiCall, ApiError } from "../shared/api.ts";
 import { librarySchema, type Library } from "../rulebooks/schemas.ts";
 import LegalMovesList from "./LegalMovesList.tsx";
 import { movesAnswerSchema, sittingSchema, sittingsSchema, type Verdict } from "./schemas.ts";
+import { Alert } from "../shared/Alert.tsx";
 
 interface Entry {
   motion: string;
@@ -33,12 +34,12 @@ export default function MovesExplorer() {
   const [error, setError] = useState<{ message: string; issues: Array<{ path: string; message: string }> } | null>(null);
 
   useEffect(() => {
-    getJson("/api/rulebooks", librarySchema).then(setLibrary, () => setLibrary(null));
+    apiCall(librarySchema, "/api/rulebooks").then(setLibrary, () => setLibrary(null));
   }, []);
 
   useEffect(() => {
     let stale = false;
-    sendJson("/api/moves", "POST", { state: { pending, floor: facts }, ...(version ? { version } : {}) }, movesAnswerSchema).then(
+    apiCall(movesAnswerSchema, "/api/moves", { method: "POST", body: { state: { pending, floor: facts }, ...(version ? { version } : {}) } }).then(
       (a) => {
         if (stale) return;
         setAnswer(a);
@@ -59,13 +60,13 @@ export default function MovesExplorer() {
 
   async function copyLive() {
     try {
-      const list = await getJson("/api/floor/sittings", sittingsSchema);
+      const list = await apiCall(sittingsSchema, "/api/floor/sittings");
       const open = list.sittings.find((s) => s.status === "open");
       if (!open) throw new Error("No sitting is open.");
-      const s = await getJson(`/api/floor/sittings/${open.id}`, sittingSchema);
+      const s = await apiCall(sittingSchema, `/api/floor/sittings/${open.id}`);
       setPending(s.board.pending.map((p) => ({ motion: p.motion })));
       const top = s.board.pending[s.board.pending.length - 1];
-      setFacts({ speakerHasFloor: s.board.speaker !== null, debateBegun: top?.debateBegun ?? false, chairHasRuled: s.board.chairHasRuled, voteTaken: s.board.voteTaken, tabled: s.board.tabled, quorumPresent: facts.quorumPresent, committeeOfTheWhole: facts.committeeOfTheWhole });
+      setFacts({ speakerHasFloor: s.board.speaker !== null, debateBegun: top?.debateBegun ?? false, chairHasRuled: s.board.chairHasRuled, voteTaken: s.board.voteTaken, tabled: s.board.tabled, quorumPresent: facts.quorumPresent, committeeOfTheWhole: s.board.committeeOfTheWhole });
     } catch (e) {
       setError({ message: e instanceof Error ? e.message : "Could not copy the floor.", issues: [] });
     }
@@ -152,12 +153,7 @@ export default function MovesExplorer() {
             </label>
           </fieldset>
           <button type="button" className="gw-btn-quiet" onClick={() => void copyLive()}>Start from the live floor</button>
-          {error && (
-            <div role="alert" className="gw-error">
-              {error.message}
-              {error.issues.length > 0 && <ul className="list-disc pl-5">{error.issues.map((i) => <li key={i.path}><code>{i.path}</code>: {i.message}</li>)}</ul>}
-            </div>
-          )}
+          {error && <Alert issues={error.issues} showPaths listFrom={1}>{error.message}</Alert>}
         </section>
       </div>
       {answer && <LegalMovesList moves={answer.moves} caption={`rulebook version ${answer.rulebook.number}`} />}

@@ -2,7 +2,10 @@ import { useEffect, useRef, useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import type { AMENDMENT_FORMS } from "../../lib/amendments/case-schema.ts";
 import AmendmentFields, { LINES_HINT, readAmendmentFields } from "./AmendmentFields.tsx";
-import { apiCall, conflictText, issuesByField } from "./api.ts";
+import { apiCall } from "../shared/api.ts";
+import { conflictText } from "./api.ts";
+import { Alert } from "../shared/Alert.tsx";
+import { issueLookup, noIssues, type IssueLookup } from "../shared/fields.tsx";
 
 export interface EditableAmendment {
   id: string;
@@ -37,7 +40,7 @@ const saved = z.object({ id: z.string(), version: z.number() });
 export default function AmendmentEditor({ editable, sections, targets, legislators }: Props) {
   // Nothing open until an amendment is chosen (a row's Edit link, or the picker).
   const [key, setKey] = useState("");
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [at, setAt] = useState<IssueLookup>(() => noIssues);
   const [failure, setFailure] = useState<string | null>(null);
   const [stale, setStale] = useState(false);
   const [busy, setBusy] = useState(false);
@@ -49,7 +52,7 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
       if (m && editable.some((a) => a.key === m[1])) {
         setKey(m[1]);
         setFailure(null);
-        setErrors({});
+        setAt(() => noIssues);
         root.current?.scrollIntoView({ block: "start" });
         root.current?.querySelector<HTMLElement>("#ae-text")?.focus();
       }
@@ -80,11 +83,11 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
     const fd = new FormData(e.currentTarget);
     const fields = readAmendmentFields(fd);
     if (!fields) {
-      setErrors({ lines: LINES_HINT });
+      setAt(() => issueLookup([{ path: "lines", message: LINES_HINT }]));
       return;
     }
     setBusy(true);
-    setErrors({});
+    setAt(() => noIssues);
     setFailure(null);
     setStale(false);
     try {
@@ -95,9 +98,9 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
       window.location.hash = a.key;
       window.location.reload();
     } catch (err) {
-      const byField = issuesByField(err);
-      setErrors(byField);
-      setStale("version" in byField);
+      const found = issueLookup(err, { byField: true });
+      setAt(() => found);
+      setStale(found("version").length > 0);
       setFailure(conflictText(err, "Could not save the amendment. Nothing was changed."));
     } finally {
       setBusy(false);
@@ -111,7 +114,7 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
         {editable.length > 0 && (
           <div>
             <label htmlFor="ae-pick" className="gw-label">Amendment to edit</label>
-            <select id="ae-pick" className="gw-input" value={key} onChange={(e) => { setKey(e.target.value); setFailure(null); setErrors({}); }}>
+            <select id="ae-pick" className="gw-input" value={key} onChange={(e) => { setKey(e.target.value); setFailure(null); setAt(() => noIssues); }}>
               {editable.map((x) => <option key={x.id} value={x.key}>{x.key}{x.title ? ` — ${x.title}` : ""} ({x.status})</option>)}
             </select>
           </div>
@@ -123,13 +126,13 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
         amendments={targets.filter((t) => t.key !== a.key)}
         legislators={legislators}
         defaults={{ form: a.form, target: a.target, lines: a.lines ? (a.lines[0] === a.lines[1] ? String(a.lines[0]) : `${a.lines[0]}-${a.lines[1]}`) : "", title: a.title ?? "", committee: a.committee ?? "", text: a.text, subjects: a.subjects.join(", "), sponsors: a.sponsors }}
-        errors={errors}
+        at={at}
       />
       {failure && (
-        <div className="gw-card border-verdict-bar bg-verdict-bar-tint" role="alert" data-testid="amendment-editor-error">
+        <Alert look="box" testId="amendment-editor-error">
           <p className="text-sm text-verdict-bar">{failure}</p>
           {stale && <button type="button" className="gw-btn-quiet mt-2" onClick={() => window.location.reload()}>Reload the current version</button>}
-        </div>
+        </Alert>
       )}
       <p className="gw-hint">Status ({a.status}) is changed in the table above. Saving is based on version {a.version}.</p>
       <button type="submit" className="gw-btn" disabled={busy}>Save amendment {a.key}</button>

@@ -2,6 +2,7 @@ import type { ReactNode } from "react";
 import { AMENDMENT_FORMS } from "../../lib/amendments/case-schema.ts";
 import { lineRangeFromText } from "../../lib/amendments/line-range-text.ts";
 import { FORM_LABELS } from "../../lib/measures/measure-schemas.ts";
+import { Field, TextField, type IssueLookup } from "../shared/fields.tsx";
 import SponsorsField from "./SponsorsField.tsx";
 import { tags } from "./tags.ts";
 
@@ -24,67 +25,39 @@ interface Props {
   amendments: Array<{ key: string; title: string }>;
   legislators: Array<{ id: string; name: string; bloc: string }>;
   defaults: AmendmentDefaults;
-  errors: Record<string, string>;
+  at: IssueLookup;
   /** Stands where the typed text would (an upload instead). */
   text?: ReactNode;
 }
 
 /** The fields of an amendment, the same whether it is being filed or edited. */
-export default function AmendmentFields({ prefix, sections, amendments, legislators, defaults, errors, text }: Props) {
+export default function AmendmentFields({ prefix, sections, amendments, legislators, defaults, at, text }: Props) {
   const id = (k: string) => `${prefix}-${k}`;
-  const err = (k: string) => errors[k] && <p className="gw-error" id={`${id(k)}-err`}>{errors[k]}</p>;
-  const describedBy = (k: string) => (errors[k] ? `${id(k)}-err` : undefined);
   return (
     <>
       <div className="grid gap-3 sm:grid-cols-3">
-        <div>
-          <label htmlFor={id("form")} className="gw-label">Form</label>
-          <select id={id("form")} name="form" className="gw-input" defaultValue={defaults.form}>
+        <Field id={id("form")} path="form" label="Form" at={at} control={(attrs) => (
+          <select {...attrs} name="form" className="gw-input" defaultValue={defaults.form}>
             {AMENDMENT_FORMS.map((f) => <option key={f} value={f}>{FORM_LABELS[f]}</option>)}
           </select>
-          {err("form")}
-        </div>
-        <div>
-          <label htmlFor={id("target")} className="gw-label">Amends</label>
-          <select id={id("target")} name="target" className="gw-input" defaultValue={defaults.target} aria-describedby={describedBy("target")}>
+        )} />
+        <Field id={id("target")} path="target" label="Amends" at={at} control={(attrs) => (
+          <select {...attrs} name="target" className="gw-input" defaultValue={defaults.target}>
             <option value="measure">The whole measure</option>
             <optgroup label="Sections">{sections.map((s) => <option key={s.id} value={s.id}>§ {s.id} {s.heading} ({s.lines} lines)</option>)}</optgroup>
             {amendments.length > 0 && <optgroup label="Amendments">{amendments.map((a) => <option key={a.key} value={a.key}>{a.key} {a.title}</option>)}</optgroup>}
           </select>
-          {err("target")}
-        </div>
-        <div>
-          <label htmlFor={id("lines")} className="gw-label">Lines (sections only)</label>
-          <input id={id("lines")} name="lines" className="gw-input" defaultValue={defaults.lines} placeholder="e.g. 2-3" aria-describedby={describedBy("lines")} />
-          {err("lines")}
-        </div>
+        )} />
+        <TextField id={id("lines")} path="lines" name="lines" label="Lines (sections only)" at={at} defaultValue={defaults.lines} placeholder="e.g. 2-3" />
       </div>
       <div className="grid gap-3 sm:grid-cols-2">
-        <div>
-          <label htmlFor={id("title")} className="gw-label">Short title</label>
-          <input id={id("title")} name="title" className="gw-input" maxLength={500} defaultValue={defaults.title} />
-        </div>
-        <div>
-          <label htmlFor={id("committee")} className="gw-label">Committee of jurisdiction (if not the measure's)</label>
-          <input id={id("committee")} name="committee" className="gw-input" maxLength={200} defaultValue={defaults.committee} />
-          {err("committee")}
-        </div>
+        <TextField id={id("title")} path="title" name="title" label="Short title" at={at} maxLength={500} defaultValue={defaults.title} />
+        <TextField id={id("committee")} path="committee" name="committee" label="Committee of jurisdiction (if not the measure's)" at={at} maxLength={200} defaultValue={defaults.committee} />
       </div>
-      {text ?? (
-        <div>
-          <label htmlFor={id("text")} className="gw-label">Text of the amendment</label>
-          <textarea id={id("text")} name="text" rows={4} className="gw-input" defaultValue={defaults.text} />
-          {err("text")}
-        </div>
-      )}
+      {text ?? <TextField id={id("text")} path="text" name="text" label="Text of the amendment" at={at} multiline rows={4} defaultValue={defaults.text} />}
       <div className="grid gap-3 sm:grid-cols-2">
-        <div>
-          <label htmlFor={id("subjects")} className="gw-label">Subject tags</label>
-          <input id={id("subjects")} name="subjects" className="gw-input" defaultValue={defaults.subjects} placeholder="lighting, safety" />
-          <p className="gw-hint">Comma-separated. Germaneness is judged on these.</p>
-          {err("subjects")}
-        </div>
-        <SponsorsField id={id("sponsors")} size={5} legislators={legislators} defaultValue={defaults.sponsors} error={errors.sponsors} />
+        <TextField id={id("subjects")} path="subjects" name="subjects" label="Subject tags" at={at} defaultValue={defaults.subjects} placeholder="lighting, safety" hint="Comma-separated. Germaneness is judged on these." />
+        <SponsorsField id={id("sponsors")} size={5} legislators={legislators} defaultValue={defaults.sponsors} at={at} />
       </div>
     </>
   );

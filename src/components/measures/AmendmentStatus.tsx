@@ -1,7 +1,8 @@
 import { useState } from "react";
 import { z } from "zod";
 import { AMENDMENT_STATUS_LABELS, type AmendmentStatus as Status } from "../../lib/measures/measure-schemas.ts";
-import { ApiError, apiCall } from "./api.ts";
+import { ApiError, apiCall } from "../shared/api.ts";
+import { Alert } from "../shared/Alert.tsx";
 
 interface Props {
   id: string;
@@ -38,7 +39,7 @@ export default function AmendmentStatus({ id, status, version, clerk, statuses }
       <span className="flex flex-col gap-1">
         <span>Draft</span>
         <button type="button" className="gw-btn-quiet" disabled={busy} onClick={() => void send(`/api/amendments/${id}/file`, { version: current.version })}>File now</button>
-        {error && <span className="gw-error" role="alert">{error}</span>}
+        <Alert look="inline">{error}</Alert>
       </span>
     );
   const options = clerk ? statuses.filter((s) => s !== "draft") : ([current.status, "withdrawn"] as Status[]).filter((s, i, a) => a.indexOf(s) === i);
@@ -48,7 +49,7 @@ export default function AmendmentStatus({ id, status, version, clerk, statuses }
       <select id={`st-${id}`} className="gw-input mt-0 py-0.5 text-sm" value={current.status} disabled={busy} onChange={(e) => void send(`/api/amendments/${id}`, { version: current.version, status: e.target.value })}>
         {options.map((s) => <option key={s} value={s}>{AMENDMENT_STATUS_LABELS[s]}</option>)}
       </select>
-      {error && <span className="gw-error max-w-xs" role="alert">{error}</span>}
+      <Alert look="inline" className="max-w-xs">{error}</Alert>
     </span>
   );
 }

@@ -1,7 +1,9 @@
 import { useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import AmendmentFields, { LINES_HINT, readAmendmentFields } from "./AmendmentFields.tsx";
-import { ApiError, apiCall, issuesByField } from "./api.ts";
+import { ApiError, apiCall } from "../shared/api.ts";
+import { Alert } from "../shared/Alert.tsx";
+import { Field, issueLookup, noIssues, type IssueLookup } from "../shared/fields.tsx";
 
 interface Props {
   measureId: string;
@@ -15,7 +17,7 @@ const filedSchema = z.object({ id: z.string(), key: z.string(), status: z.string
 /** A member's (or clerk's) amendment: typed in or uploaded; filed at once or saved as a draft. */
 export default function FileAmendmentForm({ measureId, sections, amendments, legislators }: Props) {
   const [mode, setMode] = useState<"form" | "upload">("form");
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [at, setAt] = useState<IssueLookup>(() => noIssues);
   const [message, setMessage] = useState<string | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -26,11 +28,11 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
     const draft = e.nativeEvent.submitter?.getAttribute("value") === "draft";
     const fields = readAmendmentFields(fd);
     if (!fields) {
-      setErrors({ lines: LINES_HINT });
+      setAt(() => issueLookup([{ path: "lines", message: LINES_HINT }]));
       return;
     }
     setBusy(true);
-    setErrors({});
+    setAt(() => noIssues);
     setMessage(null);
     setFailure(null);
     try {
@@ -52,14 +54,13 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
       setMessage(out.status === "draft" ? `Saved as a draft (${out.key}). File it when ready.` : `Filed as Amendment ${out.key}. A filing receipt is on its way to your e-mail.`);
       setTimeout(() => window.location.reload(), 1500);
     } catch (err) {
-      setErrors(issuesByField(err));
+      setAt(() => issueLookup(err, { byField: true }));
       setFailure(err instanceof ApiError ? err.message : "Could not file the amendment.");
     } finally {
       setBusy(false);
     }
   }
 
-  const err = (k: string) => errors[k] && <p className="gw-error" id={`fa-${k}-err`}>{errors[k]}</p>;
   return (
     <form className="gw-card space-y-3" onSubmit={onSubmit} aria-labelledby="fa-h" data-testid="file-amendment">
       <h2 id="fa-h" className="text-step-2">File an amendment</h2>
@@ -74,19 +75,15 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
         amendments={amendments}
         legislators={legislators}
         defaults={{ form: "strike-and-insert", target: sections[0]?.id ?? "measure", lines: "", title: "", committee: "", text: "", subjects: "", sponsors: legislators.filter((l) => l.own).map((l) => l.id) }}
-        errors={errors}
+        at={at}
         text={
           mode === "upload" ? (
-            <div>
-              <label htmlFor="fa-file" className="gw-label">Document (PDF, DOCX, .txt or .md, up to 5 MB)</label>
-              <input id="fa-file" name="file" type="file" accept=".pdf,.docx,.txt,.md" className="gw-input" />
-              {err("file")}
-            </div>
+            <Field id="fa-file" path="file" label="Document (PDF, DOCX, .txt or .md, up to 5 MB)" at={at} control={(attrs) => <input {...attrs} name="file" type="file" accept=".pdf,.docx,.txt,.md" className="gw-input" />} />
           ) : undefined
         }
       />
-      {failure && <p className="gw-error" role="alert">{failure}</p>}
-      {message && <p className="gw-card border-verdict-ok bg-verdict-ok-tint text-sm" role="status">{message}</p>}
+      <Alert>{failure}</Alert>
+      <Alert tone="ok" look="box">{message}</Alert>
       <div className="flex gap-2">
         <button type="submit" className="gw-btn" value="file" disabled={busy}>File amendment</button>
         <button type="submit" className="gw-btn-quiet" value="draft" disabled={busy}>Save as draft</button>

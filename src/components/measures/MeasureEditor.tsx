@@ -2,7 +2,11 @@ import { useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import type { MeasureStatus } from "../../lib/measures/measure-schemas.ts";
 import MeasureFields, { readMeasureFields } from "./MeasureFields.tsx";
-import { apiCall, conflictText, issuesByField } from "./api.ts";
+import { apiCall } from "../shared/api.ts";
+import { conflictText } from "./api.ts";
+import { Alert } from "../shared/Alert.tsx";
+import { toInput } from "../shared/dates.ts";
+import { FieldMessages, issueLookup, noIssues, SelectField, TextField, type IssueLookup } from "../shared/fields.tsx";
 import { tags } from "./tags.ts";
 
 interface SectionDraft {
@@ -29,23 +33,20 @@ interface Props {
     version: number;
   };
   legislators: Array<{ id: string; name: string; bloc: string }>;
+  /** The chamber's time zone (the page renders this island on the server too). */
+  timeZone: string;
 }
 
 const saved = z.object({ id: z.string(), version: z.number() });
-/** datetime-local wants local "YYYY-MM-DDTHH:mm". */
-function localInput(iso: string | null): string {
-  if (!iso) return "";
-  const d = new Date(iso);
-  return new Date(d.getTime() - d.getTimezoneOffset() * 60_000).toISOString().slice(0, 16);
-}
+const SECTION_STATUSES = ["open", "adopted", "struck"] as const;
 
 /**
  * Clerks edit a measure: its fields and its sections (text, heading, subject tags, status), sent
  * with the version they opened. A stale save comes back 409 and says who changed what since.
  */
-export default function MeasureEditor({ measure, legislators }: Props) {
+export default function MeasureEditor({ measure, legislators, timeZone }: Props) {
   const [sections, setSections] = useState<SectionDraft[]>(() => measure.sections.map((s) => ({ key: s.id, id: s.id, heading: s.heading ?? "", text: s.text ?? "", subjects: s.subjects.join(", "), status: s.status })));
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [at, setAt] = useState<IssueLookup>(() => noIssues);
   const [failure, setFailure] = useState<string | null>(null);
   const [stale, setStale] = useState(false);
   const [busy, setBusy] = useState(false);
@@ -64,7 +65,7 @@ export default function MeasureEditor({ measure, legislators }: Props) {
     e.preventDefault();
     const fd = new FormData(e.currentTarget);
     setBusy(true);
-    setErrors({});
+    setAt(() => noIssues);
     setFailure(null);
     setStale(false);
     try {
@@ -78,29 +79,28 @@ export default function MeasureEditor({ measure, legislators }: Props) {
       });
       window.location.reload();
     } catch (err) {
-      const byField = issuesByField(err);
-      setErrors(byField);
-      setStale("version" in byField);
+      const found = issueLookup(err, { byField: true });
+      setAt(() => found);
+      setStale(found("version").length > 0);
       setFailure(conflictText(err, "Could not save the measure. Nothing was changed."));
     } finally {
       setBusy(false);
     }
   }
 
-  const err = (k: string) => errors[k] && <p className="gw-error" id={`me-${k}-err`}>{errors[k]}</p>;
   return (
     <form className="gw-card space-y-4" onSubmit={onSubmit} aria-labelledby="me-h" data-testid="measure-editor">
       <h2 id="me-h" className="text-step-2">Edit {measure.number}</h2>
       <MeasureFields
         prefix="me"
         legislators={legislators}
-        defaults={{ number: measure.number, title: measure.title, committee: measure.committee ?? "", status: measure.status, sittingAt: localInput(measure.sittingAt), subjects: measure.subjects.join(", "), sponsors: measure.sponsors }}
-        errors={errors}
+        defaults={{ number: measure.number, title: measure.title, committee: measure.committee ?? "", status: measure.status, sittingAt: toInput(measure.sittingAt, timeZone), subjects: measure.subjects.join(", "), sponsors: measure.sponsors }}
+        at={at}
       />
 
       <fieldset className="space-y-3">
         <legend className="gw-label">Sections</legend>
-        {err("sections")}
+        <FieldMessages id="me-sections" path="sections" at={at} />
         {sections.map((s, i) => (
           <div key={s.key} className="rounded border border-rule bg-vellum p-3" data-testid={`section-editor-${s.id ?? `new-${i}`}`}>
             <div className="flex flex-wrap items-center justify-between gap-2">
@@ -112,19 +112,11 @@ export default function MeasureEditor({ measure, legislators }: Props) {
               </span>
             </div>
             <div className="mt-2 grid gap-2 sm:grid-cols-3">
-              <div className="sm:col-span-2"><label htmlFor={`me-s${i}-heading`} className="gw-label">Heading</label><input id={`me-s${i}-heading`} className="gw-input" value={s.heading} onChange={(e) => patch(i, { heading: e.target.value })} maxLength={500} /></div>
-              <div>
-                <label htmlFor={`me-s${i}-status`} className="gw-label">Text status</label>
-                <select id={`me-s${i}-status`} className="gw-input" value={s.status} onChange={(e) => patch(i, { status: e.target.value as SectionDraft["status"] })}>
-                  <option value="open">open</option><option value="adopted">adopted</option><option value="struck">struck</option>
-                </select>
-              </div>
+              <TextField id={`me-s${i}-heading`} path={`sections.${i}.heading`} label="Heading" at={at} className="sm:col-span-2" value={s.heading} onChange={(v) => patch(i, { heading: v })} maxLength={500} />
+              <SelectField id={`me-s${i}-status`} path={`sections.${i}.status`} label="Text status" at={at} value={s.status} options={SECTION_STATUSES} onChange={(v) => patch(i, { status: v })} />
             </div>
-            <label htmlFor={`me-s${i}-text`} className="gw-label mt-2">Text of § {s.id ?? "new section"}</label>
-            <textarea id={`me-s${i}-text`} className="gw-input font-mono text-sm" rows={Math.min(10, Math.max(3, s.text.split("\n").length + 1))} value={s.text} onChange={(e) => patch(i, { text: e.target.value })} />
-            <p className="gw-hint">One line per numbered line; amendments cite these line numbers.</p>
-            <label htmlFor={`me-s${i}-subjects`} className="gw-label mt-2">Subject tags of § {s.id ?? "new section"}</label>
-            <input id={`me-s${i}-subjects`} className="gw-input" value={s.subjects} onChange={(e) => patch(i, { subjects: e.target.value })} />
+            <TextField id={`me-s${i}-text`} path={`sections.${i}.text`} label={`Text of § ${s.id ?? "new section"}`} at={at} className="mt-2" multiline rows={Math.min(10, Math.max(3, s.text.split("\n").length + 1))} value={s.text} onChange={(v) => patch(i, { text: v })} hint="One line per numbered line; amendments cite these line numbers." />
+            <TextField id={`me-s${i}-subjects`} path={`sections.${i}.subjects`} label={`Subject tags of § ${s.id ?? "new section"}`} at={at} className="mt-2" value={s.subjects} onChange={(v) => patch(i, { subjects: v })} />
           </div>
         ))}
         <button type="button" className="gw-btn-quiet" onClick={() => { setSections((all) => [...all, { key: `new-${next}`, id: null, heading: "", text: "", subjects: "", status: "open" }]); setNext((n) => n + 1); }}>Add a section</button>
@@ -132,10 +124,10 @@ export default function MeasureEditor({ measure, legislators }: Props) {
       </fieldset>
 
       {failure && (
-        <div className="gw-card border-verdict-bar bg-verdict-bar-tint" role="alert" data-testid="measure-editor-error">
+        <Alert look="box" testId="measure-editor-error">
           <p className="text-sm text-verdict-bar">{failure}</p>
           {stale && <button type="button" className="gw-btn-quiet mt-2" onClick={() => window.location.reload()}>Reload the current version</button>}
-        </div>
+        </Alert>
       )}
       <button type="submit" className="gw-btn" disabled={busy}>Save changes (from version {measure.version})</button>
     </form>

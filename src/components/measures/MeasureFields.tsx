@@ -1,4 +1,6 @@
 import { MEASURE_STATUSES, type MeasureStatus } from "../../lib/measures/measure-schemas.ts";
+import { Field, TextField, type IssueLookup } from "../shared/fields.tsx";
+import { fromInput } from "../shared/dates.ts";
 import SponsorsField from "./SponsorsField.tsx";
 import { tags } from "./tags.ts";
 
@@ -7,7 +9,7 @@ export interface MeasureDefaults {
   title: string;
   committee: string;
   status: MeasureStatus;
-  /** datetime-local's "YYYY-MM-DDTHH:mm", or "". */
+  /** datetime-local's "YYYY-MM-DDTHH:mm" on the chamber's clock, or "". */
   sittingAt: string;
   subjects: string;
   sponsors: string[];
@@ -18,25 +20,21 @@ interface Props {
   prefix: string;
   legislators: Array<{ id: string; name: string; bloc: string }>;
   defaults: MeasureDefaults;
-  errors: Record<string, string>;
+  at: IssueLookup;
 }
 
 /** A measure's own fields (not its text), the same whether it is being introduced or edited. */
-export default function MeasureFields({ prefix, legislators, defaults, errors }: Props) {
+export default function MeasureFields({ prefix, legislators, defaults, at }: Props) {
   const id = (k: string) => `${prefix}-${k}`;
-  const err = (k: string) => errors[k] && <p className="gw-error" id={`${id(k)}-err`}>{errors[k]}</p>;
   return (
     <div className="grid gap-3 sm:grid-cols-3">
-      <div><label htmlFor={id("number")} className="gw-label">Number</label><input id={id("number")} name="number" required className="gw-input" defaultValue={defaults.number} placeholder="HCA 14" />{err("number")}</div>
-      <div className="sm:col-span-2"><label htmlFor={id("title")} className="gw-label">Title</label><input id={id("title")} name="title" required className="gw-input" defaultValue={defaults.title} maxLength={500} />{err("title")}</div>
-      <div><label htmlFor={id("committee")} className="gw-label">Committee of jurisdiction</label><input id={id("committee")} name="committee" className="gw-input" defaultValue={defaults.committee} maxLength={200} />{err("committee")}</div>
-      <div>
-        <label htmlFor={id("status")} className="gw-label">Status</label>
-        <select id={id("status")} name="status" className="gw-input" defaultValue={defaults.status}>{MEASURE_STATUSES.map((s) => <option key={s} value={s}>{s}</option>)}</select>
-      </div>
-      <div><label htmlFor={id("sitting")} className="gw-label">On the floor at</label><input id={id("sitting")} name="sittingAt" type="datetime-local" className="gw-input" defaultValue={defaults.sittingAt} />{err("sittingAt")}</div>
-      <div className="sm:col-span-2"><label htmlFor={id("subjects")} className="gw-label">Subject tags</label><input id={id("subjects")} name="subjects" className="gw-input" defaultValue={defaults.subjects} placeholder="harbour, safety" /><p className="gw-hint">Comma-separated.</p>{err("subjects")}</div>
-      {legislators.length > 0 && <SponsorsField id={id("sponsors")} size={4} legislators={legislators} defaultValue={defaults.sponsors} error={errors.sponsors} />}
+      <TextField id={id("number")} path="number" name="number" label="Number" at={at} defaultValue={defaults.number} placeholder="HCA 14" />
+      <TextField id={id("title")} path="title" name="title" label="Title" at={at} className="sm:col-span-2" defaultValue={defaults.title} maxLength={500} />
+      <TextField id={id("committee")} path="committee" name="committee" label="Committee of jurisdiction" at={at} defaultValue={defaults.committee} maxLength={200} />
+      <Field id={id("status")} path="status" label="Status" at={at} control={(attrs) => <select {...attrs} name="status" className="gw-input" defaultValue={defaults.status}>{MEASURE_STATUSES.map((s) => <option key={s} value={s}>{s}</option>)}</select>} />
+      <TextField id={id("sitting")} path="sittingAt" name="sittingAt" type="datetime-local" label="On the floor at" at={at} defaultValue={defaults.sittingAt} />
+      <TextField id={id("subjects")} path="subjects" name="subjects" label="Subject tags" at={at} className="sm:col-span-2" defaultValue={defaults.subjects} placeholder="harbour, safety" hint="Comma-separated." />
+      {legislators.length > 0 && <SponsorsField id={id("sponsors")} size={4} legislators={legislators} defaultValue={defaults.sponsors} at={at} />}
     </div>
   );
 }
@@ -51,6 +49,6 @@ export function readMeasureFields(fd: FormData) {
     status: fd.get("status"),
     subjects: tags(String(fd.get("subjects") ?? "")),
     sponsors: fd.getAll("sponsors").map(String),
-    sittingAt: sitting ? new Date(sitting).toISOString() : null,
+    sittingAt: sitting ? fromInput(sitting) : null,
   };
 }

@@ -1,14 +1,16 @@
 import { useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import MeasureFields, { readMeasureFields } from "./MeasureFields.tsx";
-import { ApiError, apiCall, issuesByField } from "./api.ts";
+import { ApiError, apiCall } from "../shared/api.ts";
+import { Alert } from "../shared/Alert.tsx";
+import { Field, issueLookup, noIssues, type IssueLookup } from "../shared/fields.tsx";
 
 const created = z.object({ id: z.string(), number: z.string() });
 
 /** Clerks introduce a measure: its text typed in (split into sections at headings) or uploaded. */
 export default function NewMeasureForm({ legislators = [] }: { legislators?: Array<{ id: string; name: string; bloc: string }> }) {
   const [mode, setMode] = useState<"text" | "upload">("text");
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [at, setAt] = useState<IssueLookup>(() => noIssues);
   const [failure, setFailure] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
@@ -17,7 +19,7 @@ export default function NewMeasureForm({ legislators = [] }: { legislators?: Arr
     const fd = new FormData(e.currentTarget);
     const fields = readMeasureFields(fd);
     setBusy(true);
-    setErrors({});
+    setAt(() => noIssues);
     setFailure(null);
     try {
       let out;
@@ -37,17 +39,16 @@ export default function NewMeasureForm({ legislators = [] }: { legislators?: Arr
       }
       window.location.href = `/measures/${out.id}`;
     } catch (err) {
-      setErrors(issuesByField(err));
+      setAt(() => issueLookup(err, { byField: true }));
       setFailure(err instanceof ApiError ? err.message : "Could not create the measure.");
     } finally {
       setBusy(false);
     }
   }
-  const err = (k: string) => errors[k] && <p className="gw-error" id={`nm-${k}-err`}>{errors[k]}</p>;
   return (
     <form className="gw-card space-y-3" onSubmit={onSubmit} aria-labelledby="nm-h">
       <h2 id="nm-h" className="text-step-2">Introduce a measure</h2>
-      <MeasureFields prefix="nm" legislators={legislators} defaults={{ number: "", title: "", committee: "", status: "introduced", sittingAt: "", subjects: "", sponsors: [] }} errors={errors} />
+      <MeasureFields prefix="nm" legislators={legislators} defaults={{ number: "", title: "", committee: "", status: "introduced", sittingAt: "", subjects: "", sponsors: [] }} at={at} />
       <fieldset className="flex gap-4 text-sm">
         <legend className="gw-label">Text</legend>
         <label><input type="radio" name="mode" checked={mode === "text"} onChange={() => setMode("text")} /> Type it in</label>
@@ -60,9 +61,9 @@ export default function NewMeasureForm({ legislators = [] }: { legislators?: Arr
           <p className="gw-hint">Start each section with a heading ("## Section 2 — …" or "Section 2."); a line "Subjects: a, b" tags it.</p>
         </div>
       ) : (
-        <div><label htmlFor="nm-file" className="gw-label">Document (up to 5 MB)</label><input id="nm-file" name="file" type="file" accept=".pdf,.docx,.txt,.md" className="gw-input" />{err("file")}</div>
+        <Field id="nm-file" path="file" label="Document (up to 5 MB)" at={at} control={(attrs) => <input {...attrs} name="file" type="file" accept=".pdf,.docx,.txt,.md" className="gw-input" />} />
       )}
-      {failure && <p className="gw-error" role="alert">{failure}</p>}
+      <Alert>{failure}</Alert>
       <button type="submit" className="gw-btn" disabled={busy}>Introduce measure</button>
     </form>
   );

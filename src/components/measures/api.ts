@@ -1,18 +1,7 @@
-/**
- * What the measure islands add to the shared API client: field issues for showing beside inputs,
- * and a stale write (409) in the clerk's words.
- */
+/** What the measure islands add to the shared API client: a stale write (409) in the clerk's words. */
 import { z } from "zod";
 import { ApiError } from "../shared/api.ts";
-
-export { ApiError, apiCall } from "../shared/api.ts";
-
-/** Field issues keyed by their first path segment, for showing beside inputs. */
-export function issuesByField(e: unknown): Record<string, string> {
-  const out: Record<string, string> = {};
-  if (e instanceof ApiError) for (const i of e.issues) out[i.path.split(".")[0]] ??= i.message;
-  return out;
-}
+import { when } from "../shared/dates.ts";
 
 const changesSchema = z.array(z.object({ version: z.number(), action: z.string(), by: z.string(), at: z.string(), fields: z.array(z.string()) }));
 
@@ -26,6 +15,6 @@ export function conflictText(e: unknown, fallback: string): string {
   const changes = changesSchema.safeParse(e.details.changes);
   if (!changes.success || changes.data.length === 0) return e.message;
   const who = [...new Set(changes.data.map((c) => c.by))].join(" and ");
-  const what = changes.data.map((c) => `${c.action}${c.fields.length ? ` (${c.fields.join(", ")})` : ""} at ${new Date(c.at).toLocaleTimeString("en-GB", { hour: "2-digit", minute: "2-digit" })}`).join("; ");
+  const what = changes.data.map((c) => `${c.action}${c.fields.length ? ` (${c.fields.join(", ")})` : ""} at ${when(c.at)}`).join("; ");
   return `Changed by ${who} since you opened it: ${what}. Your edit was not saved; reload to see their version and make it again.`;
 }

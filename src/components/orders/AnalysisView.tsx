@@ -5,10 +5,12 @@
  */
 import { useCallback, useEffect, useRef, useState } from "react";
 import { z } from "zod";
-import { ApiError, apiCall, ordersPageSchema, runResultSchema, walkSchema, type Step } from "./api.ts";
+import { ApiError, apiCall } from "../shared/api.ts";
+import { ordersPageSchema, runResultSchema, walkSchema, type Step } from "./api.ts";
 import MajorityGraph from "./MajorityGraph.tsx";
 import OutcomeChart from "./OutcomeChart.tsx";
 import { thresholdInWords } from "../../lib/estimates/version-words.ts";
+import { Alert } from "../shared/Alert.tsx";
 
 type RunResult = z.output<typeof runResultSchema>;
 type OrdersPage = z.output<typeof ordersPageSchema>;
@@ -88,7 +90,7 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
     await apiCall(z.looseObject({ run: z.object({ status: z.string() }) }), `/api/analysis/runs/${result.run.id}`, { method: "DELETE" }).catch(() => null);
   };
 
-  if (error) return <div className="gw-card"><p className="gw-error" role="alert">{error}</p><button className="gw-btn-quiet mt-2" onClick={() => void start()}>Try again</button></div>;
+  if (error) return <div className="gw-card"><Alert>{error}</Alert><button className="gw-btn-quiet mt-2" onClick={() => void start()}>Try again</button></div>;
   if (!result || result.run.status === "running")
     return (
       <div className="gw-card" aria-live="polite">
@@ -101,7 +103,7 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
       </div>
     );
   if (result.run.status !== "done")
-    return <div className="gw-card"><p className="gw-error" role="alert">{result.run.status === "cancelled" ? "The analysis was cancelled." : `The analysis failed: ${result.run.error?.message ?? "unknown error"}`}</p><button className="gw-btn-quiet mt-2" onClick={() => void start()}>Run it again</button></div>;
+    return <div className="gw-card"><Alert>{result.run.status === "cancelled" ? "The analysis was cancelled." : `The analysis failed: ${result.run.error?.message ?? "unknown error"}`}</Alert><button className="gw-btn-quiet mt-2" onClick={() => void start()}>Run it again</button></div>;
 
   const a = result.analysis!;
   const versions = result.versions!;

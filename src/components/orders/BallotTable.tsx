@@ -8,7 +8,8 @@ import { z } from "zod";
 import type { BallotRow } from "../../lib/estimates/estimate-content.ts";
 import { placesFromRanking, rankingFromPlaces } from "../../lib/estimates/ranking-places.ts";
 import { rankingText } from "../../lib/estimates/ballot-csv.ts";
-import { ApiError, apiCall } from "./api.ts";
+import { ApiError, apiCall } from "../shared/api.ts";
+import { Alert } from "../shared/Alert.tsx";
 
 interface Row {
   key: number;
@@ -141,12 +142,7 @@ export default function BallotTable({ estimateId, rows: initial, partial: initia
         </label>
       </div>
       <p className="text-sm">{rows.length} row{rows.length === 1 ? "" : "s"}, {total} votes in all. Versions: {versions.map((v) => <span key={v.id} className="mr-2"><code className="rounded bg-vellum px-1">{v.id}</code> {v.short}</span>)}</p>
-      {error && (
-        <div role="alert">
-          <p className="gw-error">{error}</p>
-          {issues.length > 1 && <ul className="list-disc pl-6 text-sm text-verdict-bar">{issues.map((x, j) => <li key={j}>{x.path}: {x.message}</li>)}</ul>}
-        </div>
-      )}
+      <Alert issues={issues} showPaths>{error}</Alert>
       <button type="button" className="gw-btn" disabled={busy} onClick={() => void save()}>Save as version {basedOn + 1}</button>
     </div>
   );

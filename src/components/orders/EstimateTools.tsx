@@ -1,7 +1,8 @@
 /** Sharing (author only) and duplicating an estimate. */
 import { useEffect, useState } from "react";
 import { z } from "zod";
-import { ApiError, apiCall } from "./api.ts";
+import { ApiError, apiCall } from "../shared/api.ts";
+import { Alert } from "../shared/Alert.tsx";
 
 const ROLE_NAMES: Record<string, string> = { "chief-clerk": "Chief clerk", clerk: "Clerks", member: "Members", staff: "Staff", observer: "Observers" };
 const optionsSchema = z.object({ people: z.array(z.object({ id: z.string(), name: z.string(), role: z.string() })), roles: z.array(z.string()) });
@@ -47,12 +48,7 @@ function UploadVersion({ estimateId, target }: { estimateId: string; target: Upl
         <input className="gw-input" type="file" accept=".csv,text/csv" onChange={(e) => { setFile(e.target.files?.[0] ?? null); setError(null); setIssues([]); }} />
       </label>
       <button type="button" className="gw-btn mt-2" disabled={!file || busy} onClick={() => void upload()}>Upload as a new version</button>
-      {error && (
-        <div role="alert" className="mt-2">
-          <p className="gw-error">{error}</p>
-          {issues.length > 1 && <ul className="list-disc pl-6 text-sm text-verdict-bar">{issues.map((i, k) => <li key={k}>{i.message}</li>)}</ul>}
-        </div>
-      )}
+      <Alert issues={issues} className="mt-2">{error}</Alert>
     </details>
   );
 }
@@ -103,7 +99,7 @@ export default function EstimateTools({ estimateId, canEdit, canDuplicate, share
       )}
       {canEdit && upload && <UploadVersion estimateId={estimateId} target={upload} />}
       {canDuplicate && <button className="gw-btn-quiet" onClick={() => void duplicate()}>Duplicate as my own what-if</button>}
-      {msg && <p className="text-sm" role="status">{msg}</p>}
+      <Alert tone="ok">{msg}</Alert>
     </div>
   );
 }

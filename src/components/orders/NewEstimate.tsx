@@ -4,7 +4,9 @@
  */
 import { useEffect, useState } from "react";
 import { z } from "zod";
-import { ApiError, apiCall, versionSchema } from "./api.ts";
+import { Alert } from "../shared/Alert.tsx";
+import { ApiError, apiCall, apiText } from "../shared/api.ts";
+import { versionSchema } from "./api.ts";
 
 const optionsSchema = z.object({ measures: z.array(z.object({ id: z.string(), number: z.string(), title: z.string() })) });
 const versionsSchema = z.object({ pending: z.array(z.object({ key: z.string(), title: z.string().nullable(), target: z.string(), form: z.string() })), versions: z.array(versionSchema.extend({ amendments: z.array(z.string()) })) });
@@ -47,9 +49,8 @@ export default function NewEstimate() {
     setError(null);
     if (!title.trim()) return setError("Give the estimate a title first.");
     try {
-      const res = await fetch(`/api/estimates/template?${query({})}`);
-      if (!res.ok) throw new ApiError(res.status, "internal", "Could not get the roster template.");
-      const r = await apiCall(z.object({ id: z.string() }), `/api/estimates/import?${query({ title: title.trim() })}`, { method: "POST", raw: await res.text(), type: "text/csv" });
+      const template = await apiText(`/api/estimates/template?${query({})}`);
+      const r = await apiCall(z.object({ id: z.string() }), `/api/estimates/import?${query({ title: title.trim() })}`, { method: "POST", raw: template, type: "text/csv" });
       window.location.href = `/orders/${r.id}`;
     } catch (e) {
       if (e instanceof ApiError) {
@@ -142,7 +143,7 @@ export default function NewEstimate() {
         <button className="gw-btn-quiet" onClick={() => void startBlank()} disabled={!measureId || !title.trim()}>Start from the roster and fill it in on the page</button>
       </div>
       <p className="gw-hint">{kind === "spatial" ? `Columns: member, bloc, weight, then one per dimension (${dimensions}). ` : ""}Ballots' columns: member, bloc, weight, ranking, and optionally chair ("yes" on the presiding officer's row, weight 1: its ranking gives the chair's vote under the rulebook's tie rule). Write the ranking best first with "&gt;" between places and "=" for equal ones, e.g. <code>measure+A1 &gt; measure = Q</code>. Save the file as CSV UTF-8.</p>
-      {error && <div role="alert"><p className="gw-error">{error}</p>{issues.length > 1 && <ul className="list-disc pl-6 text-sm text-verdict-bar">{issues.map((i, k) => <li key={k}>{i.message}</li>)}</ul>}</div>}
+      <Alert issues={issues}>{error}</Alert>
       {preview?.content.members && (
         <p className="font-semibold">Preview: {preview.content.members.length} ideal point{preview.content.members.length === 1 ? "" : "s"}, {preview.content.members.reduce((a, r) => a + r.weight, 0)} votes in all.</p>
       )}

@@ -4,7 +4,6 @@
  */
 import { z } from "zod";
 
-export { ApiError, apiCall } from "../shared/api.ts";
 
 const count = z.union([z.number(), z.string()]);
 export const versionSchema = z.object({ id: z.string(), short: z.string(), words: z.string() });

@@ -1,5 +1,6 @@
 import { useState } from "react";
 import { authClient } from "../../lib/auth-client.ts";
+import { Alert } from "../shared/Alert.tsx";
 
 export default function AcceptInvitation({ invitationId, chamber }: { invitationId: string; chamber: string }) {
   const [error, setError] = useState<string | null>(null);
@@ -24,11 +25,7 @@ export default function AcceptInvitation({ invitationId, chamber }: { invitation
       <button type="button" className="gw-btn-quiet" disabled={busy} onClick={() => act(false)}>
         Decline
       </button>
-      {error && (
-        <p role="alert" className="gw-error w-full">
-          {error}
-        </p>
-      )}
+      <Alert className="w-full">{error}</Alert>
     </div>
   );
 }

@@ -1,6 +1,8 @@
 import { useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import { authClient } from "../../lib/auth-client.ts";
+import { Alert } from "../shared/Alert.tsx";
+import { issueLookup, TextField } from "../shared/fields.tsx";
 
 const newChamberSchema = z.object({
   name: z.string().trim().min(3, "give the chamber's full name (at least 3 characters)").max(120),
@@ -51,6 +53,7 @@ export default function ChamberDesk({ chambers, canRegister = false }: Props) {
     window.location.assign("/people");
   }
 
+  const at = issueLookup(Object.entries(errors).map(([path, message]) => ({ path, message })));
   return (
     <div className="space-y-8">
       <section>
@@ -82,28 +85,20 @@ export default function ChamberDesk({ chambers, canRegister = false }: Props) {
       <section>
         <h2 className="mb-2">Register a new chamber</h2>
         <form onSubmit={onCreate} noValidate className="gw-card space-y-3">
-          <div>
-            <label htmlFor="c-name" className="gw-label">
-              Full name
-            </label>
-            <input id="c-name" name="name" className="gw-input" aria-invalid={errors.name ? true : undefined} />
-            {errors.name && <p className="gw-error">{errors.name}</p>}
-          </div>
-          <div>
-            <label htmlFor="c-slug" className="gw-label">
-              Short name
-            </label>
-            <input id="c-slug" name="slug" className="gw-input" aria-describedby="c-slug-hint" aria-invalid={errors.slug ? true : undefined} />
-            <p id="c-slug-hint" className="gw-hint">
-              Used in links, e.g. <code>north-vale-council</code>.
-            </p>
-            {errors.slug && <p className="gw-error">{errors.slug}</p>}
-          </div>
-          {errors.form && (
-            <p role="alert" className="gw-error">
-              {errors.form}
-            </p>
-          )}
+          <TextField id="c-name" path="name" name="name" label="Full name" at={at} />
+          <TextField
+            id="c-slug"
+            path="slug"
+            name="slug"
+            label="Short name"
+            at={at}
+            hint={
+              <>
+                Used in links, e.g. <code>north-vale-council</code>.
+              </>
+            }
+          />
+          <Alert>{errors.form}</Alert>
           <button type="submit" className="gw-btn" disabled={busy}>
             Register chamber
           </button>

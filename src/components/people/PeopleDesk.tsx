@@ -1,28 +1,24 @@
 import { useEffect, useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import { CHAMBER_ROLES, ROLE_LABELS, type ChamberRole } from "../../lib/permissions.ts";
+import { Alert, errorText } from "../shared/Alert.tsx";
+import { apiCall } from "../shared/api.ts";
+import { day } from "../shared/dates.ts";
+import { issueLookup, noIssues, TextField, type IssueLookup } from "../shared/fields.tsx";
 
 const peopleSchema = z.object({
   members: z.array(z.object({ id: z.string(), userId: z.string(), name: z.string(), email: z.string(), role: z.string(), since: z.string() })),
   invitations: z.array(z.object({ id: z.string(), email: z.string(), role: z.string().nullable(), status: z.string(), expiresAt: z.string() })),
 });
 type People = z.infer<typeof peopleSchema>;
-const errorSchema = z.object({ error: z.object({ message: z.string(), issues: z.array(z.object({ path: z.string(), message: z.string() })).optional() }) });
 
 interface Props {
   canAdminister: boolean;
   selfUserId: string;
 }
 
-async function send(url: string, method: string, body?: unknown): Promise<{ ok: true; data: unknown } | { ok: false; message: string; fields: Record<string, string> }> {
-  const res = await fetch(url, { method, headers: body ? { "content-type": "application/json" } : {}, body: body ? JSON.stringify(body) : undefined });
-  const data: unknown = await res.json().catch(() => null);
-  if (res.ok) return { ok: true, data };
-  const e = errorSchema.safeParse(data);
-  const fields: Record<string, string> = {};
-  for (const i of e.success ? (e.data.error.issues ?? []) : []) fields[i.path] ??= i.message;
-  return { ok: false, message: e.success ? e.data.error.message : `The server answered ${res.status}.`, fields };
-}
+/** What the people routes answer to a change: nothing the desk reads (it reloads the list). */
+const anyAnswer = z.unknown();
 
 function roleLabel(role: string | null): string {
   return role && (CHAMBER_ROLES as readonly string[]).includes(role) ? ROLE_LABELS[role as ChamberRole] : (role ?? "—");
@@ -32,13 +28,14 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
   const [people, setPeople] = useState<People | null>(null);
   const [status, setStatus] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
-  const [fields, setFields] = useState<Record<string, string>>({});
+  const [fields, setFields] = useState<IssueLookup>(() => noIssues);
 
   async function load() {
-    const res = await fetch("/api/people");
-    const parsed = peopleSchema.safeParse(await res.json().catch(() => null));
-    if (!res.ok || !parsed.success) return setError("Could not load the chamber's people.");
-    setPeople(parsed.data);
+    try {
+      setPeople(await apiCall(peopleSchema, "/api/people"));
+    } catch {
+      setError("Could not load the chamber's people.");
+    }
   }
   useEffect(() => {
     void load();
@@ -50,12 +47,13 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
     const data = Object.fromEntries(new FormData(form));
     setStatus(null);
     setError(null);
-    const r = await send("/api/people/invitations", "POST", data);
-    if (!r.ok) {
-      setFields(r.fields);
-      return setError(r.message);
+    try {
+      await apiCall(anyAnswer, "/api/people/invitations", { method: "POST", body: data });
+    } catch (err) {
+      setFields(() => issueLookup(err));
+      return setError(errorText(err, "The invitation was not sent."));
     }
-    setFields({});
+    setFields(() => noIssues);
     form.reset();
     setStatus(`Invitation sent to ${String(data.email)}.`);
     await load();
@@ -64,38 +62,34 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
   async function onRole(memberId: string, role: string, name: string) {
     setStatus(null);
     setError(null);
-    const r = await send(`/api/people/members/${memberId}`, "PATCH", { role });
-    if (!r.ok) setError(r.message);
-    else setStatus(`${name} is now ${roleLabel(role)}.`);
+    try {
+      await apiCall(anyAnswer, `/api/people/members/${memberId}`, { method: "PATCH", body: { role } });
+      setStatus(`${name} is now ${roleLabel(role)}.`);
+    } catch (err) {
+      setError(errorText(err, "The role was not changed."));
+    }
     await load();
   }
 
   async function onCancel(id: string, email: string) {
-    const r = await send(`/api/people/invitations/${id}`, "DELETE");
-    if (!r.ok) setError(r.message);
-    else setStatus(`Invitation to ${email} cancelled.`);
+    try {
+      await apiCall(anyAnswer, `/api/people/invitations/${id}`, { method: "DELETE" });
+      setStatus(`Invitation to ${email} cancelled.`);
+    } catch (err) {
+      setError(errorText(err, "The invitation was not cancelled."));
+    }
     await load();
   }
 
   return (
     <div className="space-y-6">
       <div aria-live="polite">
-        {status && <p className="rounded-md bg-verdict-ok-tint px-3 py-2 text-sm font-semibold text-verdict-ok">{status}</p>}
-        {error && (
-          <p role="alert" className="rounded-md bg-verdict-bar-tint px-3 py-2 text-sm font-semibold text-verdict-bar">
-            {error}
-          </p>
-        )}
+        <Alert tone="ok" look="box">{status}</Alert>
+        <Alert look="box">{error}</Alert>
       </div>
       {canAdminister && (
         <form onSubmit={onInvite} className="gw-card grid gap-3 sm:grid-cols-[1fr_12rem_auto] sm:items-end" noValidate>
-          <div>
-            <label htmlFor="invite-email" className="gw-label">
-              E-mail to invite
-            </label>
-            <input id="invite-email" name="email" type="email" required className="gw-input" aria-invalid={fields.email ? true : undefined} />
-            {fields.email && <p className="gw-error">{fields.email}</p>}
-          </div>
+          <TextField id="invite-email" path="email" name="email" type="email" label="E-mail to invite" at={fields} />
           <div>
             <label htmlFor="invite-role" className="gw-label">
               Role
@@ -172,7 +166,7 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
                   <tr key={i.id}>
                     <td>{i.email}</td>
                     <td>{roleLabel(i.role)}</td>
-                    <td>{new Date(i.expiresAt).toLocaleDateString()}</td>
+                    <td>{day(i.expiresAt)}</td>
                     <td>
                       <button type="button" className="gw-btn-quiet" onClick={() => onCancel(i.id, i.email)}>
                         Cancel

@@ -1,7 +1,7 @@
 /** A structured editor for a json-rules-engine condition tree: all / any / not groups and fact-operator-value leaves. */
 import { useState } from "react";
 import { BUILTIN_OPERATORS, CUSTOM_OPERATORS, SCOPE_FACTS, type RuleScope } from "../../lib/procedure/rule-vocabulary.ts";
-import { Messages, type IssueLookup } from "./fields.tsx";
+import { FieldMessages, type IssueLookup } from "../shared/fields.tsx";
 
 type Node = Record<string, unknown>;
 const OPERATORS = [...BUILTIN_OPERATORS, ...Object.keys(CUSTOM_OPERATORS), ...Object.keys(CUSTOM_OPERATORS).map((o) => `not:${o}`), "not:contains", "someValue:in"];
@@ -42,7 +42,7 @@ function ValueInput({ value, path, at, readOnly, onChange }: { value: unknown; p
           }
         }}
       />
-      <Messages path={path} at={at} />
+      <FieldMessages path={path} at={at} />
     </div>
   );
 }
@@ -63,23 +63,23 @@ function Leaf({ node, path, scope, at, readOnly, onChange, onRemove }: Props & {
           {typeof node.fact === "string" && !facts.includes(node.fact) && <option value={node.fact}>{node.fact} (unknown)</option>}
           {facts.map((f) => <option key={f} value={f}>{f}</option>)}
         </select>
-        <Messages path={`${path}.fact`} at={at} />
+        <FieldMessages path={`${path}.fact`} at={at} />
       </div>
       <div className="w-32">
         <label htmlFor={fid(`${path}.path`)} className="text-xs font-semibold text-ink-soft">Path</label>
         <input id={fid(`${path}.path`)} className="gw-input font-mono text-sm" placeholder="$.rank" disabled={readOnly} value={typeof node.path === "string" ? node.path : ""} onChange={(e) => set("path", e.target.value)} aria-invalid={at(`${path}.path`).length > 0 || undefined} />
-        <Messages path={`${path}.path`} at={at} />
+        <FieldMessages path={`${path}.path`} at={at} />
       </div>
       <div className="w-44">
         <label htmlFor={fid(`${path}.operator`)} className="text-xs font-semibold text-ink-soft">Operator</label>
         <input id={fid(`${path}.operator`)} list="gw-operators" className="gw-input font-mono text-sm" disabled={readOnly} value={typeof node.operator === "string" ? node.operator : ""} onChange={(e) => set("operator", e.target.value)} aria-invalid={at(`${path}.operator`).length > 0 || undefined} />
-        <Messages path={`${path}.operator`} at={at} />
+        <FieldMessages path={`${path}.operator`} at={at} />
       </div>
       <ValueInput value={node.value} path={`${path}.value`} at={at} readOnly={readOnly} onChange={(v) => onChange({ ...node, value: v })} />
       {!readOnly && onRemove && (
         <button type="button" className="gw-btn-quiet mt-5" onClick={onRemove} aria-label={`Remove condition ${path}`}>Remove</button>
       )}
-      <Messages path={path} at={at} />
+      <FieldMessages path={path} at={at} />
     </div>
   );
 }
@@ -126,8 +126,8 @@ export default function ConditionBuilder(props: Props) {
         )}
         {!readOnly && onRemove && <button type="button" className="gw-btn-quiet" onClick={onRemove}>Remove group</button>}
       </div>
-      <Messages path={path} at={at} />
-      <Messages path={`${path}.${k}`} at={at} />
+      <FieldMessages path={path} at={at} />
+      <FieldMessages path={`${path}.${k}`} at={at} />
       {children.map((c, i) => {
         const childPath = k === "not" ? `${path}.not` : `${path}.${k}.${i}`;
         return (

@@ -1,7 +1,9 @@
 import { useEffect, useState } from "react";
 import { z } from "zod";
-import { getJson, when } from "./api.ts";
+import { apiCall } from "../shared/api.ts";
+import { when } from "../shared/dates.ts";
 import { compareSchema } from "./schemas.ts";
+import { Alert } from "../shared/Alert.tsx";
 
 const SECTION_LABELS: Record<string, string> = { metadata: "Rulebook", chamber: "Chamber", source: "Source", motions: "Motion catalogue", precedence: "Precedence", amendments: "Amendments", voting: "Voting", rules: "Rules" };
 const show = (v: unknown) => (v === null || v === undefined ? "—" : typeof v === "string" ? v : JSON.stringify(v));
@@ -11,9 +13,9 @@ export default function RulebookCompare({ from, to }: { from: string; to: string
   const [data, setData] = useState<z.output<typeof compareSchema> | null>(null);
   const [error, setError] = useState<string | null>(null);
   useEffect(() => {
-    getJson(`/api/rulebooks/compare?from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`, compareSchema).then(setData, (e) => setError(e instanceof Error ? e.message : "Could not compare."));
+    apiCall(compareSchema, `/api/rulebooks/compare?from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`).then(setData, (e) => setError(e instanceof Error ? e.message : "Could not compare."));
   }, [from, to]);
-  if (error) return <p className="gw-error" role="alert">{error}</p>;
+  if (error) return <Alert>{error}</Alert>;
   if (!data) return <p className="text-ink-soft">Comparing…</p>;
   return (
     <div className="space-y-4" data-testid="diff">

@@ -6,10 +6,12 @@ import { parseRulebook } from "../../lib/procedure/parse-rulebook.ts";
 import { FINDING_SEVERITIES, MOTION_CLASSES, RECONSIDERABLE, rulebookSchema, type MotionInput, type RulebookInput } from "../../lib/procedure/rulebook-schema.ts";
 import { RULE_SCOPES } from "../../lib/procedure/rule-vocabulary.ts";
 import { ORDER_CONSTRAINTS, QUORUM_KINDS, TIE_RULES, VOTE_THRESHOLDS } from "../../lib/procedure/voting-section.ts";
-import { ApiError, day, getJson, sendJson, when, type Issue } from "./api.ts";
+import { apiCall, ApiError, type Issue } from "../shared/api.ts";
+import { day, today, when } from "../shared/dates.ts";
 import ConditionBuilder, { OperatorList } from "./ConditionBuilder.tsx";
-import { CheckField, issueLookup, Messages, NumberField, SelectField, TextField, type IssueLookup } from "./fields.tsx";
+import { CheckField, FieldMessages, issueLookup, NumberField, SelectField, TextField, type IssueLookup } from "../shared/fields.tsx";
 import { adoptedSchema, documentSchema, librarySchema, savedSchema, staleSchema, templateSchema, versionSchema } from "./schemas.ts";
+import { Alert } from "../shared/Alert.tsx";
 
 type Rule = RulebookInput["rules"][number];
 type Tab = "motions" | "rules" | "sections" | "raw";
@@ -54,7 +56,7 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
   const [message, setMessage] = useState<{ kind: "ok" | "error"; text: string } | null>(null);
   const [stale, setStale] = useState<z.output<typeof staleSchema> | null>(null);
   const [busy, setBusy] = useState(false);
-  const [effective, setEffective] = useState(() => new Date().toISOString().slice(0, 10));
+  const [effective, setEffective] = useState(() => today());
   const [adoptNote, setAdoptNote] = useState("");
   const [loadError, setLoadError] = useState<string | null>(null);
 
@@ -62,19 +64,19 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
     (async () => {
       try {
         if (versionId) {
-          const v = await getJson(`/api/rulebooks/${versionId}`, versionSchema);
+          const v = await apiCall(versionSchema, `/api/rulebooks/${versionId}`);
           const d = documentSchema.parse(v.document);
           setLoaded({ doc: d, basedOn: v.id, meta: v, latest: v.latest });
           setDoc(d);
         } else {
-          const lib = await getJson("/api/rulebooks", librarySchema);
+          const lib = await apiCall(librarySchema, "/api/rulebooks");
           let d: RulebookInput;
           let templateTitle: string | null = null;
           if (template) {
-            const t = await getJson(`/api/rulebooks/templates/${encodeURIComponent(template)}`, templateSchema);
+            const t = await apiCall(templateSchema, `/api/rulebooks/templates/${encodeURIComponent(template)}`);
             templateTitle = t.title;
             d = documentSchema.parse(t.document);
-          } else if (lib.latest) d = documentSchema.parse((await getJson(`/api/rulebooks/${lib.latest.id}`, versionSchema)).document);
+          } else if (lib.latest) d = documentSchema.parse((await apiCall(versionSchema, `/api/rulebooks/${lib.latest.id}`)).document);
           else throw new Error("Choose a template to start from.");
           setLoaded({ doc: d, basedOn: lib.latest?.id ?? null, meta: null, latest: lib.latest });
           setDoc(d);
@@ -91,7 +93,7 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
   const at = useMemo(() => issueLookup(issues), [issues]);
   const dirty = loaded !== null && doc !== null && JSON.stringify(doc) !== JSON.stringify(loaded.doc);
 
-  if (loadError) return <p className="gw-error" role="alert">{loadError}</p>;
+  if (loadError) return <Alert>{loadError}</Alert>;
   if (!loaded || !doc) return <p className="text-ink-soft">Loading the rulebook…</p>;
   const readOnly = !canEdit;
   const meta = loaded.meta;
@@ -111,7 +113,7 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
     setMessage(null);
     setStale(null);
     try {
-      const r = await sendJson("/api/rulebooks", "POST", { basedOn: loaded.basedOn, note, document: doc, ...(template ? { template } : {}) }, savedSchema);
+      const r = await apiCall(savedSchema, "/api/rulebooks", { method: "POST", body: { basedOn: loaded.basedOn, note, document: doc, ...(template ? { template } : {}) } });
       window.location.assign(`/rulebooks/${r.id}?saved=${r.number}`);
     } catch (e) {
       if (e instanceof ApiError) {
@@ -128,9 +130,9 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
     if (!meta) return;
     setBusy(true);
     try {
-      const r = await sendJson(`/api/rulebooks/${meta.id}/adopt`, "POST", { effectiveFrom: effective, note: adoptNote }, adoptedSchema);
+      const r = await apiCall(adoptedSchema, `/api/rulebooks/${meta.id}/adopt`, { method: "POST", body: { effectiveFrom: effective, note: adoptNote } });
       setMessage({ kind: "ok", text: `Version ${r.number} adopted with effect from ${day(r.effectiveFrom)}${r.inForce ? "; it is now in force." : "; it comes into force on that date."}` });
-      const v = await getJson(`/api/rulebooks/${meta.id}`, versionSchema);
+      const v = await apiCall(versionSchema, `/api/rulebooks/${meta.id}`);
       setLoaded({ ...loaded!, meta: v });
     } catch (e) {
       setMessage({ kind: "error", text: e instanceof Error ? e.message : "Not adopted." });
@@ -247,7 +249,7 @@ function MotionTable({ doc, at, readOnly, setMotion, update }: { doc: RulebookIn
   const flag = (i: number, m: MotionInput, k: "second" | "debatable" | "amendable" | "interrupt", label: string) => (
     <td className="text-center">
       <input type="checkbox" aria-label={`${label}: ${m.name}`} checked={Boolean(m[k])} disabled={readOnly} onChange={(e) => setMotion(i, { [k]: e.target.checked })} aria-invalid={at(`motions.${i}.${k}`).length > 0 || undefined} />
-      <Messages path={`motions.${i}.${k}`} at={at} />
+      <FieldMessages path={`motions.${i}.${k}`} at={at} />
     </td>
   );
   return (
@@ -289,7 +291,7 @@ function MotionTable({ doc, at, readOnly, setMotion, update }: { doc: RulebookIn
         </button>
       )}
       {doc.precedence && <p className="gw-hint">Ranks of some motions come from precedence chains ({doc.precedence.length}); edit those in the raw JSON view.</p>}
-      <Messages path="motions" at={at} />
+      <FieldMessages path="motions" at={at} />
     </div>
   );
 }
@@ -353,7 +355,7 @@ function SectionsPanel({ doc, at, readOnly, update }: { doc: RulebookInput; at: 
               </label>
             ))}
           </div>
-          <Messages path="amendments.forms" at={at} />
+          <FieldMessages path="amendments.forms" at={at} />
         </div>
         <div className="grid grid-cols-2 gap-3">
           <NumberField path="amendments.maxDegree" label="Maximum degree" at={at} disabled={readOnly} value={a.maxDegree} min={1} max={10} onChange={(x) => setA({ maxDegree: x ?? 1 })} />
@@ -382,7 +384,7 @@ function SectionsPanel({ doc, at, readOnly, update }: { doc: RulebookInput; at: 
               <input type="checkbox" disabled={readOnly} checked={(v.constraints ?? []).includes(c)} onChange={(e) => setV({ constraints: e.target.checked ? [...(v.constraints ?? []), c] : (v.constraints ?? []).filter((x) => x !== c) })} /> {c}
             </label>
           ))}
-          <Messages path="voting.constraints" at={at} />
+          <FieldMessages path="voting.constraints" at={at} />
         </div>
         <div className="grid grid-cols-2 gap-3">
           <SelectField path="voting.tieRule" label="Tie rule" at={at} disabled={readOnly} value={v.tieRule ?? "motion-fails"} options={TIE_RULES} labels={TIE_LABELS} onChange={(x) => setV({ tieRule: x })} />
@@ -462,12 +464,7 @@ function RawPanel({ doc, readOnly, onApply }: { doc: RulebookInput; readOnly: bo
     <div className="space-y-2">
       <label htmlFor="raw-json" className="gw-label">The rulebook as JSON</label>
       <textarea id="raw-json" className="gw-input h-[32rem] font-mono text-xs" spellCheck={false} readOnly={readOnly} value={text} onChange={(e) => setText(e.target.value)} />
-      {problems.length > 0 && (
-        <div role="alert" className="gw-error">
-          Not applied:
-          <ul className="list-disc pl-5">{problems.slice(0, 20).map((p, i) => <li key={i}><code>{p.path}</code>: {p.message}</li>)}</ul>
-        </div>
-      )}
+      {problems.length > 0 && <Alert issues={problems} showPaths listFrom={1}>Not applied:</Alert>}
       {!readOnly && <button type="button" className="gw-btn" onClick={apply}>Apply to the forms</button>}
       <p className="gw-hint">The format is described in docs/rulebook-format.md. Applying checks the shape; the tabs then show any remaining problem at its field.</p>
     </div>

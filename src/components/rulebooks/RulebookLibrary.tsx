@@ -1,6 +1,8 @@
-import { useEffect, useState } from "react";
-import { ApiError, day, getJson, sendForm, when, type Issue } from "./api.ts";
+import { useEffect, useState, type SubmitEvent } from "react";
+import { apiCall, ApiError, type Issue } from "../shared/api.ts";
+import { day, when } from "../shared/dates.ts";
 import { librarySchema, savedSchema, type Library, type TemplateMeta } from "./schemas.ts";
+import { Alert } from "../shared/Alert.tsx";
 
 /** "from the template …" in the clerk's words: the template's title, never its file id. */
 export function originLabel(origin: string, templates: TemplateMeta[]): string | null {
@@ -55,7 +57,7 @@ export default function RulebookLibrary({ canEdit }: { canEdit: boolean }) {
   const [busy, setBusy] = useState(false);
 
   useEffect(() => {
-    getJson("/api/rulebooks", librarySchema).then(
+    apiCall(librarySchema, "/api/rulebooks").then(
       (l) => {
         setLib(l);
         setTo(l.versions[0]?.id ?? "");
@@ -65,12 +67,12 @@ export default function RulebookLibrary({ canEdit }: { canEdit: boolean }) {
     );
   }, []);
 
-  if (error) return <p className="gw-error" role="alert">{error}</p>;
+  if (error) return <Alert>{error}</Alert>;
   if (!lib) return <p className="text-ink-soft">Loading…</p>;
   const adoptedNumbers = new Map<string, string[]>();
   for (const a of lib.adoptions) adoptedNumbers.set(a.versionId, [...(adoptedNumbers.get(a.versionId) ?? []), day(a.effectiveFrom)]);
 
-  async function upload(e: React.FormEvent) {
+  async function upload(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     if (!file || !lib) return;
     setBusy(true);
@@ -80,7 +82,7 @@ export default function RulebookLibrary({ canEdit }: { canEdit: boolean }) {
     form.set("basedOn", lib.latest?.id ?? "");
     form.set("note", note);
     try {
-      const r = await sendForm("/api/rulebooks/import", form, savedSchema);
+      const r = await apiCall(savedSchema, "/api/rulebooks/import", { method: "POST", form: form });
       window.location.assign(`/rulebooks/${r.id}?saved=${r.number}`);
     } catch (err) {
       setImportError(err instanceof ApiError ? { message: err.message, issues: err.issues } : { message: "The upload failed.", issues: [] });
@@ -173,12 +175,7 @@ export default function RulebookLibrary({ canEdit }: { canEdit: boolean }) {
               <label htmlFor="import-note" className="gw-label">Note</label>
               <input id="import-note" className="gw-input" value={note} maxLength={1000} onChange={(e) => setNote(e.target.value)} />
               <button className="gw-btn" disabled={!file || busy}>Import as a new version</button>
-              {importError && (
-                <div role="alert" className="gw-error" data-testid="import-error">
-                  {importError.message}
-                  {importError.issues.length > 0 && <ul className="list-disc pl-5">{importError.issues.slice(0, 20).map((i, n) => <li key={n}><code>{i.path}</code>: {i.message}</li>)}</ul>}
-                </div>
-              )}
+              {importError && <Alert testId="import-error" issues={importError.issues} showPaths listFrom={1}>{importError.message}</Alert>}
             </form>
           </section>
         </div>

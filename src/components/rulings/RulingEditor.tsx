@@ -1,7 +1,11 @@
-import { useEffect, useMemo, useState, type SubmitEvent, type ReactNode } from "react";
+import { useEffect, useMemo, useState, type SubmitEvent } from "react";
 import { appealOutcome, APPEAL_OUTCOME_LABELS } from "../../lib/rulings/appeal-outcome.ts";
 import { DECISION_LABELS, DECISIONS, TARGET_KINDS, type Decision, type TargetKind } from "../../lib/rulings/ruling-content.ts";
-import { api, ApiError, draftingOptions, rulingView, searchResults, type CitationView, type DraftingOptions, type RulingView } from "./api.ts";
+import { Alert } from "../shared/Alert.tsx";
+import { apiCall } from "../shared/api.ts";
+import { day, today } from "../shared/dates.ts";
+import { ChoiceField, describedBy, FieldMessages, issueLookup, noIssues, TextField, type IssueLookup } from "../shared/fields.tsx";
+import { draftingOptions, rulingView, searchResults, type CitationView, type DraftingOptions, type RulingView } from "./api.ts";
 
 type Mode = "new" | "edit" | "revise";
 
@@ -59,7 +63,7 @@ function fromRuling(r?: RulingView): Draft {
     appellant: r?.appeal?.appellant ?? "",
     sittingId: r?.sittingId ?? "",
     sitting: r?.sitting ?? "",
-    sittingDate: r?.sittingDate ?? new Date().toISOString().slice(0, 10),
+    sittingDate: r?.sittingDate ?? today(),
     note: "",
   };
 }
@@ -93,64 +97,10 @@ function useDebounced<T>(value: T, ms: number): T {
   return v;
 }
 
-function FieldError({ id, errors, path }: { id: string; errors: Record<string, string>; path: string }) {
-  const msg = errors[path];
-  return msg ? (
-    <p id={`${id}-err`} className="gw-error">
-      {msg}
-    </p>
-  ) : null;
-}
-
-/** A labelled text input (or textarea) with its field error when `path` names a field of the content. */
-function TextField(props: { id: string; path?: string; label: string; value: string; onChange: (v: string) => void; errors?: Record<string, string>; multiline?: boolean; rows?: number; type?: string; inputMode?: "numeric"; placeholder?: string; className?: string; children?: ReactNode }) {
-  const { id, path, label, value, onChange, errors = {}, multiline, rows, type, inputMode, placeholder, className, children } = props;
-  const invalid = path && errors[path] ? { "aria-invalid": true as const, "aria-describedby": `${id}-err` } : {};
-  return (
-    <div className={className}>
-      <label htmlFor={id} className="gw-label">
-        {label}
-      </label>
-      {multiline ? (
-        <textarea id={id} rows={rows} className="gw-input" value={value} onChange={(e) => onChange(e.target.value)} placeholder={placeholder} {...invalid} />
-      ) : (
-        <input id={id} type={type} inputMode={inputMode} className="gw-input" value={value} onChange={(e) => onChange(e.target.value)} placeholder={placeholder} {...invalid} />
-      )}
-      {children}
-      {path && <FieldError id={id} errors={errors} path={path} />}
-    </div>
-  );
-}
-
-/**
- * A labelled choice among {id, label} options after one empty choice, with its field error when
- * `path` names a field of the content; the id is `f-<path>` unless given.
- */
-function ChoiceField(props: { path?: string; id?: string; label: string; empty: string; value: string; choices: Array<{ id: string; label: string }>; onChange: (v: string) => void; errors?: Record<string, string>; className?: string }) {
-  const { path, label, empty, value, choices, onChange, errors = {}, className } = props;
-  const id = props.id ?? `f-${path}`;
-  return (
-    <div className={className}>
-      <label htmlFor={id} className="gw-label">
-        {label}
-      </label>
-      <select id={id} className="gw-input" value={value} onChange={(e) => onChange(e.target.value)} {...(path && errors[path] ? { "aria-invalid": true as const, "aria-describedby": `${id}-err` } : {})}>
-        <option value="">{empty}</option>
-        {choices.map((c) => (
-          <option key={c.id} value={c.id}>
-            {c.label}
-          </option>
-        ))}
-      </select>
-      {path && <FieldError id={id} errors={errors} path={path} />}
-    </div>
-  );
-}
-
 export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props) {
   const [d, setD] = useState<Draft>(() => fromRuling(initial));
   const [opts, setOpts] = useState<DraftingOptions | null>(null);
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [at, setAt] = useState<IssueLookup>(() => noIssues);
   const [message, setMessage] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
   const [related, setRelated] = useState<Array<{ id: string; number: number; label: string; question: string }>>([]);
@@ -160,7 +110,7 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
   const set = <K extends keyof Draft>(k: K, v: Draft[K]) => setD((x) => ({ ...x, [k]: v }));
 
   useEffect(() => {
-    api("/api/rulings/options", draftingOptions).then(setOpts, (e: Error) => setMessage(e.message));
+    apiCall(draftingOptions, "/api/rulings/options").then(setOpts, (e: Error) => setMessage(e.message));
   }, []);
 
   const ruleIds = d.citations.flatMap((c) => (c.kind === "rule" && c.ruleId ? [c.ruleId] : []));
@@ -172,7 +122,7 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
     if (k.text) q.set("text", k.text.slice(0, 4000));
     if (k.rule) q.set("rule", k.rule);
     if (initial) q.set("exclude", initial.id);
-    api(`/api/rulings/related?${q}`, searchResults).then(
+    apiCall(searchResults, `/api/rulings/related?${q}`).then(
       (r) => setRelated(r.results.map((x) => ({ id: x.id, number: x.number, label: x.target.label, question: x.question }))),
       () => setRelated([]),
     );
@@ -204,36 +154,31 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
   async function submit(e: SubmitEvent) {
     e.preventDefault();
     setBusy(true);
-    setErrors({});
+    setAt(() => noIssues);
     setMessage(null);
     try {
       const content = toContent(d);
       let saved: RulingView;
-      if (mode === "new") saved = await api("/api/rulings", rulingView, { method: "POST", body: content });
-      else if (mode === "edit") saved = await api(`/api/rulings/${initial!.id}`, rulingView, { method: "PUT", body: { version: initial!.version, content } });
-      else saved = await api(`/api/rulings/${initial!.id}/revisions`, rulingView, { method: "POST", body: { revision: initial!.revision, note: d.note, content } });
+      if (mode === "new") saved = await apiCall(rulingView, "/api/rulings", { method: "POST", body: content });
+      else if (mode === "edit") saved = await apiCall(rulingView, `/api/rulings/${initial!.id}`, { method: "PUT", body: { version: initial!.version, content } });
+      else saved = await apiCall(rulingView, `/api/rulings/${initial!.id}/revisions`, { method: "POST", body: { revision: initial!.revision, note: d.note, content } });
       if (onSaved) onSaved(saved);
       else window.location.assign(`/rulings/${saved.id}`);
     } catch (err) {
-      if (err instanceof ApiError) {
-        const map: Record<string, string> = {};
-        for (const i of err.issues) map[i.path.replace(/^content\./, "")] ??= i.message;
-        setErrors(map);
-        setMessage(err.message);
-      } else setMessage((err as Error).message);
+      setAt(() => issueLookup(err, { strip: "content." }));
+      setMessage((err as Error).message);
     } finally {
       setBusy(false);
     }
   }
 
   const amendmentsHere = opts?.amendments.filter((a) => !d.measureId || a.measureId === d.measureId) ?? [];
-  const inv = (p: string) => (errors[p] ? { "aria-invalid": true as const, "aria-describedby": `f-${p}-err` } : {});
 
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
       <form onSubmit={submit} className="gw-card space-y-5" noValidate aria-label={mode === "new" ? "Record a ruling" : mode === "edit" ? "Edit the draft" : "Record a correction"}>
         {mode === "revise" && (
-          <TextField id="f-note" path="note" label="What does this correction change?" value={d.note} onChange={(v) => set("note", v)} errors={errors}>
+          <TextField id="f-note" path="note" label="What does this correction change?" value={d.note} onChange={(v) => set("note", v)} at={at}>
             <p className="gw-hint">Revision {initial!.revision + 1}. The text as issued stays in the history.</p>
           </TextField>
         )}
@@ -243,7 +188,7 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
             <label htmlFor="f-raisedById" className="gw-label">
               Raised by
             </label>
-            <select id="f-raisedById" className="gw-input" value={d.raisedById} onChange={(e) => set("raisedById", e.target.value)} {...inv("raisedById")}>
+            <select id="f-raisedById" className="gw-input" value={d.raisedById} onChange={(e) => set("raisedById", e.target.value)} {...describedBy("f-raisedById", "raisedById", at)}>
               <option value="">Choose a legislator…</option>
               {opts?.legislators.map((l) => (
                 <option key={l.id} value={l.id}>
@@ -252,7 +197,7 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
                 </option>
               ))}
             </select>
-            <FieldError id="f-raisedById" errors={errors} path="raisedById" />
+            <FieldMessages id="f-raisedById" path="raisedById" at={at} />
           </div>
           <div>
             <label htmlFor="f-targetKind" className="gw-label">
@@ -266,23 +211,23 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
               ))}
             </select>
           </div>
-          <TextField id="f-targetLabel" path="target.label" label="What it was raised against" value={d.targetLabel} onChange={(v) => set("targetLabel", v)} placeholder="e.g. Motion to postpone the Harbour Dredging Levy indefinitely" className="sm:col-span-2" errors={errors} />
-          <ChoiceField path="measureId" label="Measure (optional)" empty="None" value={d.measureId} choices={opts?.measures ?? []} onChange={(v) => setD((x) => ({ ...x, measureId: v, amendmentId: "" }))} errors={errors} />
-          <ChoiceField path="amendmentId" label="Amendment (optional)" empty="None" value={d.amendmentId} choices={amendmentsHere} onChange={(v) => set("amendmentId", v)} errors={errors} />
+          <TextField id="f-targetLabel" path="target.label" label="What it was raised against" value={d.targetLabel} onChange={(v) => set("targetLabel", v)} placeholder="e.g. Motion to postpone the Harbour Dredging Levy indefinitely" className="sm:col-span-2" at={at} />
+          <ChoiceField path="measureId" label="Measure (optional)" empty="None" value={d.measureId} choices={opts?.measures ?? []} onChange={(v) => setD((x) => ({ ...x, measureId: v, amendmentId: "" }))} at={at} />
+          <ChoiceField path="amendmentId" label="Amendment (optional)" empty="None" value={d.amendmentId} choices={amendmentsHere} onChange={(v) => set("amendmentId", v)} at={at} />
           <div>
             <label htmlFor="f-motion" className="gw-label">
               Motion concerned (rulebook id, optional)
             </label>
-            <input id="f-motion" className="gw-input" list="motion-ids" value={d.motion} onChange={(e) => set("motion", e.target.value)} placeholder="e.g. previous-question" {...inv("motion")} />
+            <input id="f-motion" className="gw-input" list="motion-ids" value={d.motion} onChange={(e) => set("motion", e.target.value)} placeholder="e.g. previous-question" {...describedBy("f-motion", "motion", at)} />
             <datalist id="motion-ids">
               {opts?.rulebook?.rules.map((r) => (
                 <option key={r.ruleId} value={r.ruleId} />
               ))}
             </datalist>
-            <FieldError id="f-motion" errors={errors} path="motion" />
+            <FieldMessages id="f-motion" path="motion" at={at} />
           </div>
           <TextField id="f-targetRef" label="Reference (finding or record id, optional)" value={d.targetRef} onChange={(v) => set("targetRef", v)} />
-          <TextField id="f-question" path="question" label="Question put to the chair" value={d.question} onChange={(v) => set("question", v)} multiline rows={2} className="sm:col-span-2" errors={errors} />
+          <TextField id="f-question" path="question" label="Question put to the chair" value={d.question} onChange={(v) => set("question", v)} multiline rows={2} className="sm:col-span-2" at={at} />
         </fieldset>
 
         <fieldset className="space-y-3">
@@ -298,11 +243,11 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
               </label>
             ))}
           </div>
-          <FieldError id="f-decision" errors={errors} path="decision" />
+          <FieldMessages id="f-decision" path="decision" at={at} />
           {d.decision === "other" && (
-            <TextField id="f-decisionNote" path="decisionNote" label="The other disposition" value={d.decisionNote} onChange={(v) => set("decisionNote", v)} errors={errors} />
+            <TextField id="f-decisionNote" path="decisionNote" label="The other disposition" value={d.decisionNote} onChange={(v) => set("decisionNote", v)} at={at} />
           )}
-          <TextField id="f-reasoning" path="reasoning" label="Reasoning" value={d.reasoning} onChange={(v) => set("reasoning", v)} multiline rows={6} errors={errors} />
+          <TextField id="f-reasoning" path="reasoning" label="Reasoning" value={d.reasoning} onChange={(v) => set("reasoning", v)} multiline rows={6} at={at} />
           <div>
             <span className="gw-label">Citations</span>
             {d.citations.length === 0 && <p className="gw-hint">No citations yet.</p>}
@@ -318,7 +263,10 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
                     ) : (
                       <>{c.label ?? "Earlier ruling"} (precedent)</>
                     )}
-                    {errors[`citations.${i}.ruleId`] || errors[`citations.${i}.rulingId`] || errors[`citations.${i}.rulebookVersionId`] ? <span className="gw-error block">{errors[`citations.${i}.ruleId`] ?? errors[`citations.${i}.rulingId`] ?? errors[`citations.${i}.rulebookVersionId`]}</span> : null}
+                    {(() => {
+                      const problem = [...at(`citations.${i}.ruleId`), ...at(`citations.${i}.rulingId`), ...at(`citations.${i}.rulebookVersionId`)][0];
+                      return problem ? <span className="gw-error block" data-issue-path={`citations.${i}`}>{problem}</span> : null;
+                    })()}
                   </span>
                   <button type="button" className="gw-btn-quiet" onClick={() => set("citations", d.citations.filter((_, j) => j !== i))} aria-label={`Remove citation ${i + 1}`}>
                     Remove
@@ -373,8 +321,8 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
           </label>
           {d.appealed && (
             <div className="grid gap-3 sm:grid-cols-4">
-              <TextField id="f-ayes" path="appeal.ayes" label="To sustain the chair" value={d.ayes} onChange={(v) => set("ayes", v)} inputMode="numeric" errors={errors} />
-              <TextField id="f-noes" path="appeal.noes" label="Against" value={d.noes} onChange={(v) => set("noes", v)} inputMode="numeric" errors={errors} />
+              <TextField id="f-ayes" path="appeal.ayes" label="To sustain the chair" value={d.ayes} onChange={(v) => set("ayes", v)} inputMode="numeric" at={at} />
+              <TextField id="f-noes" path="appeal.noes" label="Against" value={d.noes} onChange={(v) => set("noes", v)} inputMode="numeric" at={at} />
               <TextField id="f-abst" label="Abstaining" value={d.abstentions} onChange={(v) => set("abstentions", v)} inputMode="numeric" />
               <TextField id="f-appellant" label="Appellant" value={d.appellant} onChange={(v) => set("appellant", v)} />
               {appealPreview && <p className="gw-hint sm:col-span-4" aria-live="polite">{appealPreview}</p>}
@@ -401,21 +349,17 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
                 <option value="">Not linked</option>
                 {opts.sittings.map((s) => (
                   <option key={s.id} value={s.id}>
-                    {s.title} ({s.date})
+                    {s.title} ({day(s.date)})
                   </option>
                 ))}
               </select>
             </div>
           )}
-          <TextField id="f-sitting" path="sitting" label="Sitting" value={d.sitting} onChange={(v) => set("sitting", v)} errors={errors} />
-          <TextField id="f-sittingDate" path="sittingDate" label="Date" value={d.sittingDate} onChange={(v) => set("sittingDate", v)} type="date" errors={errors} />
+          <TextField id="f-sitting" path="sitting" label="Sitting" value={d.sitting} onChange={(v) => set("sitting", v)} at={at} />
+          <TextField id="f-sittingDate" path="sittingDate" label="Date" value={d.sittingDate} onChange={(v) => set("sittingDate", v)} type="date" at={at} />
         </fieldset>
 
-        {message && (
-          <p role="alert" className="gw-error">
-            {message}
-          </p>
-        )}
+        <Alert>{message}</Alert>
         <div className="flex flex-wrap gap-2">
           <button type="submit" className="gw-btn" disabled={busy}>
             {mode === "new" ? "Save draft" : mode === "edit" ? "Save changes" : "Issue correction"}

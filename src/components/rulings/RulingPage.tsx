@@ -2,25 +2,26 @@ import { useCallback, useEffect, useState } from "react";
 import { DECISION_LABELS } from "../../lib/rulings/ruling-content.ts";
 import { APPEAL_OUTCOME_LABELS } from "../../lib/rulings/appeal-outcome.ts";
 import DeliveryTable from "../circulation/DeliveryTable.tsx";
-import { api, listsView, rulingDetail, type ListView, type RulingDetail, type RulingView } from "./api.ts";
+import { apiCall } from "../shared/api.ts";
+import { listsView, rulingDetail, type ListView, type RulingDetail, type RulingView } from "./api.ts";
 import RulingEditor from "./RulingEditor.tsx";
 import { z } from "zod";
+import { day, when } from "../shared/dates.ts";
 
 interface Props {
   initial: RulingDetail;
   can: { draft: boolean; issue: boolean; send: boolean };
+  /** The chamber's time zone (this island renders on the server too, with dates in its first paint). */
+  timeZone: string;
 }
 
-function fmt(iso: string | null): string {
-  return iso ? new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" }) : "—";
-}
 
 export function RulingBody({ r }: { r: RulingView }) {
   return (
     <div className="space-y-4">
       <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[10rem_1fr]">
         <dt className="font-semibold text-ink-soft">Sitting</dt>
-        <dd>{[r.sitting, r.sittingDate].filter(Boolean).join(", ") || "—"}</dd>
+        <dd>{[r.sitting, day(r.sittingDate)].filter(Boolean).join(", ") || "—"}</dd>
         <dt className="font-semibold text-ink-soft">Raised by</dt>
         <dd>{r.raisedByName}</dd>
         <dt className="font-semibold text-ink-soft">Against</dt>
@@ -89,7 +90,8 @@ export function RulingBody({ r }: { r: RulingView }) {
 const sentView = z.object({ id: z.string(), queued: z.number(), skipped: z.array(z.object({ email: z.string() })).catch([]) });
 const issuedView = z.object({ ruling: z.object({ id: z.string() }) });
 
-export default function RulingPage({ initial, can }: Props) {
+export default function RulingPage({ initial, can, timeZone }: Props) {
+  const fmt = (iso: string | null) => (iso ? when(iso, timeZone) : "—");
   const [data, setData] = useState(initial);
   const [mode, setMode] = useState<"view" | "edit" | "revise">("view");
   const [lists, setLists] = useState<ListView[]>([]);
@@ -99,11 +101,11 @@ export default function RulingPage({ initial, can }: Props) {
   const r = data.ruling;
 
   const reload = useCallback(async () => {
-    setData(await api(`/api/rulings/${r.id}`, rulingDetail));
+    setData(await apiCall(rulingDetail, `/api/rulings/${r.id}`));
   }, [r.id]);
 
   useEffect(() => {
-    if (can.send) api("/api/circulation/lists", listsView).then((l) => setLists(l.lists), () => setLists([]));
+    if (can.send) apiCall(listsView, "/api/circulation/lists").then((l) => setLists(l.lists), () => setLists([]));
   }, [can.send]);
 
   const pending = data.circulations.some((c) => c.messages.some((m) => m.status === "queued" || m.status === "sending"));
@@ -129,17 +131,17 @@ export default function RulingPage({ initial, can }: Props) {
 
   const issue = () =>
     act(async () => {
-      await api(`/api/rulings/${r.id}/issue`, issuedView, { method: "POST", body: { version: r.version } });
+      await apiCall(issuedView, `/api/rulings/${r.id}/issue`, { method: "POST", body: { version: r.version } });
       return `Ruling ${r.number} is issued.`;
     });
   const send = () =>
     act(async () => {
-      const s = await api("/api/circulation", sentView, { method: "POST", body: { rulingId: r.id, listId } });
+      const s = await apiCall(sentView, "/api/circulation", { method: "POST", body: { rulingId: r.id, listId } });
       return `Queued ${s.queued} message${s.queued === 1 ? "" : "s"}${s.skipped.length ? `; ${s.skipped.length} unsubscribed address${s.skipped.length === 1 ? "" : "es"} left out` : ""}.`;
     });
   const retry = (id: string) =>
     act(async () => {
-      await api(`/api/circulation/messages/${id}/retry`, z.object({ id: z.string() }), { method: "POST" });
+      await apiCall(z.object({ id: z.string() }), `/api/circulation/messages/${id}/retry`, { method: "POST" });
       return "The message is queued again.";
     });
 

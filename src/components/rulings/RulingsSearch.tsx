@@ -1,7 +1,10 @@
 import { useEffect, useState, type SubmitEvent, type ReactNode } from "react";
 import { DECISION_LABELS } from "../../lib/rulings/ruling-content.ts";
-import { api, searchResults } from "./api.ts";
+import { apiCall } from "../shared/api.ts";
+import { searchResults } from "./api.ts";
 import type { z } from "zod";
+import { Alert } from "../shared/Alert.tsx";
+import { day } from "../shared/dates.ts";
 
 interface Props {
   initialQuery: Record<string, string>;
@@ -27,7 +30,7 @@ export default function RulingsSearch({ initialQuery, canSeeDrafts }: Props) {
     history.replaceState(null, "", params.size ? `?${params}` : location.pathname);
     try {
       setError(null);
-      setResults((await api(`/api/rulings?${params}`, searchResults)).results);
+      setResults((await apiCall(searchResults, `/api/rulings?${params}`)).results);
     } catch (e) {
       setError((e as Error).message);
       setResults([]);
@@ -96,11 +99,7 @@ export default function RulingsSearch({ initialQuery, canSeeDrafts }: Props) {
           </button>
         </div>
       </form>
-      {error && (
-        <p role="alert" className="gw-error">
-          {error}
-        </p>
-      )}
+      <Alert>{error}</Alert>
       <section aria-live="polite" aria-label="Results">
         {results === null ? (
           <p className="text-ink-soft">Searching…</p>
@@ -117,7 +116,7 @@ export default function RulingsSearch({ initialQuery, canSeeDrafts }: Props) {
                     </a>
                   </h2>
                   <span className="text-sm text-ink-soft">
-                    {[r.sitting, r.sittingDate].filter(Boolean).join(", ")}
+                    {[r.sitting, day(r.sittingDate)].filter(Boolean).join(", ")}
                     {r.status === "draft" && <span className="gw-chip ml-2 border-brass bg-brass-tint text-brass-text">Draft</span>}
                     {r.revision > 1 && <span className="gw-chip ml-2 border-rule text-ink-soft">rev. {r.revision}</span>}
                   </span>

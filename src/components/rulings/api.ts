@@ -1,38 +1,8 @@
 /**
  * Client-side view of the rulings and circulation API: zod schemas for what the routes answer
- * (fetched JSON is parsed, never cast) and one fetch helper that turns error bodies into
- * messages with their field paths.
+ * (fetched JSON is parsed, never cast). Calls go through the shared client (../shared/api.ts).
  */
 import { z } from "zod";
-
-export class ApiError extends Error {
-  constructor(
-    message: string,
-    readonly status: number,
-    readonly issues: Array<{ path: string; message: string }>,
-  ) {
-    super(message);
-  }
-}
-
-const errorBody = z.object({ error: z.object({ message: z.string(), issues: z.array(z.object({ path: z.string(), message: z.string() })).default([]) }) });
-
-export async function api<S extends z.ZodType>(url: string, schema: S, init?: { method?: string; body?: unknown }): Promise<z.output<S>> {
-  const res = await fetch(url, {
-    method: init?.method ?? "GET",
-    headers: init?.body !== undefined ? { "content-type": "application/json" } : undefined,
-    body: init?.body !== undefined ? JSON.stringify(init.body) : undefined,
-    credentials: "same-origin",
-  });
-  const data: unknown = await res.json().catch(() => null);
-  if (!res.ok) {
-    const e = errorBody.safeParse(data);
-    throw new ApiError(e.success ? e.data.error.message : `The server answered ${res.status}.`, res.status, e.success ? e.data.error.issues : []);
-  }
-  const parsed = schema.safeParse(data);
-  if (!parsed.success) throw new ApiError("The server's answer was not in the expected shape. Reload the page.", 0, []);
-  return parsed.data;
-}
 
 export const citationView = z.union([
   z.object({ kind: z.literal("rule"), rulebookVersionId: z.string().nullable().default(null), ruleId: z.string().nullable().default(null), citation: z.string() }),

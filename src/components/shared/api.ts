@@ -40,24 +40,39 @@ export interface ApiInit {
   type?: string;
 }
 
-export async function apiCall<S extends z.ZodType>(schema: S, url: string, init: ApiInit = {}): Promise<z.output<S>> {
+async function send(url: string, init: ApiInit): Promise<Response> {
   const res = await fetch(url, {
     method: init.method ?? "GET",
     headers: init.raw !== undefined ? { "content-type": init.type ?? "text/csv" } : init.body !== undefined ? { "content-type": "application/json" } : undefined,
     body: init.form ?? init.raw ?? (init.body !== undefined ? JSON.stringify(init.body) : undefined),
   });
+  if (res.ok) return res;
   let data: unknown = null;
   try {
     data = await res.json();
   } catch {
     /* no JSON body */
   }
-  if (!res.ok) {
-    const e = errorBody.safeParse(data);
-    if (e.success) throw new ApiError(res.status, e.data.error.code, e.data.error.message, e.data.error.issues, e.data.error.details);
-    throw new ApiError(res.status, "internal", `The server answered ${res.status}. Nothing was saved.`);
+  const e = errorBody.safeParse(data);
+  if (e.success) throw new ApiError(res.status, e.data.error.code, e.data.error.message, e.data.error.issues, e.data.error.details);
+  throw new ApiError(res.status, "internal", `The server answered ${res.status}. Nothing was saved.`);
+}
+
+/** Call a JSON route; the answer is parsed with `schema`. Throws ApiError for an error answer or an answer of another shape. */
+export async function apiCall<S extends z.ZodType>(schema: S, url: string, init: ApiInit = {}): Promise<z.output<S>> {
+  const res = await send(url, init);
+  let data: unknown = null;
+  try {
+    data = await res.json();
+  } catch {
+    /* no JSON body */
   }
   const parsed = schema.safeParse(data);
-  if (!parsed.success) throw new ApiError(res.status, "internal", "The server's answer was not in the expected shape.");
+  if (!parsed.success) throw new ApiError(res.status, "internal", "The server's answer was not in the expected shape. Reload the page.");
   return parsed.data;
+}
+
+/** Call a route that answers text (a CSV template, a Markdown script); errors as apiCall. */
+export async function apiText(url: string, init: ApiInit = {}): Promise<string> {
+  return (await send(url, init)).text();
 }

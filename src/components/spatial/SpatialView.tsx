@@ -14,7 +14,8 @@ import { majorityReport } from "../../lib/voting/majority-report.ts";
 import { MAX_DIMENSIONS, scaleSpatial, spatialProfile, spatialSchema, versionPosition } from "../../lib/voting/spatial-profile.ts";
 import { winSet } from "../../lib/voting/win-set.ts";
 import { unscale } from "../../lib/voting/exact-decimal.ts";
-import { ApiError, apiCall } from "../orders/api.ts";
+import { ApiError, apiCall } from "../shared/api.ts";
+import { Alert } from "../shared/Alert.tsx";
 
 type Spatial = Extract<EstimateContent, { kind: "spatial" }>;
 const BLOC_COLOURS = ["#1f4e79", "#8a4b08", "#2f6b3a", "#6b2f5f", "#5a5a5a", "#0f6470"];
@@ -90,7 +91,7 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
         <p className="gw-hint">The plot shows estimates in two dimensions; this one has {content.dimensions.length}.</p>
         {canEdit && <PositionsEditor content={content} scope={scope} onChange={edit} />}
         {canEdit && <button className="gw-btn" disabled={!dirty} onClick={() => void save()}>Save these positions as a new version</button>}
-        {message && <p className="gw-error" role="alert">{message}</p>}
+        <Alert>{message}</Alert>
       </div>
     );
   const sqIndex = versions.findIndex((v) => v.id === "Q");
@@ -150,7 +151,7 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
         <p>{model.win.coalitions === null ? "The win set is drawn only for up to 16 distinct ideal points; the dashed circles show each member's indifference circle through Q." : model.win.coalitions.length === 0 ? "No coalition can beat the status quo: its win set is empty." : `Win set of Q: union of ${model.win.coalitions.length} coalition lens${model.win.coalitions.length === 1 ? "" : "es"}.`}</p>
         <p>{model.report.condorcetWinner ? `Among the versions, ${versions[idx(model.report.condorcetWinner)].short} beats every other.` : `No version beats all the others: the majorities cycle among ${cycle.map((id) => versions[idx(id)].short).join(", ")} (arrows point from a winner to a version it beats).`}</p>
         {canEdit && <button className="gw-btn" disabled={!dirty} onClick={() => void save()}>Save these positions as a new version</button>}
-        {message && <p className="gw-error" role="alert">{message}</p>}
+        <Alert>{message}</Alert>
       </div>
     </div>
     {canEdit && <PositionsEditor content={content} scope={scope} onChange={edit} />}
@@ -252,7 +253,7 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
             </label>
             <button type="button" className="gw-btn-quiet" disabled={dims.length >= MAX_DIMENSIONS} onClick={add}>Add a dimension</button>
           </div>
-          {addIssue && <p className="gw-error" role="alert">{addIssue}</p>}
+          <Alert>{addIssue}</Alert>
           <p className="gw-hint" id="new-dimension-hint">{dims.length} of at most {MAX_DIMENSIONS} dimensions. A new dimension starts at 0 for every point, so nothing changes until you place the points on it.</p>
           <p className="gw-hint">The scale frames the plot; a point may lie outside it. Members' points move by dragging, or by the arrow keys.</p>
         </div>

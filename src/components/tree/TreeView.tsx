@@ -2,12 +2,15 @@ import { useCallback, useEffect, useMemo, useRef, useState, type KeyboardEvent }
 import { Background, Controls, MiniMap, ReactFlow, ReactFlowProvider, useReactFlow, type Edge } from "@xyflow/react";
 import "@xyflow/react/dist/style.css";
 import { treeViewSchema, type FindingView, type TreeView as TreeData } from "../../lib/measures/measure-schemas.ts";
-import { ApiError, apiCall, conflictText } from "../measures/api.ts";
+import { ApiError, apiCall } from "../shared/api.ts";
+import { conflictText } from "../measures/api.ts";
 import { layoutTree } from "./layout.ts";
 import { roleWords, slotWords } from "./role-words.ts";
 import TreeLegend from "./TreeLegend.tsx";
 import TreeNodeCard, { type TreeFlowNode } from "./TreeNodeCard.tsx";
 import { z } from "zod";
+import { Alert } from "../shared/Alert.tsx";
+import { day, when } from "../shared/dates.ts";
 
 interface Props {
   measureId: string;
@@ -163,7 +166,7 @@ function OverrideForm({ measureId, finding, version, onDone }: { measureId: stri
           {hits.map((r) => (
             <li key={r.id}>
               <button type="button" className={`w-full rounded border px-2 py-1 text-left text-xs ${picked?.id === r.id ? "border-chamber bg-chamber-tint" : "border-rule bg-white hover:bg-chamber-tint"}`} aria-pressed={picked?.id === r.id} onClick={() => pick(r)}>
-                <span className="font-semibold">Ruling {r.number}</span>{r.sittingDate ? ` · ${r.sittingDate}` : ""} — {r.question.slice(0, 140)}
+                <span className="font-semibold">Ruling {r.number}</span>{r.sittingDate ? ` · ${day(r.sittingDate)}` : ""} — {r.question.slice(0, 140)}
               </button>
             </li>
           ))}
@@ -171,10 +174,10 @@ function OverrideForm({ measureId, finding, version, onDone }: { measureId: stri
         </ul>
       </div>
       {picked && (
-        <p className="text-xs" role="status">
+        <Alert tone="ok">
           Linked to <a className="text-chamber underline" href={`/rulings/${picked.id}`}>Ruling {picked.number}</a>.{" "}
           <button type="button" className="underline" onClick={() => setPicked(null)}>Unlink</button>
-        </p>
+        </Alert>
       )}
       <div>
         <label htmlFor={`${id}-ref`} className="gw-label">Ruling relied on</label>
@@ -184,7 +187,7 @@ function OverrideForm({ measureId, finding, version, onDone }: { measureId: stri
         <label htmlFor={`${id}-note`} className="gw-label">Note (optional)</label>
         <input id={`${id}-note`} className="gw-input" value={note} onChange={(e) => setNote(e.target.value)} maxLength={2000} />
       </div>
-      {error && <p className="gw-error" role="alert">{error}</p>}
+      <Alert>{error}</Alert>
       <button type="submit" className="gw-btn" disabled={busy || !ref.trim()}>Record override</button>
     </form>
   );
@@ -209,7 +212,7 @@ function RevokeButton({ measureId, finding, onDone }: { measureId: string; findi
   return (
     <span className="mt-1 block">
       <button type="button" className="gw-btn-danger" disabled={busy} onClick={() => void revoke()}>Revoke override</button>
-      {error && <span className="gw-error block" role="alert">{error}</span>}
+      <Alert look="inline" className="block">{error}</Alert>
     </span>
   );
 }
@@ -273,8 +276,8 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
           Rulebook: {data.rulebook.title} — {data.rulebook.source}
         </span>
       </div>
-      {message && <p className="gw-card border-verdict-ok bg-verdict-ok-tint text-sm" role="status">{message}</p>}
-      {loadError && <p className="gw-error" role="alert">{loadError}</p>}
+      <Alert tone="ok" look="box">{message}</Alert>
+      <Alert>{loadError}</Alert>
       <div className="grid gap-4 2xl:grid-cols-[1fr_22rem]">
         <div
           ref={wrapper}
@@ -306,7 +309,7 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
                       <dt className="text-ink-soft">Form</dt><dd>{node.form}</dd>
                       <dt className="text-ink-soft">Amends</dt><dd>{node.parent ?? "(missing target)"}{node.lines ? `, lines ${node.lines[0]}–${node.lines[1]}` : ""}</dd>
                       <dt className="text-ink-soft">Status</dt><dd>{node.status}</dd>
-                      <dt className="text-ink-soft">Filed</dt><dd>{node.filedAt ? new Date(node.filedAt).toLocaleString("en-GB") : "not yet"}</dd>
+                      <dt className="text-ink-soft">Filed</dt><dd>{node.filedAt ? when(node.filedAt) : "not yet"}</dd>
                       <dt className="text-ink-soft">Sponsors</dt><dd>{node.sponsors.join(", ") || "none"}</dd>
                     </>
                   )}

@@ -6,6 +6,7 @@
 import { z } from "zod";
 import { escapeHtml } from "../text/escape-html.ts";
 import type { RenderedMail } from "./render-ruling-mail.ts";
+import { formatDate } from "../text/dates.ts";
 
 export const floorDigestSchema = z.object({
   sitting: z.string().trim().min(1).max(200),
@@ -24,11 +25,13 @@ const SEVERITY: Record<FloorDigest["findings"][number]["severity"], string> = { 
 
 export function renderFloorDigest(input: { chamberName: string; digest: FloorDigest; unsubscribeUrl: string | null }): RenderedMail {
   const d = input.digest;
-  const subject = `${input.chamberName}: floor-day digest — ${d.sitting}, ${d.date}`.slice(0, 250);
+  // A calendar date: the same day in every zone (dates.ts keeps a bare date whole).
+  const day = formatDate(d.date, { timeZone: "UTC" }) || d.date;
+  const subject = `${input.chamberName}: floor-day digest — ${d.sitting}, ${day}`.slice(0, 250);
   const findingLine = (f: FloorDigest["findings"][number]) => `${SEVERITY[f.severity]}${f.code ? ` [${f.code}]` : ""}${f.subject ? ` ${f.subject}:` : ":"} ${f.message}`;
   const text = [
     `${input.chamberName} — floor-day digest`,
-    `${d.sitting}, ${d.date}${d.measure ? ` — ${d.measure}` : ""}`,
+    `${d.sitting}, ${day}${d.measure ? ` — ${d.measure}` : ""}`,
     "",
     ...(d.note ? [d.note, ""] : []),
     `Findings (${d.findings.length}):`,
@@ -44,7 +47,7 @@ export function renderFloorDigest(input: { chamberName: string; digest: FloorDig
   const html = [
     `<!doctype html><html><body style="font-family:Georgia,serif;color:#16302b;max-width:40rem">`,
     `<h1 style="font-size:1.3rem">${e(input.chamberName)} — floor-day digest</h1>`,
-    `<p>${e(d.sitting)}, ${e(d.date)}${d.measure ? ` — ${e(d.measure)}` : ""}</p>`,
+    `<p>${e(d.sitting)}, ${e(day)}${d.measure ? ` — ${e(d.measure)}` : ""}</p>`,
     ...(d.note ? [`<p>${e(d.note)}</p>`] : []),
     `<h2 style="font-size:1.1rem">Findings (${d.findings.length})</h2>`,
     d.findings.length ? `<ul>${d.findings.map((f) => `<li>${e(findingLine(f))}</li>`).join("")}</ul>` : "<p>None.</p>",

@@ -6,6 +6,7 @@
 import { escapeHtml } from "../text/escape-html.ts";
 import { appealOutcome, APPEAL_OUTCOME_LABELS } from "./appeal-outcome.ts";
 import { DECISION_LABELS, type AppealTally, type Decision } from "./ruling-content.ts";
+import { formatDate } from "../text/dates.ts";
 
 export interface RulingForMail {
   number: number;
@@ -48,7 +49,7 @@ export function renderRulingMail(input: { chamberName: string; ruling: RulingFor
   const r = input.ruling;
   const title = `Ruling ${r.number}${r.revision > 1 ? ` (revision ${r.revision})` : ""}`;
   const subject = `${input.chamberName}: ${title} — ${r.targetLabel}`.slice(0, 250);
-  const when = [r.sitting, r.sittingDate].filter(Boolean).join(", ");
+  const when = [r.sitting, r.sittingDate ? formatDate(r.sittingDate, { timeZone: "UTC" }) || r.sittingDate : null].filter(Boolean).join(", ");
   const rows: Array<[string, string]> = [
     ["Sitting", when || "—"],
     ["Raised by", r.raisedByName],

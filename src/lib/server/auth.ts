@@ -120,6 +120,8 @@ export const auth = betterAuth({
       allowUserToCreateOrganization: () => openSignup(),
       invitationExpiresIn: 7 * 24 * 60 * 60,
       cancelPendingInvitationsOnReInvite: true,
+      // The chamber's time zone, in which every date is shown (src/lib/text/dates.ts); not settable through the auth API.
+      schema: { organization: { additionalFields: { timeZone: { type: "string", required: false, defaultValue: "UTC", input: false } } } },
       async sendInvitationEmail(data) {
         const url = `${baseUrl()}/invitations/${data.id}`;
         const roleLabel = isChamberRole(data.role) ? ROLE_LABELS[data.role] : data.role;

@@ -16,7 +16,7 @@ export interface RequestContext {
 
 export async function chambersOf(userId: string): Promise<App.Locals["chambers"]> {
   const rows = await db
-    .select({ id: organization.id, name: organization.name, slug: organization.slug, role: member.role })
+    .select({ id: organization.id, name: organization.name, slug: organization.slug, timeZone: organization.timeZone, role: member.role })
     .from(member)
     .innerJoin(organization, eq(member.organizationId, organization.id))
     .where(eq(member.userId, userId))
@@ -37,7 +37,7 @@ export async function loadContext(headers: Headers): Promise<RequestContext> {
   return {
     user: s.user,
     session: s.session,
-    chamber: active ? { id: active.id, name: active.name, slug: active.slug } : null,
+    chamber: active ? { id: active.id, name: active.name, slug: active.slug, timeZone: active.timeZone } : null,
     role: active?.role ?? null,
     chambers,
   };

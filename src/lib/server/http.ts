@@ -29,11 +29,15 @@ export function json(body: unknown, status = 200, headers: Record<string, string
 
 /** Connection-level database failures (server restarting, network cut): retryable, not our fault. */
 export function isDatabaseUnavailable(e: unknown): boolean {
-  const err = (e as { cause?: unknown })?.cause ?? e;
-  const code = String((err as { code?: unknown })?.code ?? "");
-  if (["ECONNREFUSED", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "CONNECTION_CLOSED", "CONNECT_TIMEOUT", "57P01", "57P02", "57P03"].includes(code) || code.startsWith("08")) return true;
-  // A reset socket is the database's only under a query (a crashing server); a client hanging up resets too.
-  return ["ECONNRESET", "EPIPE", "ETIMEDOUT"].includes(code) && (err !== e || typeof (e as { query?: unknown }).query === "string");
+  // The driver's error may come wrapped (Drizzle's query error, better-auth's "failed to get session"): follow the causes.
+  for (let outer = e, depth = 0; outer && typeof outer === "object" && depth < 4; outer = (outer as { cause?: unknown }).cause, depth++) {
+    const err = (outer as { cause?: unknown }).cause ?? outer;
+    const code = String((err as { code?: unknown })?.code ?? "");
+    if (["ECONNREFUSED", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "CONNECTION_CLOSED", "CONNECT_TIMEOUT", "57P01", "57P02", "57P03"].includes(code) || /^08[0-9A-Z]{3}$/.test(code)) return true;
+    // A reset socket is the database's only under a query (a crashing server); a client hanging up resets too.
+    if (["ECONNRESET", "EPIPE", "ETIMEDOUT"].includes(code) && (err !== outer || typeof (outer as { query?: unknown }).query === "string")) return true;
+  }
+  return false;
 }
 
 /** The client closed the connection while its request was read: nobody waits for the answer. */

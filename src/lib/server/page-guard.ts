@@ -1,22 +1,48 @@
 /**
- * The door of a detail page (/measures/[id], /rulings/[id] …): sign in first (back here after),
- * work in a chamber, then load the record in the actor's chamber. A record of another chamber,
- * or none, answers 404 as its API does, never an empty page.
+ * The one door of every page that needs a chamber (decision 0008):
+ *
+ * - not signed in: redirect to /sign-in, back here after;
+ * - signed in but in no chamber: redirect to /chambers;
+ * - signed in but not permitted (`permission` not held by the role): the page /not-permitted is
+ *   rendered in place (status 403, inside the app's layout, saying which roles may open it, with
+ *   a way back), the same answer on every page;
+ * - otherwise the actor.
+ *
+ * `guardPage` is the door of a list or form page; `guardDetailPage` also loads the record in the
+ * actor's chamber, where another chamber's record, or none, answers 404 as its API does.
  */
 import type { AstroGlobal } from "astro";
 import { isGavelError, type GavelError } from "../errors.ts";
-import type { Permission } from "../permissions.ts";
-import { requireActor, type Actor } from "./http.ts";
+import { can, type Permission } from "../permissions.ts";
+import type { Actor } from "./http.ts";
 
-type PageContext = Pick<AstroGlobal, "locals" | "url" | "redirect" | "response">;
+type PageContext = Pick<AstroGlobal, "locals" | "url" | "redirect" | "response" | "rewrite">;
 
-interface GuardOptions<T> {
-  /** Loads the record for the actor; throws GavelError "not-found" when the chamber has none. */
-  load: (actor: Actor) => Promise<T>;
-  /** Checked on the actor before loading (omit for any role of the chamber). */
+interface PageGuardOptions {
+  /** Checked on the actor (omit for any role of the chamber). */
   permission?: Permission;
   /** Keep the query string in the sign-in `next` link (pages addressed by their query). */
   nextWithSearch?: boolean;
+}
+
+/** The answer to "signed in but not permitted": /not-permitted rendered in place, status 403. */
+export function notPermitted(astro: PageContext, permission: Permission): Promise<Response> {
+  const q = new URLSearchParams({ from: astro.url.pathname, need: permission });
+  return astro.rewrite(`/not-permitted?${q}`);
+}
+
+/** The door of a page: a Response to return at once (redirect or refusal), or who is asking. */
+export async function guardPage(astro: PageContext, options: PageGuardOptions = {}): Promise<Response | { actor: Actor }> {
+  const { user, chamber, role } = astro.locals;
+  if (!user) return astro.redirect(`/sign-in?next=${encodeURIComponent(astro.url.pathname + (options.nextWithSearch ? astro.url.search : ""))}`);
+  if (!chamber || !role) return astro.redirect("/chambers");
+  if (options.permission && !can(role, options.permission)) return notPermitted(astro, options.permission);
+  return { actor: { user, chamber, role } };
+}
+
+interface GuardOptions<T> extends PageGuardOptions {
+  /** Loads the record for the actor; throws GavelError "not-found" when the chamber has none. */
+  load: (actor: Actor) => Promise<T>;
   /** Other GavelErrors (bad query input) answer 400 with their message instead of failing the page. */
   badInputAs400?: boolean;
 }
@@ -33,10 +59,9 @@ interface Guarded<T> {
 export async function guardDetailPage<T>(astro: PageContext, options: GuardOptions<T> & { notFound: "render" }): Promise<Response | Guarded<T | null>>;
 export async function guardDetailPage<T>(astro: PageContext, options: GuardOptions<T> & { notFound: string | ((e: GavelError) => string) }): Promise<Response | Guarded<T>>;
 export async function guardDetailPage<T>(astro: PageContext, options: GuardOptions<T> & { notFound: string | ((e: GavelError) => string) }): Promise<Response | Guarded<T | null>> {
-  const { user, chamber, role } = astro.locals;
-  if (!user) return astro.redirect(`/sign-in?next=${encodeURIComponent(astro.url.pathname + (options.nextWithSearch ? astro.url.search : ""))}`);
-  if (!chamber || !role) return astro.redirect("/chambers");
-  const actor = requireActor(astro.locals, options.permission);
+  const door = await guardPage(astro, options);
+  if (door instanceof Response) return door;
+  const { actor } = door;
   try {
     return { actor, data: await options.load(actor) };
   } catch (e) {

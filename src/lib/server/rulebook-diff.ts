@@ -6,6 +6,8 @@
  * Pure; works on the JSON documents as stored, so key order never counts as a change.
  */
 
+import { canonicalJson } from "../text/canonical-json.ts";
+
 export const DIFF_SECTIONS = ["metadata", "chamber", "source", "motions", "precedence", "amendments", "voting", "rules"] as const;
 export type DiffSection = (typeof DIFF_SECTIONS)[number];
 
@@ -35,20 +37,6 @@ export interface RulebookDiff {
 }
 
 type Doc = Record<string, unknown>;
-
-/** JSON text with object keys sorted, so two equal values always print the same. */
-export function canonicalJson(v: unknown): string {
-  if (Array.isArray(v)) return `[${v.map(canonicalJson).join(",")}]`;
-  if (v !== null && typeof v === "object") {
-    const o = v as Record<string, unknown>;
-    return `{${Object.keys(o)
-      .filter((k) => o[k] !== undefined)
-      .sort()
-      .map((k) => `${JSON.stringify(k)}:${canonicalJson(o[k])}`)
-      .join(",")}}`;
-  }
-  return JSON.stringify(v ?? null);
-}
 
 const same = (a: unknown, b: unknown) => canonicalJson(a) === canonicalJson(b);
 const asDoc = (v: unknown): Doc => (v !== null && typeof v === "object" && !Array.isArray(v) ? (v as Doc) : {});

@@ -6,6 +6,8 @@
 import { createHash } from "node:crypto";
 import { GavelError, isGavelError } from "../errors.ts";
 import { readBody } from "./http.ts";
+import { MAX_RULEBOOK_BYTES } from "../procedure/parse-rulebook.ts";
+import { decodeCsv, MAX_CSV_BYTES } from "../estimates/csv-text.ts";
 
 export const MAX_UPLOAD_BYTES = 5 * 1024 * 1024;
 /** Multipart framing and the small form fields sent beside the file. */
@@ -141,4 +143,26 @@ export async function checkDocument(file: UploadedFile): Promise<CheckedDocument
   const text = await extractDocumentText(kind, file);
   const filename = file.filename.replace(/[^\w .()-]+/g, "_").slice(0, 200) || "upload";
   return { filename, kind, mediaType: MEDIA_TYPES[kind], size: file.bytes.length, sha256: createHash("sha256").update(file.bytes).digest("hex"), bytes: file.bytes, text };
+}
+
+/** Read a rulebook upload (multipart: field "file", plus basedOn and note): size-checked before and while reading. The route calls this; services/rulebooks.ts importVersion takes the form. */
+export async function readRulebookUpload(request: Request): Promise<FormData> {
+  const type = request.headers.get("content-type") ?? "";
+  if (!/^multipart\/form-data\b/i.test(type)) throw new GavelError("invalid-input", "Send the rulebook as a file upload (multipart/form-data, field \"file\").", { issues: [{ path: "(content-type)", message: `expected multipart/form-data, got ${type || "nothing"}` }] });
+  // The form carries the file plus two short fields; refuse an oversize body before reading it.
+  const declared = Number(request.headers.get("content-length") ?? 0);
+  if (declared > MAX_RULEBOOK_BYTES + 64 * 1024) throw new GavelError("too-large", `The upload is ${declared} bytes; a rulebook file may be at most ${MAX_RULEBOOK_BYTES} bytes.`, { issues: [{ path: "file", message: "too large" }] });
+  try {
+    return await new Response(await readBody(request, MAX_RULEBOOK_BYTES + 64 * 1024, "the upload"), { headers: { "content-type": type } }).formData();
+  } catch (e) {
+    if (isGavelError(e)) throw e;
+    throw new GavelError("invalid-input", "The upload could not be read as a form.", { issues: [{ path: "(body)", message: "not a readable multipart form" }] });
+  }
+}
+
+/** Read a CSV file sent as the body itself (Content-Type text/csv), size-checked, as text. The route calls this; services/estimates.ts importCsv takes the text. */
+export async function readCsvUpload(request: Request): Promise<string> {
+  const type = request.headers.get("content-type") ?? "";
+  if (!/^(text\/csv|text\/plain|application\/octet-stream)\b/i.test(type)) throw new GavelError("invalid-input", "send the CSV file itself with Content-Type: text/csv", { issues: [{ path: "(content-type)", message: `expected text/csv, got ${type || "nothing"}` }] });
+  return decodeCsv(await readBody(request, MAX_CSV_BYTES, "the file"));
 }

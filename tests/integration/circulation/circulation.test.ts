@@ -6,7 +6,7 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { eq, sql as dsql } from "drizzle-orm";
 import { db } from "../../../src/lib/server/db.ts";
 import { deliverOutbox, enqueueMail } from "../../../src/lib/server/mail.ts";
-import { outbox, caughtMail } from "../../../src/lib/db/schema/mail.ts";
+import { outbox, caughtMail, distributionLists } from "../../../src/lib/db/schema/mail.ts";
 import { rulings } from "../../../src/lib/db/schema/rulings.ts";
 import { startMailCatcher, type CaughtMessage, type MailCatcher } from "../../../src/lib/server/dev/mail-catcher.ts";
 import { DEMO_ACCOUNTS } from "../../../src/lib/server/seed/demo-data.ts";
@@ -90,15 +90,7 @@ describe("distribution lists", () => {
     expect(await tableCounts()).toEqual(before);
   });
 
-  it("lets staff and clerks keep lists; members and observers 403; anonymous 401; other chamber 404", async () => {
-    const before = await tableCounts();
-    for (const role of ["member", "observer"] as const) {
-      expect((await call(lists.POST, "POST", "/api/circulation/lists", { as: s.as[role], body: { name: "Nope" } })).status, role).toBe(403);
-      expect((await call(lists.GET, "GET", "/api/circulation/lists", { as: s.as[role] })).status, role).toBe(403);
-    }
-    expect((await call(lists.POST, "POST", "/api/circulation/lists", { as: null, body: { name: "Nope" } })).status).toBe(401);
-    expect((await call(lists.GET, "GET", "/api/circulation/lists", { as: null })).status).toBe(401);
-    expect(await tableCounts()).toEqual(before);
+  it("lets staff and clerks keep lists; the other chamber gets 404 (roles and anonymous: tests/access)", async () => {
     const l = await makeList(s.as.staff, { name: "Whips", entries: [{ kind: "role", role: "member" }, { kind: "user", userId: s.as.observer.userId }] });
     const dup = await call(lists.POST, "POST", "/api/circulation/lists", { as: s.as.clerk, body: { name: "Whips" } });
     expect(dup.status).toBe(409);
@@ -108,7 +100,6 @@ describe("distribution lists", () => {
     const upd = await call(listOne.PUT, "PUT", `/api/circulation/lists/${l.id}`, { as: s.as["chief-clerk"], params: p, body: { version: l.version, name: "Whips' office", entries: [] } });
     expect(upd.status).toBe(200);
     expect((await call(listOne.PUT, "PUT", `/api/circulation/lists/${l.id}`, { as: s.as.staff, params: p, body: { version: l.version, name: "Stale", entries: [] } })).status).toBe(409);
-    for (const role of ["member", "observer"] as const) expect((await call(listOne.DELETE, "DELETE", `/api/circulation/lists/${l.id}`, { as: s.as[role], params: p })).status, role).toBe(403);
     expect((await call(listOne.GET, "GET", `/api/circulation/lists/${l.id}`, { as: s.outsider, params: p })).status).toBe(404);
     expect((await call(listOne.PUT, "PUT", `/api/circulation/lists/${l.id}`, { as: s.outsider, params: p, body: { version: 2, name: "Mine", entries: [] } })).status).toBe(404);
     expect((await call(listOne.DELETE, "DELETE", `/api/circulation/lists/${l.id}`, { as: s.outsider, params: p })).status).toBe(404);
@@ -126,11 +117,9 @@ describe("sending a ruling", () => {
     press = await makeList(s.as.staff, { name: "Press gallery", entries: [{ kind: "address", email: "desk@courier.example.org", name: "Courier" }, { kind: "address", email: "wire@fenland.example.org" }, { kind: "role", role: "staff" }] });
   });
 
-  it("only staff and clerks send; anonymous 401; the other chamber 404; drafts are not sent", async () => {
+  it("staff and clerks send; the other chamber gets 404; drafts are not sent (roles and anonymous: tests/access)", async () => {
     const r = await issuedRuling();
     const before = await tableCounts();
-    for (const role of ["member", "observer"] as const) expect((await call(send.POST, "POST", "/api/circulation", { as: s.as[role], body: { rulingId: r.id, listId: press.id } })).status, role).toBe(403);
-    expect((await call(send.POST, "POST", "/api/circulation", { as: null, body: { rulingId: r.id, listId: press.id } })).status).toBe(401);
     expect((await call(send.POST, "POST", "/api/circulation", { as: s.outsider, body: { rulingId: r.id, listId: press.id } })).status).toBe(404);
     const draft = await call(rulingIndex.POST, "POST", "/api/rulings", { as: s.as.clerk, body: rulingBody(raiserId) });
     const afterDraft = await tableCounts();
@@ -139,6 +128,23 @@ describe("sending a ruling", () => {
     expect(await tableCounts()).toEqual(afterDraft);
     expect(afterDraft.rulings).toBe(before.rulings + 1);
     for (const role of ["staff", "clerk", "chief-clerk"] as const) expect((await call(send.POST, "POST", "/api/circulation", { as: s.as[role], body: { rulingId: r.id, listId: clerksDesk.id } })).status, role).toBe(201);
+  });
+
+  it("refuses to send to a list whose stored entries are damaged (a logged 500), queueing nothing, never sending to nobody", async () => {
+    // Common practice, no source: a stored value that fails its schema is a server fault, not an empty list.
+    const r = await issuedRuling();
+    const broken = await makeList(s.as.staff, { name: "Damaged list", entries: [{ kind: "role", role: "staff" }] });
+    await db.update(distributionLists).set({ entries: dsql`'[{"kind":"role","role":"speaker"}]'::jsonb` }).where(eq(distributionLists.id, broken.id));
+    try {
+      const before = await tableCounts();
+      const res = await call(send.POST, "POST", "/api/circulation", { as: s.as.staff, body: { rulingId: r.id, listId: broken.id } });
+      expect(res.status).toBe(500);
+      expect(res.body.error.code).toBe("internal");
+      expect(await tableCounts()).toEqual(before);
+      expect((await call(listOne.GET, "GET", `/api/circulation/lists/${broken.id}`, { as: s.as.staff, params: { id: broken.id } })).status).toBe(500);
+    } finally {
+      await db.delete(distributionLists).where(eq(distributionLists.id, broken.id));
+    }
   });
 
   it("delivers HTML and plain text to exactly the list's recipients, user text escaped", async () => {
@@ -165,9 +171,7 @@ describe("sending a ruling", () => {
     expect(page.body.circulations[0].messages).toHaveLength(3);
     const asMember = await call(rulingOne.GET, "GET", `/api/rulings/${r.id}`, { as: s.as.member, params: { id: r.id } });
     expect(asMember.body.circulations).toEqual([]);
-    for (const role of ["member", "observer"] as const) expect((await call(circulationOne.GET, "GET", `/api/circulation/${sent.body.id}`, { as: s.as[role], params: { id: sent.body.id } })).status, role).toBe(403);
     expect((await call(circulationOne.GET, "GET", `/api/circulation/${sent.body.id}`, { as: s.outsider, params: { id: sent.body.id } })).status).toBe(404);
-    expect((await call(circulationOne.GET, "GET", `/api/circulation/${sent.body.id}`, { as: null, params: { id: sent.body.id } })).status).toBe(401);
     const recent = await call(send.GET, "GET", "/api/circulation", { as: s.as.staff });
     expect(recent.body.circulations[0]).toMatchObject({ id: sent.body.id, status: { sent: 3 } });
     expect((await call(send.GET, "GET", "/api/circulation", { as: s.outsider })).body.circulations).toEqual([]);
@@ -228,9 +232,7 @@ describe("sending a ruling", () => {
     const [u] = await db.select().from(outbox).where(eq(outbox.id, victim.id));
     expect(u.status).toBe("uncertain");
     expect(inbox.filter((m) => m.messageId === victim.messageId)).toHaveLength(0);
-    for (const role of ["member", "observer"] as const) expect((await call(retry.POST, "POST", `/api/circulation/messages/${victim.id}/retry`, { as: s.as[role], params: { id: victim.id } })).status, role).toBe(403);
     expect((await call(retry.POST, "POST", `/api/circulation/messages/${victim.id}/retry`, { as: s.outsider, params: { id: victim.id } })).status).toBe(404);
-    expect((await call(retry.POST, "POST", `/api/circulation/messages/${victim.id}/retry`, { as: null, params: { id: victim.id } })).status).toBe(401);
     const ok = await call(retry.POST, "POST", `/api/circulation/messages/${victim.id}/retry`, { as: s.as.staff, params: { id: victim.id } });
     expect(ok.status).toBe(200);
     await drain();
@@ -265,7 +267,7 @@ describe("sending a ruling", () => {
 });
 
 describe("floor-day digest", () => {
-  it("goes to the clerks' list with the findings and the proposed order; only staff and clerks may send it", async () => {
+  it("goes to the clerks' list with the findings and the proposed order", async () => {
     const body = {
       sitting: "Sixth sitting",
       date: "2026-04-08",
@@ -274,8 +276,6 @@ describe("floor-day digest", () => {
       proposedOrder: [{ label: "Amendment 2 to Amendment 1" }, { label: "Amendment 1 as amended" }, { label: "Passage" }],
     };
     const before = await tableCounts();
-    for (const role of ["member", "observer"] as const) expect((await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as[role], body })).status, role).toBe(403);
-    expect((await call(digest.POST, "POST", "/api/circulation/digest", { as: null, body })).status).toBe(401);
     const bad = await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as.clerk, body: { ...body, date: "soon", findings: [{ severity: "fatal", message: "" }] } });
     expect(bad.status).toBe(400);
     expect(bad.body.error.issues.map((i: { path: string }) => i.path).sort()).toEqual(["date", "findings.0.message", "findings.0.severity"]);

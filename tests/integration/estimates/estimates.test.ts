@@ -37,10 +37,8 @@ beforeAll(async () => {
 });
 
 describe("create and read", () => {
-  it("refuses anonymous (401), observers (403) and bad input (400) without storing anything", async () => {
+  it("refuses bad input (400, 422) without storing anything (roles and anonymous: tests/access)", async () => {
     const before = await tableCounts();
-    expect((await call(list.POST, "POST", "/api/estimates", { body: {} })).status).toBe(401);
-    expect((await create("observer")).status).toBe(403);
     expect((await create("clerk", { title: "" })).status).toBe(400);
     expect((await create("clerk", { scope: ["A99"] })).status).toBe(422);
     expect((await create("clerk", { content: content([{ member: "x", bloc: "", weight: 1, ranking: ["B+Z"] }]) })).status).toBe(422);
@@ -49,9 +47,9 @@ describe("create and read", () => {
   });
 
   it("lets each role that may create estimates create one; the other chamber cannot see the measure", async () => {
-    for (const r of ROLES) {
+    for (const r of ROLES.filter((x) => CREATORS.has(x))) {
       const res = await create(r);
-      expect(res.status, r).toBe(CREATORS.has(r) ? 201 : 403);
+      expect(res.status, r).toBe(201);
     }
     const out = await call(list.POST, "POST", "/api/estimates", { as: s.outsider, body: { measureId, title: "x", scope: [], content: content([{ member: "x", bloc: "", weight: 1, ranking: ["Q"] }]) } });
     expect(out.status).toBe(404);
@@ -66,7 +64,6 @@ describe("create and read", () => {
       expect(listed.some((e) => e.id === mine), r).toBe(false);
     }
     expect((await call(one.GET, "GET", `/api/estimates/${mine}`, { as: s.outsider, params: { id: mine } })).status).toBe(404);
-    expect((await call(one.GET, "GET", `/api/estimates/${mine}`, { params: { id: mine } })).status).toBe(401);
   });
 
   it("shows the seeded estimate, shared with the chamber, to every role but not to the other chamber", async () => {
@@ -107,14 +104,13 @@ describe("versions, duplicates and sharing", () => {
     expect((await call(sharing.PUT, "PUT", "/x", { as: s.as.staff, params: { id }, body: { sharedRoles: ["observer"], sharedUsers: [] } })).status).toBe(403);
   });
 
-  it("duplicates a visible estimate into a private copy of the duplicator; observers cannot", async () => {
+  it("duplicates a visible estimate into a private copy of the duplicator", async () => {
     const res = await call(duplicate.POST, "POST", "/x", { as: s.as.member, params: { id: seeded.ballotsId }, body: { title: "My variant" } });
     expect(res.status).toBe(201);
     const copy = (await call(one.GET, "GET", "/x", { as: s.as.member, params: { id: res.body.id } })).body;
     expect(copy.estimate.private).toBe(true);
     expect(copy.version.content.rows).toHaveLength(40);
     expect((await call(one.GET, "GET", "/x", { as: s.as.clerk, params: { id: res.body.id } })).status).toBe(404);
-    expect((await call(duplicate.POST, "POST", "/x", { as: s.as.observer, params: { id: seeded.ballotsId }, body: {} })).status).toBe(403);
   });
 });
 
@@ -130,7 +126,6 @@ describe("CSV template and upload", () => {
     expect(p.body.content.rows.map((r: { member: string }) => r.member).sort()).toEqual(["Civic Reform", "Harbour Progressives", "Independents", "Moorland Union"]);
     expect(p.body.content.rows.reduce((a: number, r: { weight: number }) => a + r.weight, 0)).toBe(40);
     expect((await call(template.GET, "GET", "/x", { as: s.outsider, query: { measureId } })).status).toBe(404);
-    expect((await call(template.GET, "GET", "/x", { query: { measureId } })).status).toBe(401);
   });
 
   it("lists the versions of a scope for the editor", async () => {
@@ -159,8 +154,6 @@ describe("CSV template and upload", () => {
       expect(r.body.error.code, what).toBe("invalid-input");
       expect(r.body.error.issues[0].path, what).toBe(path);
     }
-    expect((await csv(good, { title: "x" }, s.as.observer)).status).toBe(403);
-    expect((await call(importRoute.POST, "POST", "/x", { rawBody: good, headers: { "content-type": "text/csv" }, query: { measureId } })).status).toBe(401);
     expect((await csv(good, { title: "x" }, s.outsider)).status).toBe(404);
     expect((await call(importRoute.POST, "POST", "/x", { as: s.as.clerk, rawBody: good, headers: { "content-type": "application/json" }, query: { measureId, title: "x" } })).status).toBe(400);
     expect(await tableCounts()).toEqual(before);

@@ -74,16 +74,11 @@ describe("chamber roles", () => {
       expect(r.status, role).toBe(200);
       expect(r.body.members.length).toBe(5);
     }
-    expect((await call(people.GET, "GET", "/api/people", { as: null })).status).toBe(401);
     const other = await call(people.GET, "GET", "/api/people", { as: s.outsider });
     expect(other.body.members.map((m: { email: string }) => m.email)).toEqual(["chief.clerk@saltreach.example"]);
   });
 
-  it("lets only the chief clerk invite, validates the input, and mails the invitation", async () => {
-    for (const role of ["clerk", "member", "staff", "observer"] as const) {
-      const r = await call(invitations.POST, "POST", "/api/people/invitations", { as: s.as[role], body: { email: "new@example.org", role: "member" } });
-      expect(r.status, role).toBe(403);
-    }
+  it("lets the chief clerk invite, validates the input, and mails the invitation (other roles: tests/access)", async () => {
     const bad = await call(invitations.POST, "POST", "/api/people/invitations", { as: s.as["chief-clerk"], body: { email: "nope", role: "speaker" } });
     expect(bad.status).toBe(400);
     expect(bad.body.error.issues.map((i: { path: string }) => i.path).sort()).toEqual(["email", "role"]);
@@ -115,11 +110,10 @@ describe("chamber roles", () => {
     expect(await db.select().from(member).where(eq(member.userId, lateUser.userId))).toEqual([]);
   });
 
-  it("lets only the chief clerk change roles, never leaving the chamber without one", async () => {
+  it("lets the chief clerk change roles, never leaving the chamber without one (other roles: tests/access)", async () => {
     const list = await call(people.GET, "GET", "/api/people", { as: s.as["chief-clerk"] });
     const obs = list.body.members.find((m: { email: string }) => m.email === "observer@harrowmere.example");
     const chief = list.body.members.find((m: { email: string }) => m.email === "chief.clerk@harrowmere.example");
-    expect((await call(memberRoute.PATCH, "PATCH", `/api/people/members/${obs.id}`, { as: s.as.clerk, params: { id: obs.id }, body: { role: "clerk" } })).status).toBe(403);
     // Another chamber's chief clerk cannot even see this member: 404, not 403.
     expect((await call(memberRoute.PATCH, "PATCH", `/api/people/members/${obs.id}`, { as: s.outsider, params: { id: obs.id }, body: { role: "clerk" } })).status).toBe(404);
     const last = await call(memberRoute.PATCH, "PATCH", `/api/people/members/${chief.id}`, { as: s.as["chief-clerk"], params: { id: chief.id }, body: { role: "clerk" } });

@@ -87,3 +87,22 @@ describe("a client that hangs up", () => {
     expect(errorResponse(dbReset).status).toBe(503);
   });
 });
+
+describe("a database outage and a bug", () => {
+  // Common practice, no source: 503 tells a client to retry; a bug must not look retryable.
+  it("an outage seen through better-auth's or Drizzle's wrapper is still an outage (503); a bug is a 500", () => {
+    const refused = Object.assign(new Error("connect ECONNREFUSED 127.0.0.1:54339"), { code: "ECONNREFUSED" });
+    const drizzleWrapped = Object.assign(new Error("Failed query: select 1"), { query: "select 1", cause: refused });
+    const authWrapped = Object.assign(new Error("Failed to get session"), { status: "INTERNAL_SERVER_ERROR", cause: drizzleWrapped });
+    expect(isDatabaseUnavailable(authWrapped)).toBe(true);
+    expect(errorResponse(authWrapped).status).toBe(503);
+    const shutdown = Object.assign(new Error("terminating connection due to administrator command"), { code: "57P01" });
+    expect(isDatabaseUnavailable(Object.assign(new Error("Failed to get session"), { cause: shutdown }))).toBe(true);
+    const bug = new TypeError("Cannot read properties of undefined (reading 'id')");
+    expect(isDatabaseUnavailable(bug)).toBe(false);
+    expect(errorResponse(bug).status).toBe(500);
+    const badSql = Object.assign(new Error("Failed query"), { query: "select nope", cause: Object.assign(new Error('column "nope" does not exist'), { code: "42703" }) });
+    expect(isDatabaseUnavailable(badSql)).toBe(false);
+    expect(errorResponse(badSql).status).toBe(500);
+  });
+});

@@ -67,9 +67,9 @@ describe("the operator's command", () => {
     delete process.env.GAVELWRIGHT_OPEN_SIGNUP;
     const c = await createChamber({ name: "North Vale Council", timeZone: "Europe/London", chiefClerk: "Stranger-Chamber@example.org" });
     expect(c).toMatchObject({ slug: "north-vale-council", timeZone: "Europe/London", chiefClerk: { userId: stranger.userId } });
-    const [row] = await sql`SELECT o.metadata, m.role, m.user_id FROM organization o JOIN member m ON m.organization_id = o.id WHERE o.id = ${c.id}`;
+    const [row] = await sql`SELECT o.time_zone, m.role, m.user_id FROM organization o JOIN member m ON m.organization_id = o.id WHERE o.id = ${c.id}`;
     expect(row!.role).toBe("chief-clerk");
-    expect(JSON.parse(row!.metadata as string)).toEqual({ timeZone: "Europe/London" });
+    expect(row!.time_zone).toBe("Europe/London");
   });
 
   it("runs as `npm run chamber:create` (exit 2 naming the bad argument, 0 with the chamber as JSON)", () => {

@@ -48,12 +48,10 @@ afterAll(async () => {
 });
 
 describe("filing amendments", () => {
-  it("lets chief clerk, clerk and member file; refuses staff, observer (403), anonymous (401) and the other chamber (404), changing nothing", async () => {
+  it("lets chief clerk, clerk and member file; refuses the other chamber (404), changing nothing (other roles and anonymous: tests/access)", async () => {
     const m = await newMeasure("HCA 100");
     for (const role of ["chief-clerk", "clerk", "member"] as const) expect((await file(m.id, {}, s.as[role])).status, role).toBe(201);
     const before = await tableCounts();
-    for (const role of ["staff", "observer"] as const) expect((await file(m.id, {}, s.as[role])).status, role).toBe(403);
-    expect((await file(m.id, {}, null as never)).status).toBe(401);
     expect((await file(m.id, {}, s.outsider)).status).toBe(404);
     expect(await tableCounts()).toEqual(before);
     for (const role of ROLES) expect((await call(filing.GET, "GET", "/x", { as: s.as[role], params: { id: m.id } })).body.amendments.map((a: { key: string }) => a.key), role).toEqual(["A1", "A2", "A3"]);
@@ -121,7 +119,6 @@ describe("filing amendments", () => {
     expect(d.body.number).toBeNull();
     expect(await db.select().from(outbox).where(eq(outbox.ref, d.body.id))).toEqual([]);
     await file(m.id, {});
-    expect((await call(fileDraft.POST, "POST", "/x", { as: s.as.staff, params: { id: d.body.id }, body: { version: 1 } })).status).toBe(403);
     expect((await call(fileDraft.POST, "POST", "/x", { as: s.outsider, params: { id: d.body.id }, body: { version: 1 } })).status).toBe(404);
     const filed = await call(fileDraft.POST, "POST", "/x", { as: s.as.member, params: { id: d.body.id }, body: { version: 1 } });
     expect(filed.status).toBe(200);
@@ -138,9 +135,7 @@ describe("editing amendments", () => {
     const params = { id: a.id };
     expect((await call(amendment.GET, "GET", "/x", { as: s.as.observer, params })).body.key).toBe("A1");
     expect((await call(amendment.GET, "GET", "/x", { as: s.outsider, params })).status).toBe(404);
-    expect((await call(amendment.GET, "GET", "/x", { as: null, params })).status).toBe(401);
     const before = await tableCounts();
-    expect((await call(amendment.PATCH, "PATCH", "/x", { as: s.as.staff, params, body: { version: 1, status: "pending" } })).status).toBe(403);
     expect((await call(amendment.PATCH, "PATCH", "/x", { as: s.as.member, params, body: { version: 1, status: "adopted" } })).status).toBe(403);
     expect((await call(amendment.PATCH, "PATCH", "/x", { as: s.outsider, params, body: { version: 1, status: "pending" } })).status).toBe(404);
     expect((await call(amendment.PATCH, "PATCH", "/x", { as: s.as.clerk, params, body: { version: 1, target: a.id } })).status).toBe(422);
@@ -178,7 +173,6 @@ describe("the tree", () => {
 
   it("validates the demo tree under the chamber's rulebook and links findings to amendments", async () => {
     for (const role of ROLES) expect((await call(treeRoute.GET, "GET", "/x", { as: s.as[role], params: { id: demo } })).status, role).toBe(200);
-    expect((await call(treeRoute.GET, "GET", "/x", { as: null, params: { id: demo } })).status).toBe(401);
     expect((await call(treeRoute.GET, "GET", "/x", { as: s.outsider, params: { id: demo } })).status).toBe(404);
     const t = (await call(treeRoute.GET, "GET", "/x", { as: s.as.member, params: { id: demo } })).body;
     const codes = t.findings.map((f: { amendment: string; code: string }) => `${f.amendment}:${f.code}`);
@@ -195,14 +189,12 @@ describe("the tree", () => {
     expect(a2).toMatchObject({ role: "amendment-to-amendment", slot: a2.parent });
   });
 
-  it("records an override resting on a ruling (clerks only), refuses stale or unknown findings, and can revoke it", async () => {
+  it("records an override resting on a ruling, refuses stale or unknown findings, and can revoke it", async () => {
     const t = (await call(treeRoute.GET, "GET", "/x", { as: s.as.clerk, params: { id: demo } })).body;
     const f = t.findings.find((x: { code: string }) => x.code === "not-germane");
     const node = t.nodes.find((n: { key: string }) => n.key === f.amendment);
     const body = { amendmentId: f.amendmentId, code: "not-germane", version: node.version, rulingRef: "Ruling 3 of the Presiding Officer" };
     const before = await tableCounts();
-    for (const role of ["member", "staff", "observer"] as const) expect((await call(overrides.POST, "POST", "/x", { as: s.as[role], params: { id: demo }, body })).status, role).toBe(403);
-    expect((await call(overrides.POST, "POST", "/x", { as: null, params: { id: demo }, body })).status).toBe(401);
     expect((await call(overrides.POST, "POST", "/x", { as: s.outsider, params: { id: demo }, body })).status).toBe(404);
     expect((await call(overrides.POST, "POST", "/x", { as: s.as.clerk, params: { id: demo }, body: { ...body, code: "cycle" } })).status).toBe(422);
     expect((await call(overrides.POST, "POST", "/x", { as: s.as.clerk, params: { id: demo }, body: { ...body, version: node.version + 5 } })).status).toBe(409);
@@ -219,7 +211,6 @@ describe("the tree", () => {
     const log = (await call(auditRoute.GET, "GET", "/x", { as: s.as.observer, params: { id: demo } })).body.entries;
     expect(log[0]).toMatchObject({ entity: "override", action: `overrode not-germane on ${f.amendment}`, actorName: "Odile Fenwright" });
     const p = { id: demo, oid: ok.body.id };
-    expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.as.member, params: p })).status).toBe(403);
     expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.outsider, params: p })).status).toBe(404);
     expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.as.clerk, params: p })).status).toBe(200);
     expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.as.clerk, params: p })).status).toBe(404);

@@ -56,12 +56,10 @@ describe("creating a measure from the page", () => {
 });
 
 describe("editing a measure's fields and sections", () => {
-  it("refuses anonymous (401), members (403), the other chamber (404) and bad sections (400), changing nothing", async () => {
+  it("refuses the other chamber (404) and bad sections (400), changing nothing (other roles and anonymous: tests/access)", async () => {
     const m = await newMeasure("ED 3");
     const before = await tableCounts();
     const body = { version: m.version, title: "New" };
-    expect((await call(measureOne.PATCH, "PATCH", "/x", { as: null, params: { id: m.id }, body })).status).toBe(401);
-    for (const role of ["member", "staff", "observer"] as const) expect((await patch(m.id, body, s.as[role])).status, role).toBe(403);
     expect((await patch(m.id, body, s.outsider)).status).toBe(404);
     expect((await patch(m.id, { version: m.version, sections: [{ id: "s1", text: "a" }, { id: "s1", text: "b" }] })).status).toBe(400);
     expect((await patch(m.id, { version: m.version, sections: [{ id: "bad id!", text: "a" }] })).status).toBe(400);
@@ -107,8 +105,6 @@ describe("editing an amendment", () => {
     const a = filed.body as { id: string; version: number };
     const edit = { version: a.version, form: "strike-and-insert", target: "s2", lines: [1, 1], title: "Lamps", text: "Strike and insert lamps.", subjects: ["finance"], sponsors: [L[0], L[1]] };
     const before = await tableCounts();
-    expect((await call(amendment.PATCH, "PATCH", "/x", { as: null, params: { id: a.id }, body: edit })).status).toBe(401);
-    expect((await call(amendment.PATCH, "PATCH", "/x", { as: s.as.staff, params: { id: a.id }, body: edit })).status).toBe(403);
     expect((await call(amendment.PATCH, "PATCH", "/x", { as: s.outsider, params: { id: a.id }, body: edit })).status).toBe(404);
     expect((await call(amendment.PATCH, "PATCH", "/x", { as: s.as.member, params: { id: a.id }, body: { ...edit, lines: [1, 9] } })).status).toBe(422);
     expect(await tableCounts()).toEqual(before);
@@ -149,7 +145,6 @@ describe("overriding a finding with a picked ruling", () => {
     expect(o.overridden).toBe(true);
     expect([o.overrideRulingId, o.overrideNote]).toEqual([ruling.id, "Germane in substance."]);
 
-    expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.as.member, params: { id: demo, oid: o.overrideId! } })).status).toBe(403);
     expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.outsider, params: { id: demo, oid: o.overrideId! } })).status).toBe(404);
     expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.as.clerk, params: { id: demo, oid: o.overrideId! } })).status).toBe(200);
     const last = (await call(treeRoute.GET, "GET", "/x", { as: s.as.clerk, params: { id: demo } })).body as typeof tree;

@@ -29,13 +29,6 @@ beforeAll(async () => {
 });
 
 describe("creating measures", () => {
-  it("refuses anonymous (401) and roles without measure:edit (403), changing nothing", async () => {
-    const before = await tableCounts();
-    expect((await create({ number: "HCA 90", title: "T" }, null as never)).status).toBe(401);
-    for (const role of ["member", "staff", "observer"] as const) expect((await create({ number: "HCA 90", title: "T" }, s.as[role])).status, role).toBe(403);
-    expect(await tableCounts()).toEqual(before);
-  });
-
   it("rejects bad input with path-precise issues and writes nothing", async () => {
     const before = await tableCounts();
     const r = await create({ number: "", title: "x".repeat(600), sponsors: ["nope"], sittingAt: "tomorrow" });
@@ -71,7 +64,7 @@ describe("creating measures", () => {
 });
 
 describe("reading measures", () => {
-  it("lists and reads for every role of the chamber, 401 anonymous, 404 for the other chamber", async () => {
+  it("lists and reads for every role of the chamber, 404 for the other chamber", async () => {
     const m = (await create({ number: "HCA 23", title: "Readable", text: "Section 1. Words." })).body;
     for (const role of ROLES) {
       const l = await call(list.GET, "GET", "/api/measures", { as: s.as[role] });
@@ -81,8 +74,6 @@ describe("reading measures", () => {
       expect((await call(audit.GET, "GET", `/api/measures/${m.id}/audit`, { as: s.as[role], params: { id: m.id } })).status, role).toBe(200);
       expect((await call(sponsors.GET, "GET", "/api/measures/sponsors", { as: s.as[role] })).body.legislators).toHaveLength(40);
     }
-    expect((await call(list.GET, "GET", "/api/measures", { as: null })).status).toBe(401);
-    expect((await call(one.GET, "GET", `/api/measures/${m.id}`, { as: null, params: { id: m.id } })).status).toBe(401);
     expect((await call(list.GET, "GET", "/api/measures", { as: s.outsider })).body.measures).toEqual([]);
     expect((await call(one.GET, "GET", `/api/measures/${m.id}`, { as: s.outsider, params: { id: m.id } })).status).toBe(404);
     expect((await call(audit.GET, "GET", `/api/measures/${m.id}/audit`, { as: s.outsider, params: { id: m.id } })).status).toBe(404);
@@ -113,11 +104,9 @@ describe("editing measures: versions and audit", () => {
     expect(log.body.entries.map((e: { action: string }) => e.action)).toEqual(["edited", "created"]);
   });
 
-  it("refuses edits by other roles and by the other chamber", async () => {
+  it("refuses edits by the other chamber and without a version (other roles: tests/access)", async () => {
     const m = (await create({ number: "HCA 31", title: "Guarded" })).body;
     const before = await tableCounts();
-    for (const role of ["member", "staff", "observer"] as const) expect((await call(one.PATCH, "PATCH", `/api/measures/${m.id}`, { as: s.as[role], params: { id: m.id }, body: { version: 1, title: "X" } })).status, role).toBe(403);
-    expect((await call(one.PATCH, "PATCH", `/api/measures/${m.id}`, { as: null, params: { id: m.id }, body: { version: 1, title: "X" } })).status).toBe(401);
     expect((await call(one.PATCH, "PATCH", `/api/measures/${m.id}`, { as: s.outsider, params: { id: m.id }, body: { version: 1, title: "X" } })).status).toBe(404);
     expect((await call(one.PATCH, "PATCH", `/api/measures/${m.id}`, { as: s.as.clerk, params: { id: m.id }, body: { title: "no version" } })).status).toBe(400);
     expect(await tableCounts()).toEqual(before);
@@ -147,7 +136,6 @@ describe("uploads", () => {
     expect(got.status).toBe(200);
     expect(got.response.headers.get("content-disposition")).toContain("attachment");
     expect((await call(attachment.GET, "GET", "/x", { as: s.outsider, params })).status).toBe(404);
-    expect((await call(attachment.GET, "GET", "/x", { as: null, params })).status).toBe(401);
   });
 
   it("keeps a DOCX and extracts its paragraphs", async () => {
@@ -170,11 +158,10 @@ describe("uploads", () => {
       ["no file", await send({ number: "HCA 56", title: "x" }), 400],
       ["empty file", await send({ number: "HCA 57", title: "x" }, { name: "e.txt", bytes: Buffer.alloc(0) }), 400],
       ["bad fields", await send({ number: "", title: "x" }, { name: "a.txt", bytes: Buffer.from("Section 1. a") }), 400],
-      ["member", await send({ number: "HCA 58", title: "x" }, { name: "a.txt", bytes: Buffer.from("a") }, s.as.member), 403],
     ];
     for (const [name, r, status] of cases) {
       expect(r.status, name).toBe(status);
-      if (status !== 403) expect(r.body.error.issues.length, name).toBeGreaterThan(0);
+      expect(r.body.error.issues.length, name).toBeGreaterThan(0);
     }
     const notMultipart = await call(upload.POST, "POST", "/api/measures/upload", { as: s.as.clerk, body: { number: "x" } });
     expect(notMultipart.status).toBe(400);

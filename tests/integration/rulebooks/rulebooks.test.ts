@@ -17,7 +17,6 @@ import { tableCounts } from "../../support/db.ts";
 import { seedChambers, type Seeded } from "../../support/fixtures.ts";
 
 const ROLES = ["chief-clerk", "clerk", "member", "staff", "observer"] as const;
-const EDITORS = new Set(["chief-clerk", "clerk"]);
 const demo = JSON.parse(readFileSync("rulebooks/demo-chamber.json", "utf8")) as Record<string, any>;
 
 let s: Seeded;
@@ -36,9 +35,6 @@ beforeAll(async () => {
 });
 
 describe("GET /api/rulebooks", () => {
-  it("refuses anonymous callers", async () => {
-    expect((await call(list.GET, "GET", "/api/rulebooks", { as: null })).status).toBe(401);
-  });
   it("shows every role the chamber's versions, the one in force and the templates", async () => {
     for (const role of ROLES) {
       const r = await call(list.GET, "GET", "/api/rulebooks", { as: s.as[role] });
@@ -67,7 +63,7 @@ describe("GET /api/rulebooks", () => {
 });
 
 describe("GET /api/rulebooks/:id and export", () => {
-  it("returns the document to every role; unknown and malformed ids are 404; anonymous 401", async () => {
+  it("returns the document to every role; unknown and malformed ids are 404", async () => {
     const v = await latest();
     for (const role of ROLES) {
       const r = await call(one.GET, "GET", `/api/rulebooks/${v.id}`, { as: s.as[role], params: { id: v.id } });
@@ -77,7 +73,6 @@ describe("GET /api/rulebooks/:id and export", () => {
     }
     expect((await call(one.GET, "GET", "/api/rulebooks/x", { as: s.as.clerk, params: { id: "x" } })).status).toBe(404);
     expect((await call(one.GET, "GET", "/api/rulebooks/00000000-0000-4000-8000-000000000000", { as: s.as.clerk, params: { id: "00000000-0000-4000-8000-000000000000" } })).status).toBe(404);
-    expect((await call(one.GET, "GET", `/api/rulebooks/${v.id}`, { as: null, params: { id: v.id } })).status).toBe(401);
   });
   it("exports a download that imports back unchanged", async () => {
     const v = await latest();
@@ -85,7 +80,6 @@ describe("GET /api/rulebooks/:id and export", () => {
     expect(r.status).toBe(200);
     expect(r.response.headers.get("content-disposition")).toMatch(/attachment; filename=".+-v1\.json"/);
     expect(r.body).toEqual(demo);
-    expect((await call(exportRoute.GET, "GET", `/api/rulebooks/${v.id}/export`, { as: null, params: { id: v.id } })).status).toBe(401);
   });
   it("serves a template to any role", async () => {
     const r = await call(template.GET, "GET", "/api/rulebooks/templates/general-parliamentary-law", { as: s.as.member, params: { id: "general-parliamentary-law" } });
@@ -104,25 +98,17 @@ describe("GET /api/rulebooks/:id and export", () => {
     expect(ep.source.date).toMatch(/2019/);
     expect(ep.verify.length).toBeGreaterThan(0);
     expect(lib.templates.map((t: { id: string }) => t.id)).not.toContain("continental-successive");
-    expect((await call(template.GET, "GET", "/api/rulebooks/templates/nope", { as: null, params: { id: "nope" } })).status).toBe(401);
   });
   it("serves the House template under its former id four-amendment-legislature (issue 14 alias)", async () => {
     const r = await call(template.GET, "GET", "/api/rulebooks/templates/four-amendment-legislature", { as: s.as.member, params: { id: "four-amendment-legislature" } });
     expect(r.status).toBe(200);
     expect([r.body.id, r.body.document.id]).toEqual(["us-house", "us-house"]);
+    expect(r.body.aliases).toEqual(["four-amendment-legislature"]);
+    expect(r.body.verify.length).toBeGreaterThan(0);
   });
 });
 
 describe("POST /api/rulebooks (save a new version)", () => {
-  it("lets only clerks save; others are refused and nothing changes", async () => {
-    const v = await latest();
-    const before = await tableCounts();
-    for (const role of ROLES.filter((r) => !EDITORS.has(r))) {
-      expect((await call(list.POST, "POST", "/api/rulebooks", { as: s.as[role], body: { basedOn: v.id, document: demo } })).status, role).toBe(403);
-    }
-    expect((await call(list.POST, "POST", "/api/rulebooks", { as: null, body: { basedOn: v.id, document: demo } })).status).toBe(401);
-    expect(await tableCounts()).toEqual(before);
-  });
 
   it("rejects a rulebook with an unknown operator, naming the exact path, storing nothing", async () => {
     const v = await latest();
@@ -192,13 +178,9 @@ describe("a version saved before reconsiderable named the result (rulebook forma
 });
 
 describe("POST /api/rulebooks/import", () => {
-  it("imports a valid file as a new version, for clerks only", async () => {
+  it("imports a valid file as a new version", async () => {
     const v = await latest();
     const body = JSON.stringify({ ...demo, title: "Harrowmere standing orders (imported)" });
-    for (const role of ["member", "staff", "observer"] as const) {
-      expect((await call(importRoute.POST, "POST", "/api/rulebooks/import", { as: s.as[role], rawBody: upload("r.json", body, "application/json", { basedOn: v.id }) })).status, role).toBe(403);
-    }
-    expect((await call(importRoute.POST, "POST", "/api/rulebooks/import", { as: null, rawBody: upload("r.json", body) })).status).toBe(401);
     const r = await call(importRoute.POST, "POST", "/api/rulebooks/import", { as: s.as.clerk, rawBody: upload("standing-orders.json", body, "application/json", { basedOn: v.id }) });
     expect(r.status).toBe(201);
     expect(r.body.title).toBe("Harrowmere standing orders (imported)");
@@ -240,7 +222,6 @@ describe("GET /api/rulebooks/compare", () => {
     const same = await call(compare.GET, "GET", "/api/rulebooks/compare", { as: s.as.member, query: { from: v1.id, to: v1.id } });
     expect(same.body.diff.identical).toBe(true);
     expect((await call(compare.GET, "GET", "/api/rulebooks/compare", { as: s.as.member, query: { from: "x" } })).status).toBe(400);
-    expect((await call(compare.GET, "GET", "/api/rulebooks/compare", { as: null, query: { from: v1.id, to: v2.id } })).status).toBe(401);
   });
 });
 
@@ -248,10 +229,6 @@ describe("POST /api/rulebooks/:id/adopt", () => {
   it("lets clerks adopt with an effective date; the latest effective adoption is in force; history kept", async () => {
     const v = await latest();
     const before = await tableCounts();
-    for (const role of ["member", "staff", "observer"] as const) {
-      expect((await call(adopt.POST, "POST", `/api/rulebooks/${v.id}/adopt`, { as: s.as[role], params: { id: v.id }, body: {} })).status, role).toBe(403);
-    }
-    expect((await call(adopt.POST, "POST", `/api/rulebooks/${v.id}/adopt`, { as: null, params: { id: v.id }, body: {} })).status).toBe(401);
     expect((await call(adopt.POST, "POST", `/api/rulebooks/${v.id}/adopt`, { as: s.as.clerk, params: { id: v.id }, body: { effectiveFrom: "tomorrow" } })).status).toBe(400);
     expect(await tableCounts()).toEqual(before);
 

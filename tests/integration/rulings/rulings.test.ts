@@ -47,11 +47,7 @@ describe("drafting", () => {
     expect(await tableCounts()).toEqual(before);
   });
 
-  it("lets clerks and the chief clerk draft; members, staff, observers 403; anonymous 401", async () => {
-    const before = await tableCounts();
-    for (const role of ["member", "staff", "observer"] as const) expect((await call(index.POST, "POST", "/api/rulings", { as: s.as[role], body: rulingBody(raiser.id) })).status, role).toBe(403);
-    expect((await call(index.POST, "POST", "/api/rulings", { as: null, body: rulingBody(raiser.id) })).status).toBe(401);
-    expect(await tableCounts()).toEqual(before);
+  it("lets clerks and the chief clerk draft (other roles and anonymous: tests/access)", async () => {
     for (const role of ["clerk", "chief-clerk"] as const) {
       const r = await call(index.POST, "POST", "/api/rulings", { as: s.as[role], body: rulingBody(raiser.id) });
       expect(r.status, role).toBe(201);
@@ -97,7 +93,6 @@ describe("drafting", () => {
     const stale = await call(one.PUT, "PUT", `/api/rulings/${d.body.id}`, { as: s.as["chief-clerk"], params: { id: d.body.id }, body: { version: d.body.version, content: rulingBody(raiser.id) } });
     expect(stale.status).toBe(409);
     expect(stale.body.error.details.currentVersion).toBe(ok.body.version);
-    for (const role of ["member", "staff", "observer"] as const) expect((await call(one.PUT, "PUT", `/api/rulings/${d.body.id}`, { as: s.as[role], params: { id: d.body.id }, body: { version: ok.body.version, content: rulingBody(raiser.id) } })).status, role).toBe(403);
     expect((await call(one.PUT, "PUT", `/api/rulings/${d.body.id}`, { as: s.outsider, params: { id: d.body.id }, body: { version: ok.body.version, content: rulingBody(raiser.id) } })).status).toBe(404);
   });
 });
@@ -110,20 +105,15 @@ describe("issuing and revisions", () => {
     expect(r.body.error.issues.map((i: { path: string }) => i.path).sort()).toEqual(["decision", "reasoning", "sitting", "sittingDate"]);
   });
 
-  it("lets only clerks and the chief clerk issue; drafts are hidden from other roles until issued", async () => {
+  it("lets clerks and the chief clerk issue; drafts are hidden from other roles until issued", async () => {
     const d = await call(index.POST, "POST", "/api/rulings", { as: s.as.clerk, body: rulingBody(raiser.id) });
     const p = { id: d.body.id };
-    for (const role of ["member", "staff", "observer"] as const) {
-      expect((await call(issue.POST, "POST", `/api/rulings/${p.id}/issue`, { as: s.as[role], params: p, body: { version: 1 } })).status, role).toBe(403);
-      expect((await call(one.GET, "GET", `/api/rulings/${p.id}`, { as: s.as[role], params: p })).status, role).toBe(404);
-    }
-    expect((await call(issue.POST, "POST", `/api/rulings/${p.id}/issue`, { as: null, params: p, body: { version: 1 } })).status).toBe(401);
+    for (const role of ["member", "staff", "observer"] as const) expect((await call(one.GET, "GET", `/api/rulings/${p.id}`, { as: s.as[role], params: p })).status, role).toBe(404);
     expect((await call(issue.POST, "POST", `/api/rulings/${p.id}/issue`, { as: s.outsider, params: p, body: { version: 1 } })).status).toBe(404);
     const ok = await call(issue.POST, "POST", `/api/rulings/${p.id}/issue`, { as: s.as["chief-clerk"], params: p, body: { version: d.body.version } });
     expect(ok.status).toBe(200);
     expect(ok.body.ruling).toMatchObject({ status: "issued", revision: 1 });
     for (const role of ["member", "staff", "observer"] as const) expect((await call(one.GET, "GET", `/api/rulings/${p.id}`, { as: s.as[role], params: p })).status, role).toBe(200);
-    expect((await call(one.GET, "GET", `/api/rulings/${p.id}`, { as: null, params: p })).status).toBe(401);
     expect((await call(one.GET, "GET", `/api/rulings/${p.id}`, { as: s.outsider, params: p })).status).toBe(404);
     expect((await call(issue.POST, "POST", `/api/rulings/${p.id}/issue`, { as: s.as.clerk, params: p, body: { version: ok.body.ruling.version } })).status).toBe(409);
   });
@@ -133,7 +123,6 @@ describe("issuing and revisions", () => {
     const p = { id: r.id };
     const inPlace = await call(one.PUT, "PUT", `/api/rulings/${r.id}`, { as: s.as.clerk, params: p, body: { version: r.version, content: rulingBody(raiser.id, { question: "Rewritten" }) } });
     expect(inPlace.status).toBe(409);
-    for (const role of ["member", "staff", "observer"] as const) expect((await call(revisions.POST, "POST", `/api/rulings/${r.id}/revisions`, { as: s.as[role], params: p, body: { revision: 1, note: "x", content: rulingBody(raiser.id) } })).status, role).toBe(403);
     expect((await call(revisions.POST, "POST", `/api/rulings/${r.id}/revisions`, { as: s.outsider, params: p, body: { revision: 1, note: "x", content: rulingBody(raiser.id) } })).status).toBe(404);
     const noNote = await call(revisions.POST, "POST", `/api/rulings/${r.id}/revisions`, { as: s.as.clerk, params: p, body: { revision: 1, note: "", content: rulingBody(raiser.id) } });
     expect(noNote.status).toBe(400);
@@ -230,8 +219,7 @@ describe("precedent search", () => {
     expect((await search(s.as.clerk, { from: "May" })).status).toBe(400);
   });
 
-  it("answers 401 anonymous and shows the other chamber nothing", async () => {
-    expect((await search(null, { q: "inadmissible" })).status).toBe(401);
+  it("shows the other chamber nothing", async () => {
     const other = await search(s.outsider, { q: "inadmissible" });
     expect(other.status).toBe(200);
     expect(other.body.results).toEqual([]);
@@ -246,18 +234,15 @@ describe("precedent search", () => {
     const excluded = await call(related.GET, "GET", "/api/rulings/related", { as: s.as.clerk, query: { rule: "amendment-degree", exclude: target.id } });
     expect(excluded.body.results.map((r: { id: string }) => r.id)).not.toContain(target.id);
     expect((await call(related.GET, "GET", "/api/rulings/related", { as: s.as.clerk, query: {} })).body.results).toEqual([]);
-    expect((await call(related.GET, "GET", "/api/rulings/related", { as: null, query: { rule: "amend" } })).status).toBe(401);
     expect((await call(related.GET, "GET", "/api/rulings/related", { as: s.outsider, query: { rule: "amendment-degree" } })).body.results).toEqual([]);
   });
 });
 
 describe("drafting options", () => {
-  it("gives clerks the chamber's legislators; 403 for other roles, 401 anonymous, own chamber only", async () => {
+  it("gives clerks the chamber's legislators, own chamber only (other roles and anonymous: tests/access)", async () => {
     const r = await call(options.GET, "GET", "/api/rulings/options", { as: s.as.clerk });
     expect(r.status).toBe(200);
     expect(r.body.legislators).toHaveLength(40);
-    for (const role of ["member", "staff", "observer"] as const) expect((await call(options.GET, "GET", "/api/rulings/options", { as: s.as[role] })).status, role).toBe(403);
-    expect((await call(options.GET, "GET", "/api/rulings/options", { as: null })).status).toBe(401);
     const other = await call(options.GET, "GET", "/api/rulings/options", { as: s.outsider });
     expect(other.body.legislators.some((l: { id: string }) => l.id === raiser.id)).toBe(false);
   });

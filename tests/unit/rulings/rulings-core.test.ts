@@ -104,6 +104,8 @@ describe("renderFloorDigest", () => {
     const d = floorDigestSchema.parse({ sitting: "S", date: "2026-01-01", findings: [{ severity: "warning", message: "<b>x</b>" }], proposedOrder: [{ label: "A2" }, { label: "A1" }] });
     const m = renderFloorDigest({ chamberName: "H", digest: d, unsubscribeUrl: null });
     expect(m.text).toContain("1. A2\n2. A1");
+    // The date reads as the house's one date format (src/lib/text/dates.ts), never 01/01/2026.
+    expect(m.subject).toBe("H: floor-day digest — S, 1 January 2026");
     expect(m.html).toContain("&lt;b&gt;x&lt;/b&gt;");
     expect(m.html).not.toContain("<b>x");
   });

@@ -83,6 +83,8 @@ export const organization = pgTable("organization", {
   logo: text("logo"),
   createdAt: timestamp("created_at").notNull(),
   metadata: text("metadata"),
+  /** The chamber's IANA time zone: every date a person reads is shown in it (src/lib/text/dates.ts). Declared in auth.ts's organization plugin (additionalFields) so regeneration keeps it. */
+  timeZone: text("time_zone").notNull().default("UTC"),
 });
 
 export const member = pgTable(

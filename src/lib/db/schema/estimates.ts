@@ -1,6 +1,7 @@
 import { doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { organization, user } from "./auth.ts";
 import { measures } from "./measures.ts";
+import type { EstimateContent } from "../../estimates/estimate-content.ts";
 
 /**
  * Preference estimates: an author's projection of how the chamber ranks the versions of one
@@ -39,7 +40,7 @@ export const estimateVersions = pgTable(
     /** Tree keys of the pending amendments the estimate considers (its versions follow from them). */
     scope: jsonb("scope").$type<string[]>().notNull(),
     /** Ballots or spatial content, as validated by src/lib/estimates/estimate-content.ts. */
-    content: jsonb("content").notNull(),
+    content: jsonb("content").$type<EstimateContent>().notNull(),
     note: text("note").notNull().default(""),
     authorId: text("author_id").references(() => user.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),

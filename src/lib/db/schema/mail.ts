@@ -1,6 +1,7 @@
 import { index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { organization, user } from "./auth.ts";
 import { rulings } from "./rulings.ts";
+import type { ListEntry } from "../../circulation/distribution-list.ts";
 
 /**
  * Transactional outbox: one row per message and recipient, written in the same transaction as
@@ -22,7 +23,7 @@ export const outbox = pgTable(
     subject: text("subject").notNull(),
     text: text("text").notNull(),
     html: text("html"),
-    headers: jsonb("headers").notNull().default({}),
+    headers: jsonb("headers").$type<Record<string, string>>().notNull().default({}),
     /** Stable RFC 5322 Message-ID, the same on every attempt, so receivers can drop a repeat. */
     messageId: text("message_id"),
     status: text("status", { enum: ["queued", "sending", "sent", "failed", "uncertain"] }).notNull().default("queued"),
@@ -65,7 +66,7 @@ export const distributionLists = pgTable(
     description: text("description").notNull().default(""),
     purpose: text("purpose", { enum: ["clerks"] }),
     /** [{kind:"role", role} | {kind:"user", userId, name} | {kind:"address", email, name}] */
-    entries: jsonb("entries").notNull().default([]),
+    entries: jsonb("entries").$type<ListEntry[]>().notNull().default([]),
     version: integer("version").notNull().default(1),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
@@ -99,7 +100,7 @@ export const circulations = pgTable(
     listName: text("list_name").notNull(),
     subject: text("subject").notNull(),
     /** Recipients left out because they unsubscribed. */
-    skipped: jsonb("skipped").notNull().default([]),
+    skipped: jsonb("skipped").$type<Array<{ email: string; reason: string }>>().notNull().default([]),
     sentBy: text("sent_by").references(() => user.id, { onDelete: "set null" }),
     sentByName: text("sent_by_name").notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),

@@ -16,7 +16,7 @@ export const rulebookVersions = pgTable(
     number: integer("number").notNull(),
     basedOn: uuid("based_on"),
     title: text("title").notNull(),
-    document: jsonb("document").notNull(),
+    document: jsonb("document").$type<Record<string, unknown>>().notNull(),
     /** How the version came to be: "edit", "import" or "template:<id>". */
     origin: text("origin").notNull().default("edit"),
     note: text("note").notNull().default(""),

@@ -4,6 +4,7 @@ import { organization, user } from "./auth.ts";
 import { legislators } from "./chamber.ts";
 import { amendments, measures } from "./measures.ts";
 import { sittings } from "./floor.ts";
+import type { AppealTally, Citation } from "../../rulings/ruling-content.ts";
 
 const tsvector = customType<{ data: string }>({ dataType: () => "tsvector" });
 
@@ -43,12 +44,12 @@ export const rulings = pgTable(
     decisionNote: text("decision_note"),
     reasoning: text("reasoning").notNull().default(""),
     /** [{kind:"rule", rulebookVersionId, ruleId, citation} | {kind:"ruling", rulingId, label}] */
-    citations: jsonb("citations").notNull().default([]),
+    citations: jsonb("citations").$type<Citation[]>().notNull().default([]),
     /** Lower-cased rule ids and rule citations, for the exact "by rule" filter. */
     citationKeys: text("citation_keys").array().notNull().default(sql`'{}'::text[]`),
     /** Rule citations as plain text, weighted high in the search vector. */
     citationText: text("citation_text").notNull().default(""),
-    appeal: jsonb("appeal"),
+    appeal: jsonb("appeal").$type<AppealTally | null>(),
     sittingId: uuid("sitting_id").references(() => sittings.id, { onDelete: "set null" }),
     sitting: text("sitting").notNull().default(""),
     sittingDate: date("sitting_date", { mode: "string" }),
@@ -77,8 +78,8 @@ export const rulingRevisions = pgTable(
     rulingId: uuid("ruling_id").notNull().references(() => rulings.id, { onDelete: "cascade" }),
     chamberId: text("chamber_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
     revision: integer("revision").notNull(),
-    /** The full content as issued (the same shape the API accepts). */
-    content: jsonb("content").notNull(),
+    /** The ruling as issued, in the shape the API answers with (toRuling in services/rulings.ts). */
+    content: jsonb("content").$type<Record<string, unknown>>().notNull(),
     /** Why this revision was made ("As issued", or the correction note). */
     note: text("note").notNull(),
     issuedBy: text("issued_by").references(() => user.id, { onDelete: "set null" }),

@@ -37,7 +37,7 @@ const BLOC_IDEALS: Record<string, [number, number]> = {
 };
 
 async function clerkActor(): Promise<Actor | null> {
-  const [chamber] = await db.select({ id: organization.id, name: organization.name, slug: organization.slug }).from(organization).where(eq(organization.slug, DEMO_CHAMBERS.harrowmere.slug));
+  const [chamber] = await db.select({ id: organization.id, name: organization.name, slug: organization.slug, timeZone: organization.timeZone }).from(organization).where(eq(organization.slug, DEMO_CHAMBERS.harrowmere.slug));
   const account = DEMO_ACCOUNTS.find((a) => a.chamber === "harrowmere" && a.role === "clerk")!;
   const [u] = await db.select().from(user).where(eq(user.email, account.email));
   if (!chamber || !u) return null;

@@ -21,7 +21,7 @@ export const DEMO_MAIN_MOTION = "That the Assembly approve the Moorland Footpath
 async function clerkActor(chamberKey: keyof typeof DEMO_CHAMBERS): Promise<Actor> {
   const account = DEMO_ACCOUNTS.find((a) => a.chamber === chamberKey && a.role === "chief-clerk")!;
   const [row] = await db
-    .select({ user, chamber: { id: organization.id, name: organization.name, slug: organization.slug }, role: member.role })
+    .select({ user, chamber: { id: organization.id, name: organization.name, slug: organization.slug, timeZone: organization.timeZone }, role: member.role })
     .from(user)
     .innerJoin(member, eq(member.userId, user.id))
     .innerJoin(organization, eq(member.organizationId, organization.id))

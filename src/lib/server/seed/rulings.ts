@@ -20,7 +20,7 @@ async function actorFor(role: "clerk" | "staff"): Promise<Actor | null> {
   const a = DEMO_ACCOUNTS.find((x) => x.chamber === "harrowmere" && x.role === role);
   if (!a) return null;
   const [row] = await db
-    .select({ user, chamber: { id: organization.id, name: organization.name, slug: organization.slug } })
+    .select({ user, chamber: { id: organization.id, name: organization.name, slug: organization.slug, timeZone: organization.timeZone } })
     .from(user)
     .innerJoin(member, eq(member.userId, user.id))
     .innerJoin(organization, eq(member.organizationId, organization.id))

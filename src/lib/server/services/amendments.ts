@@ -16,8 +16,9 @@ import { enqueueMail } from "../mail.ts";
 import { assertFresh, recordAudit } from "../measure-audit.ts";
 import { amendmentFileSchema, amendmentUpdateSchema, AMENDMENT_STATUS_LABELS, FORM_LABELS, versionOnlySchema } from "../../measures/measure-schemas.ts";
 import { subjectList } from "../measure-sections.ts";
-import { checkDocument, readMultipart } from "../uploads.ts";
+import { checkDocument, type MultipartUpload } from "../uploads.ts";
 import { checkLegislators, legislatorNames, measureRow, type MeasureRow } from "./measures.ts";
+import { dateStyleOf, formatDateTime } from "../../text/dates.ts";
 
 export type AmendmentRow = typeof amendments.$inferSelect;
 
@@ -142,7 +143,7 @@ async function queueReceipt(tx: Tx, actor: Actor, m: MeasureRow, a: AmendmentRow
   const text = [
     `Filing receipt — ${actor.chamber.name}`,
     "",
-    `Amendment ${key} to ${m.number} (${m.title}) was filed on ${a.filedAt!.toISOString()}.`,
+    `Amendment ${key} to ${m.number} (${m.title}) was filed on ${formatDateTime(a.filedAt!, dateStyleOf(actor.chamber))} (${dateStyleOf(actor.chamber).timeZone}).`,
     `Receipt reference: ${m.number}/${key}/${a.id}`,
     `Form: ${FORM_LABELS[a.form as keyof typeof FORM_LABELS] ?? a.form}`,
     `Sponsors: ${sponsorNames.length ? sponsorNames.join(", ") : "none named"}`,
@@ -200,8 +201,8 @@ function parseLines(s: string | undefined): [number, number] | null {
 }
 
 /** File from an upload: the document is kept as the attachment; its text is the amendment's text unless typed. */
-export async function fileAmendmentFromUpload(actor: Actor, measureId: string, request: Request) {
-  const { fields, file } = await readMultipart(request);
+/** An amendment from an uploaded document: the multipart body as the route read it (readMultipart). */
+export async function fileAmendmentFromUpload(actor: Actor, measureId: string, { fields, file }: MultipartUpload) {
   const input = parseWith(
     amendmentFileSchema,
     {

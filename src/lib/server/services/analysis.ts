@@ -14,7 +14,7 @@ import { analysisCache, analysisRuns } from "../../db/schema/estimates.ts";
 import { legislators } from "../../db/schema/chamber.ts";
 import { GavelError } from "../../errors.ts";
 import type { Actor } from "../http.ts";
-import { toOrdersProfile, type EstimateContent } from "../../estimates/estimate-content.ts";
+import { toOrdersProfile } from "../../estimates/estimate-content.ts";
 import { buildFindings } from "../../estimates/findings.ts";
 import { walkThrough } from "../../estimates/walk-through.ts";
 import { chairScript, scriptMarkdown } from "../../estimates/chair-script.ts";
@@ -22,10 +22,12 @@ import { versionInWords, versionShort, type TreeLabels } from "../../estimates/v
 import type { JobResult } from "../analysis/analysis-job.ts";
 import { activeCount, cancelActive, isActive, launchRun, MAX_WORKERS, STALE_MS } from "../analysis/runner.ts";
 import { adoptedRulebookOf } from "../measure-rulebook.ts";
+import { canonicalJson } from "../../text/canonical-json.ts";
+import { analysisResultJsonSchema, type analysisResultSchema, type SameShape } from "../../voting/orders-analysis-schema.ts";
 import { loadRulebook } from "./rulebooks.ts";
-import { estimateRow, treeFor, versionRow } from "./estimates.ts";
+import { estimateRow, storedContent, treeFor, versionRow } from "./estimates.ts";
 
-/** Bump when the engine's output changes meaning, so old cache rows are not reused. */
+/** Bump when the engine's output changes meaning with the same shape (a change of shape changes RESULT_SCHEMA_HASH by itself). */
 export const ENGINE_VERSION = 2; // 2: passage threshold from the catalogue, membership thresholds, quorum, chair's vote (decision 0008)
 
 export const startSchema = z.object({ estimateId: z.string().min(1).max(100), version: z.number().int().min(1).optional(), rulebookVersionId: z.string().min(1).max(100).nullable().optional() });
@@ -46,16 +48,14 @@ interface CachedResult extends JobResult {
   versions: Array<{ id: string; short: string; words: string }>;
 }
 
-/** Canonical JSON (keys sorted) so equal content always hashes alike. */
-function canonical(v: unknown): string {
-  if (Array.isArray(v)) return `[${v.map(canonical).join(",")}]`;
-  if (v && typeof v === "object") return `{${Object.keys(v).sort().filter((k) => (v as Record<string, unknown>)[k] !== undefined).map((k) => `${JSON.stringify(k)}:${canonical((v as Record<string, unknown>)[k])}`).join(",")}}`;
-  return JSON.stringify(v);
+export function contentHash(parts: unknown): string {
+  return createHash("sha256").update(canonicalJson(parts)).digest("hex");
 }
 
-export function contentHash(parts: unknown): string {
-  return createHash("sha256").update(canonical(parts)).digest("hex");
-}
+/** A hash of the stored result's shape: in every cache key, so a changed shape never reads a result stored in the old one. */
+export const RESULT_SCHEMA_HASH = contentHash(analysisResultJsonSchema());
+const resultMatchesSchema: SameShape<z.output<typeof analysisResultSchema>, JobResult> = true;
+void resultMatchesSchema;
 
 async function runRow(actor: Actor, id: string) {
   if (!/^[0-9a-f-]{36}$/i.test(id)) throw new GavelError("not-found", "No such analysis in this chamber.");
@@ -70,7 +70,7 @@ export async function startAnalysis(actor: Actor, input: z.output<typeof startSc
   const v = await versionRow(e, input.version);
   const rb = input.rulebookVersionId ? await loadRulebook(actor.chamber.id, input.rulebookVersionId).then((r) => ({ rulebook: r.rulebook, source: `version ${r.number}: ${r.title}`, versionId: r.versionId })) : await adoptedRulebookOf(actor.chamber.id);
   const tree = await treeFor(actor.chamber.id, e.measureId, v.scope);
-  const content = v.content as EstimateContent;
+  const content = storedContent(v);
   // Thresholds "of the members" and the quorum count against the rulebook's membership, else the roster (decision 0008).
   const main = rb.rulebook.motions.find((m) => m.class === "main");
   const members = rb.rulebook.chamber.members;
@@ -82,7 +82,7 @@ export async function startAnalysis(actor: Actor, input: z.output<typeof startSc
     amendments: tree.case.amendments,
     profile: toOrdersProfile(content),
   };
-  const hash = contentHash({ engine: ENGINE_VERSION, ...ordersInput });
+  const hash = contentHash({ engine: ENGINE_VERSION, resultSchema: RESULT_SCHEMA_HASH, ...ordersInput });
   const [hit] = await db.select({ hash: analysisCache.hash }).from(analysisCache).where(and(eq(analysisCache.chamberId, actor.chamber.id), eq(analysisCache.hash, hash)));
   const base = { chamberId: actor.chamber.id, estimateId: e.id, estimateVersion: v.number, rulebookVersionId: rb.versionId, rulebookLabel: rb.source, hash, requestedBy: actor.user.id };
   if (hit) {

@@ -73,9 +73,11 @@ export async function createChamber(input: unknown): Promise<CreatedChamber> {
   if (taken) throw new GavelError("conflict", `chamber: slug: "${slug}" is already used by another chamber`, { issues: [{ path: "slug", message: "already used by another chamber" }] });
   // A system action (no session, the owner named by id): allowed whatever GAVELWRIGHT_OPEN_SIGNUP says.
   const org = await auth.api.createOrganization({
-    body: { name: data.name, slug, userId: clerk.id, keepCurrentActiveOrganization: true, metadata: { timeZone: data.timeZone } },
+    body: { name: data.name, slug, userId: clerk.id, keepCurrentActiveOrganization: true },
   });
   if (!org) throw new Error("the chamber was not created");
+  // The chamber's clock (dates on every page, e-mail and export) is its own column, not sign-in input.
+  await db.update(organization).set({ timeZone: data.timeZone }).where(eq(organization.id, org.id));
   const [m] = await db.select({ role: member.role }).from(member).where(eq(member.organizationId, org.id));
   if (m?.role !== "chief-clerk") throw new Error(`the chamber's first member has role ${m?.role}, not chief-clerk`);
   return { id: org.id, name: org.name, slug: org.slug, timeZone: data.timeZone, chiefClerk: { userId: clerk.id, email: clerk.email } };

@@ -15,12 +15,13 @@ import { GavelError } from "../../errors.ts";
 import { distributionListSchema, listEntrySchema, type ListEntry } from "../../circulation/distribution-list.ts";
 import { floorDigestSchema, renderFloorDigest, type FloorDigest } from "../../rulings/render-floor-digest.ts";
 import { renderRulingMail, type RulingForMail } from "../../rulings/render-ruling-mail.ts";
-import type { Citation, RulingContent } from "../../rulings/ruling-content.ts";
+import { appealTallySchema, citationSchema } from "../../rulings/ruling-content.ts";
+import { readStored } from "../stored-json.ts";
 import { enqueueMail, requeueMail } from "../mail.ts";
 import { signUnsubscribe, verifyUnsubscribe } from "../circulation-unsubscribe.ts";
 import type { Actor } from "../http.ts";
 
-const uuid = z.string().uuid();
+const uuid = z.uuid();
 export const listInputSchema = distributionListSchema;
 export const listUpdateSchema = distributionListSchema.extend({ version: z.number().int().min(1) });
 export const sendSchema = z.object({ rulingId: uuid, listId: uuid });
@@ -32,9 +33,9 @@ type ListRow = typeof distributionLists.$inferSelect;
 type RulingRow = typeof rulings.$inferSelect;
 const listNotFound = () => new GavelError("not-found", "No such distribution list in this chamber.");
 
+/** A list's entries were typed by a person: parsed on every read, and a damaged list throws (it never sends to nobody). */
 function entriesOf(row: ListRow): ListEntry[] {
-  const r = z.array(listEntrySchema).safeParse(row.entries);
-  return r.success ? r.data : [];
+  return readStored(z.array(listEntrySchema), row.entries, `entries of the distribution list "${row.name}"`);
 }
 
 function toList(row: ListRow) {
@@ -206,8 +207,8 @@ function mailRuling(r: RulingRow): RulingForMail {
     decision: r.decision,
     decisionNote: r.decisionNote ?? "",
     reasoning: r.reasoning,
-    citations: (Array.isArray(r.citations) ? (r.citations as Citation[]) : []).map((c) => (c.kind === "rule" ? { kind: "rule" as const, citation: c.citation, ruleId: c.ruleId } : { kind: "ruling" as const, label: c.label })),
-    appeal: (r.appeal as RulingContent["appeal"]) ?? null,
+    citations: readStored(z.array(citationSchema), r.citations, `citations of ruling ${r.number}`).map((c) => (c.kind === "rule" ? { kind: "rule" as const, citation: c.citation, ruleId: c.ruleId } : { kind: "ruling" as const, label: c.label })),
+    appeal: readStored(appealTallySchema.nullable(), r.appeal, `appeal of ruling ${r.number}`),
     sitting: r.sitting,
     sittingDate: r.sittingDate,
   };

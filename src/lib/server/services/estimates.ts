@@ -14,10 +14,9 @@ import { amendments, measures } from "../../db/schema/measures.ts";
 import { estimates, estimateVersions } from "../../db/schema/estimates.ts";
 import { GavelError, parseWith } from "../../errors.ts";
 import { CHAMBER_ROLES, can } from "../../permissions.ts";
-import { readBody, type Actor } from "../http.ts";
+import type { Actor } from "../http.ts";
 import { amendmentTreeModel } from "../../voting/amendment-versions.ts";
 import { estimateContentSchema, type EstimateContent } from "../../estimates/estimate-content.ts";
-import { decodeCsv, MAX_CSV_BYTES } from "../../estimates/csv-text.ts";
 import { parseBallotCsv } from "../../estimates/ballot-csv.ts";
 import { parseIdealCsv } from "../../estimates/ideal-csv.ts";
 import { ballotTemplate, idealTemplate } from "../../estimates/csv-template.ts";
@@ -25,6 +24,7 @@ import { versionInWords, versionShort, type TreeLabels } from "../../estimates/v
 import { amendmentKey } from "./amendments.ts";
 import { measureRow } from "./measures.ts";
 import { caseFromRows, MEASURE_KEY } from "./trees.ts";
+import { readStored } from "../stored-json.ts";
 
 export type EstimateRow = typeof estimates.$inferSelect;
 
@@ -175,6 +175,11 @@ function summary(e: EstimateRow, actor: Actor) {
   return { id: e.id, title: e.title, kind: e.kind, latestVersion: e.latestVersion, sharedRoles: e.sharedRoles, sharedUsers: e.sharedUsers, mine: e.authorId === actor.user.id, private: e.sharedRoles.length === 0 && e.sharedUsers.length === 0, duplicatedFrom: e.duplicatedFrom, updatedAt: e.updatedAt.toISOString() };
 }
 
+/** An estimate version's rows: a person's input, parsed on read (a damaged version throws, it never analyses as empty). */
+export function storedContent(v: { number: number; content: unknown }): EstimateContent {
+  return readStored(estimateContentSchema, v.content, `content of estimate version ${v.number}`);
+}
+
 export async function versionRow(e: EstimateRow, number?: number, q: Tx | typeof db = db) {
   const [v] = await q.select().from(estimateVersions).where(and(eq(estimateVersions.estimateId, e.id), eq(estimateVersions.number, number ?? e.latestVersion)));
   if (!v) throw new GavelError("not-found", `This estimate has no version ${number}.`);
@@ -189,7 +194,7 @@ export async function getEstimate(actor: Actor, id: string, version?: number) {
   const [author] = e.authorId ? await db.select({ name: user.name }).from(user).where(eq(user.id, e.authorId)) : [];
   return {
     estimate: { ...summary(e, actor), measureId: e.measureId, author: author?.name ?? "(former user)" },
-    version: { number: v.number, scope: v.scope, content: v.content as EstimateContent, note: v.note, createdAt: v.createdAt.toISOString() },
+    version: { number: v.number, scope: v.scope, content: storedContent(v), note: v.note, createdAt: v.createdAt.toISOString() },
     history: history.map((h) => ({ ...h, author: h.author ?? "(former user)", createdAt: h.createdAt.toISOString() })),
     measure: { id: tree.measure.id, number: tree.measure.number, title: tree.measure.title },
     pending: tree.pending,
@@ -236,7 +241,7 @@ export async function duplicateEstimate(actor: Actor, id: string, input: z.outpu
   const e = await estimateRow(actor, id);
   const v = await versionRow(e, input.version);
   return db.transaction(async (tx) => {
-    const copy = await insertEstimate(actor, tx, { measureId: e.measureId, title: input.title ?? `Copy of ${e.title}`, kind: e.kind, sharedRoles: [], sharedUsers: [], duplicatedFrom: e.id }, { scope: v.scope, content: v.content as EstimateContent, note: `Duplicated from “${e.title}”, version ${v.number}` });
+    const copy = await insertEstimate(actor, tx, { measureId: e.measureId, title: input.title ?? `Copy of ${e.title}`, kind: e.kind, sharedRoles: [], sharedUsers: [], duplicatedFrom: e.id }, { scope: v.scope, content: storedContent(v), note: `Duplicated from “${e.title}”, version ${v.number}` });
     return { id: copy.id, version: 1 };
   });
 }
@@ -283,12 +288,9 @@ function parseDimensions(text: string | undefined): string[] {
 /**
  * A CSV upload: parsed and checked completely before anything is stored. With preview=1 nothing
  * is stored at all; otherwise a new estimate (or a new version of `estimateId`) is created.
+ * `text` is the file as the route read it (readCsvUpload in uploads.ts).
  */
-export async function importCsv(actor: Actor, request: Request, query: z.output<typeof importQuerySchema>) {
-  const type = request.headers.get("content-type") ?? "";
-  if (!/^(text\/csv|text\/plain|application\/octet-stream)\b/i.test(type)) throw new GavelError("invalid-input", "send the CSV file itself with Content-Type: text/csv", { issues: [{ path: "(content-type)", message: `expected text/csv, got ${type || "nothing"}` }] });
-  const bytes = await readBody(request, MAX_CSV_BYTES, "the file");
-  const text = decodeCsv(bytes);
+export async function importCsv(actor: Actor, text: string, query: z.output<typeof importQuerySchema>) {
   let existing: EstimateRow | null = null;
   if (query.estimateId) {
     existing = await estimateRow(actor, query.estimateId);
@@ -304,7 +306,7 @@ export async function importCsv(actor: Actor, request: Request, query: z.output<
   else {
     const dims = parseDimensions(query.dimensions);
     const members = parseIdealCsv(text, dims);
-    const prev = existing ? ((await versionRow(existing)).content as EstimateContent) : null;
+    const prev = existing ? storedContent(await versionRow(existing)) : null;
     const base = prev?.kind === "spatial" && prev.dimensions.length === dims.length ? prev : null;
     content = { kind: "spatial", dimensions: dims, ...(base?.ranges ? { ranges: base.ranges } : {}), members, statusQuo: base?.statusQuo ?? dims.map(() => 0), measure: base?.measure ?? dims.map(() => 1), effects: base ? Object.fromEntries(Object.entries(base.effects).filter(([k]) => scope.includes(k))) : {} };
   }

@@ -14,7 +14,7 @@ import type { Actor } from "../http.ts";
 import { assertFresh, auditOf, recordAudit } from "../measure-audit.ts";
 import { measureCreateSchema, measureUpdateSchema, sectionInputSchema } from "../../measures/measure-schemas.ts";
 import { countLines, parseMeasureText, subjectList } from "../measure-sections.ts";
-import { checkDocument, readMultipart } from "../uploads.ts";
+import { checkDocument, type MultipartUpload } from "../uploads.ts";
 
 export type MeasureRow = typeof measures.$inferSelect;
 
@@ -139,8 +139,8 @@ export async function createMeasure(actor: Actor, input: CreateInput) {
  * Create a measure from an uploaded document. Text and Markdown are split into sections;
  * a PDF or DOCX is kept as the attachment and its extracted text split the same way.
  */
-export async function createMeasureFromUpload(actor: Actor, request: Request) {
-  const { fields, file } = await readMultipart(request);
+/** A measure from an uploaded document: the multipart body as the route read it (readMultipart). */
+export async function createMeasureFromUpload(actor: Actor, { fields, file }: MultipartUpload) {
   const input = parseWith(
     measureCreateSchema,
     {

@@ -8,13 +8,14 @@ import { z } from "zod";
 import { db, type Tx } from "../db.ts";
 import { user } from "../../db/schema/auth.ts";
 import { rulebookAdoptions, rulebookVersions } from "../../db/schema/rulebooks.ts";
-import { GavelError, isGavelError } from "../../errors.ts";
+import { GavelError } from "../../errors.ts";
 import { MAX_RULEBOOK_BYTES, parseRulebook, parseRulebookText } from "../../procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../procedure/rulebook-schema.ts";
 import { diffRulebooks, type RulebookDiff } from "../rulebook-diff.ts";
 import { rulebookTemplates, rulebookTemplate } from "../rulebook-templates.ts";
-import { readBody, type Actor } from "../http.ts";
+import type { Actor } from "../http.ts";
 import { chamberMemory, forgetChamber } from "../chamber-memory.ts";
+import { fromZonedInput } from "../../text/dates.ts";
 
 export { MAX_RULEBOOK_BYTES };
 
@@ -209,20 +210,8 @@ export const importFieldsSchema = z.object({
 
 const JSON_TYPES = new Set(["application/json", "text/json", ""]);
 
-/** Import an uploaded rulebook file (multipart field "file"); size- and type-checked, parsed, then saved. */
-export async function importVersion(actor: Actor, request: Request) {
-  const type = request.headers.get("content-type") ?? "";
-  if (!/^multipart\/form-data\b/i.test(type)) throw new GavelError("invalid-input", "Send the rulebook as a file upload (multipart/form-data, field \"file\").", { issues: [{ path: "(content-type)", message: `expected multipart/form-data, got ${type || "nothing"}` }] });
-  // The form carries the file plus two short fields; refuse an oversize body before reading it.
-  const declared = Number(request.headers.get("content-length") ?? 0);
-  if (declared > MAX_RULEBOOK_BYTES + 64 * 1024) throw new GavelError("too-large", `The upload is ${declared} bytes; a rulebook file may be at most ${MAX_RULEBOOK_BYTES} bytes.`, { issues: [{ path: "file", message: "too large" }] });
-  let form: FormData;
-  try {
-    form = await new Response(await readBody(request, MAX_RULEBOOK_BYTES + 64 * 1024, "the upload"), { headers: { "content-type": type } }).formData();
-  } catch (e) {
-    if (isGavelError(e)) throw e;
-    throw new GavelError("invalid-input", "The upload could not be read as a form.", { issues: [{ path: "(body)", message: "not a readable multipart form" }] });
-  }
+/** Import an uploaded rulebook file (the form as the route read it: readRulebookUpload in uploads.ts); type-checked, parsed, then saved. */
+export async function importVersion(actor: Actor, form: FormData) {
   const file = form.get("file");
   if (!(file instanceof File)) throw new GavelError("invalid-input", "Choose a rulebook file to upload.", { issues: [{ path: "file", message: "no file in the upload" }] });
   if (file.size > MAX_RULEBOOK_BYTES) throw new GavelError("too-large", `${file.name} is ${file.size} bytes; a rulebook file may be at most ${MAX_RULEBOOK_BYTES} bytes.`, { issues: [{ path: "file", message: "too large" }] });
@@ -251,16 +240,18 @@ export async function compareVersions(actor: Actor, fromId: string, toId: string
   return { from: strip(a), to: strip(b), diff: diffRulebooks(a.document, b.document) };
 }
 
-function effectiveDate(input: string | undefined): Date {
+function effectiveDate(input: string | undefined, timeZone: string): Date {
   if (!input) return new Date();
-  // A bare date means the start of that day (UTC), so "adopted with effect from today" is in force at once.
-  return new Date(/^\d{4}-\d{2}-\d{2}$/.test(input) ? `${input}T00:00:00Z` : input);
+  // A bare date means the start of that day on the chamber's clock, so "adopted with effect from today" is in force at once
+  // and every screen (which shows dates in the chamber's zone) reads the same day.
+  if (/^\d{4}-\d{2}-\d{2}$/.test(input)) return new Date(fromZonedInput(`${input}T00:00`, { timeZone }) ?? `${input}T00:00:00Z`);
+  return new Date(input);
 }
 
 /** Adopt a version with effect from a date; earlier adoptions are kept. */
 export async function adoptVersion(actor: Actor, id: string, input: z.output<typeof adoptSchema>) {
   const row = await versionRow(actor.chamber.id, id);
-  const effectiveFrom = effectiveDate(input.effectiveFrom);
+  const effectiveFrom = effectiveDate(input.effectiveFrom, actor.chamber.timeZone);
   const [a] = await db.insert(rulebookAdoptions).values({ chamberId: actor.chamber.id, versionId: row.id, effectiveFrom, note: input.note, adoptedBy: actor.user.id }).returning();
   forgetChamber(actor.chamber.id);
   return { id: a.id, versionId: row.id, number: row.number, effectiveFrom: a.effectiveFrom, inForce: (await rulebookInForce(actor.chamber.id))?.versionId === row.id };

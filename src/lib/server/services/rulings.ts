@@ -16,11 +16,13 @@ import { circulations, outbox } from "../../db/schema/mail.ts";
 import { GavelError, type InputIssue } from "../../errors.ts";
 import { can } from "../../permissions.ts";
 import { appealOutcome } from "../../rulings/appeal-outcome.ts";
-import { issueReadiness, rulingContentSchema, type Citation, type RulingContent } from "../../rulings/ruling-content.ts";
+import { appealTallySchema, citationSchema, issueReadiness, rulingContentSchema, type AppealTally, type Citation, type RulingContent } from "../../rulings/ruling-content.ts";
+import { readStored } from "../stored-json.ts";
+import { dateStyleOf, isoDateIn } from "../../text/dates.ts";
 import type { Actor } from "../http.ts";
 import { circulateRulingInTx } from "./circulation.ts";
 
-const uuid = z.string().uuid();
+const uuid = z.uuid();
 export const createDraftSchema = rulingContentSchema;
 export const updateDraftSchema = z.object({ version: z.number().int().min(1), content: rulingContentSchema });
 export const issueSchema = z.object({ version: z.number().int().min(1), circulateTo: z.array(uuid).max(10).default([]) });
@@ -52,13 +54,18 @@ export const relatedSchema = z.object({
 type Row = typeof rulings.$inferSelect;
 const notFound = () => new GavelError("not-found", "No such ruling in this chamber.");
 
-/** The stored citation list with labels, for display and for the content snapshot. */
-function storedCitations(cs: unknown): Citation[] {
-  return Array.isArray(cs) ? (cs as Citation[]) : [];
+/** The stored citation list with labels (typed by a person: parsed on read; a damaged one throws). */
+function storedCitations(r: Row): Citation[] {
+  return readStored(z.array(citationSchema), r.citations, `citations of ruling ${r.number}`);
+}
+
+/** The stored appeal tally, or null (parsed on read like the citations). */
+function storedAppeal(r: Row): AppealTally | null {
+  return readStored(appealTallySchema.nullable(), r.appeal, `appeal of ruling ${r.number}`);
 }
 
 export function contentOf(r: Row): RulingContent {
-  const appeal = r.appeal as RulingContent["appeal"];
+  const appeal = storedAppeal(r);
   return {
     raisedById: r.raisedById ?? "",
     target: { kind: r.targetKind, ref: r.targetRef, label: r.targetLabel },
@@ -69,8 +76,8 @@ export function contentOf(r: Row): RulingContent {
     decision: r.decision,
     decisionNote: r.decisionNote ?? "",
     reasoning: r.reasoning,
-    citations: storedCitations(r.citations),
-    appeal: appeal ?? null,
+    citations: storedCitations(r),
+    appeal,
     sittingId: r.sittingId,
     sitting: r.sitting,
     sittingDate: r.sittingDate,
@@ -78,7 +85,7 @@ export function contentOf(r: Row): RulingContent {
 }
 
 export function toRuling(r: Row) {
-  const appeal = (r.appeal as RulingContent["appeal"]) ?? null;
+  const appeal = storedAppeal(r);
   return {
     id: r.id,
     number: r.number,
@@ -96,7 +103,7 @@ export function toRuling(r: Row) {
     decision: r.decision,
     decisionNote: r.decisionNote ?? "",
     reasoning: r.reasoning,
-    citations: storedCitations(r.citations),
+    citations: storedCitations(r),
     appeal: appeal ? { ...appeal, outcome: appealOutcome(appeal) } : null,
     sittingId: r.sittingId,
     sitting: r.sitting,
@@ -400,7 +407,7 @@ export async function draftingOptions(actor: Actor) {
     legislators: legs,
     measures: ms.map((m) => ({ id: m.id, label: `${m.number} — ${m.title}` })),
     amendments: ams.map((a) => ({ id: a.id, measureId: a.measureId, label: `Amendment ${a.number}${a.title ? ` — ${a.title}` : ""}` })),
-    sittings: sits.map((s) => ({ id: s.id, title: s.title, date: s.openedAt.toISOString().slice(0, 10) })),
+    sittings: sits.map((s) => ({ id: s.id, title: s.title, date: isoDateIn(s.openedAt, dateStyleOf(actor.chamber)) })),
     rulebook: adopted ? { id: adopted.id, label: `${adopted.title} (version ${adopted.number})`, rules: citableRules(adopted.document) } : null,
     rulings: earlier.map((r) => ({ id: r.id, label: `Ruling ${r.number} — ${r.targetLabel}` })),
   };

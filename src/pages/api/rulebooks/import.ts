@@ -1,4 +1,8 @@
 import { json, requireActor, route } from "../../../lib/server/http.ts";
 import { importVersion } from "../../../lib/server/services/rulebooks.ts";
+import { readRulebookUpload } from "../../../lib/server/uploads.ts";
 
-export const POST = route(async ({ locals, request }) => json(await importVersion(requireActor(locals, "rulebook:edit"), request), 201));
+export const POST = route(async ({ locals, request }) => {
+  const actor = requireActor(locals, "rulebook:edit");
+  return json(await importVersion(actor, await readRulebookUpload(request)), 201);
+});
