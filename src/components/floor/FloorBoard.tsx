@@ -110,7 +110,7 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
             {open ? "Open" : "Closed"} · judged by rulebook version {data.rulebook.number} ({data.rulebook.title})
           </span>
         </div>
-        {data.superseded && data.inForce && (
+        {open && data.superseded && data.inForce && (
           <section role="alert" aria-labelledby="superseded-h" className="rounded-md border-2 border-verdict-bar bg-verdict-bar-tint p-4" data-testid="superseded">
             <h2 id="superseded-h" className="text-step-1 text-verdict-bar">This sitting is judged by a rulebook version no longer in force</h2>
             <p className="mt-1">
