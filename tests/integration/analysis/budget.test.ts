@@ -23,9 +23,10 @@ const start = (estimateId: string, as = s.as.clerk) => call(runs.POST, "POST", "
 const cancel = (runId: string, as: Seeded["as"][keyof Seeded["as"]]) => call(run.DELETE, "DELETE", "/x", { as, params: { id: runId } });
 const view = async (runId: string, as = s.as.clerk) => (await call(run.GET, "GET", "/x", { as, params: { id: runId } })).body;
 let n = 0;
+// Weights of 21 and up: above the demo chamber's quorum of 13 (its rulebook), so the run computes.
 async function estimate(as = s.as.member, shared = false) {
   n++;
-  const r = await call(list.POST, "POST", "/api/estimates", { as, body: { measureId, title: `Budget ${n}`, scope: ["A1", "A2", "A7"], content: { kind: "ballots", rows: [{ member: "all", weight: 10 + n, ranking: ["measure", "Q"] }] }, ...(shared ? { sharedRoles: ["chief-clerk", "clerk", "member", "staff", "observer"] } : {}) } });
+  const r = await call(list.POST, "POST", "/api/estimates", { as, body: { measureId, title: `Budget ${n}`, scope: ["A1", "A2", "A7"], content: { kind: "ballots", rows: [{ member: "all", weight: 20 + n, ranking: ["measure", "Q"] }] }, ...(shared ? { sharedRoles: ["chief-clerk", "clerk", "member", "staff", "observer"] } : {}) } });
   expect(r.status, JSON.stringify(r.body)).toBe(201);
   return r.body.id as string;
 }

@@ -10,6 +10,7 @@ import * as roster from "../../../src/pages/api/estimates/roster.ts";
 import * as versionList from "../../../src/pages/api/estimates/versions.ts";
 import * as runs from "../../../src/pages/api/analysis/runs/index.ts";
 import { seedMeasures } from "../../../src/lib/server/seed/measures.ts";
+import { runFinished } from "../../../src/lib/server/analysis/runner.ts";
 import { call } from "../../support/app.ts";
 import { tableCounts } from "../../support/db.ts";
 import { seedChambers, type Seeded } from "../../support/fixtures.ts";
@@ -55,6 +56,8 @@ describe("estimates started from the roster", () => {
     const started = await call(runs.POST, "POST", "/api/analysis/runs", { as: s.as.clerk, body: { estimateId: made.body.id } });
     expect(started.status, JSON.stringify(started.body)).toBeLessThan(300);
     expect(started.body.runId).toMatch(/^[0-9a-f-]{36}$/);
+    // Let it finish: a chamber holds one analysis worker at a time by default (docs/security/limits.md).
+    await runFinished(started.body.runId);
   });
 
   it("a spatial roster draft has placeholder positions and is refused until positions are saved", async () => {
