@@ -1,9 +1,13 @@
 import { useCallback, useEffect, useRef, useState } from "react";
 import { apiCall, ApiError } from "../shared/api.ts";
 import { when } from "../shared/dates.ts";
-import LegalMovesList from "./LegalMovesList.tsx";
-import { recordedSchema, sittingSchema, type Sitting } from "./schemas.ts";
 import { Alert } from "../shared/Alert.tsx";
+import ConfirmBox from "./ConfirmBox.tsx";
+import FloorHistory from "./FloorHistory.tsx";
+import LegalMovesList from "./LegalMovesList.tsx";
+import { recordedSchema, sittingSchema, type PendingItem, type Sitting } from "./schemas.ts";
+import VoteForm, { type Outcome } from "./VoteForm.tsx";
+import { questionName, shortQuestionName } from "../../lib/procedure/question-name.ts";
 
 interface Props {
   sittingId: string;
@@ -23,12 +27,13 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
   const [motion, setMotion] = useState("");
   const [text, setText] = useState("");
   const [mover, setMover] = useState("");
+  const [ref, setRef] = useState("");
   const [admitted, setAdmitted] = useState(false);
-  const [result, setResult] = useState<"adopted" | "rejected">("adopted");
-  const [tally, setTally] = useState({ yes: "", no: "", abstain: "" });
-  const [disposesBelow, setDisposesBelow] = useState(false);
   const [speaker, setSpeaker] = useState("");
+  const [withdrawing, setWithdrawing] = useState<string | null>(null);
+  const [switching, setSwitching] = useState(false);
   const latest = useRef(0);
+  const noticeRef = useRef<HTMLParagraphElement>(null);
 
   const load = useCallback(async () => {
     try {
@@ -55,24 +60,35 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
     return () => es.close();
   }, [sittingId, load]);
 
-  async function record(event: Record<string, unknown>) {
-    if (!data) return;
+  /** Send one entry; the outcome goes back to the form that asked, which shows its own errors. */
+  async function post(event: Record<string, unknown>): Promise<Outcome> {
+    if (!data) return { ok: false, error: new Error("The floor is not loaded yet.") };
     setBusy(true);
     setNotice(null);
     setOutOfOrder(null);
     try {
       const r = await apiCall(recordedSchema, `/api/floor/sittings/${sittingId}/events`, { method: "POST", body: { revision: data.sitting.revision, event } });
-      setNotice(`Recorded: ${r.summary}`);
       await load();
-      return true;
+      setNotice(`Recorded: ${r.summary}`);
+      requestAnimationFrame(() => noticeRef.current?.focus());
+      return { ok: true };
     } catch (e) {
-      if (e instanceof ApiError && e.code === "unprocessable" && e.details?.reasons) setOutOfOrder(e.message);
-      else setNotice(e instanceof Error ? e.message : "Not recorded.");
       if (e instanceof ApiError && e.status === 409) await load();
-      return false;
+      return { ok: false, error: e };
     } finally {
       setBusy(false);
     }
+  }
+
+  /** Record an entry from a button or a form without fields of its own: refusals are shown at the top of the form. */
+  async function record(event: Record<string, unknown>) {
+    const r = await post(event);
+    if (r.ok) return true;
+    const e = r.error;
+    if (e instanceof ApiError && e.code === "unprocessable" && e.details?.reasons) setOutOfOrder(e.message);
+    else setNotice(e instanceof Error ? e.message : "Not recorded.");
+    requestAnimationFrame(() => noticeRef.current?.focus());
+    return false;
   }
 
   if (error && !data) return <Alert>{error}</Alert>;
@@ -91,9 +107,30 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
             {live === "live" ? "● Live" : live === "connecting" ? "Connecting…" : "Offline — reload to reconnect"}
           </span>
           <span className="text-ink-soft">
-            {open ? "Open" : "Closed"} · judged by rulebook version {data.rulebook.number} ({data.rulebook.title}) · revision {sitting.revision}
+            {open ? "Open" : "Closed"} · judged by rulebook version {data.rulebook.number} ({data.rulebook.title})
           </span>
         </div>
+        {data.superseded && data.inForce && (
+          <section role="alert" aria-labelledby="superseded-h" className="rounded-md border-2 border-verdict-bar bg-verdict-bar-tint p-4" data-testid="superseded">
+            <h2 id="superseded-h" className="text-step-1 text-verdict-bar">This sitting is judged by a rulebook version no longer in force</h2>
+            <p className="mt-1">
+              The floor here, and every legal move on this page, follows version {data.rulebook.number} ({data.rulebook.title}). Version {data.inForce.number} ({data.inForce.title}) has been in force since {when(data.inForce.since)}.
+            </p>
+            {canRecord && open && !switching && (
+              <button type="button" className="gw-btn mt-2" disabled={busy} onClick={() => setSwitching(true)}>
+                Judge this sitting by version {data.inForce.number}…
+              </button>
+            )}
+            {canRecord && open && switching && (
+              <div className="mt-2">
+                <ConfirmBox testId="switch-confirm" yes={`Yes, judge it by version ${data.inForce.number}`} no="Not now" busy={busy} onYes={async () => { if (await record({ kind: "rulebook", version: data.inForce!.versionId })) setSwitching(false); }} onNo={() => setSwitching(false)}>
+                  From now on, judge “{sitting.title}” by rulebook version {data.inForce.number} ({data.inForce.title})? The change is recorded on the floor record; what was recorded so far stays as it is.
+                </ConfirmBox>
+              </div>
+            )}
+            {!canRecord && open && <p className="mt-1 text-sm">A clerk can move the sitting to the version in force.</p>}
+          </section>
+        )}
 
         <section aria-labelledby="stack-h" className="gw-card">
           <h2 id="stack-h" className="text-step-1">Pending questions</h2>
@@ -105,17 +142,24 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
                 <li key={p.key} className={`rounded-md border px-3 py-2 ${i === 0 ? "border-chamber bg-chamber-tint" : "border-rule bg-white"}`} data-motion={p.motion}>
                   <div className="flex flex-wrap items-center gap-2">
                     {i === 0 && <span className="gw-chip border-chamber text-chamber-dark">Immediately pending</span>}
-                    <span className="font-semibold">{p.name}</span>
+                    <span className="font-semibold">{nameOf(board.pending, p.key)}</span>
                     {p.degree !== null && <span className="text-sm text-ink-soft">degree {p.degree}</span>}
                     <span className="gw-chip border-rule text-ink-soft">{STAGE_LABELS[p.stage]}</span>
                     {p.debateBegun && <span className="gw-chip border-brass text-brass-text">In debate</span>}
                   </div>
-                  {p.text && <p className="mt-1 font-serif">{p.text}</p>}
+                  {p.text && p.text.length > 80 && <p className="mt-1 font-serif">{p.text}</p>}
                   {p.mover && <p className="text-sm text-ink-soft">Moved by {p.mover}</p>}
-                  {canRecord && open && (
-                    <button type="button" className="gw-btn-quiet mt-1" disabled={busy} onClick={() => void record({ kind: "withdrawn", key: p.key })}>
-                      Withdrawn{i > 0 ? " (with those above)" : ""}
+                  {canRecord && open && withdrawing !== p.key && (
+                    <button type="button" className="gw-btn-quiet mt-1" disabled={busy} onClick={() => setWithdrawing(p.key)}>
+                      Withdraw {shortLabel(p)}…
                     </button>
+                  )}
+                  {canRecord && open && withdrawing === p.key && (
+                    <div className="mt-2">
+                      <ConfirmBox testId="withdraw-confirm" danger yes="Yes, withdraw it" no="Keep it" busy={busy} onYes={async () => { if (await record({ kind: "withdrawn", key: p.key })) setWithdrawing(null); }} onNo={() => setWithdrawing(null)}>
+                        Withdraw {nameOf(board.pending, p.key)}?{i > 0 ? ` ${i === 1 ? "The question above it leaves" : `The ${i} questions above it leave`} the floor with it.` : ""}
+                      </ConfirmBox>
+                    </div>
                   )}
                 </li>
               ))}
@@ -142,17 +186,18 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
         {canRecord && open && (
           <section aria-labelledby="record-h" className="gw-card space-y-4">
             <h2 id="record-h" className="text-step-1">Record the floor</h2>
-            <Alert tone="ok" testId="record-notice">{notice}</Alert>
+            <p ref={noticeRef} tabIndex={-1} role="status" className="text-sm font-semibold empty:hidden" data-testid="record-notice">{notice}</p>
             <Alert>{outOfOrder}</Alert>
             <form
               className="space-y-2"
               onSubmit={async (e) => {
                 e.preventDefault();
                 if (!motion) return;
-                if (await record({ kind: "made", motion, text, mover, overrule: admitted })) {
+                if (await record({ kind: "made", motion, text, mover, ref, overrule: admitted })) {
                   setMotion("");
                   setMover("");
                   setText("");
+                  setRef("");
                   setAdmitted(false);
                 }
               }}
@@ -170,6 +215,8 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
               </select>
               <label className="gw-label" htmlFor="rec-text">Wording (optional)</label>
               <input id="rec-text" className="gw-input" value={text} maxLength={2000} onChange={(e) => setText(e.target.value)} />
+              <label className="gw-label" htmlFor="rec-ref">Reference (optional, e.g. A2)</label>
+              <input id="rec-ref" className="gw-input w-32" value={ref} maxLength={40} onChange={(e) => setRef(e.target.value)} />
               <label className="gw-label" htmlFor="rec-mover">Moved by (optional)</label>
               <input id="rec-mover" className="gw-input" value={mover} maxLength={200} onChange={(e) => setMover(e.target.value)} />
               <label className="flex items-center gap-2 text-sm">
@@ -180,42 +227,13 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
 
             {top && (
               <div className="space-y-2 border-t border-rule pt-3">
-                <h3 className="text-step-0 font-semibold">On the immediately pending question: {top.name}</h3>
+                <h3 className="text-step-0 font-semibold">On the immediately pending question: {data.question?.name ?? top.name}</h3>
                 <div className="flex flex-wrap gap-2">
                   <button type="button" className="gw-btn-quiet" disabled={busy || top.stage !== "made"} onClick={() => void record({ kind: "seconded" })}>Seconded</button>
                   <button type="button" className="gw-btn-quiet" disabled={busy || top.stage === "stated"} onClick={() => void record({ kind: "stated" })}>Stated by the chair</button>
                   <button type="button" className="gw-btn-quiet" disabled={busy} onClick={() => void record({ kind: "floor", debateBegun: !top.debateBegun })}>{top.debateBegun ? "Debate not begun" : "Debate begun"}</button>
                 </div>
-                <form
-                  className="flex flex-wrap items-end gap-2"
-                  onSubmit={async (e) => {
-                    e.preventDefault();
-                    const n = (v: string) => (v === "" ? 0 : Math.max(0, Math.floor(Number(v)) || 0));
-                    const hasTally = tally.yes !== "" || tally.no !== "";
-                    if (await record({ kind: "voted", result, tally: hasTally ? { yes: n(tally.yes), no: n(tally.no), abstain: n(tally.abstain) } : null, disposesBelow })) {
-                      setTally({ yes: "", no: "", abstain: "" });
-                      setDisposesBelow(false);
-                    }
-                  }}
-                >
-                  <label className="text-sm">
-                    <span className="gw-label">Result</span>
-                    <select className="gw-input" value={result} onChange={(e) => setResult(e.target.value === "rejected" ? "rejected" : "adopted")}>
-                      <option value="adopted">Adopted</option>
-                      <option value="rejected">Rejected</option>
-                    </select>
-                  </label>
-                  {(["yes", "no", "abstain"] as const).map((k) => (
-                    <label key={k} className="w-20 text-sm">
-                      <span className="gw-label">{k === "yes" ? "Ayes" : k === "no" ? "Noes" : "Abstaining"}</span>
-                      <input className="gw-input" inputMode="numeric" value={tally[k]} onChange={(e) => setTally({ ...tally, [k]: e.target.value.replace(/\D/g, "") })} />
-                    </label>
-                  ))}
-                  <label className="flex items-center gap-2 text-sm">
-                    <input type="checkbox" checked={disposesBelow} onChange={(e) => setDisposesBelow(e.target.checked)} /> Adopting it disposes of the questions below (tabled, referred, postponed)
-                  </label>
-                  <button className="gw-btn" disabled={busy}>Record vote</button>
-                </form>
+                {data.question && <VoteForm question={data.question} busy={busy} record={post} />}
               </div>
             )}
 
@@ -244,18 +262,18 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
 
         <section aria-labelledby="hist-h" className="gw-card">
           <h2 id="hist-h" className="text-step-1">History of the sitting</h2>
-          <ol className="mt-2 space-y-1 text-sm" data-testid="history">
-            {data.history.map((h) => (
-              <li key={h.seq}>
-                <span className="text-ink-soft">{when(h.at)}</span> {h.summary}
-                {h.by ? <span className="text-ink-soft"> · recorded by {h.by}</span> : null}
-              </li>
-            ))}
-            {data.history.length === 0 && <li className="text-ink-soft">Nothing recorded yet.</li>}
-          </ol>
+          <FloorHistory history={data.history} canCorrect={canRecord && open} busy={busy} record={post} />
         </section>
       </div>
       <LegalMovesList moves={data.moves} caption={`revision ${sitting.revision}`} />
     </div>
   );
+}
+
+function nameOf(pending: PendingItem[], key: string): string {
+  return questionName(pending, pending.findIndex((p) => p.key === key));
+}
+/** "Amendment A2", "Main motion M1", "the amendment (degree 2)" — for a button label. */
+function shortLabel(item: PendingItem): string {
+  return item.degree !== null && !item.ref ? `the amendment (degree ${item.degree})` : shortQuestionName(item);
 }

@@ -17,6 +17,7 @@
  */
 import { z } from "zod";
 import { idSchema } from "../amendments/case-schema.ts";
+import { votingMethodsSchema } from "./voting-methods.ts";
 
 /**
  * Threshold ids (never renamed; new ones are appended):
@@ -106,6 +107,8 @@ export const votingSectionSchema = z.object({
     .refine((q) => q.kind !== "fraction" || (q.numerator !== undefined && q.denominator !== undefined), { message: "a quorum of kind \"fraction\" needs a numerator and a denominator", path: ["numerator"] })
     .refine((q) => q.numerator === undefined || q.denominator === undefined || q.numerator <= q.denominator, { message: "a quorum fraction is at most 1", path: ["numerator"] })
     .default({ kind: "majority-of-members" }),
+  /** How votes are taken and what orders a recorded vote (voting-methods.ts); optional. */
+  methods: votingMethodsSchema.optional(),
   citation: citationSchema,
 });
 

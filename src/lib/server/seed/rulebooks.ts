@@ -47,7 +47,7 @@ export async function seedRulebooks(): Promise<void> {
   const record = async (event: Parameters<typeof recordEvent>[2]["event"]) => {
     revision = (await recordEvent(actor, s.id, { revision, event })).revision;
   };
-  await record({ kind: "made", motion: "main", text: DEMO_MAIN_MOTION, mover: "Dunstan Brackley", overrule: false });
+  await record({ kind: "made", motion: "main", text: DEMO_MAIN_MOTION, mover: "Dunstan Brackley", ref: "", overrule: false });
   await record({ kind: "seconded" });
   await record({ kind: "stated" });
 }

@@ -1,0 +1,134 @@
+import { useState } from "react";
+import { ApiError } from "../shared/api.ts";
+import ConfirmBox from "./ConfirmBox.tsx";
+import VoteFields from "./VoteFields.tsx";
+import type { Question } from "./schemas.ts";
+import { checkDraft, EMPTY_VOTE, fieldOfPath, VOTE_FIELD_LABELS, voteWords, type VoteDraft, type VoteEvent, type VoteField } from "./vote-entry.ts";
+
+export type Outcome = { ok: true } | { ok: false; error: unknown };
+
+interface Props {
+  question: Question;
+  busy: boolean;
+  record: (event: Record<string, unknown>) => Promise<Outcome>;
+}
+
+/**
+ * The vote on the immediately pending question. The form is for the question it names: if
+ * another question becomes pending while the clerk fills it in, it says so and records nothing
+ * until the clerk starts again. Nothing is recorded without the confirmation that names the
+ * question and the result; a count that does not give the declared result is recorded only when
+ * the clerk says the chair declared it so.
+ */
+export default function VoteForm({ question, busy, record }: Props) {
+  const [draft, setDraft] = useState<VoteDraft>(EMPTY_VOTE);
+  const [disposesBelow, setDisposesBelow] = useState(false);
+  const [errors, setErrors] = useState<Partial<Record<VoteField, string>>>({});
+  const [forQuestion, setForQuestion] = useState<{ key: string; name: string } | null>(null);
+  const [confirm, setConfirm] = useState<VoteEvent | null>(null);
+  const [mismatch, setMismatch] = useState<{ message: string; vote: VoteEvent } | null>(null);
+  const [failure, setFailure] = useState<string | null>(null);
+  const [rosterSize, setRosterSize] = useState(0);
+
+  const target = forQuestion ?? { key: question.key, name: question.name };
+  const retargeted = forQuestion !== null && forQuestion.key !== question.key;
+
+  function reset() {
+    setDraft(EMPTY_VOTE);
+    setDisposesBelow(false);
+    setErrors({});
+    setForQuestion(null);
+    setConfirm(null);
+    setMismatch(null);
+    setFailure(null);
+  }
+
+  function change(v: VoteDraft) {
+    if (!forQuestion) setForQuestion({ key: question.key, name: question.name });
+    setDraft(v);
+    setErrors({});
+    setConfirm(null);
+    setMismatch(null);
+  }
+
+  async function send(vote: VoteEvent, againstCount: boolean) {
+    setFailure(null);
+    const r = await record({ kind: "voted", question: target.key, ...vote, disposesBelow, againstCount });
+    if (r.ok) return reset();
+    setConfirm(null);
+    const e = r.error;
+    if (e instanceof ApiError && e.details && (typeof e.details.countGives === "string" || e.details.noQuorum === true)) {
+      setMismatch({ message: e.message, vote });
+      return;
+    }
+    if (e instanceof ApiError && e.status === 400 && e.issues.length) {
+      const next: Partial<Record<VoteField, string>> = {};
+      for (const i of e.issues) {
+        const f = fieldOfPath(i.path);
+        if (f && f !== "reason") next[f] = `${VOTE_FIELD_LABELS[f]}: ${i.message}`;
+      }
+      if (Object.keys(next).length) {
+        setErrors(next);
+        setFailure("Not recorded: check the fields marked above.");
+        return;
+      }
+    }
+    setFailure(e instanceof Error ? e.message : "Not recorded.");
+  }
+
+  return (
+    <form
+      className="space-y-3"
+      noValidate
+      aria-labelledby="vote-h"
+      onSubmit={(e) => {
+        e.preventDefault();
+        if (retargeted) return;
+        const c = checkDraft(draft, question.needsCount, rosterSize);
+        setErrors(c.errors);
+        setConfirm(c.vote);
+      }}
+    >
+      <h3 id="vote-h" className="text-step-0 font-semibold">
+        Vote on: <span data-testid="vote-question">{target.name}</span>
+      </h3>
+      <p className="gw-hint">Decided by {question.threshold}.</p>
+      {retargeted && (
+        <div role="alert" className="gw-card border-verdict-bar bg-verdict-bar-tint text-sm" data-testid="vote-retarget">
+          <p className="font-semibold">The question pending changed while you were filling this in. Nothing was recorded.</p>
+          <p className="mt-1">
+            You began on: {forQuestion.name}. Now pending: {question.name}.
+          </p>
+          <button type="button" className="gw-btn-quiet mt-2" onClick={reset}>
+            Start again on the question now pending
+          </button>
+        </div>
+      )}
+      <VoteFields id="vote" value={draft} onChange={change} errors={errors} needsCount={question.needsCount} disabled={busy || retargeted} rules={question} onRoster={setRosterSize} />
+      <label className="flex items-center gap-2 text-sm">
+        <input type="checkbox" checked={disposesBelow} disabled={busy || retargeted} onChange={(e) => { if (!forQuestion) setForQuestion({ key: question.key, name: question.name }); setDisposesBelow(e.target.checked); setConfirm(null); }} /> Adopting it disposes of the questions below (tabled, referred, postponed)
+      </label>
+      {failure && !mismatch && (
+        <p role="alert" className="gw-error" data-testid="vote-error">
+          {failure}
+        </p>
+      )}
+      {mismatch && (
+        <ConfirmBox testId="vote-mismatch" yes={`The chair declared it ${mismatch.vote.result}: record it so`} no="Change the result or the count" busy={busy} onYes={() => void send(mismatch.vote, true)} onNo={() => setMismatch(null)}>
+          {mismatch.message}
+        </ConfirmBox>
+      )}
+      {confirm && !mismatch ? (
+        <ConfirmBox testId="vote-confirm" yes="Yes, record it" no="Go back" busy={busy} onYes={() => void send(confirm, false)} onNo={() => setConfirm(null)}>
+          Record: {target.name} — {voteWords(confirm)}?
+        </ConfirmBox>
+      ) : (
+        !mismatch && (
+          <button className="gw-btn" disabled={busy || retargeted}>
+            Record the vote…
+          </button>
+        )
+      )}
+    </form>
+  );
+}
