@@ -7,6 +7,8 @@ declare module "pdfkit" {
     lineBreak?: boolean;
     strike?: boolean;
     lineGap?: number;
+    /** OpenType features for fontkit's layout ({ liga: false } turns ligatures off). */
+    features?: Record<string, boolean>;
   }
   interface Margins {
     top: number;
@@ -18,6 +20,8 @@ declare module "pdfkit" {
     constructor(options?: { size?: string; margins?: Margins; bufferPages?: boolean; info?: Record<string, string> });
     page: { width: number; height: number; margins: Margins };
     y: number;
+    /** The current font (pdfkit's EmbeddedFont) and its fontkit font. */
+    _font?: { font?: { glyphForCodePoint(cp: number): { id: number; _decode(): { numberOfContours: number } | null } } };
     on(event: "data", listener: (chunk: Buffer) => void): this;
     on(event: "end", listener: () => void): this;
     on(event: "error", listener: (e: unknown) => void): this;

@@ -9,3 +9,4 @@ export * from "./rulings.ts";
 export * from "./estimates.ts";
 export * from "./rate-limit.ts";
 export * from "./auth-throttle.ts";
+export * from "./journal.ts";

@@ -26,6 +26,38 @@ function fontFiles() {
   return fonts;
 }
 
+/**
+ * The text split where the bundled font cannot be embedded: fontkit 2 fails to subset composite
+ * glyphs (accented letters, straight quotes, "_", "…") read from a WOFF2 file, so those
+ * characters are set in the PDF's standard Helvetica instead of failing the whole document.
+ */
+function safePieces(doc: PDFDocument, font: string, text: string): Array<{ text: string; fallback: boolean }> {
+  doc.font(font);
+  const f = doc._font?.font;
+  const out: Array<{ text: string; fallback: boolean }> = [];
+  for (const ch of text) {
+    let fallback = false;
+    if (f) {
+      const glyph = f.glyphForCodePoint(ch.codePointAt(0)!);
+      const decoded = glyph.id === 0 ? null : glyph._decode();
+      fallback = glyph.id === 0 ? /\S/.test(ch) : (decoded?.numberOfContours ?? 0) < 0;
+    }
+    const last = out[out.length - 1];
+    if (last && last.fallback === fallback) last.text += ch;
+    else out.push({ text: ch, fallback });
+  }
+  return out.length ? out : [{ text: "", fallback: false }];
+}
+
+/** Set a line in one font with the fallback for characters it cannot embed. */
+function safeText(doc: PDFDocument, font: string, text: string, x: number, y: number, options: { width: number; align?: "center"; lineBreak?: boolean }) {
+  const pieces = safePieces(doc, font, text);
+  pieces.forEach((p, i) => doc.font(p.fallback ? "Helvetica" : font).text(p.text, i === 0 ? x : undefined, i === 0 ? y : undefined, { ...options, continued: i < pieces.length - 1, features: NO_LIGATURES }));
+}
+
+/** Ligature glyphs ("fl", "fi") are composites too: set the letters apart. */
+const NO_LIGATURES = { liga: false, clig: false, dlig: false, rlig: false };
+
 const HEADING_SIZE = { 1: 15, 2: 13, 3: 11.5 } as const;
 
 /** The document as a PDF (A4), footer and "Page n of m" on every page. */
@@ -47,20 +79,25 @@ export async function renderPdf(d: DocumentModel): Promise<Buffer> {
     const x = doc.page.margins.left + (opts.indent ?? 0);
     const w = width - (opts.indent ?? 0);
     if (opts.bullet) doc.font("sans").fontSize(10.5).text("•", x - 10, doc.y, { continued: false, lineBreak: false });
-    const list = rs.length ? rs : [{ text: "" }];
-    list.forEach((r, i) => {
+    const pieces = (rs.length ? rs : [{ text: "" }]).flatMap((r) => {
+      const font = r.bold ? "serif" : r.italic ? "sans-italic" : "sans";
+      return safePieces(doc, font, r.text).map((p) => ({ ...r, text: p.text, font: p.fallback ? "Helvetica" : font }));
+    });
+    pieces.forEach((r, i) => {
       doc
-        .font(r.bold ? "serif" : r.italic ? "sans-italic" : "sans")
+        .font(r.font)
         .fontSize(10.5)
         .fillColor(r.struck ? "#555555" : "#111111")
-        .text(r.text, i === 0 ? x : undefined, i === 0 ? doc.y : undefined, { width: w, continued: i < list.length - 1, strike: r.struck ?? false, lineGap: 2 });
+        .text(r.text, i === 0 ? x : undefined, i === 0 ? doc.y : undefined, { width: w, continued: i < pieces.length - 1, strike: r.struck ?? false, lineGap: 2, features: NO_LIGATURES });
     });
     doc.fillColor("#111111");
   };
 
-  doc.font("serif").fontSize(18).text(d.title, { width });
+  doc.fontSize(18);
+  safeText(doc, "serif", d.title, doc.page.margins.left, doc.y, { width });
   doc.moveDown(0.3);
-  for (const s of d.subtitle) doc.font("sans").fontSize(10.5).text(s, { width });
+  doc.fontSize(10.5);
+  for (const s of d.subtitle) safeText(doc, "sans", s, doc.page.margins.left, doc.y, { width });
   doc.moveDown(0.8);
   for (const b of d.blocks) renderPdfBlock(doc, b, runs, width);
 
@@ -69,11 +106,8 @@ export async function renderPdf(d: DocumentModel): Promise<Buffer> {
     doc.switchToPage(range.start + i);
     const bottom = doc.page.margins.bottom;
     doc.page.margins.bottom = 0;
-    doc
-      .font("sans")
-      .fontSize(8.5)
-      .fillColor("#444444")
-      .text(`${d.footer} — page ${i + 1} of ${range.count}`, doc.page.margins.left, doc.page.height - 40, { width, align: "center", lineBreak: false });
+    doc.fontSize(8.5).fillColor("#444444");
+    safeText(doc, "sans", `${d.footer} — page ${i + 1} of ${range.count}`, doc.page.margins.left, doc.page.height - 40, { width, align: "center", lineBreak: false });
     doc.page.margins.bottom = bottom;
   }
   doc.end();
@@ -85,7 +119,8 @@ function renderPdfBlock(doc: PDFDocument, b: Block, runs: (rs: Run[], o?: { inde
   switch (b.kind) {
     case "heading":
       doc.moveDown(b.level === 1 ? 0.8 : 0.5);
-      doc.font("serif").fontSize(HEADING_SIZE[b.level]).fillColor("#111111").text(b.text, doc.page.margins.left, doc.y, { width });
+      doc.fontSize(HEADING_SIZE[b.level]).fillColor("#111111");
+      safeText(doc, "serif", b.text, doc.page.margins.left, doc.y, { width });
       doc.moveDown(0.2);
       return;
     case "paragraph":
@@ -97,11 +132,13 @@ function renderPdfBlock(doc: PDFDocument, b: Block, runs: (rs: Run[], o?: { inde
       doc.moveDown(0.35);
       return;
     case "tally":
-      doc.font("sans").fontSize(10.5).text(b.labels.map((l) => `${l} ____________`).join("      "), doc.page.margins.left, doc.y, { width });
+      doc.fontSize(10.5);
+      safeText(doc, "sans", b.labels.map((l) => `${l} ____________`).join("      "), doc.page.margins.left, doc.y, { width });
       doc.moveDown(0.5);
       return;
     case "note":
-      doc.font("sans-italic").fontSize(9.5).fillColor("#333333").text(b.text, doc.page.margins.left, doc.y, { width });
+      doc.fontSize(9.5).fillColor("#333333");
+      safeText(doc, "sans-italic", b.text, doc.page.margins.left, doc.y, { width });
       doc.fillColor("#111111");
       doc.moveDown(0.4);
       return;
