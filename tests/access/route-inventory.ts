@@ -133,6 +133,7 @@ export const API_ROUTES: readonly ApiRoute[] = [
   { file: "api/floor/sittings/index.ts", method: "POST", path: "/api/floor/sittings", audience: CLERKS, outsider: "own-chamber", body: () => ({ title: "Access sitting" }) },
   { file: "api/floor/sittings/[id].ts", method: "GET", path: "/api/floor/sittings/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "sitting" } },
   { file: "api/floor/sittings/[id]/events.ts", method: "POST", path: "/api/floor/sittings/:id/events", audience: CLERKS, outsider: "refused", params: { id: "sitting" }, body: () => ({ revision: 0, event: { kind: "seconded" } }) },
+  { file: "api/floor/recorded-votes.ts", method: "GET", path: "/api/floor/recorded-votes", audience: ALL_ROLES, outsider: "own-chamber", note: "the chamber's recorded votes: {votes: [{id, yea, nay, …}]}" },
   { file: "api/floor/sittings/[id]/stream.ts", method: "GET", path: "/api/floor/sittings/:id/stream", audience: ALL_ROLES, outsider: "refused", params: { id: "sitting" }, stream: true, note: "server-sent events" },
 
   // measures and amendments

@@ -175,4 +175,35 @@ describe("the floor record", () => {
     await expect.poll(() => page.getByTestId("superseded").count()).toBe(0);
     await visible(page.getByTestId("history").getByText(`in place of version ${s.rulebook.number}`));
   });
+
+  it("records a recorded vote member by member from the roster, by keyboard, with totals and the quorum", async () => {
+    const form = page.getByRole("form", { name: /Vote on/ });
+    await page.getByTestId("vote-question").filter({ hasText: "Amendment A1 to Main motion M1" }).waitFor();
+    await form.getByRole("radio", { name: "Adopted" }).check();
+    await form.getByRole("radio", { name: "Recorded vote (roll call)" }).check();
+    const rollCall = page.getByTestId("roll-call");
+    await visible(rollCall.locator("[data-roll-row]").first());
+    const rows = await rollCall.locator("[data-roll-row]").count();
+    expect(rows).toBe(40);
+    // Keyboard: Y, N, P answer and move on to the next member.
+    const first = await rollCall.locator("[data-roll-row]").first().getAttribute("data-member");
+    await rollCall.getByRole("radio", { name: `${first}: Yea` }).focus();
+    for (const key of [...Array(21).fill("y"), ...Array(12).fill("n"), ...Array(3).fill("p")]) await page.keyboard.press(key);
+    await expect.poll(() => textOf(page.getByTestId("roll-totals"))).toBe("Yea 21 · Nay 12 · Present 3 · Not voting 0 · Recused 0 · No answer yet 4");
+    // Not every member has answered: nothing is sent.
+    await form.getByRole("button", { name: "Record the vote…" }).click();
+    await visible(form.getByText("The roll: 4 members have no answer yet; mark them (“Not voting” for those absent)."));
+    await rollCall.getByRole("button", { name: "Mark everyone not yet answered as not voting" }).click();
+    expect(await textOf(page.getByTestId("roll-totals"))).toBe("Yea 21 · Nay 12 · Present 3 · Not voting 4 · Recused 0 · No answer yet 0");
+    expect(await textOf(page.getByTestId("roll-quorum"))).toBe("36 present of 40; the quorum is 13: a quorum is present.");
+    await shot(page, "floor-roll-call");
+    await form.getByRole("button", { name: "Record the vote…" }).click();
+    expect(await textOf(page.getByTestId("vote-confirm-text"))).toBe(`Record: Amendment A1 to Main motion M1 — “${A1}” — adopted, 21–12, 3 present, 4 not voting (recorded vote)?`);
+    await page.getByRole("button", { name: "Yes, record it" }).click();
+    await notice().filter({ hasText: "(recorded vote)" }).waitFor();
+    const recorded = await api("GET", `/api/floor/recorded-votes?sitting=${sittingId}`);
+    expect(recorded.votes.length).toBe(1);
+    expect(recorded.votes[0].yea.length).toBe(21);
+    expect(recorded.votes[0].nay.length).toBe(12);
+  });
 });

@@ -110,7 +110,7 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
             {open ? "Open" : "Closed"} · judged by rulebook version {data.rulebook.number} ({data.rulebook.title})
           </span>
         </div>
-        {data.superseded && data.inForce && (
+        {open && data.superseded && data.inForce && (
           <section role="alert" aria-labelledby="superseded-h" className="rounded-md border-2 border-verdict-bar bg-verdict-bar-tint p-4" data-testid="superseded">
             <h2 id="superseded-h" className="text-step-1 text-verdict-bar">This sitting is judged by a rulebook version no longer in force</h2>
             <p className="mt-1">
@@ -254,6 +254,7 @@ export default function FloorBoard({ sittingId, canRecord }: Props) {
               </form>
               <div className="flex flex-wrap gap-2">
                 <button type="button" className="gw-btn-quiet" disabled={busy} onClick={() => void record({ kind: "floor", chairHasRuled: !board.chairHasRuled })}>{board.chairHasRuled ? "Appeal time over" : "The chair has ruled"}</button>
+                <button type="button" className="gw-btn-quiet" disabled={busy} aria-pressed={board.committeeOfTheWhole} onClick={() => void record({ kind: "floor", committeeOfTheWhole: !board.committeeOfTheWhole })}>{board.committeeOfTheWhole ? "Leave Committee of the Whole" : "Into Committee of the Whole"}</button>
                 <button type="button" className="gw-btn-danger" disabled={busy} onClick={() => { if (confirm("Close this sitting? Nothing more can be recorded in it.")) void record({ kind: "close" }); }}>Close the sitting</button>
               </div>
             </div>

@@ -66,7 +66,7 @@ export default function MovesExplorer() {
       const s = await apiCall(sittingSchema, `/api/floor/sittings/${open.id}`);
       setPending(s.board.pending.map((p) => ({ motion: p.motion })));
       const top = s.board.pending[s.board.pending.length - 1];
-      setFacts({ speakerHasFloor: s.board.speaker !== null, debateBegun: top?.debateBegun ?? false, chairHasRuled: s.board.chairHasRuled, voteTaken: s.board.voteTaken, tabled: s.board.tabled, quorumPresent: facts.quorumPresent, committeeOfTheWhole: facts.committeeOfTheWhole });
+      setFacts({ speakerHasFloor: s.board.speaker !== null, debateBegun: top?.debateBegun ?? false, chairHasRuled: s.board.chairHasRuled, voteTaken: s.board.voteTaken, tabled: s.board.tabled, quorumPresent: facts.quorumPresent, committeeOfTheWhole: s.board.committeeOfTheWhole });
     } catch (e) {
       setError({ message: e instanceof Error ? e.message : "Could not copy the floor.", issues: [] });
     }

@@ -25,6 +25,13 @@ interface Props {
  */
 export default function RollCall({ id, roster, roll, onChange, quorum, disabled, error }: Props) {
   const list = useRef<HTMLOListElement>(null);
+  // The roll as last given, so answers typed faster than the page redraws are all kept.
+  const latest = useRef(roll);
+  latest.current = roll;
+  const answer = (member: string, p: RollPosition) => {
+    latest.current = { ...latest.current, [member]: p };
+    onChange(latest.current);
+  };
   const c = rollCounts(roll);
   const answered = Object.keys(roll).length;
   const present = c.yea + c.nay + c.present + c.recused;
@@ -37,8 +44,9 @@ export default function RollCall({ id, roster, roll, onChange, quorum, disabled,
     const p = KEYS[e.key.toLowerCase()];
     if (p && !e.ctrlKey && !e.metaKey && !e.altKey) {
       e.preventDefault();
-      onChange({ ...roll, [member]: p });
-      requestAnimationFrame(() => focusRow(Math.min(i + 1, roster.length - 1)));
+      answer(member, p);
+      // Focus moves at once, so a clerk typing quickly never answers twice for the same member.
+      focusRow(Math.min(i + 1, roster.length - 1));
     }
   }
   function markRest(p: RollPosition) {
@@ -75,7 +83,7 @@ export default function RollCall({ id, roster, roll, onChange, quorum, disabled,
               <span className="flex flex-wrap gap-1">
                 {ROLL_POSITIONS.map((p) => (
                   <label key={p} className={`cursor-pointer rounded border px-1.5 py-0.5 text-xs focus-within:ring-2 focus-within:ring-brass ${roll[m.id] === p ? "border-chamber bg-chamber-tint font-semibold" : "border-rule"}`}>
-                    <input type="radio" className="sr-only" name={`${id}-roll-${m.id}`} value={p} checked={roll[m.id] === p} disabled={disabled} aria-label={`${m.name}: ${POSITION_WORDS[p]}`} onChange={() => onChange({ ...roll, [m.id]: p })} />
+                    <input type="radio" className="sr-only" name={`${id}-roll-${m.id}`} value={p} checked={roll[m.id] === p} disabled={disabled} aria-label={`${m.name}: ${POSITION_WORDS[p]}`} onChange={() => answer(m.id, p)} />
                     <span aria-hidden="true">{KEY_OF[p]}</span> {POSITION_WORDS[p]}
                   </label>
                 ))}

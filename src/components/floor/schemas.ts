@@ -33,6 +33,7 @@ export const boardSchema = z.object({
   voteTaken: z.boolean(),
   tabled: z.number(),
   lastVote: z.object({ motion: z.string(), name: z.string(), result: z.enum(["adopted", "rejected"]), tally: z.object({ yes: z.number(), no: z.number(), abstain: z.number() }).nullable() }).nullable(),
+  committeeOfTheWhole: z.boolean().default(false),
 });
 
 export const sittingSummarySchema = z.object({ id: z.string(), title: z.string(), status: z.enum(["open", "closed"]), revision: z.number(), openedAt: z.string(), closedAt: z.string().nullable() });

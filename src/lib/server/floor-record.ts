@@ -53,10 +53,12 @@ export const boardSchema = z.object({
   voteTaken: z.boolean(),
   tabled: z.number().int().min(0),
   lastVote: z.object({ motion: idSchema, name: z.string(), result: z.enum(["adopted", "rejected"]), tally: tallySchema.nullable() }).nullable(),
+  /** Sitting as a Committee of the Whole (US House Rule XVIII); boards stored before this field read as false. */
+  committeeOfTheWhole: z.boolean().default(false),
 });
 export type Board = z.output<typeof boardSchema>;
 
-export const EMPTY_BOARD: Board = { pending: [], speaker: null, chairHasRuled: false, voteTaken: false, tabled: 0, lastVote: null };
+export const EMPTY_BOARD: Board = { pending: [], speaker: null, chairHasRuled: false, voteTaken: false, tabled: 0, lastVote: null, committeeOfTheWhole: false };
 
 const shortText = (max: number) => z.string().trim().max(max);
 const questionKey = z.string().min(1).max(40);
@@ -90,7 +92,7 @@ export const floorEventSchema = z.discriminatedUnion("kind", [
   z.object({ kind: z.literal("stated"), question: questionKey.optional() }),
   votedEventSchema,
   z.object({ kind: z.literal("withdrawn"), key: questionKey }),
-  z.object({ kind: z.literal("floor"), speaker: shortText(200).nullable().optional(), debateBegun: z.boolean().optional(), chairHasRuled: z.boolean().optional(), question: questionKey.optional() }),
+  z.object({ kind: z.literal("floor"), speaker: shortText(200).nullable().optional(), debateBegun: z.boolean().optional(), chairHasRuled: z.boolean().optional(), committeeOfTheWhole: z.boolean().optional(), question: questionKey.optional() }),
   z.object({ kind: z.literal("close") }),
   /**
    * A correction: strikes an earlier entry (by its number in the history) with a reason, and
@@ -118,6 +120,7 @@ export function floorStateOf(board: Board): FloorStateInput {
       // The last vote recorded, so reconsider is judged by what was voted and how (RONR 1915 §36);
       // its day is not recorded, so no time limit is applied here.
       votes: board.lastVote ? [{ motion: board.lastVote.motion, result: board.lastVote.result }] : [],
+      committeeOfTheWhole: board.committeeOfTheWhole,
     },
   };
 }
@@ -358,6 +361,10 @@ export function applyFloorEvent(rulebook: Rulebook, board: Board, event: FloorEv
       if (event.chairHasRuled !== undefined) {
         next.chairHasRuled = event.chairHasRuled;
         parts.push(event.chairHasRuled ? "The chair has ruled" : "No ruling awaiting appeal");
+      }
+      if (event.committeeOfTheWhole !== undefined) {
+        next.committeeOfTheWhole = event.committeeOfTheWhole;
+        parts.push(event.committeeOfTheWhole ? "Sitting as a Committee of the Whole" : "Sitting as the chamber (out of Committee of the Whole)");
       }
       if (!parts.length) refuse("Say what changed on the floor.", "event");
       return { board: next, summary: parts.join("; ") };

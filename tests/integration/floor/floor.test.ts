@@ -125,6 +125,18 @@ describe("recording the floor", () => {
     expect(await tableCounts()).toEqual(before);
   });
 
+  it("records going into and out of a Committee of the Whole as a floor fact (US House Rule XVIII; issue 14 item 2)", async () => {
+    const { sitting } = await board();
+    expect((await board()).board.committeeOfTheWhole).toBe(false);
+    const into = await rec(s.as.clerk, sitting.revision, { kind: "floor", committeeOfTheWhole: true });
+    expect(into.status).toBe(201);
+    expect(into.body.board.committeeOfTheWhole).toBe(true);
+    expect((await board()).history.at(-1).summary).toMatch(/Committee of the Whole/);
+    const out = await rec(s.as.clerk, into.body.revision, { kind: "floor", committeeOfTheWhole: false });
+    expect(out.body.board.committeeOfTheWhole).toBe(false);
+    expect((await rec(s.as.clerk, out.body.revision, { kind: "floor", committeeOfTheWhole: "yes" })).status).toBe(400);
+  });
+
   it("records a vote with its tally, a withdrawal, and closes the sitting; history is kept", async () => {
     const { sitting } = await board();
     const v = await rec(s.as.clerk, sitting.revision, { kind: "voted", result: "adopted", tally: { yes: 22, no: 15, abstain: 3 } });
@@ -141,7 +153,7 @@ describe("recording the floor", () => {
     expect(after.status).toBe(409);
     const b = await board();
     expect(b.sitting.status).toBe("closed");
-    expect(b.history.map((h: { kind: string }) => h.kind)).toEqual(["made", "seconded", "stated", "made", "seconded", "stated", "voted", "withdrawn", "close"]);
+    expect(b.history.map((h: { kind: string }) => h.kind)).toEqual(["made", "seconded", "stated", "made", "seconded", "stated", "floor", "floor", "voted", "withdrawn", "close"]);
   });
 });
 

@@ -103,6 +103,8 @@ describe("GET /api/rulebooks/:id and export", () => {
     const r = await call(template.GET, "GET", "/api/rulebooks/templates/four-amendment-legislature", { as: s.as.member, params: { id: "four-amendment-legislature" } });
     expect(r.status).toBe(200);
     expect([r.body.id, r.body.document.id]).toEqual(["us-house", "us-house"]);
+    expect(r.body.aliases).toEqual(["four-amendment-legislature"]);
+    expect(r.body.verify.length).toBeGreaterThan(0);
   });
 });
 

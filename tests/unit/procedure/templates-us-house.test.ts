@@ -9,7 +9,7 @@ import { describe, expect, it } from "vitest";
 import type { AmendmentInput, MeasureInput } from "../../../src/lib/amendments/case-schema.ts";
 import { validateTree, type Finding } from "../../../src/lib/amendments/validate-tree.ts";
 import { legalMoves, type MotionVerdict } from "../../../src/lib/procedure/legal-moves.ts";
-import { resolveTemplateId } from "../../../src/lib/procedure/template-aliases.ts";
+import { canonicalTemplateId } from "../../../src/lib/procedure/template-ids.ts";
 import { rawTemplate, template } from "./fixtures.ts";
 
 const house = template("us-house");
@@ -77,9 +77,30 @@ describe("US House: seconds and suspension", () => {
     expect(house.motions.filter((m) => m.second).map((m) => m.id)).toEqual([]);
   });
 
-  it("suspension: House Practice, Suspension of Rules §1, \"debatable for 40 minutes (§ 7, infra), is not amendable (§ 8, infra), and requires a two-thirds vote\"; Rule XV cl. 1(a), \"two-thirds of the Members voting\"", async () => {
+  it("suspension: House Practice (2011 ed.) ch. 53 §1, \"It is debatable for 40 minutes, is not amendable, and requires a two-thirds vote for adoption.\"; Rule XV cl. 1(a), \"two-thirds of the Members voting\"", async () => {
     const v = (await moves([]))["suspend-rules"];
     expect([v.debatable, v.amendable, v.vote, v.second]).toEqual([true, false, "two-thirds", false]);
+  });
+});
+
+describe("US House: quorum", () => {
+  it("\"a smaller Number may adjourn from day to day\" (U.S. Const. art. I §5), while the motion for a recess \"is not in order in the absence of a quorum\" (House Rules Manual 112th §586)", async () => {
+    const state = await moves([MAIN], { quorumPresent: false });
+    expect(state.adjourn.inOrder).toBe(true);
+    expect(state.recess.reasons.map((r) => r.rule)).toContain("no-quorum");
+    expect(Object.values(state).filter((v) => v.inOrder).map((v) => v.motion)).toEqual(["adjourn"]);
+  });
+});
+
+describe("US House: reconsider under Rule XIX cl. 3", () => {
+  it("\"on the same or succeeding day\" (former rule, House Rules Manual 105th §812 p. 640), by \"any member of the majority\"", async () => {
+    const vote = { motion: "main", result: "adopted", day: 4 };
+    expect((await moves([], { day: 4, votes: [vote] })).reconsider.inOrder).toBe(true);
+    expect((await moves([], { day: 5, votes: [vote] })).reconsider.inOrder).toBe(true);
+    const late = await moves([], { day: 6, votes: [vote] });
+    expect(late.reconsider.reasons.map((r) => r.rule)).toEqual(["reconsider-time-limit"]);
+    const minority = await moves([], { day: 4, votes: [{ ...vote, moverOnPrevailingSide: false }] });
+    expect(minority.reconsider.reasons.map((r) => r.rule)).toEqual(["reconsider-prevailing-side"]);
   });
 });
 
@@ -141,6 +162,20 @@ describe("US House: the amendment tree (Rule XVI cl. 6) and germaneness (cl. 7)"
     expect(fs.find((f) => f.code === "voted-after-perfecting")).toMatchObject({ amendment: s.id, related: [p.id] });
   });
 
+  it("the House tree: an amendment, an amendment to it, a substitute for the amendment and an amendment to the substitute (Rule XVI cl. 6 as quoted by CRS 98-613: \"it also shall be in order to offer a further amendment by way of substitute\"; CRS: the substitute \"is treated as a first-degree amendment\" and \"Like the original first-degree amendment, this one also is subject to second-degree amendments\")", async () => {
+    const a = am("sec1", { status: "pending", filedAt: "2026-03-02T10:00:00Z" });
+    const a2 = am(a.id, { status: "pending", filedAt: "2026-03-02T10:05:00Z" });
+    const s = am(a.id, { form: "substitute", status: "pending", filedAt: "2026-03-02T10:10:00Z" });
+    const s2 = am(s.id, { status: "pending", filedAt: "2026-03-02T10:15:00Z" });
+    const { findings: fs, tree } = await validateTree({ rulebook: house, measure, amendments: [a, a2, s, s2] });
+    expect(fs.filter((f) => f.severity === "error")).toEqual([]);
+    expect([a, a2, s, s2].map((x) => tree.nodes[x.id].degree)).toEqual([1, 2, 1, 2]);
+    expect(tree.nodes[s.id].role).toBe("substitute-for-amendment");
+    // "It is not in order to offer more than one motion to amend of the same nature at a time (V, 5755; VIII, 2831)": a fifth is refused.
+    const fifth = am(a.id, { status: "pending", filedAt: "2026-03-02T10:20:00Z" });
+    expect(codes(await findings([a, a2, s, s2, fifth]), fifth.id)).toContain("slot-taken");
+  });
+
   it("an amendment to an amendment to an amendment is a third degree and out of order (Rule XVI cl. 6: \"a motion to amend and a motion to amend that amendment shall be in order\", former Rule XIX)", async () => {
     const a = am("sec1");
     const b = am(a.id);
@@ -159,8 +194,8 @@ describe("US House: the amendment tree (Rule XVI cl. 6) and germaneness (cl. 7)"
 
 describe("US House: the former id", () => {
   it("four-amendment-legislature names the us-house template (CLI, API and stored origins keep working)", () => {
-    expect(resolveTemplateId("four-amendment-legislature")).toBe("us-house");
+    expect(canonicalTemplateId("four-amendment-legislature")).toBe("us-house");
     expect(rawTemplate("four-amendment-legislature").id).toBe("us-house");
-    expect(resolveTemplateId("us-house")).toBe("us-house");
+    expect(canonicalTemplateId("us-house")).toBe("us-house");
   });
 });

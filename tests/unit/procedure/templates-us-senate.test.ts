@@ -66,6 +66,15 @@ describe("US Senate: Rule XXII cl. 1, the motions \"shall have precedence as the
   });
 });
 
+describe("US Senate: reconsider under Rule XIII cl. 1 (paraphrase: the same day or either of the next two days of actual session)", () => {
+  it("the window is two days of actual session after the day of the vote", async () => {
+    const vote = { motion: "main", result: "rejected", day: 10 };
+    const at = async (day: number) => (await moves([], { day, votes: [vote] })).reconsider;
+    expect((await at(12)).inOrder).toBe(true);
+    expect((await at(13)).reasons.map((r) => r.rule)).toEqual(["reconsider-time-limit"]);
+  });
+});
+
 describe("US Senate: no previous question; cloture under Rule XXII cl. 2", () => {
   it("the previous question is never received: it is not among Rule XXII cl. 1's motions (\"the Senate rules not recognizing the above motions\", Pocket Manual of Rules of Order, 1876, §37 note)", async () => {
     for (const pending of [[], [MAIN], [MAIN, { motion: "amend" }]]) {
@@ -75,10 +84,27 @@ describe("US Senate: no previous question; cloture under Rule XXII cl. 2", () =>
     }
   });
 
+  it("cloture is adopted by \"three-fifths of the Senators duly chosen and sworn\" (Rule XXII cl. 2 as restated in S. Res. 67, 114th Cong.), by two-thirds of those present and voting on a rules change", async () => {
+    const v = (await moves([MAIN])).cloture;
+    expect(v.vote).toBe("three-fifths-of-members");
+    const cloture = senate.motions.find((m) => m.id === "cloture")!;
+    expect(cloture.voteAlternatives?.map((a) => [a.kind, a.vote])).toEqual([["instead", "two-thirds"]]);
+  });
+
   it("a cloture motion brings \"to a close the debate upon any measure, motion, other matter pending before the Senate\": it needs a pending question, and the question on it is put \"without debate\"", async () => {
     expect((await moves([])).cloture.inOrder).toBe(false);
     const v = (await moves([MAIN, { motion: "amend" }])).cloture;
     expect([v.inOrder, v.debatable, v.amendable]).toEqual([true, false, false]);
+  });
+});
+
+describe("US Senate: quorum and the chair", () => {
+  it("\"a Majority of each [House] shall constitute a Quorum to do Business; but a smaller Number may adjourn from day to day\" (U.S. Const. art. I §5): without a quorum only adjourn is in order", async () => {
+    const state = await moves([MAIN], { quorumPresent: false });
+    expect(Object.values(state).filter((v) => v.inOrder).map((v) => v.motion)).toEqual(["adjourn"]);
+  });
+  it("the Vice President \"shall have no Vote, unless they be equally divided\" (U.S. Const. art. I §3 cl. 4): the tie rule is the chair's casting vote", () => {
+    expect(senate.voting.tieRule).toBe("chair-casting-vote");
   });
 });
 
@@ -111,6 +137,9 @@ describe("US Senate: the amendment tree", () => {
     const fs = await findings([a, perfecting, substitute]);
     expect(fs.filter((f) => f.severity === "error")).toEqual([]);
     expect(codes(fs, substitute.id)).not.toContain("degree-exceeded");
+    // Riddick: "a substitute counts as one degree of amendment": a substitute for a first-degree amendment is of the second degree.
+    const { tree } = await validateTree({ rulebook: senate, measure, amendments: [a, perfecting, substitute] });
+    expect(tree.nodes[substitute.id].degree).toBe(2);
   });
 
   it("\"A perfecting amendment (and an amendment to it) has precedence over a substitute amendment (and an amendment to it)\" (CRS 98-853 as reproduced): the substitute for the bill is voted after the perfecting amendment", async () => {
