@@ -181,7 +181,10 @@ function bruteBanks(g: MajorityGraph): number[] {
   const n = g.alternatives.length;
   const out = new Array<number>(n).fill(0);
   const into = new Array<number>(n).fill(0);
-  for (let x = 0; x < n; x++) for (let y = 0; y < n; y++) if (g.beats[x][y]) ((out[x] |= 1 << y), (into[y] |= 1 << x));
+  for (let x = 0; x < n; x++) for (let y = 0; y < n; y++) if (g.beats[x][y]) {
+      out[x] |= 1 << y;
+      into[y] |= 1 << x;
+    }
   const tops = new Set<number>();
   for (let mask = 1; mask < 1 << n; mask++) {
     // A transitive chain: its members' out-degrees within it are 0..k−1.

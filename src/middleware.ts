@@ -5,7 +5,6 @@ import { contextFor, forgetAccessAfter } from "./lib/server/context.ts";
 import { startOutboxWorker } from "./lib/server/mail.ts";
 import { errorResponse, isDatabaseUnavailable } from "./lib/server/http.ts";
 import { describeError } from "./lib/server/log-safe.ts";
-import { GavelError } from "./lib/errors.ts";
 import { baseUrl } from "./lib/server/auth.ts";
 import { crossSiteRefusal } from "./lib/server/origin-check.ts";
 import { contentSecurityPolicy } from "./lib/server/csp.ts";

@@ -10,7 +10,7 @@ export interface CommandInfo {
 
 export const COMMAND_TABLE = {
   moves: { usage: "moves CASE.json", summary: "List every motion of the rulebook as in or out of order for a floor state, with reasons." },
-  rulebook: { usage: "rulebook check FILE", summary: "Validate a rulebook file (exit 0 with a summary, or 2 with path-precise errors)." },
+  rulebook: { usage: "rulebook check FILE | test RULEBOOK SCENARIOS", summary: "Validate a rulebook file (exit 0 with a summary, or 2 with path-precise errors); test: run a bench of scenarios (exit 1 when any fails)." },
   check: { usage: "check CASE.json", summary: "Validate a measure's amendment tree against a rulebook and list the findings." },
   majority: { usage: "majority FILE", summary: "Majority graph, Condorcet winner, top cycle, Schwartz, uncovered and Banks sets" },
   agendas: { usage: "agendas FILE", summary: "Count legal voting orders and the orders leading to each sincere/sophisticated outcome" },

@@ -39,6 +39,8 @@ export const PERMISSIONS = [
   "circulation:send",
   "lists:edit",
   "mail:view-caught",
+  /** Cancel any analysis run of the chamber, not only one's own (the worker pool is shared). */
+  "analysis:cancel-any",
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 

@@ -24,7 +24,8 @@ describe("rulebook pages", () => {
     await shot(page, "rulebooks-library-clerk");
 
     await page.goto(`${BASE_URL}/rulebooks/new`);
-    const vote = page.getByLabel("Vote required for limit-debate");
+    await page.getByRole("button", { name: "Edit Limit or extend limits of debate" }).click();
+    const vote = page.getByLabel("Vote required for Limit or extend limits of debate");
     await vote.waitFor();
     const was = await vote.inputValue();
     const now = was === "two-thirds" ? "majority" : "two-thirds";
@@ -33,6 +34,7 @@ describe("rulebook pages", () => {
     // A rule with an unknown operator is flagged at its exact field and blocks saving.
     await page.getByRole("tab", { name: /Rules/ }).click();
     await page.locator("details[data-rule] summary").first().click();
+    await page.locator("details[data-rule]").first().getByLabel("Show the names used in the file").check();
     const op = page.locator("#f-rules_0_conditions_all_0_operator");
     const opWas = await op.inputValue();
     await op.fill("sortOf");
@@ -47,8 +49,8 @@ describe("rulebook pages", () => {
     await Promise.all([page.waitForURL(/\/rulebooks\/[0-9a-f-]+\?saved=\d+/), page.getByRole("button", { name: "Save as new version" }).click()]);
     const saved = Number(new URL(page.url()).searchParams.get("saved"));
     await page.getByText(`Saved as version ${saved}.`).waitFor();
-    await page.getByLabel("Vote required for limit-debate").waitFor();
-    expect(await page.getByLabel("Vote required for limit-debate").inputValue()).toBe(now);
+    await page.getByRole("button", { name: "Edit Limit or extend limits of debate" }).click();
+    expect(await page.getByLabel("Vote required for Limit or extend limits of debate").inputValue()).toBe(now);
 
     await page.getByLabel("Adoption note (e.g. the resolution)").fill("Adopted by resolution, browser test");
     await page.getByRole("button", { name: `Adopt version ${saved}` }).click();
@@ -67,8 +69,9 @@ describe("rulebook pages", () => {
       await signInAs(p, "member");
       await p.goto(`${BASE_URL}/rulebooks`);
       await p.getByTestId("in-force").locator("a").click();
-      await p.getByLabel("Vote required for limit-debate").waitFor();
-      expect(await p.getByLabel("Vote required for limit-debate").isDisabled()).toBe(true);
+      await p.getByRole("button", { name: "Details Limit or extend limits of debate" }).click();
+      expect(await p.getByLabel("Vote required for Limit or extend limits of debate").isDisabled()).toBe(true);
+      expect(await p.getByRole("button", { name: /^Move / }).count()).toBe(0);
       expect(await p.getByRole("button", { name: "Save as new version" }).count()).toBe(0);
       expect(await p.getByRole("button", { name: /Adopt version/ }).count()).toBe(0);
       await shot(p, "rulebooks-member-read-only");

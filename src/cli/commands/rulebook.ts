@@ -9,7 +9,7 @@ import { z } from "zod";
 import { GavelError, parseWith } from "../../lib/errors.ts";
 import { parseRulebook, parseRulebookWithNotes } from "../../lib/procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../lib/procedure/rulebook-schema.ts";
-import { templateIdCandidates } from "../../lib/procedure/template-ids.ts";
+import { SCENARIOS_SUFFIX, templateIdCandidates } from "../../lib/procedure/template-ids.ts";
 import { packageRoot, printJson, readJsonFile, type CliIO } from "../io.ts";
 import type { Command } from "../main.ts";
 
@@ -70,10 +70,43 @@ export function loadRulebookRef(ref: unknown, caseDir: string, io: CliIO): Ruleb
   }
 }
 
+/**
+ * `gavelwright rulebook test RULEBOOK [SCENARIOS]`: run a bench of scenarios against a rulebook (a file or
+ * a template id). Without SCENARIOS, a template id runs the bench shipped beside it. Prints which scenarios
+ * passed and, for each failure, expected vs got; exit 0 when all pass, 1 when any fails, 2 on bad input.
+ */
+async function runTest(args: string[], io: CliIO): Promise<number> {
+  const [ref, scenariosPath] = args;
+  if (!ref) throw new GavelError("invalid-input", "missing rulebook: give a rulebook file or a template id", { issues: [{ path: "(argument)", message: "missing RULEBOOK" }] });
+  const rulebook = loadRulebookRef(ref, io.cwd, io);
+  let benchFile = scenariosPath;
+  if (!benchFile) {
+    const shipped = templateFile(ref);
+    const bench = shipped ? shipped.replace(/\.json$/, SCENARIOS_SUFFIX) : null;
+    if (!bench || !existsSync(bench)) throw new GavelError("invalid-input", "missing scenarios file: give the path of a scenarios JSON file", { issues: [{ path: "(argument)", message: "missing SCENARIOS" }] });
+    benchFile = bench;
+  }
+  const { parseScenarios, runScenarios } = await import("../../lib/procedure/scenarios.ts");
+  const bench = parseScenarios(readJsonFile(benchFile, io, "scenarios file"));
+  const run = await runScenarios(rulebook, bench.scenarios);
+  printJson(io, {
+    rulebook: { id: rulebook.id, title: rulebook.title },
+    total: run.results.length,
+    passedCount: run.passed,
+    failedCount: run.failed,
+    passed: run.results.filter((r) => r.passed).map((r) => r.id),
+    failed: run.results
+      .filter((r) => !r.passed)
+      .map((r) => ({ id: r.id, title: r.title, source: r.source, failures: r.failures, ...(r.error ? { error: r.error } : {}) })),
+  });
+  return run.failed > 0 ? 1 : 0;
+}
+
 export default {
   async run(args, io) {
     const [sub, file] = args;
-    if (sub !== "check") throw new GavelError("invalid-input", `unknown subcommand ${JSON.stringify(sub ?? "")}; use "rulebook check FILE"`, { issues: [{ path: "(argument)", message: "expected \"check\"" }] });
+    if (sub === "test") return runTest(args.slice(1), io);
+    if (sub !== "check") throw new GavelError("invalid-input", `unknown subcommand ${JSON.stringify(sub ?? "")}; use "rulebook check FILE" or "rulebook test RULEBOOK SCENARIOS"`, { issues: [{ path: "(argument)", message: "expected \"check\" or \"test\"" }] });
     const { rulebook, migrations } = parseRulebookWithNotes(readJsonFile(file, io, "rulebook file"));
     printJson(io, {
       valid: true,

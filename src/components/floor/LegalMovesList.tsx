@@ -1,5 +1,6 @@
 import { useState } from "react";
 import { VOTE_LABELS, type Verdict } from "./schemas.ts";
+import ClauseCitation from "../rulebooks/ClauseCitation.tsx";
 
 const CLASS_LABELS: Record<Verdict["class"], string> = { privileged: "Privileged", subsidiary: "Subsidiary", incidental: "Incidental", main: "Main", restorative: "Restorative" };
 
@@ -47,7 +48,7 @@ export default function LegalMovesList({ moves, caption }: { moves: Verdict[]; c
               <ul className="mt-1 list-disc pl-5 text-sm">
                 {m.reasons.map((r) => (
                   <li key={r.rule}>
-                    {r.message} <span className="text-ink-soft">— {r.citation} <code className="text-xs">[{r.rule}]</code></span>
+                    {r.message} <span className="text-ink-soft">— <ClauseCitation citation={r.citation} clause={r.clause} /> <code className="text-xs">[{r.rule}]</code></span>
                   </li>
                 ))}
               </ul>

@@ -10,7 +10,7 @@ export const verdictSchema = z.object({
   class: z.enum(MOTION_CLASSES),
   rank: z.number().nullable(),
   inOrder: z.boolean(),
-  reasons: z.array(z.object({ rule: z.string(), citation: z.string(), message: z.string() })),
+  reasons: z.array(z.object({ rule: z.string(), citation: z.string(), clause: z.string().optional(), message: z.string() })),
   second: z.boolean(),
   debatable: z.boolean(),
   amendable: z.boolean(),

@@ -103,7 +103,15 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
       </div>
     );
   if (result.run.status !== "done")
-    return <div className="gw-card"><Alert>{result.run.status === "cancelled" ? "The analysis was cancelled." : `The analysis failed: ${result.run.error?.message ?? "unknown error"}`}</Alert><button className="gw-btn-quiet mt-2" onClick={() => void start()}>Run it again</button></div>;
+    return (
+      <div className="gw-card">
+        <Alert>{result.run.status === "cancelled" ? "The analysis was cancelled." : result.run.error?.stopped === "over-the-limit" ? result.run.error.message : `The analysis failed: ${result.run.error?.message ?? "unknown error"}`}</Alert>
+        {result.run.error?.stopped === "over-the-limit" && result.run.error.limit && (
+          <p className="gw-hint mt-1">Limit per analysis on this server: {String(result.run.error.limit.value)} {result.run.error.limit.unit === "s" ? "seconds" : "MB of memory"} (set by the operator).</p>
+        )}
+        <button className="gw-btn-quiet mt-2" onClick={() => void start()}>Run it again</button>
+      </div>
+    );
 
   const a = result.analysis!;
   const versions = result.versions!;

@@ -17,7 +17,7 @@ export const runSchema = z.object({
   rulebook: z.string(),
   estimateId: z.string().optional(),
   estimateVersion: z.number(),
-  error: z.looseObject({ code: z.string(), message: z.string() }).nullable(),
+  error: z.looseObject({ code: z.string(), message: z.string(), stopped: z.literal("over-the-limit").optional(), limit: z.object({ kind: z.enum(["time", "memory"]), value: z.number(), unit: z.string() }).optional() }).nullable(),
 });
 export const analysisSchema = z.object({
   procedure: z.enum(["amendment", "successive"]),

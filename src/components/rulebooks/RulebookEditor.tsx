@@ -3,12 +3,13 @@ import { z } from "zod";
 import { AMENDMENT_FORMS } from "../../lib/amendments/case-schema.ts";
 import { isGavelError } from "../../lib/errors.ts";
 import { parseRulebook } from "../../lib/procedure/parse-rulebook.ts";
-import { FINDING_SEVERITIES, MOTION_CLASSES, RECONSIDERABLE, rulebookSchema, type MotionInput, type RulebookInput } from "../../lib/procedure/rulebook-schema.ts";
-import { RULE_SCOPES } from "../../lib/procedure/rule-vocabulary.ts";
+import { rulebookSchema, type MotionInput, type RulebookInput } from "../../lib/procedure/rulebook-schema.ts";
 import { ORDER_CONSTRAINTS, QUORUM_KINDS, TIE_RULES, VOTE_THRESHOLDS } from "../../lib/procedure/voting-section.ts";
 import { apiCall, ApiError, type Issue } from "../shared/api.ts";
 import { day, today, when } from "../shared/dates.ts";
-import ConditionBuilder, { OperatorList } from "./ConditionBuilder.tsx";
+import { OperatorList } from "./ConditionBuilder.tsx";
+import MotionCatalogue from "./MotionCatalogue.tsx";
+import RulesPanel from "./RulesPanel.tsx";
 import { CheckField, FieldMessages, issueLookup, NumberField, SelectField, TextField, type IssueLookup } from "../shared/fields.tsx";
 import { adoptedSchema, documentSchema, librarySchema, savedSchema, staleSchema, templateSchema, versionSchema } from "./schemas.ts";
 import { Alert } from "../shared/Alert.tsx";
@@ -59,6 +60,8 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
   const [effective, setEffective] = useState(() => today());
   const [adoptNote, setAdoptNote] = useState("");
   const [loadError, setLoadError] = useState<string | null>(null);
+  /** The template's title, shown instead of its file name. */
+  const [templateName, setTemplateName] = useState<string | null>(null);
 
   useEffect(() => {
     (async () => {
@@ -80,7 +83,10 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
           else throw new Error("Choose a template to start from.");
           setLoaded({ doc: d, basedOn: lib.latest?.id ?? null, meta: null, latest: lib.latest });
           setDoc(d);
-          if (templateTitle) setNote(`Started from the template “${templateTitle}”`);
+          if (templateTitle) {
+            setNote(`Started from the template “${templateTitle}”`);
+            setTemplateName(templateTitle);
+          }
         }
       } catch (e) {
         setLoadError(e instanceof Error ? e.message : "Could not load the rulebook.");
@@ -166,7 +172,7 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
                 {meta.adoptions.length > 0 && !meta.inForce && <span className="gw-chip ml-2 border-brass text-brass-text">Adopted {meta.adoptions.map((a) => day(a.effectiveFrom)).join(", ")}</span>}
               </>
             ) : (
-              <>New version{template ? ` from the template “${template}”` : ""}, based on {loaded.latest ? `version ${loaded.latest.number}` : "nothing (the chamber's first rulebook)"}</>
+              <>New version{templateName ? ` from the template “${templateName}”` : ""}, based on {loaded.latest ? `version ${loaded.latest.number}` : "nothing (the chamber's first rulebook)"}</>
             )}
           </p>
         </div>
@@ -188,7 +194,7 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
         <div className="gw-card border-verdict-bar" data-testid="stale">
           <h2 className="text-step-1">Someone saved first</h2>
           <p className="text-sm">Saved since you started: {stale.savedSince.map((v) => `version ${v.number} by ${v.author ?? "someone"}${v.note ? ` (“${v.note}”)` : ""}`).join("; ")}. What changed:</p>
-          <ul className="mt-1 list-disc pl-5 text-sm">{stale.changes.summary.map((s) => <li key={s}>{s}</li>)}</ul>
+          <ul className="mt-1 list-disc pl-5 text-sm">{stale.plainChanges.length ? stale.plainChanges.map((c, n) => <li key={n}>{c.from !== undefined || c.to !== undefined ? `${c.what}: ${c.from ?? "—"} → ${c.to ?? "—"}` : `${c.what}: ${c.text ?? ""}`}{c.citation ? ` (${c.citation})` : ""}</li>) : stale.changes.summary.map((s) => <li key={s}>{s}</li>)}</ul>
           <p className="mt-2 text-sm">Your edits are still here. <a href={`/rulebooks/${stale.latest.id}`} target="_blank" rel="noreferrer">Open version {stale.latest.number}</a> to merge by hand, or <button type="button" className="font-semibold underline" onClick={() => { setLoaded({ ...loaded, basedOn: stale.latest.id }); setStale(null); setMessage(null); }}>save over it as the next version</button>.</p>
         </div>
       )}
@@ -201,8 +207,8 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
       </div>
 
       <div key={rev}>
-        {tab === "motions" && <MotionTable doc={doc} at={at} readOnly={readOnly} setMotion={setMotion} update={update} />}
-        {tab === "rules" && <RulesPanel doc={doc} at={at} readOnly={readOnly} setRule={setRule} update={update} />}
+        {tab === "motions" && <MotionCatalogue doc={doc} at={at} readOnly={readOnly} setMotion={setMotion} update={update} />}
+        {tab === "rules" && <RulesPanel doc={doc} at={at} issuePaths={issues.map((x) => x.path)} readOnly={readOnly} setRule={setRule} update={update} />}
         {tab === "sections" && <SectionsPanel doc={doc} at={at} readOnly={readOnly} update={update} />}
         {tab === "raw" && <RawPanel doc={doc} readOnly={readOnly} onApply={(d) => { setDoc(d); setRev(rev + 1); setServerIssues([]); }} />}
       </div>
@@ -238,98 +244,6 @@ export default function RulebookEditor({ versionId, template, canEdit, canAdopt 
           <button type="button" className="gw-btn" disabled={busy || dirty} onClick={() => void adopt()}>Adopt version {meta.number}</button>
           {dirty && <p className="gw-hint w-full">Save your edits first; an adoption applies to a saved version.</p>}
         </section>
-      )}
-    </div>
-  );
-}
-
-const RECONSIDERABLE_LABELS = { both: "Either result", affirmative: "Affirmative only", negative: "Negative only", neither: "Neither" } as const;
-
-function MotionTable({ doc, at, readOnly, setMotion, update }: { doc: RulebookInput; at: IssueLookup; readOnly: boolean; setMotion: (i: number, p: Partial<MotionInput>) => void; update: (p: Partial<RulebookInput>) => void }) {
-  const flag = (i: number, m: MotionInput, k: "second" | "debatable" | "amendable" | "interrupt", label: string) => (
-    <td className="text-center">
-      <input type="checkbox" aria-label={`${label}: ${m.name}`} checked={Boolean(m[k])} disabled={readOnly} onChange={(e) => setMotion(i, { [k]: e.target.checked })} aria-invalid={at(`motions.${i}.${k}`).length > 0 || undefined} />
-      <FieldMessages path={`motions.${i}.${k}`} at={at} />
-    </td>
-  );
-  return (
-    <div className="space-y-3">
-      <div className="relative overflow-x-auto rounded-md border border-rule bg-white">
-        <table className="gw-table min-w-[84rem]" data-testid="motion-table">
-          <thead>
-            <tr>
-              <th>Id</th><th>Name</th><th>Class</th><th>Rank</th><th>Second</th><th>Debatable</th><th>Amendable</th><th>Vote</th><th>Interrupts</th><th>Reconsiderable</th><th>Citation</th>{!readOnly && <th><span className="sr-only">Actions</span></th>}
-            </tr>
-          </thead>
-          <tbody>
-            {doc.motions.map((m, i) => (
-              <tr key={i} data-motion={m.id}>
-                <td><TextField className="min-w-[11rem]" hideLabel path={`motions.${i}.id`} label={`Id of motion ${i + 1}`} at={at} disabled={readOnly} value={m.id} onChange={(v) => setMotion(i, { id: v })} /></td>
-                <td><TextField className="min-w-[14rem]" hideLabel path={`motions.${i}.name`} label={`Name of ${m.id}`} at={at} disabled={readOnly} value={m.name} onChange={(v) => setMotion(i, { name: v })} /></td>
-                <td><SelectField className="min-w-[8.5rem]" hideLabel path={`motions.${i}.class`} label={`Class of ${m.id}`} at={at} disabled={readOnly} value={m.class} options={MOTION_CLASSES} onChange={(v) => setMotion(i, { class: v })} /></td>
-                <td><NumberField className="w-20" hideLabel nullable path={`motions.${i}.rank`} label={`Rank of ${m.id}`} at={at} disabled={readOnly} value={m.rank} min={0} max={1000} onChange={(v) => setMotion(i, { rank: v })} /></td>
-                {flag(i, m, "second", "Needs a second")}
-                {flag(i, m, "debatable", "Debatable")}
-                {flag(i, m, "amendable", "Amendable")}
-                <td><SelectField className="min-w-[11rem]" hideLabel path={`motions.${i}.vote`} label={`Vote required for ${m.id}`} at={at} disabled={readOnly} value={m.vote} options={VOTE_THRESHOLDS} labels={VOTE_LABELS} onChange={(v) => setMotion(i, { vote: v })} /></td>
-                {flag(i, m, "interrupt", "May interrupt a speaker")}
-                <td><SelectField className="min-w-[8.5rem]" hideLabel path={`motions.${i}.reconsiderable`} label={`Which vote on ${m.id} may be reconsidered`} at={at} disabled={readOnly} value={typeof m.reconsiderable === "boolean" ? (m.reconsiderable ? "both" : "neither") : m.reconsiderable} options={RECONSIDERABLE} labels={RECONSIDERABLE_LABELS} onChange={(v) => setMotion(i, { reconsiderable: v })} /></td>
-                <td><TextField className="min-w-[18rem]" hideLabel path={`motions.${i}.citation`} label={`Citation for ${m.id}`} at={at} disabled={readOnly} value={m.citation} onChange={(v) => setMotion(i, { citation: v })} /></td>
-                {!readOnly && (
-                  <td>
-                    <button type="button" className="gw-btn-quiet" aria-label={`Remove ${m.id}`} onClick={() => update({ motions: doc.motions.filter((_, j) => j !== i) })}>Remove</button>
-                  </td>
-                )}
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
-      {!readOnly && (
-        <button type="button" className="gw-btn-quiet" onClick={() => update({ motions: [...doc.motions, { id: `new-motion-${doc.motions.length + 1}`, name: "New motion", class: "incidental", rank: null, second: true, debatable: false, amendable: false, vote: "majority", interrupt: false, reconsiderable: "neither", citation: "Standing orders" }] })}>
-          + Add a motion
-        </button>
-      )}
-      {doc.precedence && <p className="gw-hint">Ranks of some motions come from precedence chains ({doc.precedence.length}); edit those in the raw JSON view.</p>}
-      <FieldMessages path="motions" at={at} />
-    </div>
-  );
-}
-
-function RulesPanel({ doc, at, readOnly, setRule, update }: { doc: RulebookInput; at: IssueLookup; readOnly: boolean; setRule: (i: number, p: Partial<Rule>) => void; update: (p: Partial<RulebookInput>) => void }) {
-  return (
-    <div className="space-y-3">
-      <p className="gw-hint">Each rule names the conditions under which a motion is out of order (motion scope) or an amendment draws a finding (amendment scope), with the citation and the message shown to members. Messages may name facts in braces, e.g. {"{motion.name}"}.</p>
-      {doc.rules.map((r, i) => {
-        const n = (p: string) => at(p).length;
-        const bad = [`rules.${i}`].some(() => false) || Object.keys(r).some((k) => n(`rules.${i}.${k}`) > 0);
-        return (
-          <details key={i} className="gw-card" data-rule={r.id} open={bad || undefined}>
-            <summary className="cursor-pointer font-semibold">
-              <code>{r.id}</code> <span className="font-normal text-ink-soft">· {r.scope} · {r.citation}</span>
-            </summary>
-            <div className="mt-3 grid gap-3 md:grid-cols-3">
-              <TextField path={`rules.${i}.id`} label="Rule id" at={at} disabled={readOnly} value={r.id} onChange={(v) => setRule(i, { id: v })} />
-              <SelectField path={`rules.${i}.scope`} label="Scope" at={at} disabled={readOnly} value={r.scope} options={RULE_SCOPES} onChange={(v) => setRule(i, { scope: v })} />
-              <TextField path={`rules.${i}.citation`} label="Citation" at={at} disabled={readOnly} value={r.citation} onChange={(v) => setRule(i, { citation: v })} />
-              <TextField className="md:col-span-3" multiline path={`rules.${i}.message`} label="Message when the rule applies" at={at} disabled={readOnly} value={r.message} onChange={(v) => setRule(i, { message: v })} />
-              {r.scope === "amendment" && (
-                <>
-                  <TextField path={`rules.${i}.code`} label="Finding code" at={at} disabled={readOnly} value={r.code} onChange={(v) => setRule(i, { code: v || undefined })} />
-                  <SelectField path={`rules.${i}.severity`} label="Severity" at={at} disabled={readOnly} value={r.severity} options={FINDING_SEVERITIES} onChange={(v) => setRule(i, { severity: v })} />
-                </>
-              )}
-            </div>
-            <p className="gw-label mt-3">Conditions</p>
-            <ConditionBuilder node={r.conditions} path={`rules.${i}.conditions`} scope={r.scope} at={at} readOnly={readOnly} onChange={(c) => setRule(i, { conditions: c })} />
-            {!readOnly && <button type="button" className="gw-btn-danger mt-3" onClick={() => update({ rules: doc.rules.filter((_, j) => j !== i) })}>Remove this rule</button>}
-          </details>
-        );
-      })}
-      {!readOnly && (
-        <button type="button" className="gw-btn-quiet" onClick={() => update({ rules: [...doc.rules, { id: `new-rule-${doc.rules.length + 1}`, scope: "motion", citation: "Standing orders", message: "{motion.name} is out of order here.", conditions: { all: [{ fact: "motion", path: "$.id", operator: "equal", value: doc.motions[0]?.id ?? "main" }] } }] })}>
-          + Add a rule
-        </button>
       )}
     </div>
   );

@@ -53,6 +53,17 @@ export const templateSchema = z.object({ id: z.string(), title: z.string(), cham
 export const savedSchema = z.object({ id: z.string(), number: z.number(), title: z.string() });
 export const adoptedSchema = z.object({ id: z.string(), versionId: z.string(), number: z.number(), effectiveFrom: date, inForce: z.boolean() });
 
+export const plainChangeSchema = z.object({
+  section: z.string(),
+  kind: z.enum(["added", "removed", "changed", "re-ranked"]),
+  what: z.string(),
+  from: z.string().optional(),
+  to: z.string().optional(),
+  text: z.string().optional(),
+  citation: z.string().optional(),
+});
+export type PlainChangeView = z.output<typeof plainChangeSchema>;
+
 const fieldChangeSchema = z.object({ field: z.string(), from: z.unknown(), to: z.unknown() });
 export const diffSchema = z.object({
   identical: z.boolean(),
@@ -61,10 +72,12 @@ export const diffSchema = z.object({
 });
 export type Diff = z.output<typeof diffSchema>;
 
-export const compareSchema = z.object({ from: versionMetaSchema, to: versionMetaSchema, diff: diffSchema });
+
+export const compareSchema = z.object({ from: versionMetaSchema, to: versionMetaSchema, diff: diffSchema, changes: z.array(plainChangeSchema).default([]) });
 
 export const staleSchema = z.object({
   latest: z.object({ id: z.string(), number: z.number(), author: z.string().nullable(), note: z.string() }),
   savedSince: z.array(z.object({ id: z.string(), number: z.number(), author: z.string().nullable(), note: z.string() })),
   changes: diffSchema,
+  plainChanges: z.array(plainChangeSchema).default([]),
 });

@@ -7,6 +7,7 @@ import { conflictText } from "../measures/api.ts";
 import { layoutTree } from "./layout.ts";
 import { roleWords, slotWords } from "./role-words.ts";
 import TreeLegend from "./TreeLegend.tsx";
+import ClauseCitation from "../rulebooks/ClauseCitation.tsx";
 import TreeNodeCard, { type TreeFlowNode } from "./TreeNodeCard.tsx";
 import { z } from "zod";
 import { Alert } from "../shared/Alert.tsx";
@@ -325,7 +326,7 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
                         <li key={f.code} className="rounded border border-rule p-2 text-sm" data-testid={`finding-${f.amendment}-${f.code}`}>
                           <span className={`gw-chip ${f.overridden ? "border-verdict-ok bg-verdict-ok-tint text-verdict-ok" : SEVERITY_CHIP[f.severity]}`}>{f.overridden ? "overridden" : f.severity}</span> <code>{f.code}</code>
                           <p className="mt-1">{f.message}</p>
-                          <p className="text-xs text-ink-soft">{f.citation}</p>
+                          <p className="text-xs text-ink-soft"><ClauseCitation citation={f.citation} clause={f.clause} /></p>
                           {f.overridden && (
                             <p className="text-xs font-semibold text-verdict-ok">
                               Ruling: {f.overrideRulingId ? <a className="underline" href={`/rulings/${f.overrideRulingId}`}>{f.ruling}</a> : f.ruling}
@@ -368,7 +369,7 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
                 <td><span className={`gw-chip ${f.overridden ? "border-verdict-ok bg-verdict-ok-tint text-verdict-ok" : SEVERITY_CHIP[f.severity]}`}>{f.overridden ? "overridden" : f.severity}</span></td>
                 <td><code>{f.code}</code></td>
                 <td>{f.message}{f.overridden && <span className="block text-xs text-verdict-ok">Ruling: {f.ruling}</span>}</td>
-                <td className="text-xs text-ink-soft">{f.citation}</td>
+                <td className="text-xs text-ink-soft"><ClauseCitation citation={f.citation} clause={f.clause} /></td>
               </tr>
             ))}
             {data.findings.length === 0 && <tr><td colSpan={5}>No findings.</td></tr>}

@@ -43,6 +43,8 @@ export interface Finding {
   amendment: string;
   rule: string;
   citation: string;
+  /** The clause of the chamber's rules the rule encodes (its key in the chamber's text), when the rulebook links one. */
+  clause?: string;
   message: string;
   related?: string[];
   overridden?: boolean;
@@ -185,7 +187,7 @@ export async function validateTree(input: { rulebook: Rulebook } & Record<string
     for (const f of await runner.run(facts)) {
       if (own.some((x) => x.code === f.rule.code)) continue;
       const related = f.rule.related ? (facts[f.rule.related] as string[]) : undefined;
-      own.push({ code: f.rule.code!, severity: f.rule.severity!, amendment: a.id, rule: f.rule.id, citation: f.rule.citation, message: f.message, ...(related?.length ? { related } : {}) });
+      own.push({ code: f.rule.code!, severity: f.rule.severity!, amendment: a.id, rule: f.rule.id, citation: f.rule.citation, ...(f.rule.clause ? { clause: f.rule.clause } : {}), message: f.message, ...(related?.length ? { related } : {}) });
     }
     const structural = (code: string, message: string, related?: string[]) => {
       if (!own.some((x) => x.code === code)) own.push({ code, severity: "error", amendment: a.id, rule: "tree-structure", citation: "common practice, no source: an amendment amends existing text", message, ...(related ? { related } : {}) });

@@ -1,8 +1,9 @@
 /**
  * Downloadable CSV templates: the header, a comment-free example per roster bloc (or member), so a
- * clerk can fill in a spreadsheet and upload it back. Cells are quoted by papaparse when needed.
+ * clerk can fill in a spreadsheet and upload it back. Cells are quoted when needed and neutralised
+ * against formula injection (writeCsv).
  */
-import Papa from "papaparse";
+import { writeCsv } from "../text/csv-cells.ts";
 
 export interface RosterEntry {
   name: string;
@@ -20,7 +21,7 @@ export function ballotTemplate(versionIds: readonly string[], roster: readonly R
     for (const [bloc, n] of blocs) rows.push([bloc, bloc, String(n), example]);
     if (rows.length === 0) rows.push(["Member name", "Bloc", "1", example]);
   }
-  return Papa.unparse({ fields: ["member", "bloc", "weight", "ranking"], data: rows }) + "\r\n";
+  return writeCsv(["member", "bloc", "weight", "ranking"], rows);
 }
 
 /**
@@ -36,5 +37,5 @@ export function idealTemplate(dimensions: readonly string[], roster: readonly Ro
     rows = [...blocs].map(([bloc, n], i) => [bloc, bloc, String(n), ...dimensions.map((_, d) => (d === 0 ? String(i) : "0"))]);
   }
   if (rows.length === 0) rows = [["Member name", "Bloc", "1", ...dimensions.map(() => "0")]];
-  return Papa.unparse({ fields: ["member", "bloc", "weight", ...dimensions], data: rows }) + "\r\n";
+  return writeCsv(["member", "bloc", "weight", ...dimensions], rows);
 }

@@ -2,10 +2,12 @@
  * Uploaded CSV bytes → text and records. Only UTF-8 is accepted (a leading byte-order mark is
  * dropped); anything else is refused rather than guessed, so a name never arrives garbled.
  * Records are split by papaparse (RFC 4180 quoting); header names are trimmed and lower-cased.
- * Row numbers count the header as row 1, as a spreadsheet shows them.
+ * Row numbers count the header as row 1, as a spreadsheet shows them. A cell the app neutralised
+ * against formula injection when it wrote the file (a leading apostrophe) is read back without it.
  */
 import Papa from "papaparse";
 import { GavelError, type InputIssue } from "../errors.ts";
+import { restoreCell } from "../text/csv-cells.ts";
 
 export const MAX_CSV_BYTES = 512 * 1024;
 
@@ -32,8 +34,8 @@ export function readCsv(text: string): CsvRecords {
   const parsed = Papa.parse<string[]>(text.replace(/\r\n?/g, "\n"), { skipEmptyLines: "greedy" });
   const data = parsed.data;
   if (data.length === 0) throw new GavelError("invalid-input", "the file is empty", { issues: [{ path: "file", message: "no header row" }] });
-  const header = data[0].map((h) => h.trim().toLowerCase());
-  const rows = data.slice(1).map((cells, i) => ({ row: i + 2, cells: Object.fromEntries(header.map((h, j) => [h, (cells[j] ?? "").trim()])), extra: cells.length > header.length && cells.slice(header.length).some((c) => c.trim() !== "") }));
+  const header = data[0].map((h) => restoreCell(h.trim()).toLowerCase());
+  const rows = data.slice(1).map((cells, i) => ({ row: i + 2, cells: Object.fromEntries(header.map((h, j) => [h, restoreCell((cells[j] ?? "").trim())])), extra: cells.length > header.length && cells.slice(header.length).some((c) => c.trim() !== "") }));
   const extra = rows.find((r) => r.extra);
   if (extra) throw new GavelError("invalid-input", `row ${extra.row}: more cells than the header has columns`, { issues: [{ path: `rows.${extra.row}`, message: `row ${extra.row}: more cells than the header has columns` }] });
   return { header, rows: rows.map(({ row, cells }) => ({ row, cells })) };

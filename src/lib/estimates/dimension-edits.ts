@@ -10,6 +10,7 @@
  * most 80 characters, distinct ignoring case; one to MAX_DIMENSIONS dimensions.
  */
 import { z } from "zod";
+import { safe } from "../schema-parts.ts";
 import { GavelError } from "../errors.ts";
 import { MAX_DIMENSIONS } from "../voting/spatial-profile.ts";
 import type { EstimateContent } from "./estimate-content.ts";
@@ -18,7 +19,7 @@ type Spatial = Extract<EstimateContent, { kind: "spatial" }>;
 
 export const NEW_DIMENSION_RANGE: [number, number] = [0, 10];
 
-const nameSchema = z.string().trim().min(1, "give the dimension a name").max(80, "at most 80 characters");
+const nameSchema = safe(z.string().trim().min(1, "give the dimension a name").max(80, "at most 80 characters"));
 
 /** Why `name` cannot name a dimension among `names` (ignoring the one at `self`), or null if it can. */
 export function dimensionNameIssue(names: readonly string[], name: string, self = -1): string | null {

@@ -8,17 +8,18 @@
  * same, and the status quo's win set can then be drawn exactly for up to 16 distinct points.
  */
 import { z } from "zod";
+import { safe } from "../schema-parts.ts";
 import { ballotSchema } from "../voting/majority-input.ts";
 import { spatialSchema, MAX_DIMENSIONS } from "../voting/spatial-profile.ts";
 
 export const MAX_ROWS = 5000;
 
-const label = z.string().trim().min(1).max(200);
+const label = safe(z.string().trim().min(1).max(200));
 const coord = z.number().finite().min(-1e6).max(1e6);
 
 export const ballotRowSchema = z.object({
   member: label,
-  bloc: z.string().trim().max(120).default(""),
+  bloc: safe(z.string().trim().max(120)).default(""),
   weight: z.number().int().min(1).max(1000).default(1),
   ranking: ballotSchema.shape.ranking.min(1),
   /** The presiding officer's row: its ranking is the chair's preference under the rulebook's tie rule (docs/decisions/0008). */
@@ -40,12 +41,12 @@ export const ballotContentSchema = z.object({
     }),
 });
 
-export const idealRowSchema = z.object({ member: label, bloc: z.string().trim().max(120).default(""), weight: z.number().int().min(1).max(1000).default(1), ideal: z.array(coord).min(1).max(MAX_DIMENSIONS) });
+export const idealRowSchema = z.object({ member: label, bloc: safe(z.string().trim().max(120)).default(""), weight: z.number().int().min(1).max(1000).default(1), ideal: z.array(coord).min(1).max(MAX_DIMENSIONS) });
 export type IdealRow = z.output<typeof idealRowSchema>;
 
 export const spatialContentSchema = z.object({
   kind: z.literal("spatial"),
-  dimensions: z.array(z.string().trim().min(1).max(80)).min(1).max(MAX_DIMENSIONS),
+  dimensions: z.array(safe(z.string().trim().min(1).max(80))).min(1).max(MAX_DIMENSIONS),
   /** Optional scale of each dimension, [low, high], for drawing (points may lie outside it). */
   ranges: z.array(z.tuple([coord, coord]).refine(([a, b]) => a < b, "a range is [low, high] with low < high")).max(MAX_DIMENSIONS).optional(),
   statusQuo: z.array(coord),

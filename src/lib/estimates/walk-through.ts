@@ -18,7 +18,6 @@ import { votingSectionSchema } from "../procedure/voting-section.ts";
 import { amendmentTreeModel } from "../voting/amendment-versions.ts";
 import { ordersInputSchema, PASSAGE } from "../voting/analyse-orders.ts";
 import { rankingsToIndices } from "../voting/majority-input.ts";
-import { majorityGraph } from "../voting/majority-graph.ts";
 import { questionConstraints, questionPrecedence } from "../voting/order-constraints.ts";
 import { isLegalOrder } from "../voting/precedence.ts";
 import { attendingWeight, pairSupport, profileFromRankings, type Profile } from "../voting/profile.ts";

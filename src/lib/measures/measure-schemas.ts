@@ -5,6 +5,7 @@
  */
 import { z } from "zod";
 import { AMENDMENT_FORMS, ID_PATTERN } from "../amendments/case-schema.ts";
+import { dateTime, int4, safe, version } from "../schema-parts.ts";
 
 export const MEASURE_STATUSES = ["draft", "introduced", "in-committee", "reported", "on-floor", "passed", "failed", "withdrawn"] as const;
 export const AMENDMENT_STATUSES = ["draft", "filed", "pending", "adopted", "rejected", "withdrawn", "fell", "ruled-out"] as const;
@@ -29,26 +30,26 @@ export const FORM_LABELS: Record<(typeof AMENDMENT_FORMS)[number], string> = {
   "in-nature-of-substitute": "In the nature of a substitute",
 };
 
-const tag = z.string().trim().toLowerCase().min(1).max(80);
+const tag = safe(z.string().trim().toLowerCase().min(1).max(80));
 export const tagsSchema = z.array(tag).max(50);
-const sectionId = z.string().regex(ID_PATTERN, "must be 1-64 letters, digits, '.', '_', ':' or '-'");
+const sectionId = safe(z.string().regex(ID_PATTERN, "must be 1-64 letters, digits, '.', '_', ':' or '-'"));
 
 export const sectionInputSchema = z.object({
   id: sectionId.optional(),
-  heading: z.string().trim().max(500).optional(),
-  text: z.string().max(200_000).default(""),
+  heading: safe(z.string().trim().max(500)).optional(),
+  text: safe(z.string().max(200_000)).default(""),
   subjects: tagsSchema.default([]),
   status: z.enum(["open", "adopted", "struck"]).default("open"),
 });
 
 const measureFields = {
-  number: z.string().trim().min(1).max(40).regex(/^[A-Za-z0-9][A-Za-z0-9 ./-]*$/, "letters, digits, spaces, '.', '/' and '-' only"),
-  title: z.string().trim().min(1).max(500),
-  committee: z.string().trim().max(200).nullable(),
+  number: safe(z.string().trim().min(1).max(40).regex(/^[A-Za-z0-9][A-Za-z0-9 ./-]*$/, "letters, digits, spaces, '.', '/' and '-' only")),
+  title: safe(z.string().trim().min(1).max(500)),
+  committee: safe(z.string().trim().max(200)).nullable(),
   status: z.enum(MEASURE_STATUSES),
   subjects: tagsSchema,
   sponsors: z.array(z.uuid()).max(100),
-  sittingAt: z.iso.datetime({ offset: true }).nullable(),
+  sittingAt: dateTime().nullable(),
   sections: z.array(sectionInputSchema).max(2000),
 };
 
@@ -62,12 +63,12 @@ export const measureCreateSchema = z.object({
   sponsors: measureFields.sponsors.default([]),
   sittingAt: measureFields.sittingAt.default(null),
   sections: measureFields.sections.optional(),
-  text: z.string().max(200_000).optional(),
+  text: safe(z.string().max(200_000)).optional(),
 });
 
 /** Update: any subset of fields, plus the version the edit was based on. */
 export const measureUpdateSchema = z.object({
-  version: z.number().int().min(1),
+  version: version(),
   number: measureFields.number.optional(),
   title: measureFields.title.optional(),
   committee: measureFields.committee.optional(),
@@ -79,52 +80,52 @@ export const measureUpdateSchema = z.object({
 });
 
 const lines = z
-  .tuple([z.number().int().min(1), z.number().int().min(1)])
+  .tuple([int4().min(1), int4().min(1)])
   .refine(([a, b]) => a <= b, "line range must be [from, to] with from <= to");
 
 /**
  * What an amendment amends: "measure" (the whole text), a section id ("s2"), another
  * amendment by its label ("A3") or by its id.
  */
-export const targetSchema = z.string().trim().min(1).max(64);
+export const targetSchema = safe(z.string().trim().min(1).max(64));
 
 export const amendmentFileSchema = z.object({
   form: z.enum(AMENDMENT_FORMS),
   target: targetSchema,
   lines: lines.nullable().default(null),
-  title: z.string().trim().max(500).nullable().default(null),
-  text: z.string().max(200_000).default(""),
+  title: safe(z.string().trim().max(500)).nullable().default(null),
+  text: safe(z.string().max(200_000)).default(""),
   subjects: tagsSchema.default([]),
   sponsors: z.array(z.uuid()).max(100).default([]),
-  committee: z.string().trim().max(200).nullable().default(null),
+  committee: safe(z.string().trim().max(200)).nullable().default(null),
   /** Save without filing: no number, no receipt. */
   draft: z.boolean().default(false),
 });
 
 export const amendmentUpdateSchema = z.object({
-  version: z.number().int().min(1),
+  version: version(),
   form: z.enum(AMENDMENT_FORMS).optional(),
   target: targetSchema.optional(),
   lines: lines.nullable().optional(),
-  title: z.string().trim().max(500).nullable().optional(),
-  text: z.string().max(200_000).optional(),
+  title: safe(z.string().trim().max(500)).nullable().optional(),
+  text: safe(z.string().max(200_000)).optional(),
   subjects: tagsSchema.optional(),
   sponsors: z.array(z.uuid()).max(100).optional(),
-  committee: z.string().trim().max(200).nullable().optional(),
+  committee: safe(z.string().trim().max(200)).nullable().optional(),
   /** Filing a draft goes through POST /api/amendments/:id/file, not here. */
   status: z.enum(AMENDMENT_STATUSES).exclude(["draft"]).optional(),
 });
 
-export const versionOnlySchema = z.object({ version: z.number().int().min(1) });
+export const versionOnlySchema = z.object({ version: version() });
 
 export const overrideCreateSchema = z.object({
   amendmentId: z.uuid(),
-  code: z.string().regex(/^[a-z][a-z0-9-]{0,63}$/, "a finding code such as not-germane"),
+  code: safe(z.string().regex(/^[a-z][a-z0-9-]{0,63}$/, "a finding code such as not-germane")),
   /** The amendment's version the clerk saw when deciding. */
-  version: z.number().int().min(1),
-  rulingRef: z.string().trim().min(1).max(500),
+  version: version(),
+  rulingRef: safe(z.string().trim().min(1).max(500)),
   rulingId: z.uuid().nullable().default(null),
-  note: z.string().trim().max(2000).nullable().default(null),
+  note: safe(z.string().trim().max(2000)).nullable().default(null),
 });
 
 // ---- Responses (parsed by the islands) ----
@@ -136,6 +137,8 @@ export const findingViewSchema = z.object({
   amendmentId: z.string().nullable(),
   rule: z.string(),
   citation: z.string(),
+  /** The clause of the chamber's rules the finding's rule encodes, when the rulebook links one. */
+  clause: z.string().optional(),
   message: z.string(),
   related: z.array(z.string()).optional(),
   overridden: z.boolean().optional(),

@@ -25,6 +25,8 @@ import type { Motion, MotionClass, Reconsiderable, Rulebook } from "./rulebook-s
 export interface Reason {
   rule: string;
   citation: string;
+  /** The clause of the chamber's rules the rule encodes (its key in the chamber's text), when the rulebook links one. */
+  clause?: string;
   message: string;
 }
 
@@ -295,7 +297,7 @@ export async function legalMoves(rulebook: Rulebook, stateInput: unknown): Promi
       class: made.class,
       rank: made.rank,
       inOrder: fired.length === 0,
-      reasons: fired.map((f) => ({ rule: f.rule.id, citation: f.rule.citation, message: f.message })),
+      reasons: fired.map((f) => ({ rule: f.rule.id, citation: f.rule.citation, ...(f.rule.clause ? { clause: f.rule.clause } : {}), message: f.message })),
       second: made.second,
       debatable: made.debatable,
       amendable: made.amendable,

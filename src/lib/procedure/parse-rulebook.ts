@@ -113,28 +113,41 @@ export function parseRulebookWithNotes(input: unknown): { rulebook: Rulebook; mi
     if (!motionIds.has(id)) issues.push({ path: `voting.quorum.withoutQuorum.${i}`, message: `no motion "${id}" in the catalogue` });
   });
   (rulebook.precedence ?? []).forEach((chain, i) =>
-    chain.forEach((id, j) => {
-      if (!motionIds.has(id)) issues.push({ path: `precedence.${i}.${j}`, message: `no motion "${id}" in the catalogue` });
-      const k = rulebook.motions.findIndex((m) => m.id === id);
-      if (k >= 0 && rulebook.motions[k].rank !== null) issues.push({ path: `motions.${k}.rank`, message: `"${id}" is ranked by precedence.${i}; give its rank as null` });
-    }),
+    chain.forEach((step, j) =>
+      stepIds(step).forEach((id, t) => {
+        const at = typeof step === "string" ? `precedence.${i}.${j}` : `precedence.${i}.${j}.${t}`;
+        if (!motionIds.has(id)) issues.push({ path: at, message: `no motion "${id}" in the catalogue` });
+        const k = rulebook.motions.findIndex((m) => m.id === id);
+        if (k >= 0 && rulebook.motions[k].rank !== null) issues.push({ path: `motions.${k}.rank`, message: `"${id}" is ranked by precedence.${i}; give its rank as null` });
+      }),
+    ),
   );
   if (issues.length) throw new GavelError("invalid-input", `rulebook: ${issues[0].path}: ${issues[0].message}${issues.length > 1 ? ` (and ${issues.length - 1} more)` : ""}`, { issues: issues.slice(0, MAX_ISSUES) });
   if (rulebook.precedence?.length) return { rulebook: { ...rulebook, motions: rankFromPrecedence(rulebook) }, migrations };
   return { rulebook, migrations };
 }
 
+/** The ids at one place of a chain: one id, or several of equal rank. */
+const stepIds = (step: string | string[]): string[] => (typeof step === "string" ? [step] : step);
+
 /** Ranks from chains: a motion's rank is the length of the longest chain below it, so every stated relation holds. */
 function rankFromPrecedence(rulebook: Rulebook) {
   const g = new DirectedGraph();
   const where = new Map<string, string>();
   rulebook.precedence!.forEach((chain, i) =>
-    chain.forEach((id, j) => {
-      g.mergeNode(id);
-      if (!where.has(id)) where.set(id, `precedence.${i}.${j}`);
+    chain.forEach((step, j) => {
+      const ids = stepIds(step);
+      ids.forEach((id) => {
+        g.mergeNode(id);
+        if (!where.has(id)) where.set(id, `precedence.${i}.${j}`);
+      });
+      if (new Set(ids).size < ids.length) throw new GavelError("unprocessable", `a motion is listed twice in one place of precedence.${i}`, { issues: [{ path: `precedence.${i}.${j}`, message: "a motion cannot tie with itself" }] });
       if (j > 0) {
-        if (chain[j - 1] === id) throw new GavelError("unprocessable", `rank cycle: "${id}" is listed above itself`, { issues: [{ path: `precedence.${i}.${j}`, message: "a motion cannot take precedence over itself" }] });
-        g.mergeEdge(chain[j - 1], id);
+        for (const above of stepIds(chain[j - 1]))
+          for (const id of ids) {
+            if (above === id) throw new GavelError("unprocessable", `rank cycle: "${id}" is listed above itself`, { issues: [{ path: `precedence.${i}.${j}`, message: "a motion cannot take precedence over itself" }] });
+            g.mergeEdge(above, id);
+          }
       }
     }),
   );

@@ -10,7 +10,7 @@
  */
 import { z } from "zod";
 import { AMENDMENT_FORMS, idSchema } from "../amendments/case-schema.ts";
-import { citationSchema, VOTE_THRESHOLDS, votingSectionSchema } from "./voting-section.ts";
+import { citationSchema, clauseRefSchema, VOTE_THRESHOLDS, votingSectionSchema } from "./voting-section.ts";
 import { RULE_SCOPES } from "./rule-vocabulary.ts";
 
 export const RULEBOOK_FORMAT = "gavelwright.rulebook";
@@ -102,6 +102,7 @@ export const voteAlternativeSchema = z.object({
   /** Optional: the circumstance as a condition over motion-scope facts; absent = for the chair to apply. */
   when: conditionTreeSchema.optional(),
   citation: citationSchema,
+  clause: clauseRefSchema.optional(),
 });
 
 export const motionSchema = z.object({
@@ -126,6 +127,10 @@ export const motionSchema = z.object({
   /** Characteristics that depend on the floor state, applied in order when their condition holds. */
   variants: z.array(motionVariantSchema).max(10).optional(),
   citation: citationSchema,
+  /** The clause of the chamber's rules the motion encodes (its key in the uploaded text). */
+  clause: clauseRefSchema.optional(),
+  /** The clause that fixes the motion's threshold (`vote`), when another than `clause`. */
+  voteClause: clauseRefSchema.optional(),
   note: z.string().max(1000).optional(),
 });
 
@@ -164,9 +169,10 @@ export const amendmentRulesSchema = z.object({
   maxPending: z.number().int().min(1).max(1000).nullable().default(null),
   germaneness: germanenessSchema,
   /** Amendments must be filed this many hours before the sitting (`asOf`); null = no deadline. */
-  filingDeadline: z.object({ hoursBefore: z.number().min(0).max(24 * 366), citation: citationSchema }).nullable().default(null),
+  filingDeadline: z.object({ hoursBefore: z.number().min(0).max(24 * 366), citation: citationSchema, clause: clauseRefSchema.optional() }).nullable().default(null),
   minSponsors: z.number().int().min(0).max(1000).default(1),
   citation: citationSchema,
+  clause: clauseRefSchema.optional(),
 });
 
 export const chamberSchema = z.object({
@@ -202,9 +208,18 @@ export const ruleSchema = z.object({
   severity: z.enum(FINDING_SEVERITIES).optional(),
   /** Amendment scope: a fact (an array of amendment ids) listed as the finding's `related`. */
   related: z.enum(["conflictsWith", "perfectingSiblings", "cycleMembers"]).optional(),
+  /** The clause of the chamber's rules the rule encodes (its key in the uploaded text). */
+  clause: clauseRefSchema.optional(),
   /** For the clerk: what the source says beyond the citation, what is from memory, what the engine cannot express. */
   note: z.string().max(2000).optional(),
 });
+
+/**
+ * One place in a precedence chain: a motion id, or several ids of equal rank (a tie, e.g. US House
+ * Rule XVI cl. 4(c): fix the day and authorise a recess have equal privilege with adjourn).
+ * Added December 2026; chains of plain ids read as before.
+ */
+export const precedenceStepSchema = z.union([idSchema, z.array(idSchema).min(2).max(50)]);
 
 export const rulebookSchema = z.object({
   format: z.literal(RULEBOOK_FORMAT),
@@ -219,7 +234,7 @@ export const rulebookSchema = z.object({
    * Optional precedence chains, highest first, as an alternative to numeric ranks:
    * ranks are then derived from the chains (a motion in a chain must not also give a number).
    */
-  precedence: z.array(z.array(idSchema).min(2).max(200)).max(50).optional(),
+  precedence: z.array(z.array(precedenceStepSchema).min(2).max(200)).max(50).optional(),
   amendments: amendmentRulesSchema,
   voting: votingSectionSchema,
   rules: z.array(ruleSchema).max(500),

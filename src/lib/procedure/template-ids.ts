@@ -45,3 +45,12 @@ export function listedTemplateIds(ids: readonly string[]): string[] {
   const present = new Set(ids);
   return ids.filter((id) => canonicalTemplateId(id) === id || !present.has(canonicalTemplateId(id)));
 }
+
+/** Scenario benches ship beside their template as `<id>.scenarios.json` (docs/rulebook-format.md, "Scenarios"). */
+export const SCENARIOS_SUFFIX = ".scenarios.json";
+
+/** The template id a file in rulebooks/ holds, or null for anything else (a scenarios file, a README). */
+export function templateIdOfFile(name: string): string | null {
+  if (!name.endsWith(".json") || name.endsWith(SCENARIOS_SUFFIX)) return null;
+  return name.slice(0, -".json".length);
+}

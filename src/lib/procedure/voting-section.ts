@@ -81,6 +81,13 @@ export type OrderConstraint = (typeof ORDER_CONSTRAINTS)[number];
 
 export const citationSchema = z.string().trim().min(1).max(500);
 
+/**
+ * A link to the clause of the chamber's own rules that an item encodes: the clause's key in the
+ * chamber's text as uploaded and split ("rule-xvi/4/a", "so-32/1", "s-33"; src/lib/chamber-text).
+ * Optional everywhere; a link to a clause the text does not have is listed by the coverage view.
+ */
+export const clauseRefSchema = z.string().trim().min(1).max(200).regex(/^[a-z0-9][a-z0-9/~-]*$/, "a clause key: lower-case letters, digits, '/', '~' and '-' (as the chamber's text numbers it, e.g. \"rule-xvi/4/a\")");
+
 export const votingSectionSchema = z.object({
   procedure: z.enum(["amendment", "successive"]),
   constraints: z.array(z.enum(ORDER_CONSTRAINTS)).max(ORDER_CONSTRAINTS.length).default(["secondary-before-primary", "perfecting-before-substitute", "passage-last"]),
@@ -91,6 +98,9 @@ export const votingSectionSchema = z.object({
   amendmentThreshold: thresholdSpecSchema.default("majority"),
   /** Threshold for final passage; absent = the main motion's `vote` in the catalogue (resolved by `votingRules`). */
   passageThreshold: thresholdSpecSchema.optional(),
+  /** The clauses of the chamber's rules that fix the amendment and passage thresholds. */
+  amendmentThresholdClause: clauseRefSchema.optional(),
+  passageThresholdClause: clauseRefSchema.optional(),
   quorum: z
     .object({
       kind: z.enum(QUORUM_KINDS),
@@ -102,6 +112,7 @@ export const votingSectionSchema = z.object({
       /** Catalogue ids of the motions in order when no quorum is present (the `no-quorum` rule reads them). */
       withoutQuorum: z.array(idSchema).max(50).optional(),
       citation: citationSchema.optional(),
+      clause: clauseRefSchema.optional(),
     })
     .refine((q) => q.kind !== "number" || q.value !== undefined, { message: "a quorum of kind \"number\" needs a value", path: ["value"] })
     .refine((q) => q.kind !== "fraction" || (q.numerator !== undefined && q.denominator !== undefined), { message: "a quorum of kind \"fraction\" needs a numerator and a denominator", path: ["numerator"] })
@@ -110,6 +121,7 @@ export const votingSectionSchema = z.object({
   /** How votes are taken and what orders a recorded vote (voting-methods.ts); optional. */
   methods: votingMethodsSchema.optional(),
   citation: citationSchema,
+  clause: clauseRefSchema.optional(),
 });
 
 export type VotingSection = z.output<typeof votingSectionSchema>;

@@ -4,20 +4,21 @@
  * The content comes from the callers (tree validation, voting orders); this only lays it out.
  */
 import { z } from "zod";
+import { calendarDate, safe } from "../schema-parts.ts";
 import { escapeHtml } from "../text/escape-html.ts";
 import type { RenderedMail } from "./render-ruling-mail.ts";
 import { formatDate } from "../text/dates.ts";
 
 export const floorDigestSchema = z.object({
-  sitting: z.string().trim().min(1).max(200),
-  date: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "must be a date YYYY-MM-DD"),
-  measure: z.string().trim().max(300).default(""),
+  sitting: safe(z.string().trim().min(1).max(200)),
+  date: calendarDate(),
+  measure: safe(z.string().trim().max(300)).default(""),
   findings: z
-    .array(z.object({ severity: z.enum(["error", "warning", "info"]), code: z.string().trim().max(64).default(""), message: z.string().trim().min(1).max(2000), subject: z.string().trim().max(300).default("") }))
+    .array(z.object({ severity: z.enum(["error", "warning", "info"]), code: safe(z.string().trim().max(64)).default(""), message: safe(z.string().trim().min(1).max(2000)), subject: safe(z.string().trim().max(300)).default("") }))
     .max(500)
     .default([]),
-  proposedOrder: z.array(z.object({ label: z.string().trim().min(1).max(300), note: z.string().trim().max(1000).default("") })).max(200).default([]),
-  note: z.string().trim().max(4000).default(""),
+  proposedOrder: z.array(z.object({ label: safe(z.string().trim().min(1).max(300)), note: safe(z.string().trim().max(1000)).default("") })).max(200).default([]),
+  note: safe(z.string().trim().max(4000)).default(""),
 });
 export type FloorDigest = z.output<typeof floorDigestSchema>;
 

@@ -8,6 +8,7 @@
  * A draft may be incomplete; `issueReadiness` says what an issued ruling still needs.
  */
 import { z } from "zod";
+import { calendarDate, safe } from "../schema-parts.ts";
 import { idSchema } from "../amendments/case-schema.ts";
 
 export const DECISIONS = ["sustained", "not-sustained", "other"] as const;
@@ -21,12 +22,9 @@ export const DECISION_LABELS: Record<Decision, string> = {
 export const TARGET_KINDS = ["motion", "amendment", "finding", "measure", "other"] as const;
 export type TargetKind = (typeof TARGET_KINDS)[number];
 
-const line = (max: number) => z.string().trim().min(1, "must not be empty").max(max);
+const line = (max: number) => safe(z.string().trim().min(1, "must not be empty").max(max));
 const uuid = z.string().uuid("must be an id (uuid)");
-const isoDate = z
-  .string()
-  .regex(/^\d{4}-\d{2}-\d{2}$/, "must be a date YYYY-MM-DD")
-  .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), "must be a real calendar date");
+const isoDate = calendarDate();
 
 export const ruleCitationSchema = z.object({
   kind: z.literal("rule"),
@@ -41,7 +39,7 @@ export const rulingCitationSchema = z.object({
   kind: z.literal("ruling"),
   rulingId: uuid,
   /** Filled in by the server ("Ruling 3"); ignored on input. */
-  label: z.string().max(200).optional(),
+  label: safe(z.string().max(200)).optional(),
 });
 
 export const citationSchema = z.discriminatedUnion("kind", [ruleCitationSchema, rulingCitationSchema]);
@@ -53,7 +51,7 @@ export const appealTallySchema = z.object({
   noes: z.number().int().min(0).max(100_000),
   abstentions: z.number().int().min(0).max(100_000).default(0),
   /** Who appealed (optional free text). */
-  appellant: z.string().trim().max(200).default(""),
+  appellant: safe(z.string().trim().max(200)).default(""),
 });
 export type AppealTally = z.output<typeof appealTallySchema>;
 
@@ -62,7 +60,7 @@ export const rulingContentSchema = z.object({
   target: z.object({
     kind: z.enum(TARGET_KINDS),
     /** Id of a motion event, tree finding or other record; amendments and measures use the ids below. */
-    ref: z.string().trim().max(200).nullable().default(null),
+    ref: safe(z.string().trim().max(200)).nullable().default(null),
     label: line(300),
   }),
   measureId: uuid.nullable().default(null),
@@ -71,12 +69,12 @@ export const rulingContentSchema = z.object({
   motion: idSchema.nullable().default(null),
   question: line(4000),
   decision: z.enum(DECISIONS).nullable().default(null),
-  decisionNote: z.string().trim().max(500).default(""),
-  reasoning: z.string().trim().max(20_000).default(""),
+  decisionNote: safe(z.string().trim().max(500)).default(""),
+  reasoning: safe(z.string().trim().max(20_000)).default(""),
   citations: z.array(citationSchema).max(50).default([]),
   appeal: appealTallySchema.nullable().default(null),
   sittingId: uuid.nullable().default(null),
-  sitting: z.string().trim().max(200).default(""),
+  sitting: safe(z.string().trim().max(200)).default(""),
   sittingDate: isoDate.nullable().default(null),
 });
 export type RulingContent = z.output<typeof rulingContentSchema>;

@@ -8,6 +8,7 @@
  * question takes what adheres to it with it, §27).
  */
 import { z } from "zod";
+import { safe, count } from "../schema-parts.ts";
 import { idSchema } from "../amendments/case-schema.ts";
 import { GavelError } from "../errors.ts";
 import type { FloorStateInput } from "../procedure/floor-state-schema.ts";
@@ -21,21 +22,21 @@ import { demandNeeded, ROLL_POSITIONS, VOTING_METHODS, type VotingMethod } from 
 export const STAGES = ["made", "seconded", "stated"] as const;
 
 export const pendingItemSchema = z.object({
-  key: z.string().min(1).max(40),
+  key: safe(z.string().min(1).max(40)),
   motion: idSchema,
-  name: z.string().max(200),
+  name: safe(z.string().max(200)),
   degree: z.number().int().min(1).max(10).nullable(),
-  text: z.string().max(2000),
-  mover: z.string().max(200),
+  text: safe(z.string().max(2000)),
+  mover: safe(z.string().max(200)),
   /** The clerk's short reference for the question ("A2"), used to name it; empty when none was given. */
-  ref: z.string().max(40).default(""),
+  ref: safe(z.string().max(40)).default(""),
   stage: z.enum(STAGES),
   debateBegun: z.boolean(),
 });
 export type PendingItem = z.output<typeof pendingItemSchema>;
 
-const count = z.number({ error: "must be a whole number (0 or more)" }).int("must be a whole number (0 or more)").min(0, "must be a whole number (0 or more)").max(100_000);
-export const tallySchema = z.object({ yes: count, no: count, abstain: count.default(0) });
+const wholeCount = z.number({ error: "must be a whole number (0 or more)" }).int("must be a whole number (0 or more)").min(0, "must be a whole number (0 or more)").max(100_000);
+export const tallySchema = z.object({ yes: wholeCount, no: wholeCount, abstain: wholeCount.default(0) });
 export type Tally = z.output<typeof tallySchema>;
 
 /** How a vote was taken: voice, division (counted) or recorded (roll call); see voting-methods.ts. */
@@ -48,10 +49,10 @@ export type RollEntry = z.output<typeof rollEntrySchema>;
 
 export const boardSchema = z.object({
   pending: z.array(pendingItemSchema).max(100),
-  speaker: z.string().max(200).nullable(),
+  speaker: safe(z.string().max(200)).nullable(),
   chairHasRuled: z.boolean(),
   voteTaken: z.boolean(),
-  tabled: z.number().int().min(0),
+  tabled: count(),
   lastVote: z.object({ motion: idSchema, name: z.string(), result: z.enum(["adopted", "rejected"]), tally: tallySchema.nullable() }).nullable(),
   /** Sitting as a Committee of the Whole (US House Rule XVIII); boards stored before this field read as false. */
   committeeOfTheWhole: z.boolean().default(false),
@@ -60,8 +61,8 @@ export type Board = z.output<typeof boardSchema>;
 
 export const EMPTY_BOARD: Board = { pending: [], speaker: null, chairHasRuled: false, voteTaken: false, tabled: 0, lastVote: null, committeeOfTheWhole: false };
 
-const shortText = (max: number) => z.string().trim().max(max);
-const questionKey = z.string().min(1).max(40);
+const shortText = (max: number) => safe(z.string().trim().max(max));
+const questionKey = safe(z.string().min(1).max(40));
 
 export const votedEventSchema = z.object({
   kind: z.literal("voted"),

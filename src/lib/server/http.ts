@@ -7,6 +7,7 @@ import type { z } from "zod";
 import { GavelError, isGavelError, parseWith, type ErrorCode } from "../errors.ts";
 import { can, type ChamberRole, type Permission } from "../permissions.ts";
 import { describeError } from "./log-safe.ts";
+import { stringIssues } from "../schema-parts.ts";
 
 export const STATUS: Record<ErrorCode, number> = {
   "invalid-input": 400,
@@ -40,6 +41,12 @@ export function isDatabaseUnavailable(e: unknown): boolean {
   return false;
 }
 
+/** PostgreSQL's "data exception" class (22xxx): invalid text for a type, NUL bytes, out-of-range numbers or dates. */
+export function isDataException(e: unknown): boolean {
+  const err = (e as { cause?: unknown })?.cause ?? e;
+  return /^22[0-9A-Z]{3}$/.test(String((err as { code?: unknown })?.code ?? ""));
+}
+
 /** The client closed the connection while its request was read: nobody waits for the answer. */
 export function isClientAbort(e: unknown): boolean {
   return e instanceof Error && e.message === "aborted" && (e as { code?: unknown }).code === "ECONNRESET" && !(e as { cause?: unknown }).cause;
@@ -52,6 +59,12 @@ export function errorResponse(e: unknown): Response {
     console.error("[api] database unavailable:", describeError(e));
     return json({ error: { code: "unavailable", message: "Gavelwright cannot reach its database just now. The request was not completed; try again in a moment." } }, 503, { "retry-after": "5" });
   }
+  if (isDataException(e)) {
+    // A value the schemas let through and PostgreSQL refused (SQLSTATE class 22): the request is at
+    // fault, not the server. Still logged: the schema at the door should have named the field.
+    console.error("[api] value refused by the database (a schema should have caught it):", describeError(e));
+    return json({ error: { code: "invalid-input", message: "A value in the request cannot be stored or looked up (the database refused it). Nothing was saved.", issues: [{ path: "(database)", message: "a value the database refused" }] } }, 400);
+  }
   console.error("[api] unexpected error:", describeError(e));
   return json({ error: { code: "internal", message: "Something went wrong on the server. The request was not completed; nothing was saved." } }, 500);
 }
@@ -60,6 +73,8 @@ export function errorResponse(e: unknown): Response {
 export function route(handler: (ctx: APIContext) => Promise<Response | unknown>): APIRoute {
   return async (ctx) => {
     try {
+      // Path parameters are input too (a NUL in an id would otherwise reach the database).
+      refuseBadText(Object.fromEntries(Object.entries(ctx.params ?? {}).map(([k, v]) => [`params.${k}`, v])), "path");
       const out = await handler(ctx);
       return out instanceof Response ? out : json(out);
     } catch (e) {
@@ -79,6 +94,7 @@ export async function readJson<S extends z.ZodType>(request: Request, schema: S,
   } catch (e) {
     throw new GavelError("invalid-input", `${what} is not valid JSON: ${(e as Error).message}`, { issues: [{ path: "(body)", message: "not valid JSON" }] });
   }
+  refuseBadText(value, what);
   return parseWith(schema, value, what) as z.output<S>;
 }
 
@@ -112,8 +128,19 @@ export async function readBody(request: Request, maxBytes: number, what = "reque
   return out;
 }
 
+/**
+ * Refuse a value with a string (anywhere, keys included) that the database would refuse or that is
+ * never meant as text: NUL, other control characters, half a surrogate pair (src/lib/schema-parts.ts).
+ */
+export function refuseBadText(value: unknown, what: string): void {
+  const issues = stringIssues(value);
+  if (issues.length) throw new GavelError("invalid-input", `${what}: ${issues[0].path}: ${issues[0].message}${issues.length > 1 ? ` (and ${issues.length - 1} more)` : ""}`, { issues });
+}
+
 export function parseQuery<S extends z.ZodType>(url: URL, schema: S): z.output<S> {
-  return parseWith(schema, Object.fromEntries(url.searchParams), "query") as z.output<S>;
+  const query = Object.fromEntries(url.searchParams);
+  refuseBadText(query, "query");
+  return parseWith(schema, query, "query") as z.output<S>;
 }
 
 export interface Actor {

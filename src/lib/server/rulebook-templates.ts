@@ -7,7 +7,7 @@ import { readdir, readFile } from "node:fs/promises";
 import path from "node:path";
 import { GavelError } from "../errors.ts";
 import { parseRulebookText } from "../procedure/parse-rulebook.ts";
-import { listedTemplateIds, templateAliases, templateIdCandidates } from "../procedure/template-ids.ts";
+import { listedTemplateIds, templateAliases, templateIdCandidates, templateIdOfFile } from "../procedure/template-ids.ts";
 
 export interface TemplateSource {
   title: string;
@@ -38,7 +38,8 @@ let cache: Promise<RulebookTemplate[]> | null = null;
 
 export function rulebookTemplates(): Promise<RulebookTemplate[]> {
   cache ??= (async () => {
-    const names = (await readdir(dir())).filter((n) => n.endsWith(".json")).sort();
+    // Only rulebooks: `<id>.scenarios.json` files (the template's bench of scenarios) are not templates.
+    const names = (await readdir(dir())).filter((n) => templateIdOfFile(n) !== null).sort();
     const out: RulebookTemplate[] = [];
     const listed = new Set(listedTemplateIds(names.map((n) => n.replace(/\.json$/, ""))));
     for (const n of names) {

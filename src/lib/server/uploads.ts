@@ -4,8 +4,9 @@
  * alone), and extract its text with a well-known package (pdf-parse for PDF, mammoth for DOCX).
  */
 import { createHash } from "node:crypto";
+import { storableText, textProblem } from "../schema-parts.ts";
 import { GavelError, isGavelError } from "../errors.ts";
-import { readBody } from "./http.ts";
+import { readBody, refuseBadText } from "./http.ts";
 import { MAX_RULEBOOK_BYTES } from "../procedure/parse-rulebook.ts";
 import { decodeCsv, MAX_CSV_BYTES } from "../estimates/csv-text.ts";
 
@@ -64,6 +65,9 @@ export async function readMultipart(request: Request, maxBytes = MAX_UPLOAD_BYTE
       file = { filename: value.name || "upload", bytes };
     } else throw new GavelError("invalid-input", `upload: unexpected file field "${key}"`, { issues: [{ path: key, message: "only the field `file` may hold a file" }] });
   }
+  refuseBadText(fields, "upload");
+  const nameProblem = file ? textProblem(file.filename) : null;
+  if (nameProblem) throw new GavelError("invalid-input", `upload: the file name ${nameProblem}`, { issues: fileIssue(`the file name ${nameProblem}`) });
   return { fields, file };
 }
 
@@ -119,9 +123,9 @@ async function docxText(bytes: Buffer): Promise<string> {
 
 /** The document's text. A file that matches its magic number but will not open is refused (422). */
 export async function extractDocumentText(kind: DocumentKind, file: UploadedFile): Promise<string> {
-  if (kind === "text" || kind === "markdown") return file.bytes.toString("utf8");
+  if (kind === "text" || kind === "markdown") return storableText(file.bytes.toString("utf8"));
   try {
-    return kind === "pdf" ? await pdfText(file.bytes) : await docxText(file.bytes);
+    return storableText(kind === "pdf" ? await pdfText(file.bytes) : await docxText(file.bytes));
   } catch (e) {
     throw new GavelError("unprocessable", `${file.filename} looks like a ${kind.toUpperCase()} file but could not be read (${(e as Error).message ?? "damaged"}). Save it again from its program and re-upload it.`, { issues: fileIssue("damaged or malformed document") });
   }

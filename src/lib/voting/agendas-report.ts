@@ -60,7 +60,7 @@ export function distinctAgendaCount(prec: Precedence, control?: RunControl): Cou
   const FIRST = 64;
   const m = countOrders<number>(
     prec,
-    { start: 0, step: (s, x, placed) => (s === 0 ? FIRST + x : s >= FIRST ? (prec.pred[x] & (1 << (s - FIRST)) ? 1 : 2) : s) },
+    { start: 0, step: (s, x) => (s === 0 ? FIRST + x : s >= FIRST ? (prec.pred[x] & (1 << (s - FIRST)) ? 1 : 2) : s) },
     "forward",
     control,
   );

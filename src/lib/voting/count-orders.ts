@@ -43,7 +43,7 @@ export function countOrders<S extends number | string>(prec: Precedence, machine
   const one: Count = useBig ? 1n : 1;
   const maxStates = control.maxStates ?? DEFAULT_MAX_STATES;
   let layer = new Map<number, Map<S, Count>>([[0, new Map([[machine.start, one]])]]);
-  let polled = 0;
+  let polled: number;
   for (let pos = 0; pos < n; pos++) {
     const next = new Map<number, Map<S, Count>>();
     let states = 0;

@@ -155,6 +155,8 @@ describe("POST /api/rulebooks (save a new version)", () => {
     expect(stale.body.error.details.latest.id).toBe(ok.body.id);
     const motions = stale.body.error.details.changes.sections.find((x: { section: string }) => x.section === "motions");
     expect(motions.changes).toEqual([expect.objectContaining({ kind: "changed", id: "amend", fields: [expect.objectContaining({ field: "vote" })] })]);
+    // The same in plain words, which the stale-save notice shows the clerk.
+    expect(stale.body.error.details.plainChanges).toEqual([expect.objectContaining({ section: "motions", kind: "changed", what: "Amend — vote required" })]);
     expect(await tableCounts()).toEqual(before);
     // A first save needs basedOn null only while the chamber has no version.
     expect((await call(list.POST, "POST", "/api/rulebooks", { as: s.as.clerk, body: { basedOn: null, document: demo } })).status).toBe(409);
@@ -219,8 +221,14 @@ describe("GET /api/rulebooks/compare", () => {
     expect(r.status).toBe(200);
     expect(r.body.diff.identical).toBe(false);
     expect(r.body.diff.summary.join(" ")).toMatch(/motions: changed amend \(vote\)/);
+    // The same in plain words, with the motion's name, old → new and the citation.
+    const amendVote = r.body.changes.find((c: { what: string }) => c.what === "Amend — vote required");
+    expect(amendVote).toMatchObject({ section: "motions", kind: "changed" });
+    expect(typeof amendVote.citation).toBe("string");
+    expect(amendVote.from).not.toBe(amendVote.to);
     const same = await call(compare.GET, "GET", "/api/rulebooks/compare", { as: s.as.member, query: { from: v1.id, to: v1.id } });
     expect(same.body.diff.identical).toBe(true);
+    expect(same.body.changes).toEqual([]);
     expect((await call(compare.GET, "GET", "/api/rulebooks/compare", { as: s.as.member, query: { from: "x" } })).status).toBe(400);
   });
 });

@@ -34,10 +34,19 @@ export function randomTree(min: number, max: number): fc.Arbitrary<TreeAmendment
         return { id, target: `s${s.section + 1}`, form: s.form as TreeAmendment["form"], lines: [s.line, s.line + s.len] };
       };
       let a: TreeAmendment;
-      if (s.kind === "section-substitute") (a = { id, target: `s${s.section + 1}`, form: "substitute" }), firstDegree.push(id);
-      else if (s.kind === "measure-substitute") (a = { id, target: "B", form: "substitute" }), firstDegree.push(id);
+      if (s.kind === "section-substitute") {
+        a = { id, target: `s${s.section + 1}`, form: "substitute" };
+        firstDegree.push(id);
+      }
+      else if (s.kind === "measure-substitute") {
+        a = { id, target: "B", form: "substitute" };
+        firstDegree.push(id);
+      }
       else if (s.kind === "second" && firstDegree.length) a = { id, target: firstDegree[s.pick % firstDegree.length], form: s.form as TreeAmendment["form"] };
-      else if (s.kind === "slot-substitute" && firstDegree.length) (a = { id, target: firstDegree[s.pick % firstDegree.length], form: "substitute" }), slotSubs.push(id);
+      else if (s.kind === "slot-substitute" && firstDegree.length) {
+        a = { id, target: firstDegree[s.pick % firstDegree.length], form: "substitute" };
+        slotSubs.push(id);
+      }
       else if (s.kind === "slot-second" && slotSubs.length) a = { id, target: slotSubs[s.pick % slotSubs.length], form: s.form as TreeAmendment["form"] };
       else a = root();
       out.push(a);

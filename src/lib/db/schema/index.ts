@@ -10,3 +10,4 @@ export * from "./estimates.ts";
 export * from "./rate-limit.ts";
 export * from "./auth-throttle.ts";
 export * from "./journal.ts";
+export * from "./chamber-text.ts";

@@ -7,6 +7,8 @@ import { register } from "tsx/esm/api";
 register();
 const { runAnalysisJob } = await import("./analysis-job.ts");
 const flag = new Int32Array(workerData.cancel);
+// Tests hold a worker here to have a run in flight (runner.ts holdWorkersForTests); never set in production.
+if (workerData.hold) Atomics.wait(new Int32Array(workerData.hold), 0, 0);
 let last = 0;
 const progress = (phase, fraction) => {
   const now = Date.now();

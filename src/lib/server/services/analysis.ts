@@ -6,13 +6,14 @@
  * script. Every read checks that the actor may see the estimate the run belongs to.
  */
 import { createHash } from "node:crypto";
-import { and, count, desc, eq } from "drizzle-orm";
-import Papa from "papaparse";
+import { and, asc, count, desc, eq, gt, sql as dsql } from "drizzle-orm";
 import { z } from "zod";
+import { safe, version, queryInt } from "../../schema-parts.ts";
 import { db } from "../db.ts";
 import { analysisCache, analysisRuns } from "../../db/schema/estimates.ts";
 import { legislators } from "../../db/schema/chamber.ts";
 import { GavelError } from "../../errors.ts";
+import { writeCsv } from "../../text/csv-cells.ts";
 import type { Actor } from "../http.ts";
 import { toOrdersProfile } from "../../estimates/estimate-content.ts";
 import { buildFindings } from "../../estimates/findings.ts";
@@ -20,7 +21,9 @@ import { walkThrough } from "../../estimates/walk-through.ts";
 import { chairScript, scriptMarkdown } from "../../estimates/chair-script.ts";
 import { versionInWords, versionShort, type TreeLabels } from "../../estimates/version-words.ts";
 import type { JobResult } from "../analysis/analysis-job.ts";
-import { activeCount, cancelActive, isActive, launchRun, MAX_WORKERS, STALE_MS } from "../analysis/runner.ts";
+import { activeCount, activeCountFor, isActive, joinRun, launchRun, reserveSlot, stopGroup, STALE_MS } from "../analysis/runner.ts";
+import { analysisLimits } from "../analysis/limits.ts";
+import { can } from "../../permissions.ts";
 import { adoptedRulebookOf } from "../measure-rulebook.ts";
 import { canonicalJson } from "../../text/canonical-json.ts";
 import { analysisResultJsonSchema, type analysisResultSchema, type SameShape } from "../../voting/orders-analysis-schema.ts";
@@ -30,15 +33,15 @@ import { estimateRow, storedContent, treeFor, versionRow } from "./estimates.ts"
 /** Bump when the engine's output changes meaning with the same shape (a change of shape changes RESULT_SCHEMA_HASH by itself). */
 export const ENGINE_VERSION = 2; // 2: passage threshold from the catalogue, membership thresholds, quorum, chair's vote (decision 0008)
 
-export const startSchema = z.object({ estimateId: z.string().min(1).max(100), version: z.number().int().min(1).optional(), rulebookVersionId: z.string().min(1).max(100).nullable().optional() });
+export const startSchema = z.object({ estimateId: safe(z.string().min(1).max(100)), version: version().optional(), rulebookVersionId: safe(z.string().min(1).max(100)).nullable().optional() });
 export const ordersQuerySchema = z.object({
-  page: z.coerce.number().int().min(1).default(1),
-  pageSize: z.coerce.number().int().min(1).max(200).default(20),
-  outcome: z.string().max(200).optional(),
+  page: queryInt().min(1).default(1),
+  pageSize: queryInt().min(1).max(200).default(20),
+  outcome: safe(z.string().max(200)).optional(),
   mode: z.enum(["sincere", "sophisticated"]).default("sincere"),
   format: z.enum(["json", "csv"]).default("json"),
 });
-export const orderQuerySchema = z.object({ order: z.string().min(1).max(800), format: z.enum(["json", "md"]).default("json") });
+export const orderQuerySchema = z.object({ order: safe(z.string().min(1).max(800)), format: z.enum(["json", "md"]).default("json") });
 
 interface CachedResult extends JobResult {
   input: Record<string, unknown>;
@@ -83,22 +86,53 @@ export async function startAnalysis(actor: Actor, input: z.output<typeof startSc
     profile: toOrdersProfile(content),
   };
   const hash = contentHash({ engine: ENGINE_VERSION, resultSchema: RESULT_SCHEMA_HASH, ...ordersInput });
-  const [hit] = await db.select({ hash: analysisCache.hash }).from(analysisCache).where(and(eq(analysisCache.chamberId, actor.chamber.id), eq(analysisCache.hash, hash)));
   const base = { chamberId: actor.chamber.id, estimateId: e.id, estimateVersion: v.number, rulebookVersionId: rb.versionId, rulebookLabel: rb.source, hash, requestedBy: actor.user.id };
-  if (hit) {
-    const [run] = await db.insert(analysisRuns).values({ ...base, status: "done", cached: 1, progress: 1, phase: "done", finishedAt: new Date() }).returning();
-    return { runId: run.id, status: run.status, cached: true };
+  const limits = analysisLimits();
+  // One decision per (chamber, content) at a time: answered from the cache, joined to the identical
+  // run already in flight, or started (within the pool and the chamber's share of it).
+  let release: (() => void) | null = null;
+  const decided = await db.transaction(async (tx) => {
+    await tx.execute(dsql`SELECT pg_advisory_xact_lock(hashtext(${`analysis:${actor.chamber.id}:${hash}`}))`);
+    const [hit] = await tx.select({ hash: analysisCache.hash }).from(analysisCache).where(and(eq(analysisCache.chamberId, actor.chamber.id), eq(analysisCache.hash, hash)));
+    if (hit) {
+      const [run] = await tx.insert(analysisRuns).values({ ...base, status: "done", cached: 1, progress: 1, phase: "done", finishedAt: new Date() }).returning();
+      return { run, kind: "cached" as const };
+    }
+    const [leader] = await tx
+      .select({ id: analysisRuns.id, phase: analysisRuns.phase, progress: analysisRuns.progress })
+      .from(analysisRuns)
+      .where(and(eq(analysisRuns.chamberId, actor.chamber.id), eq(analysisRuns.hash, hash), eq(analysisRuns.status, "running"), gt(analysisRuns.heartbeatAt, new Date(Date.now() - STALE_MS))))
+      .orderBy(asc(analysisRuns.createdAt))
+      .limit(1);
+    if (leader) {
+      const [run] = await tx.insert(analysisRuns).values({ ...base, status: "running", phase: leader.phase, progress: leader.progress }).returning();
+      return { run, kind: "joined" as const, leaderId: leader.id };
+    }
+    if (activeCount() >= limits.workers) throw new GavelError("rate-limited", `All ${limits.workers} analysis workers of this server are busy; try again when one has finished.`, { details: { workers: limits.workers } });
+    if (activeCountFor(actor.chamber.id) >= limits.chamberShare)
+      throw new GavelError("rate-limited", `${actor.chamber.name} already has ${limits.chamberShare} ${limits.chamberShare === 1 ? "analysis" : "analyses"} running, its share of this server's ${limits.workers} workers; wait for it to finish or cancel it.`, { details: { chamberShare: limits.chamberShare, workers: limits.workers } });
+    release = reserveSlot(actor.chamber.id); // checked and taken in one tick: no other request takes this slot
+    const [run] = await tx.insert(analysisRuns).values({ ...base, status: "running" }).returning();
+    return { run, kind: "started" as const };
+  }).catch((e) => {
+    (release as (() => void) | null)?.();
+    throw e;
+  });
+  const run = decided.run;
+  if (decided.kind === "cached") return { runId: run.id, status: run.status, cached: true };
+  if (decided.kind === "joined") {
+    joinRun(run.id, run);
+    return { runId: run.id, status: run.status, cached: false, joined: true };
   }
-  if (activeCount() >= MAX_WORKERS) throw new GavelError("rate-limited", `${MAX_WORKERS} analyses are already running on this server; try again when one has finished.`);
-  const [run] = await db.insert(analysisRuns).values({ ...base, status: "running" }).returning();
+  (release as (() => void) | null)?.(); // launchRun counts the worker from here on
   void launchRun({ id: run.id, chamberId: actor.chamber.id, hash }, ordersInput, {
     input: ordersInput,
     labels: tree.labels,
     passageThreshold: typeof rb.rulebook.voting.passageThreshold === "string" ? rb.rulebook.voting.passageThreshold : rb.rulebook.voting.passageThreshold ? `${rb.rulebook.voting.passageThreshold.value} votes` : (main?.vote ?? "majority"),
     rulebook: { label: rb.source, versionId: rb.versionId },
     versions: tree.versions.map(({ id, short, words }) => ({ id, short, words })),
-  });
-  return { runId: run.id, status: run.status, cached: false };
+  }, limits);
+  return { runId: run.id, status: run.status, cached: false, joined: false };
 }
 
 async function cached(run: { chamberId: string; hash: string }): Promise<CachedResult> {
@@ -109,7 +143,7 @@ async function cached(run: { chamberId: string; hash: string }): Promise<CachedR
 
 function runView(run: typeof analysisRuns.$inferSelect) {
   // Running on no server: not here, and its own server has stopped touching the heartbeat.
-  const interrupted = run.status === "running" && !isActive(run.id) && Date.now() - run.heartbeatAt.getTime() > STALE_MS;
+  const interrupted = run.status === "running" && !isActive(run) && Date.now() - run.heartbeatAt.getTime() > STALE_MS;
   return {
     id: run.id,
     estimateId: run.estimateId,
@@ -147,18 +181,33 @@ export async function latestRun(actor: Actor, estimateId: string) {
   return { run: run ? runView(run) : null };
 }
 
+/**
+ * Cancel a run: the person who started it, or a clerk or the chief clerk (any run of the chamber,
+ * even on an estimate they cannot read: the worker pool is the chamber's to manage). Only this run
+ * is cancelled; the worker stops when no run of its group (identical runs joined to it) still waits.
+ */
 export async function cancelRun(actor: Actor, id: string) {
-  const { run } = await runRow(actor, id);
-  if (run.requestedBy !== actor.user.id) throw new GavelError("forbidden", "Only the person who started an analysis can cancel it.");
-  const wait = cancelActive(run.id);
-  if (!wait) {
-    // Running on another server (or on none): mark it; its server stops the worker at the next heartbeat.
-    const [after] = await db.update(analysisRuns).set({ status: "cancelled", error: { code: "cancelled", message: "The analysis was cancelled." }, finishedAt: new Date() }).where(and(eq(analysisRuns.id, run.id), eq(analysisRuns.status, "running"))).returning();
-    return { run: runView(after ?? run) };
+  if (!/^[0-9a-f-]{36}$/i.test(id)) throw new GavelError("not-found", "No such analysis in this chamber.");
+  const [run] = await db.select().from(analysisRuns).where(and(eq(analysisRuns.id, id), eq(analysisRuns.chamberId, actor.chamber.id)));
+  if (!run) throw new GavelError("not-found", "No such analysis in this chamber.");
+  const anyRun = can(actor.role, "analysis:cancel-any");
+  const visible = await estimateRow(actor, run.estimateId).then(
+    () => true,
+    (e) => {
+      if (e instanceof GavelError && e.code === "not-found") return false;
+      throw e;
+    },
+  );
+  if (!visible && !anyRun) throw new GavelError("not-found", "No such analysis in this chamber.");
+  if (!anyRun && run.requestedBy !== actor.user.id) throw new GavelError("forbidden", "Only the person who started an analysis, a clerk or the chief clerk can cancel it.");
+  const [after] = await db.update(analysisRuns).set({ status: "cancelled", error: { code: "cancelled", message: "The analysis was cancelled." }, finishedAt: new Date() }).where(and(eq(analysisRuns.id, run.id), eq(analysisRuns.status, "running"))).returning();
+  if (after) {
+    const [waiting] = await db.select({ id: analysisRuns.id }).from(analysisRuns).where(and(eq(analysisRuns.chamberId, run.chamberId), eq(analysisRuns.hash, run.hash), eq(analysisRuns.status, "running"))).limit(1);
+    // Nobody else waits on this worker: stop it here (on another server, its next heartbeat stops it).
+    if (!waiting) await stopGroup(run.chamberId, run.hash);
   }
-  await wait;
-  const { run: after } = await runRow(actor, id);
-  return { run: runView(after) };
+  const view = runView(after ?? run);
+  return { run: visible ? view : { id: view.id, status: view.status, error: view.error } };
 }
 
 export async function listOrders(actor: Actor, id: string, q: z.output<typeof ordersQuerySchema>) {
@@ -169,8 +218,8 @@ export async function listOrders(actor: Actor, id: string, q: z.output<typeof or
   if (q.outcome && !known.has(q.outcome)) throw new GavelError("invalid-input", `outcome: unknown version ${q.outcome}`, { issues: [{ path: "outcome", message: "not a version of this analysis" }] });
   const rows = q.outcome ? r.listing.orders.filter((o) => o[q.mode] === q.outcome) : r.listing.orders;
   if (q.format === "csv") {
-    const text = Papa.unparse({ fields: ["rank", "order", "sincere outcome", "sophisticated outcome", "sincere (in words)", "sophisticated (in words)"], data: rows.map((o) => [o.rank, o.questions.join(" "), o.sincere, o.sophisticated, versionInWords(o.sincere, r.labels), versionInWords(o.sophisticated, r.labels)]) });
-    return new Response(text + "\r\n", { headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="voting-orders-${run.id.slice(0, 8)}.csv"`, "cache-control": "no-store" } });
+    const text = writeCsv(["rank", "order", "sincere outcome", "sophisticated outcome", "sincere (in words)", "sophisticated (in words)"], rows.map((o) => [o.rank, o.questions.join(" "), o.sincere, o.sophisticated, versionInWords(o.sincere, r.labels), versionInWords(o.sophisticated, r.labels)]));
+    return new Response(text, { headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="voting-orders-${run.id.slice(0, 8)}.csv"`, "cache-control": "no-store" } });
   }
   const start = (q.page - 1) * q.pageSize;
   return {

@@ -6,6 +6,7 @@
  */
 import { and, asc, desc, eq, inArray, isNull, or, sql as dsql } from "drizzle-orm";
 import { z } from "zod";
+import { safe, version } from "../../schema-parts.ts";
 import { db, type Tx } from "../db.ts";
 import { baseUrl } from "../auth.ts";
 import { member, organization, user } from "../../db/schema/auth.ts";
@@ -23,11 +24,11 @@ import type { Actor } from "../http.ts";
 
 const uuid = z.uuid();
 export const listInputSchema = distributionListSchema;
-export const listUpdateSchema = distributionListSchema.extend({ version: z.number().int().min(1) });
+export const listUpdateSchema = distributionListSchema.extend({ version: version() });
 export const sendSchema = z.object({ rulingId: uuid, listId: uuid });
 /** The digest, and optionally the chamber's list to send it to (`listId`; without it, the clerks' list). */
-export const digestSchema = floorDigestSchema.extend({ listId: z.string().max(200).nullish() });
-export const unsubscribeSchema = z.object({ token: z.string().min(10).max(2000) });
+export const digestSchema = floorDigestSchema.extend({ listId: safe(z.string().max(200)).nullish() });
+export const unsubscribeSchema = z.object({ token: safe(z.string().min(10).max(2000)) });
 
 type ListRow = typeof distributionLists.$inferSelect;
 type RulingRow = typeof rulings.$inferSelect;

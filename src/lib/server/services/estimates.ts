@@ -7,6 +7,7 @@
  */
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { z } from "zod";
+import { safe, version, queryInt } from "../../schema-parts.ts";
 import { db, type Tx } from "../db.ts";
 import { member, user } from "../../db/schema/auth.ts";
 import { legislators } from "../../db/schema/chamber.ts";
@@ -31,34 +32,34 @@ export type EstimateRow = typeof estimates.$inferSelect;
 const uuidLike = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const PENDING = new Set(["draft", "filed", "pending"]);
 
-export const scopeSchema = z.array(z.string().trim().min(1).max(40)).max(16);
+export const scopeSchema = z.array(safe(z.string().trim().min(1).max(40))).max(16);
 const sharingFields = {
   sharedRoles: z.array(z.enum(CHAMBER_ROLES)).max(CHAMBER_ROLES.length).default([]),
-  sharedUsers: z.array(z.string().min(1).max(100)).max(200).default([]),
+  sharedUsers: z.array(safe(z.string().min(1).max(100))).max(200).default([]),
 };
 export const createEstimateSchema = z.object({
-  measureId: z.string().min(1).max(100),
-  title: z.string().trim().min(1).max(200),
+  measureId: safe(z.string().min(1).max(100)),
+  title: safe(z.string().trim().min(1).max(200)),
   scope: scopeSchema,
   content: estimateContentSchema,
-  note: z.string().max(2000).default(""),
+  note: safe(z.string().max(2000)).default(""),
   ...sharingFields,
 });
-export const saveVersionSchema = z.object({ basedOn: z.number().int().min(1), scope: scopeSchema, content: estimateContentSchema, note: z.string().max(2000).default("") });
+export const saveVersionSchema = z.object({ basedOn: version(), scope: scopeSchema, content: estimateContentSchema, note: safe(z.string().max(2000)).default("") });
 export const sharingSchema = z.object(sharingFields);
-export const duplicateSchema = z.object({ title: z.string().trim().min(1).max(200).optional(), version: z.number().int().min(1).optional() });
+export const duplicateSchema = z.object({ title: safe(z.string().trim().min(1).max(200)).optional(), version: version().optional() });
 export const importQuerySchema = z.object({
-  measureId: z.string().min(1).max(100).optional(),
-  estimateId: z.string().min(1).max(100).optional(),
-  basedOn: z.coerce.number().int().min(1).optional(),
-  title: z.string().trim().min(1).max(200).optional(),
+  measureId: safe(z.string().min(1).max(100)).optional(),
+  estimateId: safe(z.string().min(1).max(100)).optional(),
+  basedOn: queryInt().min(1).optional(),
+  title: safe(z.string().trim().min(1).max(200)).optional(),
   kind: z.enum(["ballots", "spatial"]).default("ballots"),
-  scope: z.string().max(800).default(""),
-  dimensions: z.string().max(800).optional(),
+  scope: safe(z.string().max(800)).default(""),
+  dimensions: safe(z.string().max(800)).optional(),
   partial: z.enum(["abstain", "bottom"]).default("abstain"),
   preview: z.enum(["0", "1"]).default("0"),
 });
-export const templateQuerySchema = z.object({ measureId: z.string().min(1).max(100), scope: z.string().max(800).default(""), kind: z.enum(["ballots", "spatial"]).default("ballots"), dimensions: z.string().max(800).optional(), per: z.enum(["bloc", "member"]).default("bloc") });
+export const templateQuerySchema = z.object({ measureId: safe(z.string().min(1).max(100)), scope: safe(z.string().max(800)).default(""), kind: z.enum(["ballots", "spatial"]).default("ballots"), dimensions: safe(z.string().max(800)).optional(), per: z.enum(["bloc", "member"]).default("bloc") });
 
 export function visibleTo(e: Pick<EstimateRow, "authorId" | "sharedRoles" | "sharedUsers">, actor: Actor): boolean {
   return e.authorId === actor.user.id || e.sharedRoles.includes(actor.role) || e.sharedUsers.includes(actor.user.id);

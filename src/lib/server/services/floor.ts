@@ -5,6 +5,7 @@
  */
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { z } from "zod";
+import { safe, count } from "../../schema-parts.ts";
 import { db } from "../db.ts";
 import { user } from "../../db/schema/auth.ts";
 import { floorEvents, sittings } from "../../db/schema/floor.ts";
@@ -25,11 +26,11 @@ export const movesRequestSchema = z.object({
   state: z.unknown().default({}),
 });
 
-export const openSittingSchema = z.object({ title: z.string().trim().min(1).max(200) });
+export const openSittingSchema = z.object({ title: safe(z.string().trim().min(1).max(200)) });
 
 export const recordSchema = z.object({
   /** The board revision the clerk was looking at; a stale one is refused with what changed. */
-  revision: z.number().int().min(0),
+  revision: count(),
   event: floorEventSchema,
 });
 

@@ -5,6 +5,7 @@
  */
 import { and, asc, desc, eq, lte, sql as dsql } from "drizzle-orm";
 import { z } from "zod";
+import { dateOrDateTime, safe } from "../../schema-parts.ts";
 import { db, type Tx } from "../db.ts";
 import { user } from "../../db/schema/auth.ts";
 import { rulebookAdoptions, rulebookVersions } from "../../db/schema/rulebooks.ts";
@@ -12,8 +13,9 @@ import { GavelError } from "../../errors.ts";
 import { MAX_RULEBOOK_BYTES, parseRulebook, parseRulebookText } from "../../procedure/parse-rulebook.ts";
 import type { Rulebook } from "../../procedure/rulebook-schema.ts";
 import { diffRulebooks, type RulebookDiff } from "../rulebook-diff.ts";
+import { changeLine, describeChanges, type PlainChange } from "../../procedure/rulebook-changes.ts";
 import { rulebookTemplates, rulebookTemplate } from "../rulebook-templates.ts";
-import type { Actor } from "../http.ts";
+import { refuseBadText, type Actor } from "../http.ts";
 import { chamberMemory, forgetChamber } from "../chamber-memory.ts";
 import { fromZonedInput } from "../../text/dates.ts";
 
@@ -24,17 +26,17 @@ export const versionIdSchema = z.uuid({ message: "must be a version id" });
 export const saveVersionSchema = z.object({
   /** The version the edit started from; null only for a chamber's first rulebook. */
   basedOn: versionIdSchema.nullable(),
-  note: z.string().trim().max(1000).default(""),
+  note: safe(z.string().trim().max(1000)).default(""),
   /** Set when the edit started from a shipped template. */
-  template: z.string().regex(/^[a-z0-9-]{1,80}$/).optional(),
+  template: safe(z.string().regex(/^[a-z0-9-]{1,80}$/)).optional(),
   document: z.record(z.string(), z.unknown()),
 });
 export type SaveVersionInput = z.output<typeof saveVersionSchema>;
 
 export const adoptSchema = z.object({
   /** The day (or moment) from which the version is in force; today when omitted. */
-  effectiveFrom: z.union([z.iso.date(), z.iso.datetime({ offset: true })]).optional(),
-  note: z.string().trim().max(1000).default(""),
+  effectiveFrom: dateOrDateTime().optional(),
+  note: safe(z.string().trim().max(1000)).default(""),
 });
 
 export const compareQuerySchema = z.object({ from: versionIdSchema, to: versionIdSchema });
@@ -164,6 +166,8 @@ export interface StaleDetails {
   latest: { id: string; number: number; author: string | null; createdAt: Date; note: string };
   savedSince: Array<{ id: string; number: number; author: string | null; note: string }>;
   changes: RulebookDiff;
+  /** The same changes in plain words (added December 2026). */
+  plainChanges: PlainChange[];
 }
 
 /** Save a new version. The document is validated first (nothing stored when invalid). */
@@ -188,10 +192,11 @@ export async function saveVersion(actor: Actor, input: SaveVersionInput, origin 
         latest: { id: latest.id, number: latest.number, author: latest.author, createdAt: latest.createdAt, note: latest.note },
         savedSince: since.map((h) => ({ id: h.id, number: h.number, author: h.author, note: h.note })),
         changes: diffRulebooks(base?.document ?? {}, latest.document),
+        plainChanges: describeChanges(base?.document ?? {}, latest.document),
       };
       throw new GavelError(
         "conflict",
-        `Version ${latest.number} was saved by ${latest.author ?? "someone"} after you started from ${base ? `version ${base.number}` : "a blank rulebook"}. Nothing was saved. Changed since: ${details.changes.summary.join(" · ") || "nothing in substance"}.`,
+        `Version ${latest.number} was saved by ${latest.author ?? "someone"} after you started from ${base ? `version ${base.number}` : "a blank rulebook"}. Nothing was saved. Changed since: ${details.plainChanges.slice(0, 5).map(changeLine).join(" · ") || "nothing in substance"}${details.plainChanges.length > 5 ? ` (and ${details.plainChanges.length - 5} more)` : ""}.`,
         { issues: [{ path: "basedOn", message: `stale: the latest version is ${latest.number}` }], details: details as unknown as Record<string, unknown> },
       );
     }
@@ -205,7 +210,7 @@ export async function saveVersion(actor: Actor, input: SaveVersionInput, origin 
 
 export const importFieldsSchema = z.object({
   basedOn: z.union([versionIdSchema, z.literal("").transform(() => null)]).nullable().default(null),
-  note: z.string().trim().max(1000).default(""),
+  note: safe(z.string().trim().max(1000)).default(""),
 });
 
 const JSON_TYPES = new Set(["application/json", "text/json", ""]);
@@ -224,6 +229,7 @@ export async function importVersion(actor: Actor, form: FormData) {
   const text = await file.text();
   parseRulebookText(text);
   const document = JSON.parse(text) as Record<string, unknown>;
+  refuseBadText(document, "rulebook file");
   return saveVersion(actor, { basedOn: fields.data.basedOn, note: fields.data.note || `Imported from ${file.name}`, document }, "import");
 }
 
@@ -237,7 +243,8 @@ export async function exportVersion(actor: Actor, id: string) {
 export async function compareVersions(actor: Actor, fromId: string, toId: string) {
   const [a, b] = await Promise.all([versionRow(actor.chamber.id, fromId), versionRow(actor.chamber.id, toId)]);
   const strip = ({ document: _d, ...meta }: typeof a) => meta;
-  return { from: strip(a), to: strip(b), diff: diffRulebooks(a.document, b.document) };
+  // `changes`: the same comparison in plain words (added December 2026; `diff` is unchanged).
+  return { from: strip(a), to: strip(b), diff: diffRulebooks(a.document, b.document), changes: describeChanges(a.document, b.document) };
 }
 
 function effectiveDate(input: string | undefined, timeZone: string): Date {
@@ -252,9 +259,16 @@ function effectiveDate(input: string | undefined, timeZone: string): Date {
 export async function adoptVersion(actor: Actor, id: string, input: z.output<typeof adoptSchema>) {
   const row = await versionRow(actor.chamber.id, id);
   const effectiveFrom = effectiveDate(input.effectiveFrom, actor.chamber.timeZone);
+  // The bench of scenarios against the version in force: a version that changes any verdict is adopted only with a note saying why.
+  const { benchReport } = await import("./scenarios.ts");
+  const bench = await benchReport(actor.chamber.id, { id: row.id, number: row.number }, parseRulebook(row.document));
+  if (bench.changed.length && !input.note) {
+    const names = bench.changed.map((c) => `"${c.title}"`).join(", ");
+    throw new GavelError("invalid-input", `${bench.changed.length === 1 ? "One scenario changes" : `${bench.changed.length} scenarios change`} verdict against the version in force (${names}). Say in a note why the chamber adopts it.`, { issues: [{ path: "note", message: "required when scenarios change verdict" }], details: { changed: bench.changed } });
+  }
   const [a] = await db.insert(rulebookAdoptions).values({ chamberId: actor.chamber.id, versionId: row.id, effectiveFrom, note: input.note, adoptedBy: actor.user.id }).returning();
   forgetChamber(actor.chamber.id);
-  return { id: a.id, versionId: row.id, number: row.number, effectiveFrom: a.effectiveFrom, inForce: (await rulebookInForce(actor.chamber.id))?.versionId === row.id };
+  return { id: a.id, versionId: row.id, number: row.number, effectiveFrom: a.effectiveFrom, inForce: (await rulebookInForce(actor.chamber.id))?.versionId === row.id, scenariosChanged: bench.changed.map((c) => c.id) };
 }
 
 export async function templateDocument(id: string) {

@@ -6,6 +6,7 @@
  */
 import { and, asc, desc, eq, inArray, lte, ne, sql as dsql, type SQL } from "drizzle-orm";
 import { z } from "zod";
+import { calendarDate, queryInt, safe, version } from "../../schema-parts.ts";
 import { db, type Tx } from "../db.ts";
 import { legislators } from "../../db/schema/chamber.ts";
 import { amendments, measures } from "../../db/schema/measures.ts";
@@ -25,31 +26,31 @@ import { searchJournals } from "./journal.ts";
 
 const uuid = z.uuid();
 export const createDraftSchema = rulingContentSchema;
-export const updateDraftSchema = z.object({ version: z.number().int().min(1), content: rulingContentSchema });
-export const issueSchema = z.object({ version: z.number().int().min(1), circulateTo: z.array(uuid).max(10).default([]) });
+export const updateDraftSchema = z.object({ version: version(), content: rulingContentSchema });
+export const issueSchema = z.object({ version: version(), circulateTo: z.array(uuid).max(10).default([]) });
 export const reviseSchema = z.object({
   /** The revision the correction is based on; a stale one is refused (409). */
-  revision: z.number().int().min(1),
-  note: z.string().trim().min(1, "say what the correction changes").max(1000),
+  revision: version(),
+  note: safe(z.string().trim().min(1, "say what the correction changes").max(1000)),
   content: rulingContentSchema,
 });
-const dateParam = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "must be a date YYYY-MM-DD");
+const dateParam = calendarDate();
 export const searchSchema = z.object({
-  q: z.string().trim().max(300).optional(),
-  rule: z.string().trim().min(1).max(300).optional(),
-  measure: z.string().trim().min(1).max(300).optional(),
-  motion: z.string().trim().min(1).max(200).optional(),
+  q: safe(z.string().trim().max(300)).optional(),
+  rule: safe(z.string().trim().min(1).max(300)).optional(),
+  measure: safe(z.string().trim().min(1).max(300)).optional(),
+  motion: safe(z.string().trim().min(1).max(200)).optional(),
   from: dateParam.optional(),
   to: dateParam.optional(),
   status: z.enum(["issued", "draft", "all"]).default("issued"),
-  limit: z.coerce.number().int().min(1).max(100).default(50),
+  limit: queryInt().min(1).max(100).default(50),
 });
 export const relatedSchema = z.object({
-  text: z.string().trim().max(20_000).optional(),
-  rule: z.string().trim().max(300).optional(),
-  citation: z.string().trim().max(300).optional(),
+  text: safe(z.string().trim().max(20_000)).optional(),
+  rule: safe(z.string().trim().max(300)).optional(),
+  citation: safe(z.string().trim().max(300)).optional(),
   exclude: uuid.optional(),
-  limit: z.coerce.number().int().min(1).max(20).default(5),
+  limit: queryInt().min(1).max(20).default(5),
 });
 
 type Row = typeof rulings.$inferSelect;

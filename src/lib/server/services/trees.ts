@@ -108,7 +108,10 @@ async function buildTreeView(chamberId: string, measureId: string): Promise<{ vi
     }),
   ];
   const counts = { error: 0, warning: 0, info: 0, overridden: 0 };
-  for (const f of findings) f.overridden ? counts.overridden++ : counts[f.severity]++;
+  for (const f of findings) {
+    if (f.overridden) counts.overridden++;
+    else counts[f.severity]++;
+  }
   const view: TreeView = {
     measure: { id: m.id, number: m.number, title: m.title, version: m.version, sittingAt: m.sittingAt?.toISOString() ?? null },
     rulebook: { id: rb.rulebook.id, title: rb.rulebook.title, source: rb.source, maxDegree: rb.rulebook.amendments.maxDegree, minSponsors: rb.rulebook.amendments.minSponsors },

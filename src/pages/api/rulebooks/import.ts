@@ -1,8 +1,9 @@
 import { json, requireActor, route } from "../../../lib/server/http.ts";
 import { importVersion } from "../../../lib/server/services/rulebooks.ts";
+import { savedWithBench } from "../../../lib/server/services/scenarios.ts";
 import { readRulebookUpload } from "../../../lib/server/uploads.ts";
 
 export const POST = route(async ({ locals, request }) => {
   const actor = requireActor(locals, "rulebook:edit");
-  return json(await importVersion(actor, await readRulebookUpload(request)), 201);
+  return json(await savedWithBench(actor, await importVersion(actor, await readRulebookUpload(request))), 201);
 });
