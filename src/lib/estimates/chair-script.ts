@@ -124,7 +124,10 @@ function stepFor(s: WalkStep, n: number, labels: TreeLabels, amendThreshold: str
 /** "Next: step 4, Amendment A3." / "No question remains: HCA 1 is passed in the form …" */
 function nextWords(n: BranchNext, labels: TreeLabels, byId: Map<number, BranchStep>): string {
   const falls = falls_(n.falls, labels);
-  if (n.next !== null) return `${falls}Next: step ${n.next}, ${questionHeading(byId.get(n.next)!.question, labels).replace(/^A/, "a")}.`;
+  if (n.next !== null) {
+    const h = questionHeading(byId.get(n.next)!.question, labels);
+    return `${falls}Next: step ${n.next}, ${h[0].toLowerCase()}${h.slice(1)}.`;
+  }
   if (n.outcome === null) return `${falls}(The script stops here: the tree has too many branches to write out.)`;
   return `${falls}No question remains. The result: ${versionInWords(n.outcome, labels)}.`;
 }
