@@ -33,7 +33,7 @@ function fontFiles() {
  */
 function safePieces(doc: PDFDocument, font: string, text: string): Array<{ text: string; fallback: boolean }> {
   doc.font(font);
-  const f = doc._font?.font;
+  const f = typeof doc._font?.font?.glyphForCodePoint === "function" ? doc._font.font : undefined;
   const out: Array<{ text: string; fallback: boolean }> = [];
   for (const ch of text) {
     let fallback = false;
@@ -56,13 +56,24 @@ function safeText(doc: PDFDocument, font: string, text: string, x: number, y: nu
 }
 
 /** Ligature glyphs ("fl", "fi") are composites too: set the letters apart. */
-const NO_LIGATURES = { liga: false, clig: false, dlig: false, rlig: false };
+const NO_LIGATURES = { liga: false, clig: false, dlig: false, rlig: false, calt: false };
 
 const HEADING_SIZE = { 1: 15, 2: 13, 3: 11.5 } as const;
 
-/** The document as a PDF (A4), footer and "Page n of m" on every page. */
+/**
+ * The document as a PDF (A4), footer and "Page n of m" on every page: in the app's type, or, should
+ * the font library fail on a glyph the checks above did not catch, entirely in the PDF's standard fonts.
+ */
 export async function renderPdf(d: DocumentModel): Promise<Buffer> {
-  const f = fontFiles();
+  try {
+    return await renderPdfWith(d, fontFiles());
+  } catch (e) {
+    if (!(e instanceof RangeError)) throw e;
+    return renderPdfWith(d, null);
+  }
+}
+
+async function renderPdfWith(d: DocumentModel, f: ReturnType<typeof fontFiles> | null): Promise<Buffer> {
   const doc = new PDFDocument({ size: "A4", margins: { top: 56, bottom: 64, left: 62, right: 62 }, bufferPages: true, info: { Title: d.title, Creator: "Gavelwright" } });
   const chunks: Buffer[] = [];
   doc.on("data", (c: Buffer) => chunks.push(c));
@@ -70,9 +81,9 @@ export async function renderPdf(d: DocumentModel): Promise<Buffer> {
     doc.on("end", () => resolve());
     doc.on("error", reject);
   });
-  doc.registerFont("sans", f.sans);
-  doc.registerFont("sans-italic", f.sansItalic);
-  doc.registerFont("serif", f.serif);
+  doc.registerFont("sans", f?.sans ?? "Helvetica");
+  doc.registerFont("sans-italic", f?.sansItalic ?? "Helvetica-Oblique");
+  doc.registerFont("serif", f?.serif ?? "Times-Roman");
   const width = doc.page.width - doc.page.margins.left - doc.page.margins.right;
 
   const runs = (rs: Run[], opts: { indent?: number; bullet?: boolean } = {}) => {
