@@ -170,6 +170,7 @@ export const API_ROUTES: readonly ApiRoute[] = [
   { file: "api/estimates/template.ts", method: "GET", path: "/api/estimates/template", audience: ALL_ROLES, outsider: "refused", query: (s) => ({ measureId: s.measure }) },
   { file: "api/estimates/versions.ts", method: "GET", path: "/api/estimates/versions", audience: ALL_ROLES, outsider: "refused", query: (s) => ({ measureId: s.measure }) },
   { file: "api/estimates/import.ts", method: "POST", path: "/api/estimates/import", audience: ESTIMATORS, outsider: "refused", query: (s) => ({ measureId: s.measure, title: "Access import" }), raw: csv },
+  { file: "api/estimates/roster.ts", method: "POST", path: "/api/estimates/roster", audience: ESTIMATORS, outsider: "refused", body: (s) => ({ measureId: s.measure, title: "Access roster draft", scope: [] }), note: "an unfilled draft" },
   { file: "api/estimates/[id].ts", method: "GET", path: "/api/estimates/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "estimate" }, note: "private estimates only to their author" },
   { file: "api/estimates/[id]/analysis.ts", method: "GET", path: "/api/estimates/:id/analysis", audience: ALL_ROLES, outsider: "refused", params: { id: "estimate" } },
   { file: "api/estimates/[id]/duplicate.ts", method: "POST", path: "/api/estimates/:id/duplicate", audience: ESTIMATORS, outsider: "refused", params: { id: "estimate" }, body: () => ({}) },

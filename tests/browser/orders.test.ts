@@ -38,7 +38,14 @@ function file(name: string, text: string): string {
 async function chooseScope(page: import("playwright-core").Page) {
   await page.getByLabel("Measure").selectOption({ label: "HCA 12 — Harbour Lighting and Quayside Safety Ordinance" });
   for (const a of ["A1", "A2", "A7"]) await page.getByRole("checkbox", { name: new RegExp(`^${a} \\(`) }).check();
-  await visible(page.getByText("measure+A1+A2", { exact: true }));
+  await visible(page.getByTestId("versions-to-rank").getByText("HCA 12 + A1 + A2", { exact: true }));
+}
+
+/** The page is no wider than the window (no sideways scrolling). */
+async function noOverflow(page: Page, width?: number) {
+  const [w, inner] = await page.evaluate(() => [document.documentElement.scrollWidth, window.innerWidth]);
+  if (width !== undefined) expect(inner).toBe(width);
+  expect(w, `page is ${w} px wide at ${inner} px`).toBeLessThanOrEqual(inner);
 }
 
 describe("voting orders", () => {
@@ -149,6 +156,21 @@ describe("voting orders", () => {
     const win = page.getByTestId("win-set");
     expect(await win.locator("circle").count()).toBeGreaterThan(0);
     expect(await textOf(page.getByText(/Win set of Q: union of/))).toBeTruthy();
+    // Axes with numbered ticks and the dimensions' names; blocs named on the plot, not only counted.
+    expect(await page.getByTestId("x-ticks").locator("text").count()).toBeGreaterThanOrEqual(3);
+    expect(await page.getByTestId("y-ticks").locator("text").count()).toBeGreaterThanOrEqual(3);
+    expect((await page.getByTestId("x-ticks").locator("text").allTextContents()).every((t) => /^-?\d+(\.\d+)?$/.test(t))).toBe(true);
+    expect(await page.getByTestId("x-axis-name").textContent()).toMatch(/\w+ →/);
+    expect(await page.getByTestId("y-axis-name").textContent()).toMatch(/\w+ →/);
+    expect(await page.getByTestId("bloc-name").allTextContents()).toContain("Moorland Union");
+    // The win set's shading lies inside the plot's frame.
+    const clip = await page.evaluate(() => {
+      const svg = document.querySelector("[data-testid=win-set]")!.closest("svg")!;
+      const frame = svg.querySelector("clipPath#gw-plot-area rect")!.getBoundingClientRect();
+      const shade = svg.querySelector("[data-testid=win-set]")!.getBoundingClientRect();
+      return { frame: { l: frame.left, t: frame.top, r: frame.right, b: frame.bottom }, inClip: svg.querySelector("[data-testid=win-set]")!.closest("[clip-path='url(#gw-plot-area)']") !== null, shade: { w: shade.width } };
+    });
+    expect(clip.inClip).toBe(true);
     await shot(page, "orders-spatial");
     const bloc = page.getByRole("button", { name: /^Moorland Union: 14 votes at \(2, 3\)/ });
     await bloc.focus();
@@ -205,5 +227,144 @@ describe("voting orders", () => {
     await visible(page.getByText(/version 3 of 3 — Dimensions and positions edited/));
     saved = await api(page, "GET", `/api/estimates/${made.id}`);
     expect(saved.version.content).toMatchObject({ dimensions: ["Lighting", "Harbour access"], statusQuo: [1, 4], measure: [5, 0], effects: { A1: { position: [6, 0] } }, members: [{ ideal: [2, 0] }, { ideal: [7, 0] }, { ideal: [8, 0] }] });
+  });
+
+  it("a clerk starts from the roster, cannot analyse the draft until it is filled, fills it, then reads and sorts the majority matrix", async () => {
+    const page = await browser.freshPage();
+    await signInAs(page, "clerk");
+    await page.goto(`${BASE_URL}/orders`);
+    await page.getByLabel("Measure").selectOption({ label: "HCA 12 — Harbour Lighting and Quayside Safety Ordinance" });
+    // The third-degree amendment is not offered, and the form says why.
+    await visible(page.getByTestId("not-offered"));
+    expect(await textOf(page.getByTestId("not-offered"))).toMatch(/A8 .*third degree is out of order/);
+    expect(await page.getByRole("checkbox", { name: /^A8 / }).count()).toBe(0);
+    for (const a of ["A1", "A4", "A5", "A6"]) await page.getByRole("checkbox", { name: new RegExp(`^${a} \\(`) }).check();
+    const list = page.getByTestId("versions-to-rank");
+    await visible(list.getByText("HCA 12 + A1 + A4 + A5 + A6", { exact: true }));
+    const nVersions = await list.locator("li").count();
+    expect(nVersions).toBeGreaterThan(8);
+    expect(await list.innerText()).not.toContain("measure+");
+    await noOverflow(page);
+    await page.setViewportSize({ width: 390, height: 844 });
+    await noOverflow(page, 390);
+    await shot(page, "orders-roster-form-phone");
+    await page.setViewportSize({ width: 1360, height: 900 });
+    await page.getByLabel("Title of the estimate").fill(`Roster count ${unique}`);
+    await page.getByLabel("Versions a row leaves out").selectOption("bottom");
+    await shot(page, "orders-roster-form");
+    await Promise.all([page.waitForURL(/\/orders\/[0-9a-f-]{36}$/), page.getByRole("button", { name: "Start from the roster and fill it in on the page" }).click()]);
+
+    // An unfilled draft: labelled for what it is, and no analysis.
+    await visible(page.getByTestId("draft-notice"));
+    expect(await textOf(page.getByText(/version 1 of 1 — Started from the roster/))).not.toContain("CSV");
+    expect(await textOf(page.getByTestId("draft-notice"))).toMatch(/Draft — not ready for analysis.*rows have no ranking yet/s);
+    await visible(page.getByTestId("analysis-refused"));
+    expect(await page.getByRole("heading", { name: "Findings" }).count()).toBe(0);
+    await shot(page, "orders-roster-draft");
+    await page.setViewportSize({ width: 390, height: 844 });
+    await noOverflow(page, 390);
+    await shot(page, "orders-roster-draft-phone");
+    await page.setViewportSize({ width: 1360, height: 900 });
+
+    const table = page.getByTestId("ballot-table");
+    const rows = await table.locator("tbody tr").count();
+    const names: string[] = [];
+    const weights: number[] = [];
+    for (let i = 1; i <= rows; i++) {
+      names.push(await table.getByLabel(`Row ${i}: member or bloc`).inputValue());
+      weights.push(Number(await table.getByLabel(`Row ${i}: weight`).inputValue()));
+    }
+    // Three blocs whose weights allow a majority cycle (each pair outweighs the third): Condorcet's
+    // three rankings X > Y > Z, Y > Z > X, Z > X > Y (Condorcet 1785, from memory).
+    const trio = (() => {
+      for (let a = 0; a < rows; a++) for (let b = a + 1; b < rows; b++) for (let c = b + 1; c < rows; c++) {
+        const [x, y, z] = [weights[a], weights[b], weights[c]];
+        if (x + y > z && y + z > x && x + z > y) return [a, b, c];
+      }
+      return null;
+    })();
+    expect(trio, `weights ${weights.join(", ")}`).not.toBeNull();
+    const [X, Y, Z] = ["HCA 12 + A1", "HCA 12 + A4", "HCA 12 + A5"];
+    const rankings = [[X, Y, Z], [Y, Z, X], [Z, X, Y]];
+    const fill = async (row: number, ranking: string[]) => {
+      for (const [place, v] of ranking.entries()) await table.getByLabel(`${names[row]}: place of ${v}`, { exact: true }).fill(String(place + 1));
+    };
+    await fill(trio![0], rankings[0]);
+    expect(await textOf(table.getByTestId("rows-to-fill"))).toContain(`${rows - 1} of ${rows} rows still to fill in`);
+    await table.getByRole("button", { name: "Save as version 2" }).click();
+    await visible(page.getByText(/version 2 of 2 — Ballots partly filled in/));
+    expect(await textOf(page.getByTestId("draft-notice"))).toContain(`${rows - 1} of ${rows} rows have no ranking yet`);
+    expect(await page.getByRole("heading", { name: "Findings" }).count()).toBe(0);
+
+    await fill(trio![1], rankings[1]);
+    await fill(trio![2], rankings[2]);
+    for (let i = 0; i < rows; i++) if (!trio!.includes(i)) await table.getByRole("checkbox", { name: `${names[i]}: unranked` }).check();
+    expect(await textOf(table.getByTestId("rows-to-fill"))).toBe("Every row is filled in or marked unranked.");
+    await table.getByRole("button", { name: "Save as version 3" }).click();
+    await visible(page.getByText(/version 3 of 3/));
+    await visible(page.getByRole("heading", { name: "Findings" }), 60_000);
+    expect(await page.getByTestId("draft-notice").count()).toBe(0);
+
+    // The cycle sentence names the three versions; the matrix marks the cycle's three wins.
+    await visible(page.getByText(`None: no version beats all the others; the majorities cycle among ${X}, ${Y} and ${Z}.`));
+    const matrix = page.getByRole("table", { name: /Majority matrix/ });
+    await visible(matrix);
+    expect(await matrix.locator("tbody tr").count()).toBe(nVersions);
+    expect(await matrix.locator("tbody td", { hasText: "↻" }).count()).toBe(3);
+    // Sorting by keyboard: Wins − losses, strongest first, then reversed.
+    const byScore = matrix.getByRole("button", { name: /Wins − losses/ });
+    await byScore.focus();
+    await page.keyboard.press("Enter");
+    await visible(matrix.locator("th[aria-sort=descending]", { hasText: "Wins − losses" }));
+    expect(await textOf(page.getByText(/Sorted by wins minus losses, highest first/))).toBeTruthy();
+    expect([X, Y, Z]).toContain((await matrix.locator("tbody tr th").first().innerText()).split("\n")[0].trim());
+    await page.keyboard.press("Space");
+    await visible(matrix.locator("th[aria-sort=ascending]", { hasText: "Wins − losses" }));
+    expect([X, Y, Z]).not.toContain((await matrix.locator("tbody tr th").first().innerText()).split("\n")[0].trim());
+
+    // The graph is collapsed to the top cycle, says so, and can show every version.
+    expect(await textOf(page.getByTestId("graph-collapsed"))).toContain(`${nVersions} versions are too many to draw legibly: the graph shows only the top cycle (3 versions)`);
+    expect(await page.getByTestId("majority-graph").getAttribute("aria-label")).toMatch(/^Majority graph of 3 versions/);
+    await page.getByTestId("majority-graph").scrollIntoViewIfNeeded();
+    await shot(page, "orders-matrix-collapsed");
+    await page.getByRole("button", { name: `Show all ${nVersions} versions` }).click();
+    expect(await page.getByTestId("majority-graph").getAttribute("aria-label")).toMatch(new RegExp(`^Majority graph of ${nVersions} versions`));
+    await page.getByRole("button", { name: "Show only the top cycle" }).click();
+    expect(await page.getByTestId("majority-graph").getAttribute("aria-label")).toMatch(/^Majority graph of 3 versions/);
+    expect(await page.locator("main").innerText()).not.toMatch(/measure\+|\+A\d+\+/);
+    await noOverflow(page);
+
+    // Phone width: nothing wider than the screen.
+    await page.setViewportSize({ width: 390, height: 844 });
+    await page.reload();
+    await visible(page.getByRole("heading", { name: "Findings" }), 60_000);
+    await visible(page.getByRole("table", { name: /Majority matrix/ }));
+    await noOverflow(page, 390);
+    await shot(page, "orders-matrix-phone");
+  });
+
+  it("a spatial estimate started from the roster is a draft until the blocs are placed and saved", async () => {
+    const page = await browser.freshPage();
+    await signInAs(page, "clerk");
+    await page.goto(`${BASE_URL}/orders`);
+    await page.getByLabel("Measure").selectOption({ label: "HCA 12 — Harbour Lighting and Quayside Safety Ordinance" });
+    await page.getByRole("checkbox", { name: /^A1 \(/ }).check();
+    await visible(page.getByTestId("versions-to-rank").getByText("HCA 12 + A1", { exact: true }));
+    await page.getByLabel("Kind").selectOption("spatial");
+    await page.getByLabel("Policy dimensions").fill("Lighting, Cost");
+    await page.getByLabel("Title of the estimate").fill(`Spatial roster ${unique}`);
+    await Promise.all([page.waitForURL(/\/orders\/[0-9a-f-]{36}$/), page.getByRole("button", { name: "Start from the roster and fill it in on the page" }).click()]);
+    await visible(page.getByText(/version 1 of 1 — Started from the roster \(\d+ blocs\); positions are placeholders, not yet set/));
+    expect(await textOf(page.getByTestId("draft-notice"))).toMatch(/the positions are the roster's placeholders/);
+    await visible(page.getByTestId("analysis-refused"));
+    // Place one bloc with the keyboard and save: the positions are now the clerk's, and the analysis runs.
+    const bloc = page.getByRole("button", { name: /votes? at \(0, 0\)/ }).first();
+    await bloc.focus();
+    await page.keyboard.press("ArrowUp");
+    await page.getByRole("button", { name: "Save these positions as a new version" }).click();
+    await visible(page.getByText(/version 2 of 2 — Positions edited on the plot/));
+    expect(await page.getByTestId("draft-notice").count()).toBe(0);
+    await visible(page.getByRole("heading", { name: "Findings" }), 60_000);
+    await noOverflow(page);
   });
 });

@@ -157,23 +157,26 @@ describe("estimates on the pages", () => {
     await page.goto(`${BASE_URL}/orders`);
     await page.getByLabel("Measure").selectOption({ label: "HCA 12 — Harbour Lighting and Quayside Safety Ordinance" });
     for (const a of ["A1", "A2", "A7"]) await page.getByRole("checkbox", { name: new RegExp(`^${a} \\(`) }).check();
-    await visible(page.getByText("measure+A1+A2", { exact: true }));
+    await visible(page.getByTestId("versions-to-rank").getByText("HCA 12 + A1 + A2", { exact: true }));
     await page.getByLabel("Title of the estimate").fill(`Table count ${unique}`);
     await Promise.all([page.waitForURL(/\/orders\/[0-9a-f-]{36}$/), page.getByRole("button", { name: "Start from the roster and fill it in on the page" }).click()]);
     estimateUrl = page.url();
-    await page.getByText(/Edit the ballots in a table/).click();
+    // An unfilled draft: the table is open and the analysis waits until it is filled in.
+    await visible(page.getByTestId("draft-notice"));
     const table = page.getByTestId("ballot-table");
-    // Row 1: the measure and Q tied first; row 2 leaves Q unranked.
+    await visible(table);
+    // Row 1: the measure and Q tied first; row 2 leaves Q unranked. Versions are named in words.
     const rank = async (row: number, places: Record<string, string>) => {
-      for (const [v, p] of Object.entries(places)) await table.getByLabel(`Row ${row}: place of ${v}`, { exact: true }).fill(p);
+      const name = await table.getByLabel(`Row ${row}: member or bloc`).inputValue();
+      for (const [v, p] of Object.entries(places)) await table.getByLabel(`${name}: place of ${v}`, { exact: true }).fill(p);
     };
-    await rank(1, { Q: "1", measure: "1", "measure+A1": "2", "measure+A7": "3", "measure+A1+A2": "4" });
-    await rank(2, { Q: "", measure: "4", "measure+A1": "3", "measure+A7": "1", "measure+A1+A2": "2" });
-    await rank(3, { Q: "3", measure: "1", "measure+A1": "4", "measure+A7": "5", "measure+A1+A2": "2" });
-    expect(await textOf(table.locator("tbody tr").first())).toContain("Q = measure > measure+A1 > measure+A7 > measure+A1+A2");
-    await table.getByLabel("Row 4: place of Q", { exact: true }).fill("x");
-    await visible(table.getByText("place of Q must be a whole number from 1"));
-    await table.getByLabel("Row 4: place of Q", { exact: true }).fill("5");
+    await rank(1, { "Q (no change)": "1", "HCA 12": "1", "HCA 12 + A1": "2", "HCA 12 + A7": "3", "HCA 12 + A1 + A2": "4" });
+    await rank(2, { "Q (no change)": "", "HCA 12": "4", "HCA 12 + A1": "3", "HCA 12 + A7": "1", "HCA 12 + A1 + A2": "2" });
+    await rank(3, { "Q (no change)": "3", "HCA 12": "1", "HCA 12 + A1": "4", "HCA 12 + A7": "5", "HCA 12 + A1 + A2": "2" });
+    expect(await textOf(table.locator("tbody tr").first())).toContain("Q (no change) = HCA 12 > HCA 12 + A1 > HCA 12 + A7 > HCA 12 + A1 + A2");
+    await rank(4, { "Q (no change)": "x" });
+    await visible(table.getByText("the place of Q (no change) must be a whole number from 1"));
+    await rank(4, { "Q (no change)": "5" });
     await shot(page, "workflows-ballot-table");
     await Promise.all([page.waitForURL(estimateUrl), table.getByRole("button", { name: "Save as version 2" }).click()]);
     await visible(page.getByText(/version 2 of 2/));

@@ -8,6 +8,8 @@ import { z } from "zod";
 import { ApiError, apiCall } from "../shared/api.ts";
 import { ordersPageSchema, runResultSchema, walkSchema, type Step } from "./api.ts";
 import MajorityGraph from "./MajorityGraph.tsx";
+import MajorityMatrix from "./MajorityMatrix.tsx";
+import { cycleSentence, graphSelection } from "../../lib/estimates/majority-matrix.ts";
 import OutcomeChart from "./OutcomeChart.tsx";
 import { thresholdInWords } from "../../lib/estimates/version-words.ts";
 import { Alert } from "../shared/Alert.tsx";
@@ -28,6 +30,7 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
   const [page, setPage] = useState(1);
   const [orders, setOrders] = useState<OrdersPage | null>(null);
   const [walk, setWalk] = useState<Walk | null>(null);
+  const [showAll, setShowAll] = useState(false);
 
   const poll = useCallback(async (runId: string) => {
     for (;;) {
@@ -117,6 +120,7 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
   const versions = result.versions!;
   const short = (id: string) => versions.find((v) => v.id === id)?.short ?? id;
   const m = a.majority;
+  const graph = graphSelection(versions.map((v) => v.id), m.margins, m.topCycle, showAll);
   return (
     <div className="space-y-6">
       <p className="text-sm text-ink-soft">Rulebook: {result.run.rulebook}. Procedure: {a.procedure === "amendment" ? "amendment procedure (pairwise votes)" : "successive procedure (yes/no in turn)"}. {a.thresholds ? `Votes required: amendments ${thresholdInWords(a.thresholds.amendment)}; passage ${thresholdInWords(a.thresholds.passage)}${a.thresholds.passageFrom === "main-motion" ? " (the main motion's vote in the rulebook)" : ""}. ` : ""}{a.quorum ? (a.quorum.met === null ? `Quorum not checked (no membership known); ${a.quorum.present} attending. ` : `Quorum ${a.quorum.required}, ${a.quorum.present} attending. `) : ""}{a.tieRule && a.tieRule !== "motion-fails" ? `Tie rule: ${a.tieRule}. ` : ""}{result.run.cached ? "Answered from the stored analysis of identical inputs." : "Freshly computed."}</p>
@@ -137,23 +141,37 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
 
       <section className="gw-card" aria-labelledby="versions-h">
         <h2 id="versions-h" className="text-lg font-semibold">The versions on the table</h2>
-        <table className="gw-table mt-2">
+        <div className="relative mt-2 overflow-x-auto" role="region" aria-labelledby="versions-h" tabIndex={0}>
+        <table className="gw-table">
           <thead><tr><th scope="col">Version</th><th scope="col">In plain words</th></tr></thead>
-          <tbody>{versions.map((v) => <tr key={v.id}><td className="font-mono text-xs">{v.id}</td><td>{v.words}</td></tr>)}</tbody>
+          <tbody>{versions.map((v) => <tr key={v.id}><th scope="row" className="text-left">{v.short}</th><td>{v.words}</td></tr>)}</tbody>
         </table>
+        </div>
       </section>
 
-      <section className="gw-card grid gap-4 lg:grid-cols-2" aria-labelledby="majority-h">
-        <div>
-          <h2 id="majority-h" className="text-lg font-semibold">Head-to-head majorities</h2>
-          <p className="gw-hint">An arrow runs from the winner to the loser of each pairwise vote, with the margin. Q is no change; M is the measure.</p>
-          <MajorityGraph versions={versions} margins={m.margins} highlight={m.condorcetWinner ? [] : m.topCycle} />
+      <section className="gw-card space-y-4" aria-labelledby="majority-h">
+        <h2 id="majority-h" className="text-lg font-semibold">Head-to-head majorities</h2>
+        <div className="grid gap-4 xl:grid-cols-2">
+          <div className="min-w-0">
+            <h3 className="font-semibold">Graph</h3>
+            <p className="gw-hint">An arrow runs from the winner to the loser of each pairwise vote, with the margin.</p>
+            {graph.note && (
+              <p className="mt-1 text-sm" role="status" data-testid="graph-collapsed">{graph.note}{" "}<button type="button" className="gw-btn-quiet px-2 py-0.5" onClick={() => setShowAll(true)}>Show all {versions.length} versions</button></p>
+            )}
+            {showAll && versions.length > 8 && <p className="mt-1 text-sm">All {versions.length} versions are drawn. <button type="button" className="gw-btn-quiet px-2 py-0.5" onClick={() => setShowAll(false)}>Show only the top cycle</button></p>}
+            <MajorityGraph versions={versions} margins={m.margins} highlight={m.condorcetWinner ? [] : m.topCycle} shown={graph.shown} />
+          </div>
+          <div className="min-w-0">
+            <h3 className="font-semibold">Matrix</h3>
+            <p className="gw-hint">Sort by a column with its button (Enter or Space); press it again to reverse.</p>
+            <MajorityMatrix versions={versions} margins={m.margins} topCycle={m.topCycle} condorcetWinner={m.condorcetWinner} />
+          </div>
         </div>
         <dl className="space-y-3 text-sm">
-          <div><dt className="font-semibold">Condorcet winner</dt><dd>{m.condorcetWinner ? `${short(m.condorcetWinner)} — beats every other version head to head.` : `None: no version beats all the others; the majorities cycle among ${m.topCycle.map(short).join(", ")}.`}</dd></div>
-          <div><dt className="font-semibold">Top cycle: {m.topCycle.map(short).join(", ")}</dt><dd className="text-ink-soft">The smallest group of versions that each beat or tie every version outside it; sincere voting can end only here.</dd></div>
-          <div><dt className="font-semibold">Uncovered set: {m.uncoveredSet.map(short).join(", ")}</dt><dd className="text-ink-soft">Versions no other version covers: y covers x when y beats x and every version that beats y also beats x (Gillies' variant on ties).</dd></div>
-          <div><dt className="font-semibold">Banks set: {m.banksSet.map(short).join(", ")}{m.banksComplete ? "" : " (search stopped early; may be incomplete)"}</dt><dd className="text-ink-soft">Winners of strategic (sophisticated) voting under some order of pairwise votes: the tops of maximal chains of beating.</dd></div>
+          <div><dt className="font-semibold">Condorcet winner</dt><dd>{m.condorcetWinner ? `${short(m.condorcetWinner)} — beats every other version head to head.` : `None: no version beats all the others; ${cycleSentence(m.topCycle, short)}.`}</dd></div>
+          <div><dt className="font-semibold">Top cycle: {setInWords(m.topCycle, short, m.condorcetWinner ? "" : " (highlighted in the matrix)")}</dt><dd className="text-ink-soft">The smallest group of versions that each beat or tie every version outside it; sincere voting can end only here.</dd></div>
+          <div><dt className="font-semibold">Uncovered set: {setInWords(m.uncoveredSet, short)}</dt><dd className="text-ink-soft">Versions no other version covers: y covers x when y beats x and every version that beats y also beats x (Gillies' variant on ties).</dd></div>
+          <div><dt className="font-semibold">Banks set: {setInWords(m.banksSet, short)}{m.banksComplete ? "" : " (search stopped early; may be incomplete)"}</dt><dd className="text-ink-soft">Winners of strategic (sophisticated) voting under some order of pairwise votes: the tops of maximal chains of beating.</dd></div>
           <div><dt className="font-semibold">Legal orders of questions: {String(a.orders)}</dt><dd className="text-ink-soft">Orders allowed by the rulebook's voting constraints ({a.constraints.map(([x, y]) => `${x} before ${y}`).join("; ") || "none"}).</dd></div>
         </dl>
       </section>
@@ -182,7 +200,8 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
         </div>
         {orders && (
           <>
-            <table className="gw-table mt-3">
+            <div className="relative mt-3 overflow-x-auto" role="region" aria-labelledby="orders-h" tabIndex={0}>
+            <table className="gw-table">
               <thead><tr><th scope="col">#</th><th scope="col">Questions in order</th><th scope="col">Sincere outcome</th><th scope="col">Sophisticated outcome</th><th scope="col"><span className="sr-only">Actions</span></th></tr></thead>
               <tbody>
                 {orders.orders.map((o) => (
@@ -199,7 +218,8 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
                 ))}
               </tbody>
             </table>
-            <div className="mt-2 flex items-center gap-3 text-sm">
+            </div>
+            <div className="mt-2 flex flex-wrap items-center gap-3 text-sm">
               <button className="gw-btn-quiet" disabled={page <= 1} onClick={() => setPage(page - 1)}>Previous</button>
               <span>Page {page} of {Math.max(1, Math.ceil(orders.total / orders.pageSize))} · {orders.total} order{orders.total === 1 ? "" : "s"}{orders.complete ? "" : " (of the first listed)"}</span>
               <button className="gw-btn-quiet" disabled={page * orders.pageSize >= orders.total} onClick={() => setPage(page + 1)}>Next</button>
@@ -221,6 +241,11 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
       )}
     </div>
   );
+}
+
+/** A set of versions for a heading: named when short, otherwise counted (the matrix shows them). */
+function setInWords(ids: string[], short: (id: string) => string, more = ""): string {
+  return ids.length <= 6 ? ids.map(short).join(", ") : `${ids.length} versions${more}`;
 }
 
 function WalkColumn({ title, note, steps, outcome, short }: { title: string; note: string; steps: Step[]; outcome: string; short: (id: string) => string }) {

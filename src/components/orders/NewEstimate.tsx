@@ -5,11 +5,11 @@
 import { useEffect, useState } from "react";
 import { z } from "zod";
 import { Alert } from "../shared/Alert.tsx";
-import { ApiError, apiCall, apiText } from "../shared/api.ts";
+import { ApiError, apiCall } from "../shared/api.ts";
 import { versionSchema } from "./api.ts";
 
 const optionsSchema = z.object({ measures: z.array(z.object({ id: z.string(), number: z.string(), title: z.string() })) });
-const versionsSchema = z.object({ pending: z.array(z.object({ key: z.string(), title: z.string().nullable(), target: z.string(), form: z.string() })), versions: z.array(versionSchema.extend({ amendments: z.array(z.string()) })) });
+const versionsSchema = z.object({ pending: z.array(z.object({ key: z.string(), title: z.string().nullable(), target: z.string(), form: z.string(), outOfOrder: z.string().nullable().optional() })), versions: z.array(versionSchema.extend({ amendments: z.array(z.string()) })) });
 const previewSchema = z.object({ preview: z.literal(true), content: z.object({ kind: z.string(), rows: z.array(z.object({ member: z.string(), bloc: z.string(), weight: z.number(), ranking: z.array(z.union([z.string(), z.array(z.string())])), chair: z.boolean().optional() })).optional(), members: z.array(z.object({ member: z.string(), bloc: z.string(), weight: z.number(), ideal: z.array(z.number()) })).optional() }) });
 
 export default function NewEstimate() {
@@ -43,14 +43,14 @@ export default function NewEstimate() {
   }, [measureId, scope]);
 
   const query = (extra: Record<string, string>) => new URLSearchParams({ measureId, scope: scope.join(","), kind, partial, per, ...(kind === "spatial" ? { dimensions } : {}), ...extra }).toString();
-  /** Start from the roster instead of a file: the template (one row per bloc) saved as version 1, then edited on the estimate's page. */
+  /** Start from the roster instead of a file: an unfilled draft (one row per bloc or member), filled in on the estimate's page. */
   const startBlank = async () => {
     setIssues([]);
     setError(null);
     if (!title.trim()) return setError("Give the estimate a title first.");
     try {
-      const template = await apiText(`/api/estimates/template?${query({})}`);
-      const r = await apiCall(z.object({ id: z.string() }), `/api/estimates/import?${query({ title: title.trim() })}`, { method: "POST", raw: template, type: "text/csv" });
+      const dims = dimensions.split(",").map((d) => d.trim()).filter(Boolean);
+      const r = await apiCall(z.object({ id: z.string() }), "/api/estimates/roster", { method: "POST", body: { measureId, title: title.trim(), scope, kind, per, partial, ...(kind === "spatial" ? { dimensions: dims } : {}) } });
       window.location.href = `/orders/${r.id}`;
     } catch (e) {
       if (e instanceof ApiError) {
@@ -120,16 +120,24 @@ export default function NewEstimate() {
       {tree && (
         <fieldset>
           <legend className="gw-label">Pending amendments to consider</legend>
-          <p className="gw-hint">A second-degree amendment needs the amendment it amends. Third-degree amendments are out of order.</p>
+          <p className="gw-hint">A second-degree amendment needs the amendment it amends. Amendments that are out of order are not offered.</p>
           <div className="mt-1 flex flex-wrap gap-3">
-            {tree.pending.map((p) => (
+            {tree.pending.filter((p) => !p.outOfOrder).map((p) => (
               <label key={p.key} className="inline-flex items-center gap-1 text-sm">
                 <input type="checkbox" checked={scope.includes(p.key)} onChange={(e) => setScope(e.target.checked ? [...scope, p.key] : scope.filter((k) => k !== p.key))} />
                 {p.key}{p.title ? ` (${p.title})` : ""}
               </label>
             ))}
           </div>
-          <p className="mt-2 text-sm">Versions to rank: {tree.versions.map((v) => <code key={v.id} className="mr-2 rounded bg-vellum px-1">{v.id}</code>)}</p>
+          {tree.pending.some((p) => p.outOfOrder) && (
+            <p className="gw-hint mt-2" data-testid="not-offered">Not offered: {tree.pending.filter((p) => p.outOfOrder).map((p) => `${p.key}${p.title ? ` (${p.title})` : ""} — ${p.outOfOrder}`).join("; ")}.</p>
+          )}
+          <div className="mt-2 text-sm">
+            <p>{tree.versions.length} versions to rank:</p>
+            <ul className="mt-1 flex flex-wrap gap-x-2 gap-y-1" data-testid="versions-to-rank">
+              {tree.versions.map((v) => <li key={v.id} title={v.words} className="max-w-full break-words rounded bg-vellum px-1">{v.short}</li>)}
+            </ul>
+          </div>
         </fieldset>
       )}
       <div className="flex flex-wrap items-end gap-3">
@@ -142,7 +150,7 @@ export default function NewEstimate() {
         <span className="text-sm text-ink-soft">or</span>
         <button className="gw-btn-quiet" onClick={() => void startBlank()} disabled={!measureId || !title.trim()}>Start from the roster and fill it in on the page</button>
       </div>
-      <p className="gw-hint">{kind === "spatial" ? `Columns: member, bloc, weight, then one per dimension (${dimensions}). ` : ""}Ballots' columns: member, bloc, weight, ranking, and optionally chair ("yes" on the presiding officer's row, weight 1: its ranking gives the chair's vote under the rulebook's tie rule). Write the ranking best first with "&gt;" between places and "=" for equal ones, e.g. <code>measure+A1 &gt; measure = Q</code>. Save the file as CSV UTF-8.</p>
+      <p className="gw-hint">{kind === "spatial" ? `Columns: member, bloc, weight, then one per dimension (${dimensions}). ` : ""}Ballots' columns: member, bloc, weight, ranking, and optionally chair ("yes" on the presiding officer's row, weight 1: its ranking gives the chair's vote under the rulebook's tie rule). Write the ranking best first with "&gt;" between places and "=" for equal ones, using the version names from the template's example row. Save the file as CSV UTF-8. Starting from the roster makes a draft to fill in on the page; it cannot be analysed until every row is filled in or marked unranked.</p>
       <Alert issues={issues}>{error}</Alert>
       {preview?.content.members && (
         <p className="font-semibold">Preview: {preview.content.members.length} ideal point{preview.content.members.length === 1 ? "" : "s"}, {preview.content.members.reduce((a, r) => a + r.weight, 0)} votes in all.</p>
@@ -150,10 +158,12 @@ export default function NewEstimate() {
       {preview?.content.rows && (
         <div>
           <h3 className="font-semibold">Preview: {preview.content.rows.length} row{preview.content.rows.length === 1 ? "" : "s"}, {preview.content.rows.reduce((a, r) => a + r.weight, 0)} votes in all</h3>
-          <table className="gw-table mt-1">
+          <div className="relative mt-1 overflow-x-auto" role="region" aria-label="Preview of the rows" tabIndex={0}>
+          <table className="gw-table">
             <thead><tr><th scope="col">Member or bloc</th><th scope="col">Bloc</th><th scope="col">Weight</th><th scope="col">Ranking, best first</th></tr></thead>
-            <tbody>{preview.content.rows.slice(0, 50).map((r, i) => <tr key={i}><td>{r.member}{r.chair ? " (chair)" : ""}</td><td>{r.bloc}</td><td>{r.weight}</td><td className="font-mono text-xs">{r.ranking.map((x) => (typeof x === "string" ? x : x.join(" = "))).join(" > ")}</td></tr>)}</tbody>
+            <tbody>{preview.content.rows.slice(0, 50).map((r, i) => <tr key={i}><td>{r.member}{r.chair ? " (chair)" : ""}</td><td>{r.bloc}</td><td>{r.weight}</td><td className="text-xs">{r.ranking.map((x) => (typeof x === "string" ? [x] : x).map((id) => tree?.versions.find((v) => v.id === id)?.short ?? id).join(" = ")).join(" > ")}</td></tr>)}</tbody>
           </table>
+          </div>
         </div>
       )}
     </div>

@@ -16,6 +16,8 @@ import { winSet } from "../../lib/voting/win-set.ts";
 import { unscale } from "../../lib/voting/exact-decimal.ts";
 import { ApiError, apiCall } from "../shared/api.ts";
 import { Alert } from "../shared/Alert.tsx";
+import { axisTicks, tickLabel } from "../../lib/estimates/axis-ticks.ts";
+import { cycleSentence } from "../../lib/estimates/majority-matrix.ts";
 
 type Spatial = Extract<EstimateContent, { kind: "spatial" }>;
 const BLOC_COLOURS = ["#1f4e79", "#8a4b08", "#2f6b3a", "#6b2f5f", "#5a5a5a", "#0f6470"];
@@ -48,10 +50,19 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
   const [x0, x1, y0, y1] = [Math.min(...xs, ...(r ? [r[0][0] + pad] : [])) - pad, Math.max(...xs, ...(r ? [r[0][1] - pad] : [])) + pad, Math.min(...ys, ...(r ? [r[1][0] + pad] : [])) - pad, Math.max(...ys, ...(r ? [r[1][1] - pad] : [])) + pad];
   const span = Math.max(x1 - x0, y1 - y0);
   const W = 560;
-  const k = (W - 60) / span;
-  const X = (x: number) => 40 + (x - x0) * k;
-  const Y = (y: number) => W - 30 - (y - y0) * k;
-  const fromScreen = (px: number, py: number) => [Math.round(((px - 40) / k + x0) * 10) / 10, Math.round(((W - 30 - py) / k + y0) * 10) / 10];
+  // The plot area (one scale on both axes, so indifference circles stay round), with room for ticks and names.
+  const PL = 58;
+  const PT = 12;
+  const PR = 14;
+  const PB = 50;
+  const plot = W - PL - PR;
+  const k = plot / span;
+  const X = (x: number) => PL + (x - x0) * k;
+  const Y = (y: number) => PT + plot - (y - y0) * k;
+  const fromScreen = (px: number, py: number) => [Math.round(((px - PL) / k + x0) * 10) / 10, Math.round(((PT + plot - py) / k + y0) * 10) / 10];
+  const xTicks = axisTicks(x0, x0 + span, 6);
+  const yTicks = axisTicks(y0, y0 + span, 6);
+  const H = PT + plot + PB;
 
   const edit = (f: (c: Spatial) => Spatial) => {
     setContent(f);
@@ -78,7 +89,10 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
   };
   const save = async () => {
     try {
-      await apiCall(z.object({ version: z.number() }), `/api/estimates/${estimateId}/versions`, { method: "POST", body: { basedOn, scope, content, note: content.dimensions.join("\n") === initial.dimensions.join("\n") ? "Positions edited on the plot" : "Dimensions and positions edited" } });
+      // Positions saved by a person are no longer the roster's placeholders.
+      const { draft: _placeholder, ...saved } = content;
+      void _placeholder;
+      await apiCall(z.object({ version: z.number() }), `/api/estimates/${estimateId}/versions`, { method: "POST", body: { basedOn, scope, content: saved, note: content.dimensions.join("\n") === initial.dimensions.join("\n") ? "Positions edited on the plot" : "Dimensions and positions edited" } });
       window.location.reload();
     } catch (e) {
       setMessage(e instanceof ApiError ? e.message : "Could not save.");
@@ -104,16 +118,33 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
   return (
     <div className="space-y-4">
     <div className="grid gap-4 lg:grid-cols-[minmax(0,560px)_1fr]">
-      <svg ref={svgRef} viewBox={`0 0 ${W} ${W}`} className="w-full touch-none rounded border border-rule bg-white" role="group" aria-label={`Spatial plot: ${content.dimensions[0]} across, ${content.dimensions[1]} up`} onPointerMove={onPointerMove} onPointerUp={() => (dragging.current = null)} onPointerLeave={() => (dragging.current = null)}>
+      <svg ref={svgRef} viewBox={`0 0 ${W} ${H}`} className="w-full touch-none rounded border border-rule bg-white" role="group" aria-label={`Spatial plot: ${content.dimensions[0]} across, ${content.dimensions[1]} up`} onPointerMove={onPointerMove} onPointerUp={() => (dragging.current = null)} onPointerLeave={() => (dragging.current = null)}>
         <defs>
           {discs.map((d, i) => <clipPath key={i} id={`gw-disc-${i}`}><circle cx={X(d.center[0])} cy={Y(d.center[1])} r={Math.sqrt(d.radiusSquared) * k} /></clipPath>)}
-          <clipPath id="gw-plot-area"><rect x={40} y={10} width={W - 50} height={W - 40} /></clipPath>
+          <clipPath id="gw-plot-area"><rect x={PL} y={PT} width={plot} height={plot} /></clipPath>
           <marker id="gw-cyc" viewBox="0 0 10 10" refX="9" refY="5" markerWidth="7" markerHeight="7" orient="auto"><path d="M0,0 L10,5 L0,10 z" className="fill-brass-text" /></marker>
         </defs>
-        <line x1={40} y1={W - 30} x2={W - 10} y2={W - 30} className="stroke-rule" />
-        <line x1={40} y1={10} x2={40} y2={W - 30} className="stroke-rule" />
-        <text x={W / 2} y={W - 8} textAnchor="middle" fontSize="12" className="fill-ink-soft">{content.dimensions[0]} →</text>
-        <text x={14} y={W / 2} textAnchor="middle" fontSize="12" className="fill-ink-soft" transform={`rotate(-90 14 ${W / 2})`}>{content.dimensions[1]} →</text>
+        <rect x={PL} y={PT} width={plot} height={plot} fill="none" className="stroke-rule" />
+        <g data-testid="x-ticks" aria-hidden="true">
+          {xTicks.map((t) => (
+            <g key={`x${t}`}>
+              <line x1={X(t)} y1={PT} x2={X(t)} y2={PT + plot} className="stroke-rule" strokeOpacity="0.6" strokeWidth="1" />
+              <line x1={X(t)} y1={PT + plot} x2={X(t)} y2={PT + plot + 5} className="stroke-ink-soft" />
+              <text x={X(t)} y={PT + plot + 18} textAnchor="middle" fontSize="12" className="fill-ink">{tickLabel(t)}</text>
+            </g>
+          ))}
+        </g>
+        <g data-testid="y-ticks" aria-hidden="true">
+          {yTicks.map((t) => (
+            <g key={`y${t}`}>
+              <line x1={PL} y1={Y(t)} x2={PL + plot} y2={Y(t)} className="stroke-rule" strokeOpacity="0.6" strokeWidth="1" />
+              <line x1={PL - 5} y1={Y(t)} x2={PL} y2={Y(t)} className="stroke-ink-soft" />
+              <text x={PL - 8} y={Y(t) + 4} textAnchor="end" fontSize="12" className="fill-ink">{tickLabel(t)}</text>
+            </g>
+          ))}
+        </g>
+        <text x={PL + plot / 2} y={H - 8} textAnchor="middle" fontSize="13" className="fill-ink font-semibold" data-testid="x-axis-name">{content.dimensions[0]} →</text>
+        <text x={16} y={PT + plot / 2} textAnchor="middle" fontSize="13" className="fill-ink font-semibold" transform={`rotate(-90 16 ${PT + plot / 2})`} data-testid="y-axis-name">{content.dimensions[1]} →</text>
         <g clipPath="url(#gw-plot-area)">
         {discs.map((d, i) => <circle key={i} cx={X(d.center[0])} cy={Y(d.center[1])} r={Math.sqrt(d.radiusSquared) * k} fill="none" className="stroke-ink-soft" strokeDasharray="3 4" strokeWidth="0.8" />)}
         <g opacity="0.45" data-testid="win-set">
@@ -124,6 +155,7 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
           }).map((n, i) => <g key={i}>{n}</g>)}
         </g>
         </g>
+        <g clipPath="url(#gw-plot-area)">
         {cycle.map((id, i) => {
           const a = model.positions[idx(id)];
           const b = model.positions[idx(cycle.find((y) => (model.report.margins[id]?.[y] ?? 0) > 0) ?? cycle[(i + 1) % cycle.length])];
@@ -132,13 +164,15 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
         {versions.map((v, i) => (
           <g key={v.id}>
             <rect x={X(model.positions[i][0]) - 5} y={Y(model.positions[i][1]) - 5} width="10" height="10" className={i === sqIndex ? "fill-verdict-bar" : "fill-brass"} transform={`rotate(45 ${X(model.positions[i][0])} ${Y(model.positions[i][1])})`} />
-            <text x={X(model.positions[i][0]) + 9} y={Y(model.positions[i][1]) - 7} fontSize="11" className="fill-ink">{v.id === "Q" ? "Q" : v.id.replace(/^measure/, "M")}</text>
+            <text x={X(model.positions[i][0]) + 9} y={Y(model.positions[i][1]) - 7} fontSize="11" className="fill-ink" paintOrder="stroke" stroke="white" strokeWidth="3">{v.short}</text>
           </g>
         ))}
+        </g>
         {groups.map((g, gi) => (
           <g key={gi} tabIndex={0} role="button" aria-label={`${g.blocs.join(", ") || g.members.join(", ")}: ${g.weight} vote${g.weight === 1 ? "" : "s"} at (${g.ideal.join(", ")}). Arrow keys move it.`} onKeyDown={onKey(gi)} onPointerDown={(e) => { dragging.current = gi; (e.target as Element).setPointerCapture?.(e.pointerId); }} className="cursor-grab focus:outline-none [&:focus>circle]:stroke-[4]">
             <circle cx={X(g.ideal[0])} cy={Y(g.ideal[1])} r={6 + Math.sqrt(g.weight) * 2} fill={colour(g)} fillOpacity="0.85" stroke="#111" strokeWidth="1.5" />
             <text x={X(g.ideal[0])} y={Y(g.ideal[1]) + 4} fontSize="11" textAnchor="middle" fill="white" className="pointer-events-none font-semibold">{g.weight}</text>
+            <text x={X(g.ideal[0])} y={Y(g.ideal[1]) - (9 + Math.sqrt(g.weight) * 2)} fontSize="12" textAnchor="middle" className="pointer-events-none fill-ink font-semibold" paintOrder="stroke" stroke="white" strokeWidth="3" data-testid="bloc-name">{g.blocs.join(", ") || g.members.join(", ")}</text>
           </g>
         ))}
       </svg>
@@ -149,7 +183,7 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
         </ul>
         <p><span className="mr-1 inline-block h-3 w-3 rotate-45 bg-verdict-bar align-middle" /> Q (no change) · <span className="mr-1 inline-block h-3 w-3 rotate-45 bg-brass align-middle" /> versions of the measure</p>
         <p>{model.win.coalitions === null ? "The win set is drawn only for up to 16 distinct ideal points; the dashed circles show each member's indifference circle through Q." : model.win.coalitions.length === 0 ? "No coalition can beat the status quo: its win set is empty." : `Win set of Q: union of ${model.win.coalitions.length} coalition lens${model.win.coalitions.length === 1 ? "" : "es"}.`}</p>
-        <p>{model.report.condorcetWinner ? `Among the versions, ${versions[idx(model.report.condorcetWinner)].short} beats every other.` : `No version beats all the others: the majorities cycle among ${cycle.map((id) => versions[idx(id)].short).join(", ")} (arrows point from a winner to a version it beats).`}</p>
+        <p>{model.report.condorcetWinner ? `Among the versions, ${versions[idx(model.report.condorcetWinner)].short} beats every other.` : `No version beats all the others: ${cycleSentence(cycle, (id) => versions[idx(id)].short, 6)} (arrows point from a winner to a version it beats).`}</p>
         {canEdit && <button className="gw-btn" disabled={!dirty} onClick={() => void save()}>Save these positions as a new version</button>}
         <Alert>{message}</Alert>
       </div>
@@ -298,7 +332,7 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
       </div>
       <details className="mt-4" data-testid="members-editor">
         <summary className="cursor-pointer font-semibold">Members' ideal points ({content.members.length} rows, {content.members.reduce((a, m) => a + m.weight, 0)} votes)</summary>
-        <div className="mt-2 overflow-x-auto">
+        <div className="relative mt-2 overflow-x-auto">
           <table className="gw-table">
             <thead><tr><th scope="col">Member or bloc</th><th scope="col">Bloc</th><th scope="col">Weight</th>{dims.map((d, i) => <th key={i} scope="col">{d}</th>)}<th scope="col"><span className="sr-only">Remove</span></th></tr></thead>
             <tbody>

@@ -10,6 +10,13 @@ export interface RosterEntry {
   bloc: string;
 }
 
+/** The roster's blocs in order of first appearance, with their sizes. */
+export function rosterBlocs(roster: readonly RosterEntry[]): Array<{ bloc: string; size: number }> {
+  const blocs = new Map<string, number>();
+  for (const r of roster) blocs.set(r.bloc, (blocs.get(r.bloc) ?? 0) + 1);
+  return [...blocs].map(([bloc, size]) => ({ bloc, size }));
+}
+
 /** Ballot template: one row per bloc (weight = its size), each ranking the versions in listed order. */
 export function ballotTemplate(versionIds: readonly string[], roster: readonly RosterEntry[], perMember = false): string {
   const example = versionIds.join(" > ");

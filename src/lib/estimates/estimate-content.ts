@@ -21,7 +21,10 @@ export const ballotRowSchema = z.object({
   member: label,
   bloc: safe(z.string().trim().max(120)).default(""),
   weight: z.number().int().min(1).max(1000).default(1),
-  ranking: ballotSchema.shape.ranking.min(1),
+  /** Best first. Empty in a draft row not yet filled in, or in a row marked `unranked`. */
+  ranking: ballotSchema.shape.ranking,
+  /** Explicitly left out: the row ranks nothing and takes no part in the analysis (src/lib/estimates/draft.ts). */
+  unranked: z.boolean().optional(),
   /** The presiding officer's row: its ranking is the chair's preference under the rulebook's tie rule (docs/decisions/0008). */
   chair: z.boolean().optional(),
 });
@@ -54,6 +57,8 @@ export const spatialContentSchema = z.object({
   /** Amendment key → its effect: a new position, or shifts per dimension (in order of dimensions). */
   effects: z.record(z.string(), z.object({ position: z.array(coord).optional(), shift: z.array(coord).optional() })).default({}),
   members: z.array(idealRowSchema).min(1).max(MAX_ROWS),
+  /** Started from the roster: the positions are placeholders until a person saves real ones (src/lib/estimates/draft.ts). */
+  draft: z.boolean().optional(),
 });
 
 export const estimateContentSchema = z.discriminatedUnion("kind", [ballotContentSchema, spatialContentSchema]);
@@ -95,6 +100,7 @@ export function spatialInput(c: Extract<EstimateContent, { kind: "spatial" }>): 
 
 /** The `profile` member of analyseOrders' input. */
 export function toOrdersProfile(c: EstimateContent): { ballots: Array<{ ranking: Array<string | string[]>; weight: number; chair?: boolean }>; partial: "abstain" | "bottom" } | { spatial: z.input<typeof spatialSchema> } {
-  if (c.kind === "ballots") return { ballots: c.rows.map((r) => ({ ranking: r.ranking, weight: r.weight, ...(r.chair ? { chair: true } : {}) })), partial: c.partial };
+  // Rows without a ranking (marked unranked) take no part; a draft is refused before it gets here (draft.ts).
+  if (c.kind === "ballots") return { ballots: c.rows.filter((r) => r.ranking.length > 0).map((r) => ({ ranking: r.ranking, weight: r.weight, ...(r.chair ? { chair: true } : {}) })), partial: c.partial };
   return { spatial: spatialInput(c) };
 }

@@ -62,7 +62,7 @@ export function buildFindings(a: Analysis, listing: OrderListing, labels: TreeLa
   } else {
     const cyc = a.majority.topCycle;
     const beats = cyc.flatMap((x) => cyc.filter((y) => (a.majority.margins[x]?.[y] ?? 0) > 0).map((y) => `${versionShort(x, labels)} beats ${versionShort(y, labels)} by ${a.majority.margins[x][y]}`));
-    out.push({ id: "cycle", headline: `No version beats all the others: the majority preferences cycle among ${listInWords(cyc.map((v) => versionShort(v, labels)))}.`, detail: `${beats.slice(0, 6).join("; ")}. Which of them wins can depend on the order in which the questions are put.`, caution: c });
+    out.push({ id: "cycle", headline: `No version beats all the others: the majority preferences cycle among ${cyc.length <= 4 ? listInWords(cyc.map((v) => versionShort(v, labels))) : `${cyc.length} versions — see the majority matrix`}.`, detail: `${beats.slice(0, 6).join("; ")}${beats.length > 6 ? ` (and ${beats.length - 6} more wins within the cycle)` : ""}. Which of them wins can depend on the order in which the questions are put.`, caution: c });
   }
 
   const differing = listing.orders.filter((o) => o.sincere !== o.sophisticated);

@@ -35,8 +35,8 @@ export const pendingItemSchema = z.object({
 });
 export type PendingItem = z.output<typeof pendingItemSchema>;
 
-const wholeCount = z.number({ error: "must be a whole number (0 or more)" }).int("must be a whole number (0 or more)").min(0, "must be a whole number (0 or more)").max(100_000);
-export const tallySchema = z.object({ yes: wholeCount, no: wholeCount, abstain: wholeCount.default(0) });
+const tallyCount = z.number({ error: "must be a whole number (0 or more)" }).int("must be a whole number (0 or more)").min(0, "must be a whole number (0 or more)").max(100_000);
+export const tallySchema = z.object({ yes: tallyCount, no: tallyCount, abstain: tallyCount.default(0) });
 export type Tally = z.output<typeof tallySchema>;
 
 /** How a vote was taken: voice, division (counted) or recorded (roll call); see voting-methods.ts. */

@@ -17,6 +17,7 @@ import { writeCsv } from "../../text/csv-cells.ts";
 import type { Actor } from "../http.ts";
 import { toOrdersProfile } from "../../estimates/estimate-content.ts";
 import { buildFindings } from "../../estimates/findings.ts";
+import { draftMessage } from "../../estimates/draft.ts";
 import { walkThrough } from "../../estimates/walk-through.ts";
 import { chairScript, scriptDocument } from "../../estimates/chair-script.ts";
 import { documentResponse } from "../documents/render.ts";
@@ -81,6 +82,9 @@ export async function startAnalysis(actor: Actor, input: z.output<typeof startSc
   const rb = input.rulebookVersionId ? await loadRulebook(actor.chamber.id, input.rulebookVersionId).then((r) => ({ rulebook: r.rulebook, source: `version ${r.number}: ${r.title}`, versionId: r.versionId })) : await adoptedRulebookOf(actor.chamber.id);
   const tree = await treeFor(actor.chamber.id, e.measureId, v.scope);
   const content = storedContent(v);
+  // A draft (rows not filled in, or placeholder positions) is never analysed as if it were an estimate.
+  const missing = draftMessage(content);
+  if (missing) throw new GavelError("unprocessable", missing, { issues: [{ path: "content", message: missing }], details: { draft: true } });
   // Thresholds "of the members" and the quorum count against the rulebook's membership, else the roster (decision 0008).
   const main = rb.rulebook.motions.find((m) => m.class === "main");
   const members = rb.rulebook.chamber.members;

@@ -20,7 +20,7 @@ import { amendmentTreeModel } from "../../voting/amendment-versions.ts";
 import { estimateContentSchema, type EstimateContent } from "../../estimates/estimate-content.ts";
 import { parseBallotCsv } from "../../estimates/ballot-csv.ts";
 import { parseIdealCsv } from "../../estimates/ideal-csv.ts";
-import { ballotTemplate, idealTemplate } from "../../estimates/csv-template.ts";
+import { ballotTemplate, idealTemplate, rosterBlocs } from "../../estimates/csv-template.ts";
 import { versionInWords, versionShort, type TreeLabels } from "../../estimates/version-words.ts";
 import { amendmentKey } from "./amendments.ts";
 import { measureRow } from "./measures.ts";
@@ -58,6 +58,15 @@ export const importQuerySchema = z.object({
   dimensions: safe(z.string().max(800)).optional(),
   partial: z.enum(["abstain", "bottom"]).default("abstain"),
   preview: z.enum(["0", "1"]).default("0"),
+});
+export const rosterDraftSchema = z.object({
+  measureId: safe(z.string().min(1).max(100)),
+  title: safe(z.string().trim().min(1).max(200)),
+  scope: scopeSchema,
+  kind: z.enum(["ballots", "spatial"]).default("ballots"),
+  per: z.enum(["bloc", "member"]).default("bloc"),
+  partial: z.enum(["abstain", "bottom"]).default("abstain"),
+  dimensions: z.array(safe(z.string().trim().min(1).max(80))).min(1).max(8).default(["economy", "environment"]),
 });
 export const templateQuerySchema = z.object({ measureId: safe(z.string().min(1).max(100)), scope: safe(z.string().max(800)).default(""), kind: z.enum(["ballots", "spatial"]).default("ballots"), dimensions: safe(z.string().max(800)).optional(), per: z.enum(["bloc", "member"]).default("bloc") });
 
@@ -112,10 +121,30 @@ export async function treeFor(chamberId: string, measureId: string, scope: strin
   return {
     measure: m,
     case: { measure: c.measure, amendments: chosen },
-    pending: pending.map((a) => ({ key: a.id, title: byKey.get(a.id)?.title ?? null, target: a.target, form: a.form })),
+    pending: pending.map((a) => ({ key: a.id, title: byKey.get(a.id)?.title ?? null, target: a.target, form: a.form, outOfOrder: outOfOrder(c.measure, pending, a.id) })),
     versions: model.versions.map((v) => ({ id: v.id, amendments: v.amendments, short: versionShort(v.id, labels), words: versionInWords(v.id, labels) })),
     labels,
   };
+}
+
+/**
+ * Why an amendment cannot be part of an estimate, or null: the voting engine models it together with
+ * the amendments it depends on (its chain of targets), and refuses what is out of order — an
+ * amendment of the third degree, the same check the tree validation reports (amendment-versions.ts,
+ * Robert's Rules of Order Revised 1915, §33).
+ */
+function outOfOrder(measure: ReturnType<typeof caseFromRows>["measure"], pending: ReturnType<typeof caseFromRows>["amendments"], key: string): string | null {
+  const byId = new Map(pending.map((a) => [a.id, a]));
+  const chain: typeof pending = [];
+  for (let k: string | undefined = key; k !== undefined && byId.has(k) && !chain.some((x) => x.id === k); k = byId.get(k)?.target) chain.unshift(byId.get(k)!);
+  try {
+    amendmentTreeModel({ measure, amendments: chain }, "scope");
+    return null;
+  } catch (e) {
+    if (!(e instanceof GavelError)) throw e;
+    const why = e.issues[0]?.message ?? e.message;
+    return why.includes("third-degree") ? "an amendment of the third degree is out of order" : why;
+  }
 }
 
 /** Check the content against the versions of its scope (rankings name versions; effects name amendments). */
@@ -278,6 +307,26 @@ export async function csvTemplate(actor: Actor, q: z.output<typeof templateQuery
   if (q.kind === "ballots") return { filename: `${tree.measure.number.replace(/\W+/g, "-")}-ballots-template.csv`, text: ballotTemplate(tree.versions.map((v) => v.id), people, q.per === "member") };
   const dims = parseDimensions(q.dimensions);
   return { filename: `${tree.measure.number.replace(/\W+/g, "-")}-ideal-points-template.csv`, text: idealTemplate(dims, people, q.per === "member") };
+}
+
+/**
+ * A new estimate started from the roster: one row per bloc (weight = its size) or per member, with
+ * no ranking (ballots) or placeholder positions (spatial). It is a draft: the analysis refuses it
+ * until every row is filled in or marked unranked (src/lib/estimates/draft.ts).
+ */
+export async function createRosterDraft(actor: Actor, input: z.output<typeof rosterDraftSchema>) {
+  const tree = await treeFor(actor.chamber.id, input.measureId, input.scope);
+  const people = await roster(actor.chamber.id);
+  const rows = input.per === "member" ? people.map((p) => ({ member: p.name, bloc: p.bloc, weight: 1 })) : rosterBlocs(people).map((b) => ({ member: b.bloc, bloc: b.bloc, weight: b.size }));
+  if (rows.length === 0) throw new GavelError("unprocessable", "The chamber's roster is empty: add its members first, or upload a CSV file.", { issues: [{ path: "roster", message: "no members" }] });
+  const dims = input.dimensions;
+  const content: EstimateContent =
+    input.kind === "ballots"
+      ? { kind: "ballots", partial: input.partial, rows: rows.map((r) => ({ ...r, ranking: [] })) }
+      : { kind: "spatial", draft: true, dimensions: dims, statusQuo: dims.map(() => 0), measure: dims.map(() => 1), effects: {}, members: rows.map((r, i) => ({ ...r, ideal: dims.map((_, d) => (d === 0 && input.per === "bloc" ? i : 0)) })) };
+  const unit = input.per === "member" ? "member" : "bloc";
+  const note = input.kind === "ballots" ? `Started from the roster (${rows.length} ${unit}${rows.length === 1 ? "" : "s"}); rankings not filled in yet` : `Started from the roster (${rows.length} ${unit}${rows.length === 1 ? "" : "s"}); positions are placeholders, not yet set`;
+  return createEstimate(actor, { measureId: tree.measure.id, title: input.title, scope: input.scope, content: parseWith(estimateContentSchema, content, "estimate content", "content"), note, sharedRoles: [], sharedUsers: [] });
 }
 
 function parseDimensions(text: string | undefined): string[] {
