@@ -1,4 +1,5 @@
-// npm test: the same set-up as npm start (dependencies, PostgreSQL), then every test:
+// npm test: the same set-up as npm start (dependencies, PostgreSQL), then every check and test:
+//  0. the lint (eslint .) and the type check (astro check: no error, no warning);
 //  1. unit and integration tests (vitest) against a fresh test database built from drizzle/;
 //  2. fault tests (tests/faults: a throwaway PostgreSQL cluster restarted under load, the server
 //     killed mid-analysis) against the built app;
@@ -44,6 +45,10 @@ try {
   ensureDatabase({ test: true });
 
   if (only !== "browser") {
+    // The house rules as checks: the lint (with the core's boundaries) and the type check, before any test.
+    log("lint (eslint) and type check (astro check)…");
+    runNode([join(ROOT, "node_modules", "eslint", "bin", "eslint.js"), "."], base);
+    runNode([join(ROOT, "node_modules", "astro", "astro.js"), "check", "--minimumFailingSeverity", "warning"], base);
     const testDb = process.env.TEST_DATABASE_URL ?? localDatabaseUrl("gavelwright_test");
     if (!process.env.TEST_DATABASE_URL) recreateDatabase(testDb);
     log("unit and integration tests…");

@@ -57,7 +57,7 @@ export const amendmentSchema = z.object({
    * How far the amendment departs from the text it amends, as assessed by the clerk (larger is
    * further). Used by the "furthest-first" ordering constraint of continental chambers.
    */
-  distance: z.number().finite().optional(),
+  distance: z.number().optional(),
   /** Committee of jurisdiction the amendment's subject falls under (the "committee" germaneness test). */
   committee: z.string().max(200).optional(),
   /** Lifecycle status; only draft/filed/pending amendments take part in a tree's analysis. */

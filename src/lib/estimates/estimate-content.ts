@@ -15,7 +15,7 @@ import { spatialSchema, MAX_DIMENSIONS } from "../voting/spatial-profile.ts";
 export const MAX_ROWS = 5000;
 
 const label = safe(z.string().trim().min(1).max(200));
-const coord = z.number().finite().min(-1e6).max(1e6);
+const coord = z.number().min(-1e6).max(1e6);
 
 export const ballotRowSchema = z.object({
   member: label,

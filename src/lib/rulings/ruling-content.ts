@@ -23,7 +23,7 @@ export const TARGET_KINDS = ["motion", "amendment", "finding", "measure", "other
 export type TargetKind = (typeof TARGET_KINDS)[number];
 
 const line = (max: number) => safe(z.string().trim().min(1, "must not be empty").max(max));
-const uuid = z.string().uuid("must be an id (uuid)");
+const uuid = z.uuid("must be an id (uuid)");
 const isoDate = calendarDate();
 
 export const ruleCitationSchema = z.object({

@@ -82,7 +82,7 @@ export function amendmentTreeModel(raw: { measure: unknown; amendments?: unknown
     if (byId.has(a.id) || a.id === measure.id || sections.has(a.id) || a.id === STATUS_QUO) bad(p(`amendments.${i}.id`), `duplicate id "${a.id}"`);
     byId.set(a.id, i);
   });
-  const activeIdx = all.map((a, i) => i).filter((i) => ACTIVE.has(all[i].status));
+  const activeIdx = all.map((_, i) => i).filter((i) => ACTIVE.has(all[i].status));
   const isActive = new Set(activeIdx);
   // Degrees from targets; roots in input order, each followed by what amends it (depth first).
   const roots: number[] = [];

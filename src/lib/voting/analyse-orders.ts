@@ -32,7 +32,7 @@ export const MAX_PAGE_SIZE = 200;
 
 export const ordersInputSchema = z.object({
   /** Only `voting` is read; a path must be resolved to the rulebook object by the caller. */
-  rulebook: z.object({ voting: z.unknown() }).passthrough(),
+  rulebook: z.looseObject({ voting: z.unknown() }),
   /**
    * The chamber's membership when the rulebook gives no `chamber.members` (the server passes its roster
    * size): what thresholds "of the members" and the quorum count against. Never the ballots' total.

@@ -32,7 +32,7 @@ export const majorityInputSchema = z.object({
   alternatives: z.array(alternativeNameSchema).min(1).max(MAX_ALTERNATIVES),
   ballots: z.array(ballotSchema).max(MAX_BALLOTS).optional(),
   edges: z.array(z.tuple([alternativeNameSchema, alternativeNameSchema])).max(MAX_ALTERNATIVES * MAX_ALTERNATIVES).optional(),
-  margins: z.record(alternativeNameSchema, z.record(alternativeNameSchema, z.number().finite())).optional(),
+  margins: z.record(alternativeNameSchema, z.record(alternativeNameSchema, z.number())).optional(),
   partial: z.enum(["abstain", "bottom"]).default("abstain"),
   quota: z.enum(VOTE_THRESHOLDS).optional(),
   /** The membership the "…-of-members" quotas count against; absent: the ballots are the whole membership. */

@@ -16,7 +16,7 @@ import type { Profile } from "./profile.ts";
 export const MAX_DIMENSIONS = 8;
 export const MAX_MEMBERS = 10_000;
 
-const coord = z.number().finite();
+const coord = z.number();
 const effectSchema = z.object({
   position: z.array(coord).optional(),
   set: z.record(z.string(), coord).optional(),

@@ -29,10 +29,10 @@ export interface VoteRules {
   quorum: VotingSection["quorum"];
 }
 
-const lenientRulebook = z.object({
-  chamber: z.object({ members: z.number().int().min(1).max(100_000).optional() }).passthrough().optional(),
-  motions: z.array(z.object({ class: z.string(), vote: z.enum(VOTE_THRESHOLDS) }).passthrough()).optional(),
-}).passthrough();
+const lenientRulebook = z.looseObject({
+  chamber: z.looseObject({ members: z.number().int().min(1).max(100_000).optional() }).optional(),
+  motions: z.array(z.looseObject({ class: z.string(), vote: z.enum(VOTE_THRESHOLDS) })).optional(),
+});
 
 /** Resolve the rules. `membership`: the chamber's size when the rulebook gives none (e.g. its roster). */
 export function voteRules(rulebook: unknown, voting: VotingSection, membership?: number | null): VoteRules {

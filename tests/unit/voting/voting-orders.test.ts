@@ -75,7 +75,7 @@ describe("the walk-through refuses an order the rulebook does not allow", () => 
   it("A2 C A …: C voted while A is pending is unprocessable under primary-contiguous; a legal order walks through", () => {
     // Robert's Parliamentary Practice (1922) ch. IV (one primary amendment pending at a time).
     const raw = { rulebook: { voting: { procedure: "amendment", citation: "Fictional Chamber Rule 12", constraints: HOUSE } }, measure, amendments: reviewTree, profile: { ballots: [{ ranking: ["B", "Q"] }] } };
-    expect(() => walkThrough(raw, ["A2", "C", "A", "S2", "S", "passage"])).toThrowError(expect.objectContaining({ code: "unprocessable" }));
+    expect(() => walkThrough(raw, ["A2", "C", "A", "S2", "S", "passage"])).toThrow(expect.objectContaining({ code: "unprocessable" }));
     expect(walkThrough(raw, ["C", "A2", "A", "S2", "S", "passage"]).order).toEqual(["C", "A2", "A", "S2", "S", "passage"]);
   });
 });
