@@ -1,6 +1,7 @@
 import { json, parseQuery, readJson, requireActor, route } from "../../../../../../lib/server/http.ts";
 import { approveJournal, approveSchema, getJournal, journalFile, journalQuerySchema } from "../../../../../../lib/server/services/journal.ts";
 import { GavelError } from "../../../../../../lib/errors.ts";
+import { sittingExists } from "../../../../../../lib/server/services/floor.ts";
 
 /** The journal (JSON: the approved record and the draft from the floor record), or a file: ?format=pdf|docx|md. */
 export const GET = route(async ({ locals, params, url }) => {
@@ -18,9 +19,7 @@ export const POST = route(async ({ locals, request, params }) => {
 const notEdited = () => {
   throw new GavelError("conflict", "A journal is never edited. Once approved it is changed only by a correction, with the reason (POST …/journal/corrections).", { issues: [{ path: "journal", message: "not editable" }] });
 };
-export const PUT = route(async ({ locals }) => {
-  requireActor(locals, "floor:record");
+export const PUT = route(async ({ locals, params }) => {
+  await sittingExists(requireActor(locals, "floor:record"), params.id ?? "");
   notEdited();
 });
-export const PATCH = PUT;
-export const DELETE = PUT;
