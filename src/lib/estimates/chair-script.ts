@@ -138,8 +138,8 @@ function falls_(list: string[], labels: TreeLabels): string {
 function branchStep(b: BranchStep, labels: TreeLabels, byId: Map<number, BranchStep>, amendThreshold: string, passageThreshold: string): BranchScriptStep {
   const isPassage = b.question === "passage";
   const a = labels.amendments[b.question] ?? {};
-  const what = isPassage ? "the bill is passed" : a.degree === 2 ? "the amendment to the amendment is agreed to" : "the amendment is agreed to";
-  const whatNot = isPassage ? "the bill is not passed" : a.degree === 2 ? "the amendment to the amendment is not agreed to" : "the amendment is not agreed to";
+  const what = isPassage ? `${labels.measureLabel} is passed` : a.degree === 2 ? "the amendment to the amendment is agreed to" : "the amendment is agreed to";
+  const whatNot = isPassage ? `${labels.measureLabel} is not passed` : a.degree === 2 ? "the amendment to the amendment is not agreed to" : "the amendment is not agreed to";
   const reached = b.from.length
     ? `Reached ${b.from.map((f) => `after step ${f.step} is ${f.adopted ? "adopted" : "rejected"}`).join("; or ")}.`
     : "The first question.";
