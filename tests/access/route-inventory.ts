@@ -143,6 +143,10 @@ export const API_ROUTES: readonly ApiRoute[] = [
   { file: "api/floor/sittings/[id].ts", method: "GET", path: "/api/floor/sittings/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "sitting" } },
   { file: "api/floor/sittings/[id]/events.ts", method: "POST", path: "/api/floor/sittings/:id/events", audience: CLERKS, outsider: "refused", params: { id: "sitting" }, body: () => ({ revision: 0, event: { kind: "seconded" } }) },
   { file: "api/floor/recorded-votes.ts", method: "GET", path: "/api/floor/recorded-votes", audience: ALL_ROLES, outsider: "own-chamber", note: "the chamber's recorded votes: {votes: [{id, yea, nay, …}]}" },
+  { file: "api/floor/sittings/[id]/journal/index.ts", method: "GET", path: "/api/floor/sittings/:id/journal", audience: ALL_ROLES, outsider: "refused", params: { id: "sitting" } },
+  { file: "api/floor/sittings/[id]/journal/index.ts", method: "POST", path: "/api/floor/sittings/:id/journal", audience: CLERKS, outsider: "refused", params: { id: "sitting" }, body: () => ({ revision: 0 }), note: "approve the journal" },
+  { file: "api/floor/sittings/[id]/journal/index.ts", method: "PUT", path: "/api/floor/sittings/:id/journal", audience: CLERKS, outsider: "refused", params: { id: "sitting" }, body: () => ({}), note: "always refused (409): an approved journal is changed only by a correction" },
+  { file: "api/floor/sittings/[id]/journal/corrections.ts", method: "POST", path: "/api/floor/sittings/:id/journal/corrections", audience: CLERKS, outsider: "refused", params: { id: "sitting" }, body: () => ({ revision: 0, reason: "x" }) },
   { file: "api/floor/sittings/[id]/stream.ts", method: "GET", path: "/api/floor/sittings/:id/stream", audience: ALL_ROLES, outsider: "refused", params: { id: "sitting" }, stream: true, note: "server-sent events" },
 
   // measures and amendments
@@ -229,6 +233,7 @@ export const PAGE_ROUTES: readonly PageRoute[] = [
   { file: "floor/index.astro", path: "/floor", audience: ALL_ROLES, outsider: "own-chamber" },
   { file: "floor/moves.astro", path: "/floor/moves", audience: ALL_ROLES, outsider: "own-chamber" },
   { file: "floor/[id].astro", path: "/floor/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "sitting" } },
+  { file: "floor/[id]/journal.astro", path: "/floor/:id/journal", audience: ALL_ROLES, outsider: "refused", params: { id: "sitting" } },
   { file: "measures/index.astro", path: "/measures", audience: ALL_ROLES, outsider: "own-chamber" },
   { file: "measures/[id]/index.astro", path: "/measures/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "measure" } },
   { file: "measures/[id]/tree.astro", path: "/measures/:id/tree", audience: ALL_ROLES, outsider: "refused", params: { id: "measure" } },

@@ -22,6 +22,7 @@ function highlight(snippet: string): ReactNode[] {
 export default function RulingsSearch({ initialQuery, canSeeDrafts }: Props) {
   const [query, setQuery] = useState<Query>(initialQuery);
   const [results, setResults] = useState<z.output<typeof searchResults>["results"] | null>(null);
+  const [journals, setJournals] = useState<z.output<typeof searchResults>["journals"]>([]);
   const [error, setError] = useState<string | null>(null);
 
   async function run(q: Query) {
@@ -30,10 +31,13 @@ export default function RulingsSearch({ initialQuery, canSeeDrafts }: Props) {
     history.replaceState(null, "", params.size ? `?${params}` : location.pathname);
     try {
       setError(null);
-      setResults((await apiCall(searchResults, `/api/rulings?${params}`)).results);
+      const found = await apiCall(searchResults, `/api/rulings?${params}`);
+      setResults(found.results);
+      setJournals(found.journals);
     } catch (e) {
       setError((e as Error).message);
       setResults([]);
+      setJournals([]);
     }
   }
 
@@ -139,6 +143,19 @@ export default function RulingsSearch({ initialQuery, canSeeDrafts }: Props) {
               </li>
             ))}
           </ol>
+        )}
+        {journals.length > 0 && (
+          <>
+            <h2 className="mt-6 text-step-1">In the journals of sittings</h2>
+            <ol className="mt-2 space-y-3" data-testid="journal-results">
+              {journals.map((j) => (
+                <li key={j.sittingId} className="gw-card">
+                  <a href={`/floor/${j.sittingId}/journal`}>Journal of {j.sitting}</a> <span className="text-sm text-ink-soft">{day(j.openedAt)}</span>
+                  <p className="mt-1 text-sm text-ink-soft">{highlight(j.snippet)}</p>
+                </li>
+              ))}
+            </ol>
+          </>
         )}
       </section>
     </div>

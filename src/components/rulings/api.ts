@@ -46,7 +46,11 @@ export const rulingDetail = z.object({
 });
 export type RulingDetail = z.output<typeof rulingDetail>;
 
-export const searchResults = z.object({ results: z.array(rulingView.extend({ snippet: z.string().optional(), rank: z.number().optional(), score: z.number().optional() })) });
+export const searchResults = z.object({
+  results: z.array(rulingView.extend({ snippet: z.string().optional(), rank: z.number().optional(), score: z.number().optional() })),
+  /** Approved journals of sittings matching the words (issue 19 item 2). */
+  journals: z.array(z.object({ sittingId: z.string(), sitting: z.string(), snippet: z.string(), openedAt: z.string() })).default([]),
+});
 
 export const draftingOptions = z.object({
   legislators: z.array(z.object({ id: z.string(), name: z.string(), bloc: z.string(), office: z.string().nullable() })),

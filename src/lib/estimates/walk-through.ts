@@ -46,6 +46,34 @@ export interface WalkStep {
   fallsIfRejected?: string[];
 }
 
+/** What follows a decision in the chair's script: the questions that fall, then the next question put (a branch step) or the end. */
+export interface BranchNext {
+  falls: string[];
+  /** The branch step put next; null at the end. */
+  next: number | null;
+  /** At the end: the version that results. */
+  outcome: string | null;
+}
+
+/**
+ * One question as it can come before the chamber: every order of decisions reaches a chain of
+ * these (a question can appear more than once, for different earlier decisions). Numbered in the
+ * order they can arise (question order first, then the order the branches were found).
+ */
+export interface BranchStep {
+  id: number;
+  question: string;
+  /** The versions the vote compares: if adopted (motion) and if rejected (base). */
+  motion: string;
+  base: string;
+  ifAdopted: BranchNext;
+  ifRejected: BranchNext;
+  /** The steps (and their decision) that lead here; empty for the first. */
+  from: Array<{ step: number; adopted: boolean }>;
+  /** On the projected sincere path. */
+  projected: boolean;
+}
+
 export interface WalkThrough {
   order: string[];
   procedure: "amendment" | "successive";
@@ -56,7 +84,14 @@ export interface WalkThrough {
   totalWeight: number;
   sincere: { outcome: string; steps: WalkStep[] };
   sophisticated: { outcome: string; steps: WalkStep[] };
+  /** Every branch: each question as it can be put, what follows adoption and rejection. */
+  branches: BranchStep[];
+  /** Questions that fall before any vote (none in a well-formed tree). */
+  fallsAtStart: string[];
 }
+
+/** At most this many branch steps are written out (a script for a larger tree is cut short and says so). */
+export const MAX_BRANCH_STEPS = 400;
 
 export const walkOrderSchema = z.array(z.string().min(1).max(40)).min(1).max(40);
 
@@ -171,7 +206,57 @@ export function walkThrough(raw: unknown, rawOrder: unknown): WalkThrough {
       decided |= 1 << x;
     });
   }
+  // Every branch: states are (position in the order, amendments adopted); `decided` follows from the position.
+  const decidedBefore = (i: number) => order.slice(0, i).reduce((m, x) => m | (1 << x), 0);
+  const stepAt = new Map<string, BranchStep>();
+  const branches: BranchStep[] = [];
+  const sincereKeys = new Set<string>();
+  {
+    let adopted = 0;
+    sincerePath.steps.forEach((st, i) => {
+      if (st.put) {
+        sincereKeys.add(`${i}:${adopted}`);
+        if (st.adopted) adopted = qa.vote(order[i], adopted).yesState;
+      }
+    });
+  }
+  /** From position i in state `adopted`: the questions that fall, then the next one put. */
+  const advance = (i: number, adopted: number): { falls: string[]; at: number | null } => {
+    const falls: string[] = [];
+    let j = i;
+    while (j < order.length && qa.falls(order[j], decidedBefore(j), adopted)) falls.push(qids[order[j++]]);
+    return { falls, at: j < order.length ? j : null };
+  };
+  const queue: Array<{ i: number; adopted: number }> = [];
+  const reach = (i: number, adopted: number, from: { step: number; adopted: boolean } | null): BranchNext => {
+    const a = advance(i, adopted);
+    if (a.at === null) return { falls: a.falls, next: null, outcome: names[qa.outcome(adopted)] };
+    const key = `${a.at}:${adopted}`;
+    let step = stepAt.get(key);
+    if (!step) {
+      if (branches.length >= MAX_BRANCH_STEPS) return { falls: a.falls, next: null, outcome: null };
+      const v = qa.vote(order[a.at], adopted);
+      step = { id: branches.length + 1, question: qids[order[a.at]], motion: names[v.yesVersion], base: names[v.noVersion], ifAdopted: { falls: [], next: null, outcome: null }, ifRejected: { falls: [], next: null, outcome: null }, from: [], projected: sincereKeys.has(key) };
+      stepAt.set(key, step);
+      branches.push(step);
+      queue.push({ i: a.at, adopted });
+    }
+    if (from) step.from.push(from);
+    return { falls: a.falls, next: step.id, outcome: null };
+  };
+  const start = reach(0, 0, null);
+  // Breadth first: steps are numbered in the order they can arise.
+  for (let k = 0; k < queue.length; k++) {
+    const { i, adopted } = queue[k];
+    const step = stepAt.get(`${i}:${adopted}`)!;
+    const v = qa.vote(order[i], adopted);
+    step.ifAdopted = reach(i + 1, v.yesState, { step: step.id, adopted: true });
+    step.ifRejected = reach(i + 1, v.noState, { step: step.id, adopted: false });
+  }
+
   return {
+    branches,
+    fallsAtStart: start.falls,
     order: orderIds,
     procedure: voting.procedure,
     threshold: thresholdText(voting.amendmentThreshold),

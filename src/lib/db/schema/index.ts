@@ -9,4 +9,5 @@ export * from "./rulings.ts";
 export * from "./estimates.ts";
 export * from "./rate-limit.ts";
 export * from "./auth-throttle.ts";
+export * from "./journal.ts";
 export * from "./chamber-text.ts";

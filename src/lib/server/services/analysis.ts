@@ -19,7 +19,8 @@ import { toOrdersProfile } from "../../estimates/estimate-content.ts";
 import { buildFindings } from "../../estimates/findings.ts";
 import { draftMessage } from "../../estimates/draft.ts";
 import { walkThrough } from "../../estimates/walk-through.ts";
-import { chairScript, scriptMarkdown } from "../../estimates/chair-script.ts";
+import { chairScript, scriptDocument } from "../../estimates/chair-script.ts";
+import { documentResponse } from "../documents/render.ts";
 import { versionInWords, versionShort, type TreeLabels } from "../../estimates/version-words.ts";
 import type { JobResult } from "../analysis/analysis-job.ts";
 import { activeCount, activeCountFor, isActive, joinRun, launchRun, reserveSlot, stopGroup, STALE_MS } from "../analysis/runner.ts";
@@ -42,7 +43,13 @@ export const ordersQuerySchema = z.object({
   mode: z.enum(["sincere", "sophisticated"]).default("sincere"),
   format: z.enum(["json", "csv"]).default("json"),
 });
-export const orderQuerySchema = z.object({ order: safe(z.string().min(1).max(800)), format: z.enum(["json", "md"]).default("json") });
+export const orderQuerySchema = z.object({
+  order: safe(z.string().min(1).max(800)),
+  format: z.enum(["json", "md", "pdf", "docx"]).default("json"),
+  /** Printed on the script: the sitting and its date, as the clerk types them (blank lines when absent). */
+  sitting: safe(z.string().trim().max(200)).optional(),
+  date: safe(z.string().trim().max(100)).optional(),
+});
 
 interface CachedResult extends JobResult {
   input: Record<string, unknown>;
@@ -247,12 +254,12 @@ export async function walkOrder(actor: Actor, id: string, order: string) {
   return { walk, versions: r.versions };
 }
 
-export async function scriptFor(actor: Actor, id: string, order: string, format: "json" | "md") {
+export async function scriptFor(actor: Actor, id: string, order: string, format: "json" | "md" | "pdf" | "docx", occasion: { sitting?: string; date?: string } = {}) {
   const { run, estimate } = await runRow(actor, id);
   if (runView(run).status !== "done") throw new GavelError("conflict", "The analysis has not finished.");
   const r = await cached(run);
   const script = chairScript(walkThrough(r.input, orderOf(order)), r.labels, r.passageThreshold, estimate.title);
-  if (format === "md") return new Response(scriptMarkdown(script), { headers: { "content-type": "text/markdown; charset=utf-8", "content-disposition": `attachment; filename="chairs-script-${r.labels.measureLabel.replace(/\W+/g, "-")}.md"`, "cache-control": "no-store" } });
+  if (format !== "json") return documentResponse(scriptDocument(script, { chamber: actor.chamber.name, ...occasion }), format, `chairs script ${r.labels.measureLabel}`);
   return { script, rulebook: r.rulebook.label };
 }
 

@@ -22,6 +22,7 @@ import { readStored } from "../stored-json.ts";
 import { dateStyleOf, isoDateIn } from "../../text/dates.ts";
 import type { Actor } from "../http.ts";
 import { circulateRulingInTx } from "./circulation.ts";
+import { searchJournals } from "./journal.ts";
 
 const uuid = z.uuid();
 export const createDraftSchema = rulingContentSchema;
@@ -359,7 +360,9 @@ export async function searchRulings(actor: Actor, q: z.output<typeof searchSchem
     .where(and(...where))
     .orderBy(...(tsq ? [desc(rank)] : []), dsql`${rulings.sittingDate} DESC NULLS LAST`, desc(rulings.number))
     .limit(q.limit);
-  return { results: rows.map((r) => ({ ...toRuling(r.row), rank: Number(r.rank), snippet: r.snippet })) };
+  // Approved journals of sittings with the same words, searched beside the precedents (issue 19 item 2).
+  const journals = q.q && !q.rule && !q.measure && !q.motion ? await searchJournals(actor, { q: q.q, limit: 10 }) : [];
+  return { results: rows.map((r) => ({ ...toRuling(r.row), rank: Number(r.rank), snippet: r.snippet })), journals };
 }
 
 /**

@@ -3,5 +3,5 @@ import { orderQuerySchema, scriptFor } from "../../../../../lib/server/services/
 
 export const GET = route(async ({ locals, params, url }) => {
   const q = parseQuery(url, orderQuerySchema);
-  return scriptFor(requireActor(locals, "chamber:read"), params.id ?? "", q.order, q.format);
+  return scriptFor(requireActor(locals, "chamber:read"), params.id ?? "", q.order, q.format, { sitting: q.sitting, date: q.date });
 });
