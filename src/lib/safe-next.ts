@@ -20,6 +20,7 @@ const PAGES: RegExp[] = [
   "/floor",
   "/floor/moves",
   `/floor/${ID}`,
+  `/floor/${ID}/journal`,
   "/forgot-password",
   `/invitations/${ID}`,
   "/measures",
