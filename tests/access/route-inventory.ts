@@ -79,6 +79,12 @@ export interface ApiRoute {
    * Exempt from the "no Harrowmere data" check for the other chamber's chief clerk.
    */
   devOnly?: boolean;
+  /**
+   * Answers only for the person who started the record, which lives in the server's memory for a
+   * while (an ideal-point estimate): no stored sample can stand for it, so "every allowed role reads
+   * it" is not called; the refusals are, and tests/browser/positions.test.ts reads it as its starter.
+   */
+  starterOnly?: boolean;
   note?: string;
 }
 
@@ -175,7 +181,7 @@ export const API_ROUTES: readonly ApiRoute[] = [
   { file: "api/estimates/versions.ts", method: "GET", path: "/api/estimates/versions", audience: ALL_ROLES, outsider: "refused", query: (s) => ({ measureId: s.measure }) },
   { file: "api/ideal-points/import.ts", method: "POST", path: "/api/ideal-points/import", audience: ESTIMATORS, outsider: "own-chamber", raw: () => ({ body: "member,RC 1\nA,yea\nB,nay\n", contentType: "text/csv" }), note: "reads the CSV and answers; nothing is stored" },
   { file: "api/ideal-points/runs/index.ts", method: "POST", path: "/api/ideal-points/runs", audience: ESTIMATORS, outsider: "own-chamber", body: () => ({ dimensions: 1, votes: [{ id: "v1", yea: ["A"], nay: ["B"] }], minVotes: 1, bootstrap: 0 }), note: "an estimate in a worker, held in the server's memory for its author" },
-  { file: "api/ideal-points/runs/[id].ts", method: "GET", path: "/api/ideal-points/runs/:id", audience: ESTIMATORS, outsider: "refused", params: { id: "run" }, note: "only the person who started it" },
+  { file: "api/ideal-points/runs/[id].ts", method: "GET", path: "/api/ideal-points/runs/:id", audience: ESTIMATORS, outsider: "refused", params: { id: "run" }, starterOnly: true, note: "only the person who started it" },
   { file: "api/ideal-points/runs/[id].ts", method: "DELETE", path: "/api/ideal-points/runs/:id", audience: ESTIMATORS, outsider: "refused", params: { id: "run" }, note: "only the person who started it" },
   { file: "api/estimates/import.ts", method: "POST", path: "/api/estimates/import", audience: ESTIMATORS, outsider: "refused", query: (s) => ({ measureId: s.measure, title: "Access import" }), raw: csv },
   { file: "api/estimates/roster.ts", method: "POST", path: "/api/estimates/roster", audience: ESTIMATORS, outsider: "refused", body: (s) => ({ measureId: s.measure, title: "Access roster draft", scope: [] }), note: "an unfilled draft" },
