@@ -159,7 +159,9 @@ describe("the floor record", () => {
   it("warns while the sitting is judged by a superseded version and moves it to the version in force", async () => {
     const s = await api("GET", `/api/floor/sittings/${sittingId}`);
     const version = await api("GET", `/api/rulebooks/${s.rulebook.versionId}`);
-    const saved = await api("POST", "/api/rulebooks", { basedOn: s.rulebook.versionId, note: "Floor test: retitled", document: { ...version.document, title: `${version.document.title} (as amended)` } });
+    // Saved on top of the chamber's latest version (other browser files may have saved one since the seed).
+    const books = await api("GET", "/api/rulebooks");
+    const saved = await api("POST", "/api/rulebooks", { basedOn: books.latest.id, note: "Floor test: retitled", document: { ...version.document, title: `${version.document.title} (as amended)` } });
     await api("POST", `/api/rulebooks/${saved.id}/adopt`, { note: "With effect today (browser test)" });
 
     await page.goto(`${BASE_URL}/floor/${sittingId}`);

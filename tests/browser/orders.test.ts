@@ -114,12 +114,13 @@ describe("voting orders", () => {
     await shot(page, "orders-walk-through-successive");
     await Promise.all([page.waitForURL(/\/script\?/), page.getByRole("link", { name: "Open the chair's script for this order" }).click()]);
     await visible(page.getByRole("heading", { name: /Chair's script/, level: 1 }));
-    const first = await textOf(page.getByText(/^Projected: (adopted|rejected)/).first());
+    // The projected path closes the script: "1. <question>: Projected: adopted (…)".
+    const first = await textOf(page.getByText(/Projected: (adopted|rejected)/).first());
     expect(first).toMatch(/\(\d+ for, \d+ against\)\. Counted for: members who rank this text above each of the other versions still within reach/);
     expect(await page.getByText(/no tally/).count()).toBe(0);
     await shot(page, "orders-chair-script-successive");
     const md = await page.request.get(await page.getByRole("link", { name: "Download as Markdown" }).getAttribute("href").then((h) => `${BASE_URL}${h}`));
-    expect(await md.text()).toMatch(/\*Projected: (adopted|rejected) \(\d+ for, \d+ against\)/);
+    expect(await md.text()).toMatch(/Projected: (adopted|rejected) \(\d+ for, \d+ against\)/);
     // Back to the analysis returns to the same run, still under the trial rulebook.
     await page.getByRole("link", { name: "Back to the analysis" }).click();
     await visible(page.getByText(/successive procedure \(yes\/no in turn\)/), 60_000);
