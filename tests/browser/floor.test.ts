@@ -2,7 +2,7 @@
 // reloaded) shows the new pending question and the legal moves updating through server-sent
 // events. Verdicts follow Robert's Rules of Order Revised (1915) §11: a main motion is in order
 // only when no question is pending. Also the hypothetical legal-moves page.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import type { Page } from "playwright-core";
 import { BASE_URL, launch, shot, signInAs } from "./browser.ts";
 
@@ -32,8 +32,17 @@ describe("live floor board", () => {
     const title = `Browser sitting ${Date.now()}`;
     await clerk.getByLabel("Open a new sitting").fill(title);
     await clerk.getByRole("button", { name: "Open sitting" }).click();
-    await clerk.getByTestId("sitting-select").locator("option", { hasText: title }).waitFor({ state: "attached" });
-    const sittingId = await clerk.getByTestId("sitting-select").inputValue();
+    // The new sitting, found by its title (other browser files leave their sittings open), on its own page.
+    const sittingId = await vi.waitFor(
+      async () => {
+        const listed = (await (await clerk.request.get(`${BASE_URL}/api/floor/sittings`)).json()) as { sittings: Array<{ id: string; title: string }> };
+        const id = listed.sittings.find((x) => x.title === title)?.id;
+        if (!id) throw new Error(`no sitting "${title}" yet`);
+        return id;
+      },
+      { timeout: 15_000, interval: 200 },
+    );
+    await clerk.goto(`${BASE_URL}/floor/${sittingId}`);
     await clerk.getByTestId("stack-empty").waitFor();
 
     await signInAs(member, "member");

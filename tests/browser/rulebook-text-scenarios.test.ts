@@ -60,8 +60,9 @@ async function addScenario(title: string, source: string, pending: string[], mot
 describe("the chamber's own rules and the bench of scenarios", () => {
   it("upload, link, coverage, three scenarios, one verdict changes, adoption with a note", async () => {
     await signInAs(page, "clerk");
-    await page.goto(`${BASE_URL}/rulebooks`);
-    await page.getByTestId("in-force").locator("a").first().click();
+    // Work on the chamber's latest version (other browser files may have saved versions after the one in force).
+    const books = await (await page.request.get(`${BASE_URL}/api/rulebooks`)).json();
+    await page.goto(`${BASE_URL}/rulebooks/${books.latest.id}`);
     await page.getByTestId("chamber-text").waitFor();
 
     // Upload the standing orders (Markdown).
@@ -102,7 +103,8 @@ describe("the chamber's own rules and the bench of scenarios", () => {
     await page.getByTestId("no-changed-verdicts").waitFor();
 
     // Change something: adjourn may now interrupt a speaker. Save as a new version.
-    await page.getByLabel("May interrupt a speaker: Adjourn").check();
+    await page.getByRole("button", { name: "Edit Adjourn", exact: true }).first().click();
+    await page.getByRole("group", { name: "Characteristics of Adjourn" }).getByLabel("May interrupt a speaker").check();
     await page.getByLabel("Note for this version").fill("Adjourn may interrupt (browser test)");
     await Promise.all([page.waitForURL((u) => u.searchParams.get("saved") === String(linkedVersion + 1)), page.getByRole("button", { name: "Save as new version" }).click()]);
     const changed = page.getByTestId("changed-verdicts");
@@ -126,7 +128,8 @@ describe("the chamber's own rules and the bench of scenarios", () => {
 
     // Leave the chamber as the other tests expect it: adjourn no longer interrupts (a verdict changes back, so a note again).
     await page.getByTestId("in-force").locator("a").first().click();
-    await page.getByLabel("May interrupt a speaker: Adjourn").uncheck();
+    await page.getByRole("button", { name: "Edit Adjourn", exact: true }).first().click();
+    await page.getByRole("group", { name: "Characteristics of Adjourn" }).getByLabel("May interrupt a speaker").uncheck();
     await Promise.all([page.waitForURL((u) => u.searchParams.get("saved") === String(linkedVersion + 2)), page.getByRole("button", { name: "Save as new version" }).click()]);
     await page.getByTestId("changed-verdicts").waitFor();
     await page.getByLabel("Adoption note (e.g. the resolution)").fill("Resolution 8: adjourn no longer interrupts.");
