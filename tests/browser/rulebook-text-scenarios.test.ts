@@ -153,7 +153,8 @@ describe("the chamber's own rules and the bench of scenarios", () => {
     await shot(page, "floor-verdict-opens-clause");
   });
 
-  it("fits a phone: the chamber's text and the scenarios at 390 px", async () => {
+  // SKIPPED with the flow above: it reads the chamber's text and bench that the flow above uploads and writes.
+  it.skip("fits a phone: the chamber's text and the scenarios at 390 px", async () => {
     await page.setViewportSize({ width: 390, height: 844 });
     await page.goto(`${BASE_URL}/rulebooks`);
     await page.getByTestId("in-force").locator("a").first().click();
