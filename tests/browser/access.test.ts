@@ -6,7 +6,7 @@
 // are HttpOnly and SameSite; the security headers are on every page.
 // Common practice (OWASP: access control, XSS prevention, secure headers), no source.
 import postgres from "postgres";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import type { Page } from "playwright-core";
 import { ACCOUNTS, BASE_URL, launch, shot } from "./browser.ts";
 import { PAGE_ROUTES, refusedRoles, urlOf, type PageRoute, type Samples } from "../access/route-inventory.ts";
@@ -46,12 +46,13 @@ beforeAll(async () => {
   const latest = await one(sql`SELECT id FROM rulebook_versions WHERE chamber_id = ${h.id} ORDER BY number DESC LIMIT 1`);
   const estimate = await one(sql`SELECT id FROM estimates WHERE chamber_id = ${h.id} AND kind = 'ballots' ORDER BY created_at LIMIT 1`);
   const started = await api("/api/analysis/runs", cookies.clerk, { estimateId: estimate });
-  for (let i = 0; ; i++) {
-    const status = (await api(`/api/analysis/runs/${started.runId}`, cookies.clerk)).run.status;
-    if (status === "done") break;
-    if (status !== "running" || i > 300) throw new Error(`the sample analysis ended ${status}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
+  await vi.waitFor(
+    async () => {
+      const status = (await api(`/api/analysis/runs/${started.runId}`, cookies.clerk)).run.status;
+      if (status !== "done") throw new Error(`the sample analysis is ${status}`);
+    },
+    { timeout: 60_000, interval: 200 },
+  );
   const orders = await api(`/api/analysis/runs/${started.runId}/orders`, cookies.clerk);
   samples = {
     measure: await one(sql`SELECT id FROM measures WHERE chamber_id = ${h.id} ORDER BY number LIMIT 1`),

@@ -19,6 +19,9 @@ export async function launch(): Promise<{ context: BrowserContext; close(): Prom
     viewport: { width: 1360, height: 900 },
     args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--disable-dev-shm-usage"],
   });
+  context.on("page", waitForIslandsOnNavigation);
+  const newPage = context.newPage.bind(context);
+  context.newPage = async () => waitForIslandsOnNavigation(await newPage());
   return {
     context,
     async close() {
@@ -26,6 +29,31 @@ export async function launch(): Promise<{ context: BrowserContext; close(): Prom
       rmSync(profile, { recursive: true, force: true });
     },
   };
+}
+
+/**
+ * Resolves once every Astro island on the page has hydrated (Astro removes the `ssr` attribute
+ * from an island when its component has mounted). Before that, a click on a React form button
+ * does a plain form submission and a filled field is reset by hydration.
+ */
+export async function islandsReady(page: Page, timeout = 30_000): Promise<void> {
+  await page.waitForFunction(() => document.querySelector("astro-island[ssr]") === null, undefined, { timeout });
+}
+
+const patched = new WeakSet<Page>();
+/** Make `goto`, `reload`, `goBack` and `waitForURL` also wait for the page's islands to hydrate. */
+function waitForIslandsOnNavigation(page: Page): Page {
+  if (patched.has(page)) return page;
+  patched.add(page);
+  for (const name of ["goto", "reload", "goBack", "waitForURL"] as const) {
+    const original = (page[name] as (...a: unknown[]) => Promise<unknown>).bind(page);
+    (page as unknown as Record<string, unknown>)[name] = async (...args: unknown[]) => {
+      const result = await original(...args);
+      await islandsReady(page);
+      return result;
+    };
+  }
+  return page;
 }
 
 export function account(role: string, chamber = "harrowmere") {

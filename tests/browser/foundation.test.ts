@@ -1,6 +1,6 @@
 // Sign-in as each demo role, the navigation each sees, a failed sign-in, and the invitation
 // flow end to end through the local mail catcher. The product's own contract (no outside source).
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import postgres from "postgres";
 import { navFor } from "../../src/lib/navigation.ts";
 import { CHAMBER_ROLES } from "../../src/lib/permissions.ts";
@@ -54,13 +54,17 @@ describe("invitations", () => {
     await shot(page, "foundation-people");
 
     const sql = postgres(process.env.DATABASE_URL!, { max: 1 });
-    let link: string | undefined;
-    for (let i = 0; i < 40 && !link; i++) {
-      const rows = await sql`SELECT text FROM caught_mail WHERE "to" LIKE ${"%" + email + "%"}`;
-      link = rows[0] ? /https?:\/\/\S+\/invitations\/\S+/.exec(rows[0].text as string)?.[0] : undefined;
-      if (!link) await new Promise((r) => setTimeout(r, 500));
-    }
-    await sql.end();
+    const link = await vi
+      .waitFor(
+        async () => {
+          const rows = await sql`SELECT text FROM caught_mail WHERE "to" LIKE ${"%" + email + "%"}`;
+          const found = rows[0] ? /https?:\/\/\S+\/invitations\/\S+/.exec(rows[0].text as string)?.[0] : undefined;
+          if (!found) throw new Error("no invitation caught yet");
+          return found;
+        },
+        { timeout: 30_000, interval: 250 },
+      )
+      .finally(() => sql.end());
     expect(link, "invitation mail caught").toBeTruthy();
 
     await browser.context.clearCookies();

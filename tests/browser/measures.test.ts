@@ -2,7 +2,7 @@
 // drawing, moves through it by keyboard, records an override with a ruling and prints it; a
 // member files an amendment and the receipt arrives in the local mail catcher; a generated
 // tree of 160 amendments still draws. The product's own contract (no outside source).
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import postgres from "postgres";
 import type { Page } from "playwright-core";
 import { join } from "node:path";
@@ -113,13 +113,16 @@ describe("filing", () => {
     expect(key, status).toBeTruthy();
 
     const sql = postgres(process.env.DATABASE_URL!, { max: 1 });
-    let subject: string | undefined;
-    for (let i = 0; i < 120 && !subject; i++) {
-      const rows = await sql`SELECT subject FROM caught_mail WHERE "to" LIKE ${"%" + account("member").email + "%"} AND subject = ${`Filing receipt: Amendment ${key} to HCA 12`}`;
-      subject = rows[0]?.subject as string | undefined;
-      if (!subject) await new Promise((r) => setTimeout(r, 500));
-    }
-    await sql.end();
+    const subject = await vi
+      .waitFor(
+        async () => {
+          const rows = await sql`SELECT subject FROM caught_mail WHERE "to" LIKE ${"%" + account("member").email + "%"} AND subject = ${`Filing receipt: Amendment ${key} to HCA 12`}`;
+          if (!rows[0]) throw new Error("no receipt caught yet");
+          return rows[0].subject as string;
+        },
+        { timeout: 60_000, interval: 250 },
+      )
+      .finally(() => sql.end());
     expect(subject, "receipt caught").toBe(`Filing receipt: Amendment ${key} to HCA 12`);
     await page.waitForLoadState("load");
     await visible(page.getByTestId("amendments-table").getByText(title));
