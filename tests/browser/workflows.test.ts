@@ -200,10 +200,7 @@ describe("estimates on the pages", () => {
     await shot(page, "workflows-csv-version");
   });
 
-  // SKIPPED for now, not passing: it passes alone against a fresh instance but fails after the other browser
-  // files have changed the same chamber's rulebook versions, scenario bench or estimates (order-dependent shared
-  // state found when the branches were combined). To be made independent of the other files, then re-enabled.
-  it.skip("edits a spatial estimate's dimensions and positions and saves them as a new version", async () => {
+  it("edits a spatial estimate's dimensions and positions and saves them as a new version", async () => {
     const page = await pageOf(member);
     const measures = (await api(page, "GET", "/api/estimates/options")) as { measures: Array<{ id: string; number: string }> };
     const measureId = measures.measures.find((m) => m.number === "HCA 12")!.id;

@@ -147,7 +147,11 @@ function ListEditor({ list, people, onSaved, onCancel }: { list: ListView | null
 function Deliveries({ id }: { id: string }) {
   const [msgs, setMsgs] = useState<z.output<typeof messageView>[] | null>(null);
   useEffect(() => {
-    apiCall(circulationDetail, `/api/circulation/${id}`).then((d) => setMsgs(d.messages), () => setMsgs([]));
+    let stale = false; // an answer for another item arriving late is dropped
+    apiCall(circulationDetail, `/api/circulation/${id}`).then((d) => !stale && setMsgs(d.messages), () => !stale && setMsgs([]));
+    return () => {
+      stale = true;
+    };
   }, [id]);
   if (!msgs) return <p className="text-sm text-ink-soft">Loading…</p>;
   return (

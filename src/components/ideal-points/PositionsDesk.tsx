@@ -343,7 +343,14 @@ function SaveAsEstimate({ result, blocOf }: { result: Result; blocOf: (m: string
   }, []);
   useEffect(() => {
     if (!measureId) return;
-    apiCall(versionsSchema, `/api/estimates/versions?measureId=${encodeURIComponent(measureId)}`).then((t) => { setPending(t.pending); setScope([]); }, () => setError({ message: "Could not list the measure's amendments.", issues: [] }));
+    let stale = false; // an answer for a measure no longer chosen is dropped
+    apiCall(versionsSchema, `/api/estimates/versions?measureId=${encodeURIComponent(measureId)}`).then(
+      (t) => { if (!stale) { setPending(t.pending); setScope([]); } },
+      () => !stale && setError({ message: "Could not list the measure's amendments.", issues: [] }),
+    );
+    return () => {
+      stale = true;
+    };
   }, [measureId]);
 
   const place = (key: string) => places[key] ?? Array.from({ length: d }, () => "");

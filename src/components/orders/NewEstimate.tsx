@@ -35,11 +35,16 @@ export default function NewEstimate() {
   }, []);
   useEffect(() => {
     if (!measureId) return;
+    // Only the answer for the latest choice counts: an earlier answer arriving late is dropped.
+    let stale = false;
     apiCall(versionsSchema, `/api/estimates/versions?measureId=${measureId}&scope=${scope.join(",")}`).then(
-      (t) => { setTree(t); setError(null); },
-      (e) => setError(e instanceof ApiError ? e.message : "Could not list the versions."),
+      (t) => { if (!stale) { setTree(t); setError(null); } },
+      (e) => !stale && setError(e instanceof ApiError ? e.message : "Could not list the versions."),
     );
     setPreview(null);
+    return () => {
+      stale = true;
+    };
   }, [measureId, scope]);
 
   const query = (extra: Record<string, string>) => new URLSearchParams({ measureId, scope: scope.join(","), kind, partial, per, ...(kind === "spatial" ? { dimensions } : {}), ...extra }).toString();

@@ -70,7 +70,14 @@ export default function RulebookCompare({ from, to }: { from: string; to: string
   const chosen = Boolean(from && to);
   useEffect(() => {
     if (!chosen) return;
-    apiCall(compareSchema, `/api/rulebooks/compare?from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`).then(setData, (e) => setError(e instanceof Error ? e.message : "Could not compare."));
+    let stale = false; // an answer for an earlier pair arriving late is dropped
+    apiCall(compareSchema, `/api/rulebooks/compare?from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`).then(
+      (d) => !stale && setData(d),
+      (e) => !stale && setError(e instanceof Error ? e.message : "Could not compare."),
+    );
+    return () => {
+      stale = true;
+    };
   }, [from, to, chosen]);
   if (!chosen) return <ChooseVersions from={from} to={to} />;
   if (error) return <Alert>{error}</Alert>;

@@ -12,6 +12,7 @@ import * as compare from "../../../src/pages/api/rulebooks/compare.ts";
 import * as template from "../../../src/pages/api/rulebooks/templates/[id].ts";
 import { seedRulebooks } from "../../../src/lib/server/seed/rulebooks.ts";
 import { loadRulebook } from "../../../src/lib/server/services/rulebooks.ts";
+import { sql } from "../../../src/lib/server/db.ts";
 import { call } from "../../support/app.ts";
 import { tableCounts } from "../../support/db.ts";
 import { seedChambers, type Seeded } from "../../support/fixtures.ts";
@@ -249,5 +250,20 @@ describe("POST /api/rulebooks/:id/adopt", () => {
     const r = await call(list.GET, "GET", "/api/rulebooks", { as: s.as.observer });
     expect(r.body.inForce.versionId).toBe(v.id);
     expect(r.body.adoptions.length).toBe(3);
+  });
+
+  it("an adoption with effect from today supersedes one made earlier today with effect from its moment", async () => {
+    const v = await latest();
+    const first = await call(adopt.POST, "POST", `/api/rulebooks/${v.id}/adopt`, { as: s.as.clerk, params: { id: v.id }, body: { note: "With effect now" } });
+    expect(first.body.inForce).toBe(true);
+    const doc = (await call(one.GET, "GET", `/api/rulebooks/${v.id}`, { as: s.as.clerk, params: { id: v.id } })).body.document;
+    const next = await call(list.POST, "POST", "/api/rulebooks", { as: s.as.clerk, body: { basedOn: v.id, note: "Retitled", document: { ...doc, title: `${doc.title} (retitled)` } } });
+    expect(next.status).toBe(201);
+    const [{ time_zone: timeZone }] = await sql`SELECT time_zone FROM organization WHERE id = ${s.chambers.harrowmere}`;
+    const chamberToday = new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(new Date());
+    const today = await call(adopt.POST, "POST", `/api/rulebooks/${next.body.id}/adopt`, { as: s.as.clerk, params: { id: next.body.id }, body: { effectiveFrom: chamberToday, note: "With effect from today" } });
+    expect(today.status).toBe(201);
+    expect(today.body.inForce).toBe(true);
+    expect((await call(list.GET, "GET", "/api/rulebooks", { as: s.as.member })).body.inForce.versionId).toBe(next.body.id);
   });
 });

@@ -17,7 +17,7 @@ import { changeLine, describeChanges, type PlainChange } from "../../procedure/r
 import { rulebookTemplates, rulebookTemplate } from "../rulebook-templates.ts";
 import { refuseBadText, type Actor } from "../http.ts";
 import { chamberMemory, forgetChamber } from "../chamber-memory.ts";
-import { fromZonedInput } from "../../text/dates.ts";
+import { fromZonedInput, isoDateIn } from "../../text/dates.ts";
 
 export { MAX_RULEBOOK_BYTES };
 
@@ -248,10 +248,15 @@ export async function compareVersions(actor: Actor, fromId: string, toId: string
 }
 
 function effectiveDate(input: string | undefined, timeZone: string): Date {
-  if (!input) return new Date();
-  // A bare date means the start of that day on the chamber's clock, so "adopted with effect from today" is in force at once
-  // and every screen (which shows dates in the chamber's zone) reads the same day.
-  if (/^\d{4}-\d{2}-\d{2}$/.test(input)) return new Date(fromZonedInput(`${input}T00:00`, { timeZone }) ?? `${input}T00:00:00Z`);
+  const now = new Date();
+  if (!input) return now;
+  // A bare date means the start of that day on the chamber's clock, so every screen (which shows dates in the chamber's
+  // zone) reads the same day. Today means the moment of adoption: "with effect from today" then supersedes an adoption
+  // made earlier today, whose effect ran from its own moment (the later adoption of the same day prevails).
+  if (/^\d{4}-\d{2}-\d{2}$/.test(input)) {
+    if (input === isoDateIn(now, { timeZone })) return now;
+    return new Date(fromZonedInput(`${input}T00:00`, { timeZone }) ?? `${input}T00:00:00Z`);
+  }
   return new Date(input);
 }
 
