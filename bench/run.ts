@@ -33,17 +33,7 @@ import { questionAgenda, sincereQuestionPath, sophisticatedQuestionOutcome } fro
 import { sincereQuestionCounts, sophisticatedQuestionCounts } from "../src/lib/voting/question-counts.ts";
 import type { OrderConstraint } from "../src/lib/procedure/voting-section.ts";
 import { topCycle } from "../src/lib/voting/top-cycle.ts";
-
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { seededRandom as mulberry32 } from "../src/lib/ideal-points/normal.ts";
 
 function shuffled(n: number, rnd: () => number): number[] {
   const a = Array.from({ length: n }, (_, i) => i);
