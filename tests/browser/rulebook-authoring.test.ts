@@ -121,4 +121,50 @@ describe("rulebook authoring", () => {
     await page.getByTestId("precedence-list").waitFor();
     expect(await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth)).toBeLessThanOrEqual(0);
   });
+  it("a clerk starts a new version from a template in the library and saves it", async () => {
+    // The library offers the shipped templates (README, "Rulebook templates"); the general-law template
+    // follows Robert's Rules of Order Revised (1915), whose "Postpone Indefinitely" (§34) is a motion of
+    // its catalogue. Saving adds a version; nothing is adopted (common practice, no source: the chamber
+    // adopts a rulebook by its own decision).
+    const page = f.page;
+    await page.setViewportSize({ width: 1440, height: 900 });
+    await page.goto(`${BASE_URL}/rulebooks`);
+    const versions = page.getByTestId("versions");
+    await versions.waitFor();
+    // The version to put back at the end, so the other files keep working on the demo's text.
+    const rows = await versions.locator("tbody tr").evaluateAll((trs) =>
+      trs.map((tr) => ({ n: Number(tr.querySelector("td")?.textContent), href: tr.querySelector("a")?.getAttribute("href") ?? "" })),
+    );
+    const latest = rows.reduce((a, b) => (b.n > a.n ? b : a));
+    const inForceBefore = await versions.getByText("In force").count();
+
+    const entry = page.getByTestId("template").filter({ has: page.locator("span.font-semibold", { hasText: /^General parliamentary law$/ }) });
+    await entry.getByTestId("template-source").waitFor();
+    await Promise.all([page.waitForURL(/\/rulebooks\/new\?template=/), entry.getByRole("link", { name: "Start from this" }).click()]);
+    await page.getByTestId("precedence-list").waitFor();
+    await expect.poll(() => page.getByText("New version from the template “General parliamentary law”").count()).toBe(1);
+    expect(await page.getByRole("heading", { level: 1 }).innerText()).toBe("General parliamentary law");
+    expect(await page.getByTestId("precedence-list").locator("[data-motion]", { hasText: "Postpone indefinitely" }).count()).toBeGreaterThan(0);
+    expect(await page.getByLabel("Note for this version").inputValue()).toBe("Started from the template “General parliamentary law”");
+    await shot(page, "authoring-from-template");
+
+    await Promise.all([page.waitForURL(/\/rulebooks\/[0-9a-f-]+\?saved=\d+/), page.getByRole("button", { name: "Save as new version" }).click()]);
+    const saved = Number(new URL(page.url()).searchParams.get("saved"));
+    expect(saved).toBe(latest.n + 1);
+    await page.getByText(`Saved as version ${saved}.`).waitFor();
+
+    await page.goto(`${BASE_URL}/rulebooks`);
+    const row = versions.locator("tbody tr").filter({ has: page.locator("td", { hasText: new RegExp(`^${saved}$`) }) });
+    await expect.poll(() => row.innerText()).toMatch(/General parliamentary law\s*\(from the template “General parliamentary law”\)/);
+    // Saving is not adopting: what was in force is still in force, and the new row is not.
+    expect(await versions.getByText("In force").count()).toBe(inForceBefore);
+    expect(await row.getByText("In force").count()).toBe(0);
+
+    // Put the demo's text back as the latest version (a clerk's own way: "use this text as the next version").
+    await page.goto(`${BASE_URL}${latest.href}`);
+    await page.getByRole("button", { name: `Use this text as the next version after ${saved}` }).click();
+    await page.getByLabel("Note for this version").fill("Back to the chamber's text after trying a template");
+    await Promise.all([page.waitForURL(/\/rulebooks\/[0-9a-f-]+\?saved=\d+/), page.getByRole("button", { name: "Save as new version" }).click()]);
+    expect(Number(new URL(page.url()).searchParams.get("saved"))).toBe(saved + 1);
+  });
 });
