@@ -3,29 +3,14 @@
 // dist/cli/ (plain JavaScript, no TypeScript loader). In a checkout whose sources changed since the
 // bundle was made, the bundle is made again first; without esbuild, the sources run through tsx.
 import { spawnSync } from "node:child_process";
-import { existsSync, readdirSync, statSync } from "node:fs";
+import { existsSync } from "node:fs";
 import { fileURLToPath } from "node:url";
+import { bundleIsCurrent } from "../src/lib/server/bundles.mjs";
 
 const root = new URL("..", import.meta.url);
 const bundle = new URL("dist/cli/gavelwright.js", root);
 
-/** Newest modification time under a folder of sources (0 when it is absent, as in an installed package). */
-function newest(dir) {
-  if (!existsSync(dir)) return 0;
-  let t = 0;
-  for (const e of readdirSync(dir, { withFileTypes: true, recursive: true })) {
-    if (e.isFile() && e.name.endsWith(".ts")) t = Math.max(t, statSync(`${e.parentPath}/${e.name}`).mtimeMs);
-  }
-  return t;
-}
-
-function bundleIsCurrent() {
-  if (!existsSync(bundle)) return false;
-  const built = statSync(bundle).mtimeMs;
-  return newest(fileURLToPath(new URL("src/cli", root))) <= built && newest(fileURLToPath(new URL("src/lib", root))) <= built;
-}
-
-if (!bundleIsCurrent()) spawnSync(process.execPath, [fileURLToPath(new URL("scripts/build-cli.mjs", root))], { stdio: ["ignore", "ignore", "inherit"] });
+if (!bundleIsCurrent(fileURLToPath(bundle), fileURLToPath(root))) spawnSync(process.execPath, [fileURLToPath(new URL("scripts/build-cli.mjs", root))], { stdio: ["ignore", "ignore", "inherit"] });
 let main;
 if (existsSync(bundle)) ({ main } = await import(bundle.href));
 else {

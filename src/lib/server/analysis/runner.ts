@@ -19,14 +19,13 @@
  * (its process went away). A group whose runs were all cancelled from another server is stopped
  * here at the next heartbeat.
  */
-import path from "node:path";
 import { Worker } from "node:worker_threads";
 import { and, eq } from "drizzle-orm";
 import { db } from "../db.ts";
 import { analysisCache, analysisRuns } from "../../db/schema/estimates.ts";
+import { workerFile } from "../workers.ts";
 import { analysisLimits, overLimitError, type AnalysisLimits } from "./limits.ts";
 
-export const WORKER_FILE = path.resolve("src/lib/server/analysis/worker.mjs");
 /** The default pool size (GAVELWRIGHT_ANALYSIS_WORKERS overrides it). */
 export const MAX_WORKERS = 2;
 const PROGRESS_WRITE_MS = 250;
@@ -110,7 +109,7 @@ export function launchRun(run: { id: string; chamberId: string; hash: string }, 
   const shared = new SharedArrayBuffer(4);
   const cancel = new Int32Array(shared);
   const started = Date.now();
-  const worker = new Worker(WORKER_FILE, { workerData: { input, cancel: shared, hold: holdGate }, resourceLimits: { maxOldGenerationSizeMb: limits.memoryMb } });
+  const worker = new Worker(workerFile("analysis"), { workerData: { input, cancel: shared, hold: holdGate }, resourceLimits: { maxOldGenerationSizeMb: limits.memoryMb } });
   let lastWrite = 0;
   let settled = false;
   let resolveDone!: () => void;

@@ -1,17 +1,16 @@
 /**
- * Ideal-point estimates run off the request path, one worker thread each (./worker.mjs), with
+ * Ideal-point estimates run off the request path, one worker thread each (../workers.ts: the bundle, or ./worker.mjs in a changed checkout), with
  * progress and cancellation as for analyses (../analysis/runner.ts). Unlike an analysis, an
  * estimate of ideal points is a working result, not a record: it lives in this server's memory for
  * JOB_TTL_MS and only becomes a record when its author saves it as a spatial estimate
  * (services/estimates.ts). A job is visible only to the person who started it, in that chamber.
  */
-import path from "node:path";
 import { randomUUID } from "node:crypto";
 import { Worker } from "node:worker_threads";
 import { GavelError } from "../../errors.ts";
+import { workerFile } from "../workers.ts";
 import type { IdealPointsResult } from "../../ideal-points/ideal-points.ts";
 
-export const IDEAL_WORKER_FILE = path.resolve("src/lib/server/ideal-points/worker.mjs");
 export const MAX_IDEAL_JOBS = 2;
 export const JOB_TTL_MS = 60 * 60 * 1000;
 
@@ -41,7 +40,7 @@ function sweep(): void {
 }
 
 /** Start an estimate in a worker; the input is validated by the core inside the worker (errors come back as the job's error). */
-export function startIdealJob(owner: { userId: string; chamberId: string }, input: unknown, file = IDEAL_WORKER_FILE): IdealJobView {
+export function startIdealJob(owner: { userId: string; chamberId: string }, input: unknown, file = workerFile("ideal-points")): IdealJobView {
   sweep();
   const running = [...jobs.values()].filter((j) => j.status === "running").length;
   if (running >= MAX_IDEAL_JOBS) throw new GavelError("rate-limited", "Two estimates are already running on this server; wait for one to finish.");
