@@ -8,7 +8,7 @@
 // tested in tests/integration/circulation/circulation.test.ts ("with SMTP down keeps every message queued…").
 // Common practice (fail fast and cleanly, recover without an operator), no source.
 import postgres from "postgres";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import demoAccounts from "../../src/lib/server/seed/demo-accounts.json";
 import { createDatabase, freePort, runScript, serverBuild, signIn, startCluster, startServer, type Cluster, type Server } from "./harness.ts";
 
@@ -20,7 +20,6 @@ let build: string;
 let port: number;
 let measureId: string;
 const account = (role: string) => demoAccounts.find((a) => a.role === role && a.chamber === "harrowmere")!;
-const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 beforeAll(async () => {
   build = serverBuild();
@@ -76,14 +75,16 @@ function traffic(cookie: string, workers = 4) {
   };
 }
 
-async function until(what: string, ok: () => Promise<boolean>, ms = 30_000) {
-  const end = Date.now() + ms;
-  while (Date.now() < end) {
-    if (await ok().catch(() => false)) return;
-    await sleep(200);
-  }
-  throw new Error(`timed out waiting for ${what}`);
+/** Wait (no sleeping: vi.waitFor retries the check) until `ok` holds; the message names what was awaited. */
+async function until(what: string, ok: () => Promise<boolean> | boolean, timeout = 60_000) {
+  await vi.waitFor(
+    async () => {
+      if (!(await ok())) throw new Error(`still waiting for ${what}`);
+    },
+    { timeout, interval: 100 },
+  );
 }
+const answered = (seen: Seen[], from: number, status: number) => seen.slice(from).filter((x) => x.status === status).length;
 
 function expectClean(seen: Seen[]) {
   const statuses = [...new Set(seen.map((x) => x.status))].sort();
@@ -102,19 +103,22 @@ describe("PostgreSQL goes away while requests run", () => {
       const clerk = await signIn(server.base, account("clerk").email, account("clerk").password);
       const t = traffic(cookie);
       try {
-      await sleep(1500);
+      // Traffic is flowing before the database goes, and the server has noticed the outage before the checks.
+      await until("answers before the outage", () => answered(t.seen, 0, 200) >= 10);
       await cluster.stop(mode);
-      await sleep(1500);
+      const stopped = t.seen.length;
+      await until("the traffic to meet the outage", () => answered(t.seen, stopped, 503) >= 3);
       // During the outage: a page answers a plain 503, a write is refused and leaves nothing behind.
       const page = await fetch(`${server.base}/measures`, { headers: { cookie } });
       expect(page.status).toBe(503);
       expect(page.headers.get("retry-after")).toBe("5");
       const write = await fetch(`${server.base}/api/measures`, { method: "POST", headers: { cookie: clerk, origin: server.base, "content-type": "application/json" }, body: JSON.stringify({ number: `OUT ${mode}`, title: "Filed during the outage" }) });
       expect(write.status).toBe(503);
-      await sleep(1000);
       await cluster.start();
       const restarted = t.seen.length;
-      await until("the server to answer 200 again", async () => t.seen.slice(restarted).filter((x) => x.status === 200).length >= 10);
+      // Measured on the 2-core machine: 9 to 60 s after a crash before answers come back (the recovery
+      // time is an open hardening point); the wait allows 100 s.
+      await until("the server to answer 200 again", () => answered(t.seen, restarted, 200) >= 10, 100_000);
       } finally {
         await t.stop();
       }
@@ -134,7 +138,7 @@ describe("PostgreSQL goes away while requests run", () => {
         expect(server.output()).not.toContain(token);
       }
       expect(server.output()).not.toContain(env.BETTER_AUTH_SECRET);
-    }, 90_000);
+    }, 180_000);
   }
 });
 
@@ -152,7 +156,8 @@ describe("the server killed during an analysis", () => {
     const started = await (await post("/api/analysis/runs", { estimateId: est.id })).json();
     expect(started.cached).toBe(false);
     const [{ hash }] = await sql`SELECT hash FROM analysis_runs WHERE id = ${started.runId}`;
-    await sleep(2500);
+    // The worker has reported progress (so it is computing), and the run is still going when the server dies.
+    await until("the worker's first progress report", async () => (await sql`SELECT phase FROM analysis_runs WHERE id = ${started.runId}`)[0].phase !== null);
     expect((await sql`SELECT status FROM analysis_runs WHERE id = ${started.runId}`)[0].status).toBe("running");
     await server.kill("SIGKILL");
 

@@ -8,6 +8,7 @@ import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import { chownSync, existsSync, mkdtempSync, rmSync, appendFileSync, chmodSync, mkdirSync, readdirSync } from "node:fs";
 import { createServer } from "node:net";
 import { join, resolve } from "node:path";
+import { vi } from "vitest";
 
 export const ROOT = resolve(import.meta.dirname, "../..");
 const isRoot = process.getuid?.() === 0;
@@ -124,17 +125,14 @@ export async function startServer(build: string, env: Record<string, string>, po
   });
   proc.stdout!.on("data", (d) => chunks.push(String(d)));
   proc.stderr!.on("data", (d) => chunks.push(String(d)));
-  const until = Date.now() + 60_000;
-  for (;;) {
-    if (proc.exitCode !== null) throw new Error(`server exited: ${chunks.join("")}`);
-    try {
-      if ((await fetch(`${base}/sign-in`)).status < 500) break;
-    } catch {
-      /* not up yet */
-    }
-    if (Date.now() > until) throw new Error(`server did not start: ${chunks.join("")}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
+  // Wait for the first answer (vi.waitFor retries; no sleeping); a server that exits says why.
+  await vi.waitFor(
+    async () => {
+      if (proc.exitCode !== null) throw new Error(`server exited: ${chunks.join("")}`);
+      if ((await fetch(`${base}/sign-in`)).status >= 500) throw new Error("server not ready");
+    },
+    { timeout: 60_000, interval: 100 },
+  );
   return {
     base,
     proc,
