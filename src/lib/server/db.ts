@@ -7,6 +7,9 @@ import { migrate } from "drizzle-orm/postgres-js/migrator";
 import path from "node:path";
 import postgres from "postgres";
 import * as schema from "../db/schema/index.ts";
+import { connectTimeout, reconnectBackoff } from "./db-options.ts";
+
+export { connectTimeout, reconnectBackoff };
 
 function databaseUrl(): string {
   const url = process.env.DATABASE_URL;
@@ -14,20 +17,12 @@ function databaseUrl(): string {
   return url;
 }
 
-/**
- * Seconds to wait for a connection to the database before giving up, so that during an outage
- * a request answers 503 promptly instead of hanging (DATABASE_CONNECT_TIMEOUT, default 2).
- */
-export function connectTimeout(): number {
-  const v = Number(process.env.DATABASE_CONNECT_TIMEOUT ?? 2);
-  return Number.isFinite(v) && v > 0 ? v : 2;
-}
-
 export const sql = postgres(databaseUrl(), {
   max: Number(process.env.DATABASE_POOL_SIZE ?? 10),
   onnotice: () => {},
   idle_timeout: 30,
   connect_timeout: connectTimeout(),
+  backoff: reconnectBackoff,
 });
 export const db = drizzle(sql, { schema });
 export type Db = typeof db;
@@ -38,7 +33,7 @@ const MIGRATION_LOCK = 7_302_114; // arbitrary, fixed: serialises migrations acr
 let migrated: Promise<void> | null = null;
 export function ensureMigrated(): Promise<void> {
   migrated ??= (async () => {
-    const conn = postgres(databaseUrl(), { max: 1, onnotice: () => {}, connect_timeout: connectTimeout() });
+    const conn = postgres(databaseUrl(), { max: 1, onnotice: () => {}, connect_timeout: connectTimeout(), backoff: reconnectBackoff });
     try {
       await conn`SELECT pg_advisory_lock(${MIGRATION_LOCK})`;
       await migrate(drizzle(conn), { migrationsFolder: process.env.MIGRATIONS_DIR ?? path.resolve("drizzle") });

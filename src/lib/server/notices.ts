@@ -9,6 +9,7 @@
  */
 import { randomUUID } from "node:crypto";
 import postgres from "postgres";
+import { connectTimeout, reconnectBackoff } from "./db-options.ts";
 import { describeError } from "./log-safe.ts";
 
 /** How the LISTEN connection shows in pg_stat_activity. */
@@ -36,7 +37,8 @@ function connection(): postgres.Sql {
     idle_timeout: 0,
     max_lifetime: null,
     fetch_types: false,
-    connect_timeout: 10,
+    connect_timeout: connectTimeout(),
+    backoff: reconnectBackoff,
     connection: { application_name: NOTICES_APPLICATION_NAME },
     onnotice: () => {},
     onnotify: (channel, payload) => dispatch(channel, payload),
