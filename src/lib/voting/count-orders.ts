@@ -39,6 +39,17 @@ export const DEFAULT_MAX_STATES = 4_000_000;
  */
 export function countOrders<S extends number | string>(prec: Precedence, machine: OrderMachine<S>, direction: "forward" | "backward" = "forward", control: RunControl = {}): Map<S, Count> {
   const { n } = prec;
+  const layer = countOrderLayer(prec, machine, direction, control, () => false);
+  return layer.get(n === 0 ? 0 : (2 ** n - 1) | 0) ?? (n === 0 ? layer.get(0)! : new Map());
+}
+
+/**
+ * The engine's layer once `stopAfter(placedCount)` says so after a position is filled (or after the last):
+ * for every placed set, the states reached and the number of partial orders reaching each. Callers that
+ * finish the remaining positions another way use it.
+ */
+export function countOrderLayer<S extends number | string>(prec: Precedence, machine: OrderMachine<S>, direction: "forward" | "backward", control: RunControl, stopAfter: (placedCount: number) => boolean): Map<number, Map<S, Count>> {
+  const { n } = prec;
   const useBig = n > 18;
   const one: Count = useBig ? 1n : 1;
   const maxStates = control.maxStates ?? DEFAULT_MAX_STATES;
@@ -72,8 +83,9 @@ export function countOrders<S extends number | string>(prec: Precedence, machine
     }
     layer = next;
     control.onProgress?.((pos + 1) / n);
+    if (pos + 1 < n && stopAfter(pos + 1)) break;
   }
-  return layer.get(n === 0 ? 0 : (2 ** n - 1) | 0) ?? (n === 0 ? layer.get(0)! : new Map());
+  return layer;
 }
 
 /** Number of legal orders (linear extensions). */
