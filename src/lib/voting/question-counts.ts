@@ -41,7 +41,12 @@ export const DEPTH_FIRST_TAIL = 5;
 const SWITCH_WHEN_NEW = 0.5;
 const SWITCH_AT_ENTRIES = 8_000_000;
 
-export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence, control: RunControl = {}): Count[] {
+/**
+ * `tuning.depthFirstTail` (tests): evaluate at least this many of the first questions depth first
+ * (default DEPTH_FIRST_TAIL); the counts are the same for every value.
+ */
+export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence, control: RunControl = {}, tuning: { depthFirstTail?: number } = {}): Count[] {
+  const depthFirstTail = tuning.depthFirstTail ?? DEPTH_FIRST_TAIL;
   const n = qa.k + 1;
   const full = (2 ** n - 1) | 0;
   const versions = qa.model.versions.length;
@@ -119,7 +124,7 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
   // Per transition (C2 = C without x, forward-legal): for each i, the index in reach(C) of the rejected
   // branch's adopted set, and of the adopted branch's or −1 when x falls. Null: a dead end.
   // Cached per (C2, x): an array indexed by x · 2^n + C2 while that stays small, else a map.
-  type Transition = { no: Int32Array; yes: Int32Array } | null;
+  type Transition = { no: Int32Array; yes: Int32Array; alwaysPut: boolean } | null;
   const flat = n <= 16 ? new Array<Transition | undefined>(n << n) : null;
   const transitions = new Map<number, Transition>();
   const transition = (c2: number, x: number): Transition => {
@@ -139,7 +144,7 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
         no[i] = index[a];
         yes[i] = fallsNow(a) ? -1 : index[a | (1 << x)];
       }
-      t = { no, yes };
+      t = { no, yes, alwaysPut: yes.every((y) => y >= 0) };
     }
     if (flat) flat[key] = t;
     else transitions.set(key, t);
@@ -147,18 +152,25 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
   };
   // One backward-induction step: the table before x from the table after it (x's vote compares the
   // outcomes of its two branches; a question that falls passes the rejected branch's outcome on).
-  const stepInto = (x: number, t: { no: Int32Array; yes: Int32Array }, values: Int32Array, out: Int32Array) => {
+  const stepInto = (x: number, t: Transition & object, values: Int32Array, out: Int32Array) => {
     const { no, yes } = t;
     const bits = beatsBits[x];
-    for (let i = 0; i < no.length; i++) {
-      const vn = values[no[i]];
-      const y = yes[i];
-      if (y < 0) out[i] = vn;
-      else {
-        const vy = values[y];
+    if (t.alwaysPut)
+      for (let i = 0; i < no.length; i++) {
+        const vn = values[no[i]];
+        const vy = values[yes[i]];
         out[i] = vy !== vn && bits[vy * stride + (vn >>> 5)] & (1 << (vn & 31)) ? vy : vn;
       }
-    }
+    else
+      for (let i = 0; i < no.length; i++) {
+        const vn = values[no[i]];
+        const y = yes[i];
+        if (y < 0) out[i] = vn;
+        else {
+          const vy = values[y];
+          out[i] = vy !== vn && bits[vy * stride + (vn >>> 5)] & (1 << (vn & 31)) ? vy : vn;
+        }
+      }
   };
   // Tables: values[i] is the backward-induction outcome of the remaining suffix when the questions C
   // before it left the adopted set reach(C)[i]. Interned per position (equal tables merge the orders
@@ -232,7 +244,7 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
   };
   const layer = countOrderLayer(prec, m, "backward", control, (placedCount) => {
     const made = vals.length - layerFirst;
-    const stop = n - placedCount <= DEPTH_FIRST_TAIL || live > SWITCH_AT_ENTRIES || (made > 1000 && made > SWITCH_WHEN_NEW * computed);
+    const stop = n - placedCount <= depthFirstTail || live > SWITCH_AT_ENTRIES || (made > 1000 && made > SWITCH_WHEN_NEW * computed);
     computed = 0;
     return stop;
   });
@@ -244,12 +256,11 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
   const out: Count[] = new Array(versions).fill(useBig ? 0n : 0);
   const buffers = [...Array(tailLength + 1).keys()].map((d) => new Int32Array(2 ** (tailLength - d)));
   const availBackward = n <= 20 ? new Int32Array(2 ** n).fill(-1) : null;
+  const add = (v: number, count: Count) => {
+    out[v] = useBig ? (out[v] as bigint) + (count as bigint) : (out[v] as number) + (count as number);
+  };
   const tail = (placed: number, values: Int32Array, depth: number, count: Count) => {
-    if (placed === full) {
-      const v = values[0];
-      out[v] = useBig ? (out[v] as bigint) + (count as bigint) : (out[v] as number) + (count as number);
-      return;
-    }
+    if (placed === full) return add(values[0], count);
     const buffer = buffers[depth + 1];
     let avail = availBackward ? availBackward[placed] : -1;
     if (avail === -1) {
@@ -258,10 +269,19 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
     }
     for (; avail !== 0; avail &= avail - 1) {
       const x = 31 - Math.clz32(avail & -avail);
-      const t = transition(~(placed | (1 << x)) & full, x);
+      const to = placed | (1 << x);
+      const t = transition(~to & full, x);
       if (!t) continue;
-      stepInto(x, t, values, buffer);
-      tail(placed | (1 << x), buffer, depth + 1, count);
+      if (to === full) {
+        // The first question of the order: one entry (nothing adopted before it).
+        const vn = values[t.no[0]];
+        const y = t.yes[0];
+        const vy = y < 0 ? vn : values[y];
+        add(vy !== vn && beatsBits[x][vy * stride + (vn >>> 5)] & (1 << (vn & 31)) ? vy : vn, count);
+      } else {
+        stepInto(x, t, values, buffer);
+        tail(to, buffer, depth + 1, count);
+      }
     }
   };
   let polled = 0;
