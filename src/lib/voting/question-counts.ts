@@ -28,6 +28,82 @@ export function sincereQuestionCounts(qa: QuestionAgenda, prec: Precedence, cont
   return byOutcome(countOrders(prec, m, "forward", control), qa.outcome, qa.model.versions.length);
 }
 
+/**
+ * One backward-induction step: the table before question x from the table after it. x's vote compares
+ * the outcomes of its two branches (`bits`: x's beats relation, see QuestionAgenda.beatsBits); where x
+ * falls (`yes` −1) the rejected branch's outcome passes on. Module-level, so every count shares one
+ * optimised copy.
+ */
+function stepTable(bits: Uint32Array, stride: number, no: Int32Array, yes: Int32Array, alwaysPut: boolean, values: Int32Array, out: Int32Array): void {
+  const size = no.length;
+  if (alwaysPut)
+    for (let i = 0; i < size; i++) {
+      const vn = values[no[i]];
+      const vy = values[yes[i]];
+      out[i] = vy !== vn && bits[vy * stride + (vn >>> 5)] & (1 << (vn & 31)) ? vy : vn;
+    }
+  else
+    for (let i = 0; i < size; i++) {
+      const vn = values[no[i]];
+      const y = yes[i];
+      if (y < 0) out[i] = vn;
+      else {
+        const vy = values[y];
+        out[i] = vy !== vn && bits[vy * stride + (vn >>> 5)] & (1 << (vn & 31)) ? vy : vn;
+      }
+    }
+}
+
+interface TailWalk {
+  full: number;
+  prec: Precedence;
+  stride: number;
+  beatsBits: Uint32Array[];
+  /** One table per depth. */
+  buffers: Int32Array[];
+  /** Cache of availableMask(prec, placed, "backward") (−1: not yet), or null. */
+  availBackward: Int32Array | null;
+  transition: (c2: number, x: number) => { no: Int32Array; yes: Int32Array; alwaysPut: boolean } | null;
+  out: Count[];
+  useBig: boolean;
+}
+
+/**
+ * Depth first from one table: every legal way to place the remaining questions (backward), adding
+ * `count` to the outcome each reaches. Module-level for the same reason as stepTable.
+ */
+function tailWalk(w: TailWalk, placed: number, values: Int32Array, depth: number, count: Count): void {
+  const { full, out } = w;
+  if (placed === full) {
+    const v = values[0];
+    out[v] = w.useBig ? (out[v] as bigint) + (count as bigint) : (out[v] as number) + (count as number);
+    return;
+  }
+  const buffer = w.buffers[depth + 1];
+  let avail = w.availBackward ? w.availBackward[placed] : -1;
+  if (avail === -1) {
+    avail = availableMask(w.prec, placed, "backward");
+    if (w.availBackward) w.availBackward[placed] = avail;
+  }
+  for (; avail !== 0; avail &= avail - 1) {
+    const x = 31 - Math.clz32(avail & -avail);
+    const to = placed | (1 << x);
+    const t = w.transition(~to & full, x);
+    if (!t) continue;
+    if (to === full) {
+      // The first question of the order: one entry (nothing adopted before it).
+      const vn = values[t.no[0]];
+      const y = t.yes[0];
+      const vy = y < 0 ? vn : values[y];
+      const v = vy !== vn && w.beatsBits[x][vy * w.stride + (vn >>> 5)] & (1 << (vn & 31)) ? vy : vn;
+      out[v] = w.useBig ? (out[v] as bigint) + (count as bigint) : (out[v] as number) + (count as number);
+    } else {
+      stepTable(w.beatsBits[x], w.stride, t.no, t.yes, t.alwaysPut, values, buffer);
+      tailWalk(w, to, buffer, depth + 1, count);
+    }
+  }
+}
+
 /** Total entries of the value tables alive at once (two positions); beyond it the count stops with limit-exceeded. */
 export const MAX_TABLE_ENTRIES = 30_000_000;
 
@@ -150,28 +226,7 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
     else transitions.set(key, t);
     return t;
   };
-  // One backward-induction step: the table before x from the table after it (x's vote compares the
-  // outcomes of its two branches; a question that falls passes the rejected branch's outcome on).
-  const stepInto = (x: number, t: Transition & object, values: Int32Array, out: Int32Array) => {
-    const { no, yes } = t;
-    const bits = beatsBits[x];
-    if (t.alwaysPut)
-      for (let i = 0; i < no.length; i++) {
-        const vn = values[no[i]];
-        const vy = values[yes[i]];
-        out[i] = vy !== vn && bits[vy * stride + (vn >>> 5)] & (1 << (vn & 31)) ? vy : vn;
-      }
-    else
-      for (let i = 0; i < no.length; i++) {
-        const vn = values[no[i]];
-        const y = yes[i];
-        if (y < 0) out[i] = vn;
-        else {
-          const vy = values[y];
-          out[i] = vy !== vn && bits[vy * stride + (vn >>> 5)] & (1 << (vn & 31)) ? vy : vn;
-        }
-      }
-  };
+  const stepInto = (x: number, t: Transition & object, values: Int32Array, out: Int32Array) => stepTable(beatsBits[x], stride, t.no, t.yes, t.alwaysPut, values, out);
   // Tables: values[i] is the backward-induction outcome of the remaining suffix when the questions C
   // before it left the adopted set reach(C)[i]. Interned per position (equal tables merge the orders
   // that reach them); only the tables of two positions are alive at a time.
@@ -256,41 +311,14 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
   const out: Count[] = new Array(versions).fill(useBig ? 0n : 0);
   const buffers = [...Array(tailLength + 1).keys()].map((d) => new Int32Array(2 ** (tailLength - d)));
   const availBackward = n <= 20 ? new Int32Array(2 ** n).fill(-1) : null;
-  const add = (v: number, count: Count) => {
-    out[v] = useBig ? (out[v] as bigint) + (count as bigint) : (out[v] as number) + (count as number);
-  };
-  const tail = (placed: number, values: Int32Array, depth: number, count: Count) => {
-    if (placed === full) return add(values[0], count);
-    const buffer = buffers[depth + 1];
-    let avail = availBackward ? availBackward[placed] : -1;
-    if (avail === -1) {
-      avail = availableMask(prec, placed, "backward");
-      if (availBackward) availBackward[placed] = avail;
-    }
-    for (; avail !== 0; avail &= avail - 1) {
-      const x = 31 - Math.clz32(avail & -avail);
-      const to = placed | (1 << x);
-      const t = transition(~to & full, x);
-      if (!t) continue;
-      if (to === full) {
-        // The first question of the order: one entry (nothing adopted before it).
-        const vn = values[t.no[0]];
-        const y = t.yes[0];
-        const vy = y < 0 ? vn : values[y];
-        add(vy !== vn && beatsBits[x][vy * stride + (vn >>> 5)] & (1 << (vn & 31)) ? vy : vn, count);
-      } else {
-        stepInto(x, t, values, buffer);
-        tail(to, buffer, depth + 1, count);
-      }
-    }
-  };
+  const walk: TailWalk = { full, prec, stride, beatsBits, buffers, availBackward, transition, out, useBig };
   let polled = 0;
   for (const [placed, dist] of layer)
     for (const [id, count] of dist) {
       if (id === DEAD) continue;
       if (control.shouldCancel && (polled++ & 1023) === 0 && control.shouldCancel())
         throw new GavelError("limit-exceeded", "the analysis was cancelled", { details: { cancelled: true } });
-      tail(placed, vals[id]!, 0, count);
+      tailWalk(walk, placed, vals[id]!, 0, count);
     }
   control.onProgress?.(1);
   return out;
