@@ -44,11 +44,11 @@ export function countOrders<S extends number | string>(prec: Precedence, machine
 }
 
 /**
- * The engine's layer once `stopAfter(placedCount)` says so after a position is filled (or after the last):
+ * The engine's layer once `stopAfter(placedCount, layer)` says so after a position is filled (or after the last):
  * for every placed set, the states reached and the number of partial orders reaching each. Callers that
  * finish the remaining positions another way use it.
  */
-export function countOrderLayer<S extends number | string>(prec: Precedence, machine: OrderMachine<S>, direction: "forward" | "backward", control: RunControl, stopAfter: (placedCount: number) => boolean): Map<number, Map<S, Count>> {
+export function countOrderLayer<S extends number | string>(prec: Precedence, machine: OrderMachine<S>, direction: "forward" | "backward", control: RunControl, stopAfter: (placedCount: number, layer: Map<number, Map<S, Count>>) => boolean): Map<number, Map<S, Count>> {
   const { n } = prec;
   const useBig = n > 18;
   const one: Count = useBig ? 1n : 1;
@@ -83,7 +83,7 @@ export function countOrderLayer<S extends number | string>(prec: Precedence, mac
     }
     layer = next;
     control.onProgress?.((pos + 1) / n);
-    if (pos + 1 < n && stopAfter(pos + 1)) break;
+    if (pos + 1 < n && stopAfter(pos + 1, layer)) break;
   }
   return layer;
 }

@@ -110,12 +110,16 @@ export const MAX_TABLE_ENTRIES = 30_000_000;
 /**
  * The first questions of an order (the last positions placed backward) are evaluated depth first from
  * each table instead of being interned: at most this many always (their tables are tiny and many), and
- * all that remain as soon as a position merges few tables (below, SWITCH_WHEN_NEW) or the live tables
- * pass SWITCH_AT_ENTRIES: then interning costs memory and hashing and saves next to nothing.
+ * all that remain as soon as a position merges few tables (more than SWITCH_WHEN_NEW of the tables it
+ * computes are new) or the live tables pass SWITCH_AT_ENTRIES — then interning costs memory and hashing
+ * and saves next to nothing — provided the depth-first work, computed exactly beforehand (table entries
+ * over every remaining path), stays within DEPTH_FIRST_BUDGET: depth first never merges, so where later
+ * positions would merge again (many orders, structured preferences) the tables go on.
  */
 export const DEPTH_FIRST_TAIL = 5;
 const SWITCH_WHEN_NEW = 0.5;
 const SWITCH_AT_ENTRIES = 8_000_000;
+const DEPTH_FIRST_BUDGET = 500_000_000;
 
 /**
  * `tuning.depthFirstTail` (tests): evaluate at least this many of the first questions depth first
@@ -297,11 +301,30 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
       return r;
     },
   };
-  const layer = countOrderLayer(prec, m, "backward", control, (placedCount) => {
+  // Depth-first work from a placed set: table entries computed over every way to place the rest.
+  const walkCost = new Map<number, number>();
+  const costFrom = (placed: number): number => {
+    if (placed === full) return 0;
+    const known = walkCost.get(placed);
+    if (known !== undefined) return known;
+    let cost = 0;
+    for (let avail = availableMask(prec, placed, "backward"); avail !== 0; avail &= avail - 1) {
+      const x = 31 - Math.clz32(avail & -avail);
+      const t = transition(~(placed | (1 << x)) & full, x);
+      if (t) cost += t.no.length + costFrom(placed | (1 << x));
+    }
+    walkCost.set(placed, cost);
+    return cost;
+  };
+  const layer = countOrderLayer(prec, m, "backward", control, (placedCount, states) => {
     const made = vals.length - layerFirst;
-    const stop = n - placedCount <= depthFirstTail || live > SWITCH_AT_ENTRIES || (made > 1000 && made > SWITCH_WHEN_NEW * computed);
+    const wanted = live > SWITCH_AT_ENTRIES || (made > 1000 && made > SWITCH_WHEN_NEW * computed);
     computed = 0;
-    return stop;
+    if (n - placedCount <= depthFirstTail) return true;
+    if (!wanted) return false;
+    let cost = 0;
+    for (const [placed, dist] of states) cost += dist.size * costFrom(placed);
+    return cost <= DEPTH_FIRST_BUDGET;
   });
   let placedCount = n;
   for (const placed of layer.keys()) placedCount = popcount(placed);
