@@ -335,13 +335,20 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
   const buffers = [...Array(tailLength + 1).keys()].map((d) => new Int32Array(2 ** (tailLength - d)));
   const availBackward = n <= 20 ? new Int32Array(2 ** n).fill(-1) : null;
   const walk: TailWalk = { full, prec, stride, beatsBits, buffers, availBackward, transition, out, useBig };
+  // Progress through the tail by its work done; cancellation is polled every 64 tables.
+  let work = 0;
+  let done = 0;
+  if (control.onProgress) for (const [placed, dist] of layer) work += dist.size * costFrom(placed);
   let polled = 0;
   for (const [placed, dist] of layer)
     for (const [id, count] of dist) {
       if (id === DEAD) continue;
-      if (control.shouldCancel && (polled++ & 1023) === 0 && control.shouldCancel())
-        throw new GavelError("limit-exceeded", "the analysis was cancelled", { details: { cancelled: true } });
+      if ((polled++ & 63) === 0) {
+        if (control.shouldCancel?.()) throw new GavelError("limit-exceeded", "the analysis was cancelled", { details: { cancelled: true } });
+        if (work > 0) control.onProgress?.((placedCount + (tailLength * done) / work) / n);
+      }
       tailWalk(walk, placed, vals[id]!, 0, count);
+      if (control.onProgress) done += costFrom(placed);
     }
   control.onProgress?.(1);
   return out;
