@@ -104,7 +104,10 @@ function tailWalk(w: TailWalk, placed: number, values: Int32Array, depth: number
   }
 }
 
-/** Total entries of the value tables alive at once (two positions); beyond it the count stops with limit-exceeded. */
+/**
+ * Total entries of the value tables alive at once (two positions), and separately of the lists of
+ * reachable adopted sets; beyond either the count stops with limit-exceeded.
+ */
 export const MAX_TABLE_ENTRIES = 30_000_000;
 
 /**
@@ -163,6 +166,7 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
       return f;
     };
   };
+  let reachEntries = 1;
   {
     let layer = [0];
     for (let pos = 0; pos < n; pos++) {
@@ -196,6 +200,8 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
             }
           }
         }
+        reachEntries += to.length;
+        if (reachEntries > MAX_TABLE_ENTRIES) throw new GavelError("limit-exceeded", `the sophisticated count needs more than ${MAX_TABLE_ENTRIES} reachable adopted sets`, { details: { sets: reach.size } });
         reach.set(c2, Int32Array.from(to).sort());
       }
       layer = [...into.keys()];
