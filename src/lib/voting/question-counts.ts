@@ -68,6 +68,24 @@ interface TailWalk {
   useBig: boolean;
 }
 
+function availableBackward(w: TailWalk, placed: number): number {
+  let avail = w.availBackward ? w.availBackward[placed] : -1;
+  if (avail === -1) {
+    avail = availableMask(w.prec, placed, "backward");
+    if (w.availBackward) w.availBackward[placed] = avail;
+  }
+  return avail;
+}
+
+/** Entry i of the table stepTable would write (one entry, for the last two steps of a walk). */
+function entryAfter(bits: Uint32Array, stride: number, no: Int32Array, yes: Int32Array, values: Int32Array, i: number): number {
+  const vn = values[no[i]];
+  const y = yes[i];
+  if (y < 0) return vn;
+  const vy = values[y];
+  return vy !== vn && bits[vy * stride + (vn >>> 5)] & (1 << (vn & 31)) ? vy : vn;
+}
+
 /**
  * Depth first from one table: every legal way to place the remaining questions (backward), adding
  * `count` to the outcome each reaches. Module-level for the same reason as stepTable.
@@ -80,24 +98,28 @@ function tailWalk(w: TailWalk, placed: number, values: Int32Array, depth: number
     return;
   }
   const buffer = w.buffers[depth + 1];
-  let avail = w.availBackward ? w.availBackward[placed] : -1;
-  if (avail === -1) {
-    avail = availableMask(w.prec, placed, "backward");
-    if (w.availBackward) w.availBackward[placed] = avail;
-  }
-  for (; avail !== 0; avail &= avail - 1) {
+  for (let avail = availableBackward(w, placed); avail !== 0; avail &= avail - 1) {
     const x = 31 - Math.clz32(avail & -avail);
     const to = placed | (1 << x);
     const t = w.transition(~to & full, x);
     if (!t) continue;
+    const rest = ~to & full;
+    let v = -1;
     if (to === full) {
       // The first question of the order: one entry (nothing adopted before it).
-      const vn = values[t.no[0]];
-      const y = t.yes[0];
-      const vy = y < 0 ? vn : values[y];
-      const v = vy !== vn && w.beatsBits[x][vy * w.stride + (vn >>> 5)] & (1 << (vn & 31)) ? vy : vn;
-      out[v] = w.useBig ? (out[v] as bigint) + (count as bigint) : (out[v] as number) + (count as number);
-    } else {
+      v = entryAfter(w.beatsBits[x], w.stride, t.no, t.yes, values, 0);
+    } else if ((rest & (rest - 1)) === 0) {
+      // One question z left before x: its one entry, from the two entries of x's table it reads.
+      const z = 31 - Math.clz32(rest);
+      const tz = availableBackward(w, to) & rest ? w.transition(0, z) : null;
+      if (!tz) continue;
+      const bx = w.beatsBits[x];
+      const vn = entryAfter(bx, w.stride, t.no, t.yes, values, tz.no[0]);
+      const vy = tz.yes[0] < 0 ? vn : entryAfter(bx, w.stride, t.no, t.yes, values, tz.yes[0]);
+      v = vy !== vn && w.beatsBits[z][vy * w.stride + (vn >>> 5)] & (1 << (vn & 31)) ? vy : vn;
+    }
+    if (v >= 0) out[v] = w.useBig ? (out[v] as bigint) + (count as bigint) : (out[v] as number) + (count as number);
+    else {
       stepTable(w.beatsBits[x], w.stride, t.no, t.yes, t.alwaysPut, values, buffer);
       tailWalk(w, to, buffer, depth + 1, count);
     }
