@@ -153,6 +153,7 @@ const DEPTH_FIRST_BUDGET = 500_000_000;
 export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence, control: RunControl = {}, tuning: { depthFirstTail?: number } = {}): Count[] {
   const depthFirstTail = tuning.depthFirstTail ?? DEPTH_FIRST_TAIL;
   const n = qa.k + 1;
+  if (n > 24) throw new GavelError("limit-exceeded", `the sophisticated count handles at most 24 questions; got ${n}`);
   const full = (2 ** n - 1) | 0;
   const versions = qa.model.versions.length;
   const stride = (versions + 31) >>> 5;
@@ -169,7 +170,6 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
   const reach = new Map<number, Int32Array>([[0, Int32Array.of(0)]]);
   const stamp = new Int32Array(2 ** Math.min(n, 24)).fill(-1);
   const index = new Int32Array(2 ** Math.min(n, 24));
-  if (n > 24) throw new GavelError("limit-exceeded", `the sophisticated count handles at most 24 questions; got ${n}`);
   // Whether x falls after the questions `decided`, as a function of the adopted set: it reads only the
   // bits of fallsRelevant(x). The motion branch's state is adopted | (1 << x) (question-agenda.ts).
   const fallsGiven = (x: number, decided: number) => {
