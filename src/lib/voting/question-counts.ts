@@ -54,6 +54,18 @@ function stepTable(bits: Uint32Array, stride: number, no: Int32Array, yes: Int32
     }
 }
 
+interface TableStep {
+  no: Int32Array;
+  yes: Int32Array;
+  alwaysPut: boolean;
+}
+
+/** A step of the walk: x placed before the questions `placed` (null: a dead end). */
+function stepOf(w: TailWalk, c2: number, x: number): TableStep | null {
+  const t = w.made === null ? undefined : w.made[x * w.pow + c2];
+  return t === undefined ? w.transition(c2, x) : t;
+}
+
 interface TailWalk {
   full: number;
   prec: Precedence;
@@ -63,7 +75,10 @@ interface TailWalk {
   buffers: Int32Array[];
   /** Cache of availableMask(prec, placed, "backward") (−1: not yet), or null. */
   availBackward: Int32Array | null;
-  transition: (c2: number, x: number) => { no: Int32Array; yes: Int32Array; alwaysPut: boolean } | null;
+  transition: (c2: number, x: number) => TableStep | null;
+  /** The transitions already made, by x · 2^n + C2 (read here first: one call site per closure would go polymorphic across counts). */
+  made: Array<TableStep | null | undefined> | null;
+  pow: number;
   out: Count[];
   useBig: boolean;
 }
@@ -101,7 +116,7 @@ function tailWalk(w: TailWalk, placed: number, values: Int32Array, depth: number
   for (let avail = availableBackward(w, placed); avail !== 0; avail &= avail - 1) {
     const x = 31 - Math.clz32(avail & -avail);
     const to = placed | (1 << x);
-    const t = w.transition(~to & full, x);
+    const t = stepOf(w, ~to & full, x);
     if (!t) continue;
     const rest = ~to & full;
     let v = -1;
@@ -111,7 +126,7 @@ function tailWalk(w: TailWalk, placed: number, values: Int32Array, depth: number
     } else if ((rest & (rest - 1)) === 0) {
       // One question z left before x: its one entry, from the two entries of x's table it reads.
       const z = 31 - Math.clz32(rest);
-      const tz = availableBackward(w, to) & rest ? w.transition(0, z) : null;
+      const tz = availableBackward(w, to) & rest ? stepOf(w, 0, z) : null;
       if (!tz) continue;
       const bx = w.beatsBits[x];
       const vn = entryAfter(bx, w.stride, t.no, t.yes, values, tz.no[0]);
@@ -232,7 +247,7 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
   // Per transition (C2 = C without x, forward-legal): for each i, the index in reach(C) of the rejected
   // branch's adopted set, and of the adopted branch's or −1 when x falls. Null: a dead end.
   // Cached per (C2, x): an array indexed by x · 2^n + C2 while that stays small, else a map.
-  type Transition = { no: Int32Array; yes: Int32Array; alwaysPut: boolean } | null;
+  type Transition = TableStep | null;
   const flat = n <= 16 ? new Array<Transition | undefined>(n << n) : null;
   const transitions = new Map<number, Transition>();
   const transition = (c2: number, x: number): Transition => {
@@ -362,7 +377,7 @@ export function sophisticatedQuestionCounts(qa: QuestionAgenda, prec: Precedence
   const out: Count[] = new Array(versions).fill(useBig ? 0n : 0);
   const buffers = [...Array(tailLength + 1).keys()].map((d) => new Int32Array(2 ** (tailLength - d)));
   const availBackward = n <= 20 ? new Int32Array(2 ** n).fill(-1) : null;
-  const walk: TailWalk = { full, prec, stride, beatsBits, buffers, availBackward, transition, out, useBig };
+  const walk: TailWalk = { full, prec, stride, beatsBits, buffers, availBackward, transition, made: flat, pow: 2 ** n, out, useBig };
   // Progress through the tail by its work done; cancellation is polled every 64 tables.
   let work = 0;
   let done = 0;
