@@ -8,8 +8,9 @@
  * blocks, which depend on the placed set); a partial order from which nothing can follow is dropped.
  *
  * Every count in the product (legal orders, outcomes of sincere and sophisticated voting, orders
- * of question trees) is one run of this engine. Counts are exact: float64 while n! < 2^53 (n ≤ 18;
- * every partial count is at most n!), BigInt above.
+ * of question trees) is one run of this engine; the sophisticated count on amendment trees runs it up
+ * to a layer (`countOrderLayer`) and finishes the last positions depth first (question-counts.ts).
+ * Counts are exact: float64 while n! < 2^53 (n ≤ 18; every partial count is at most n!), BigInt above.
  */
 import { GavelError } from "../errors.ts";
 import type { Count } from "./count-json.ts";
