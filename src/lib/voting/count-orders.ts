@@ -8,8 +8,9 @@
  * blocks, which depend on the placed set); a partial order from which nothing can follow is dropped.
  *
  * Every count in the product (legal orders, outcomes of sincere and sophisticated voting, orders
- * of question trees) is one run of this engine. Counts are exact: float64 while n! < 2^53 (n ≤ 18;
- * every partial count is at most n!), BigInt above.
+ * of question trees) is one run of this engine; the sophisticated count on amendment trees runs it up
+ * to a layer (`countOrderLayer`) and finishes the last positions depth first (question-counts.ts).
+ * Counts are exact: float64 while n! < 2^53 (n ≤ 18; every partial count is at most n!), BigInt above.
  */
 import { GavelError } from "../errors.ts";
 import type { Count } from "./count-json.ts";
@@ -38,6 +39,17 @@ export const DEFAULT_MAX_STATES = 4_000_000;
  * last item first (so machines like the Shepsle–Weingast chain see x_m, x_{m−1}, …).
  */
 export function countOrders<S extends number | string>(prec: Precedence, machine: OrderMachine<S>, direction: "forward" | "backward" = "forward", control: RunControl = {}): Map<S, Count> {
+  const { n } = prec;
+  const layer = countOrderLayer(prec, machine, direction, control, () => false);
+  return layer.get(n === 0 ? 0 : (2 ** n - 1) | 0) ?? (n === 0 ? layer.get(0)! : new Map());
+}
+
+/**
+ * The engine's layer once `stopAfter(placedCount, layer)` says so after a position is filled (or after the last):
+ * for every placed set, the states reached and the number of partial orders reaching each. Callers that
+ * finish the remaining positions another way use it.
+ */
+export function countOrderLayer<S extends number | string>(prec: Precedence, machine: OrderMachine<S>, direction: "forward" | "backward", control: RunControl, stopAfter: (placedCount: number, layer: Map<number, Map<S, Count>>) => boolean): Map<number, Map<S, Count>> {
   const { n } = prec;
   const useBig = n > 18;
   const one: Count = useBig ? 1n : 1;
@@ -72,8 +84,9 @@ export function countOrders<S extends number | string>(prec: Precedence, machine
     }
     layer = next;
     control.onProgress?.((pos + 1) / n);
+    if (pos + 1 < n && stopAfter(pos + 1, layer)) break;
   }
-  return layer.get(n === 0 ? 0 : (2 ** n - 1) | 0) ?? (n === 0 ? layer.get(0)! : new Map());
+  return layer;
 }
 
 /** Number of legal orders (linear extensions). */
