@@ -26,6 +26,7 @@ import { amendmentKey } from "./amendments.ts";
 import { measureRow } from "./measures.ts";
 import { caseFromRows, MEASURE_KEY } from "./trees.ts";
 import { readStored } from "../stored-json.ts";
+import { sectionInWords } from "../../amendments/amendment-words.ts";
 
 export type EstimateRow = typeof estimates.$inferSelect;
 
@@ -113,7 +114,7 @@ export async function treeFor(chamberId: string, measureId: string, scope: strin
       chosen.map((a) => {
         const r = byKey.get(a.id)!;
         const degree: 1 | 2 = a.target === MEASURE_KEY || sectionHeading.has(a.target) ? 1 : 2;
-        const targetLabel = a.target === MEASURE_KEY ? `the whole of ${m.number}` : sectionHeading.has(a.target) ? `section ${a.target.replace(/^s/, "")} (${sectionHeading.get(a.target)})` : `amendment ${a.target}`;
+        const targetLabel = a.target === MEASURE_KEY ? `the whole of ${m.number}` : sectionHeading.has(a.target) ? `${sectionInWords(a.target)} (${sectionHeading.get(a.target)})` : `amendment ${a.target}`;
         return [a.id, { title: r.title, form: r.form, target: a.target, targetLabel, lines: r.lineFrom === null ? null : [r.lineFrom, r.lineTo!] as [number, number], degree }];
       }),
     ),
