@@ -92,6 +92,11 @@ function targetLabel(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow):
   return `Amendment ${keys.get(a.targetAmendmentId ?? "") ?? "(removed)"}`;
 }
 
+function wordsOf(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow): string {
+  const words = filedAmendmentInWords({ key: amendmentKey(a), measure: m.number, targetKind: a.targetKind, section: a.targetSection, targetKey: keys.get(a.targetAmendmentId ?? "") ?? null, lines: a.lineFrom === null ? null : [a.lineFrom, a.lineTo ?? a.lineFrom] });
+  return a.number === null ? words.replace(/^Amendment \S+/, "A draft amendment") : words;
+}
+
 function view(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow, names: ReadonlyMap<string, string>) {
   return {
     id: a.id,
@@ -103,6 +108,8 @@ function view(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow, names: 
     formLabel: FORM_LABELS[a.form as keyof typeof FORM_LABELS] ?? a.form,
     target: a.targetKind === "measure" ? "measure" : a.targetKind === "section" ? a.targetSection! : (keys.get(a.targetAmendmentId ?? "") ?? a.targetAmendmentId!),
     targetLabel: targetLabel(a, keys, m),
+    /** In words: "Amendment A3 to section 2 of HCA 12" (a draft: "A draft amendment to …"). */
+    words: wordsOf(a, keys, m),
     lines: a.lineFrom === null ? null : ([a.lineFrom, a.lineTo!] as [number, number]),
     text: a.text,
     subjects: a.subjects,
