@@ -166,6 +166,7 @@ export const API_ROUTES: readonly ApiRoute[] = [
   { file: "api/measures/sponsors.ts", method: "GET", path: "/api/measures/sponsors", audience: ALL_ROLES, outsider: "own-chamber" },
   { file: "api/measures/[id]/index.ts", method: "GET", path: "/api/measures/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "measure" } },
   { file: "api/measures/[id]/index.ts", method: "PATCH", path: "/api/measures/:id", audience: CLERKS, outsider: "refused", params: { id: "measure" }, body: () => ({ version: 1, title: "Taken over" }) },
+  { file: "api/measures/[id]/archive.ts", method: "POST", path: "/api/measures/:id/archive", audience: CLERKS, outsider: "refused", params: { id: "measure" }, body: () => ({ version: 1 }), note: "archived measures leave the lists and option forms, stay readable; later changes answer 409 archived" },
   { file: "api/measures/[id]/amendments.ts", method: "GET", path: "/api/measures/:id/amendments", audience: ALL_ROLES, outsider: "refused", params: { id: "measure" } },
   { file: "api/measures/[id]/amendments.ts", method: "POST", path: "/api/measures/:id/amendments", audience: FILERS, outsider: "refused", params: { id: "measure" }, body: () => ({ form: "insert", target: "measure", text: "access" }) },
   { file: "api/measures/[id]/tree.ts", method: "GET", path: "/api/measures/:id/tree", audience: ALL_ROLES, outsider: "refused", params: { id: "measure" } },

@@ -20,7 +20,7 @@ import { amendmentFileSchema, amendmentUpdateSchema, AMENDMENT_STATUS_LABELS, FO
 import { subjectList } from "../measure-sections.ts";
 import { treeOf } from "./trees.ts";
 import { checkDocument, type MultipartUpload } from "../uploads.ts";
-import { checkLegislators, legislatorNames, measureRow, type MeasureRow } from "./measures.ts";
+import { assertNotArchived, checkLegislators, legislatorNames, measureRow, type MeasureRow } from "./measures.ts";
 import { dateStyleOf, formatDateTime } from "../../text/dates.ts";
 
 export type AmendmentRow = typeof amendments.$inferSelect;
@@ -236,6 +236,7 @@ async function assertNotRepeated(tx: Tx, actor: Actor, m: MeasureRow, input: Fil
 type FileInput = Omit<z.output<typeof amendmentFileSchema>, "confirm"> & { confirm?: boolean };
 
 async function insertAmendment(tx: Tx, actor: Actor, m: MeasureRow, input: FileInput, attachmentId: string | null): Promise<AmendmentRow> {
+  assertNotArchived(m);
   if (CLOSED_MEASURE.has(m.status)) throw new GavelError("unprocessable", `${m.number} is ${m.status}; it takes no more amendments.`, { issues: [{ path: "(measure)", message: `measure is ${m.status}` }] });
   const names = await checkLegislators(actor.chamber.id, input.sponsors, "sponsors", tx);
   const target = await resolveTarget(tx, m, input.target, input.lines);
@@ -284,7 +285,7 @@ async function filingAnswer(actor: Actor, id: string) {
 }
 
 export async function fileAmendment(actor: Actor, measureId: string, input: FileInput) {
-  const row = await db.transaction(async (tx) => insertAmendment(tx, actor, await measureRow(actor.chamber.id, measureId, tx), input, null));
+  const row = await db.transaction(async (tx) => insertAmendment(tx, actor, await measureRow(actor.chamber.id, measureId, tx, true), input, null));
   return filingAnswer(actor, row.id);
 }
 
@@ -316,7 +317,8 @@ export async function fileAmendmentFromUpload(actor: Actor, measureId: string, {
   if (!file) throw new GavelError("invalid-input", "upload: attach the amendment as `file`", { issues: [{ path: "file", message: "required" }] });
   const doc = await checkDocument(file);
   const row = await db.transaction(async (tx) => {
-    const m = await measureRow(actor.chamber.id, measureId, tx);
+    const m = await measureRow(actor.chamber.id, measureId, tx, true);
+    assertNotArchived(m);
     const [att] = await tx.insert(measureAttachments).values({ chamberId: actor.chamber.id, filename: doc.filename, mediaType: doc.mediaType, size: doc.size, sha256: doc.sha256, bytes: doc.bytes, extractedText: doc.text, uploadedBy: actor.user.id }).returning({ id: measureAttachments.id });
     return insertAmendment(tx, actor, m, { ...input, text: input.text.trim() ? input.text : doc.text.slice(0, 200_000) }, att.id);
   });
@@ -339,6 +341,7 @@ export async function updateAmendment(actor: Actor, id: string, input: z.output<
     await assertFresh(tx, { entity: "amendment", entityId: a.id, label: `Amendment ${amendmentKey(a)}` }, input.version, a.version);
     if (a.status === "draft" && input.status) throw new GavelError("unprocessable", "status: file the draft first (POST /api/amendments/:id/file)", { issues: [{ path: "status", message: "a draft is filed, not given a status" }] });
     const m = await measureRow(actor.chamber.id, a.measureId, tx);
+    assertNotArchived(m);
     if (input.sponsors) await checkLegislators(actor.chamber.id, input.sponsors, "sponsors", tx);
     const lines = input.lines !== undefined ? input.lines : a.lineFrom === null ? null : ([a.lineFrom, a.lineTo!] as [number, number]);
     const currentTarget = a.targetKind === "measure" ? "measure" : a.targetKind === "section" ? a.targetSection! : a.targetAmendmentId!;
@@ -363,6 +366,7 @@ export async function fileDraft(actor: Actor, id: string, input: z.output<typeof
     await assertFresh(tx, { entity: "amendment", entityId: a.id, label: `Amendment ${amendmentKey(a)}` }, input.version, a.version);
     if (a.status !== "draft") throw new GavelError("conflict", `Amendment ${amendmentKey(a)} is already filed.`, { issues: [{ path: "(status)", message: `is ${a.status}` }] });
     const m = await measureRow(actor.chamber.id, a.measureId, tx);
+    assertNotArchived(m);
     if (CLOSED_MEASURE.has(m.status)) throw new GavelError("unprocessable", `${m.number} is ${m.status}; it takes no more amendments.`);
     const number = await nextNumber(tx, m.id);
     const [next] = await tx.update(amendments).set({ number, status: "filed", filedAt: new Date(), filedBy: actor.user.id, version: a.version + 1, updatedAt: new Date() }).where(eq(amendments.id, a.id)).returning();
