@@ -143,7 +143,7 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
         </div>
       )}
       {filed && (
-        <div ref={confirmation} tabIndex={-1} aria-label="Filing confirmation">
+        <div ref={confirmation} tabIndex={-1} role="group" aria-label="Filing confirmation">
           <Alert tone="ok" look="box" testId="filing-confirmation">
             <span className="block font-semibold">Filed as {filed.name ?? `Amendment ${filed.key}`}. The receipt goes to its sponsors by e-mail.</span>
             {filed.check?.degree != null && <span className="mt-1 block">The tree check reads it as {DEGREE_WORDS[filed.check.degree] ?? `an amendment of degree ${filed.check.degree}`}.</span>}

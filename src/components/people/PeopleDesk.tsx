@@ -86,15 +86,16 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
       if (pending.kind === "role") await apiCall(anyAnswer, `/api/people/members/${pending.memberId}`, { method: "PATCH", body: { role: pending.to } });
       else if (pending.kind === "remove") await apiCall(anyAnswer, `/api/people/members/${pending.memberId}`, { method: "DELETE" });
       else await apiCall(anyAnswer, `/api/people/removed/${pending.userId}`, { method: "POST" });
-      setStatus(
-        pending.kind === "role"
-          ? `${pending.name} is now ${roleLabel(pending.to)}. The change is in the people log.`
-          : pending.kind === "remove"
-            ? `${pending.name} was removed from the chamber. The removal is in the people log.`
-            : `${pending.name} is back in the chamber as ${roleLabel(pending.role)}.`,
-      );
+      const done = pending;
       setPending(null);
       await load();
+      setStatus(
+        done.kind === "role"
+          ? `${done.name} is now ${roleLabel(done.to)}. The change is in the people log.`
+          : done.kind === "remove"
+            ? `${done.name} was removed from the chamber. The removal is in the people log.`
+            : `${done.name} is back in the chamber as ${roleLabel(done.role)}.`,
+      );
     } catch (err) {
       setRefusal(errorText(err, "Nothing was changed."));
     } finally {

@@ -93,16 +93,19 @@ describe("filing amendments", () => {
     expect(r.status).toBe(201);
     const queued = await db.select().from(outbox).where(and(eq(outbox.ref, r.body.id), eq(outbox.kind, "amendment-receipt")));
     expect(queued.map((q) => [q.to, q.subject]).sort()).toEqual([
-      ["clerk@harrowmere.example", "Filing receipt: Amendment A1 to HCA 103 (copy)"],
+      ["clerk@harrowmere.example", "Filing receipt: Amendment A1 to HCA 103"],
       ["member@harrowmere.example", "Filing receipt: Amendment A1 to HCA 103"],
     ]);
     const before = (await db.select().from(outbox)).length;
     expect((await file(m.id, { target: "s7" })).status).toBe(422);
     expect((await db.select().from(outbox)).length).toBe(before);
     await deliverOutbox(100);
-    const mail = inbox.find((x) => x.subject === "Filing receipt: Amendment A1 to HCA 103");
+    const mail = inbox.find((x) => x.subject === "Filing receipt: Amendment A1 to HCA 103" && x.to.includes("member@harrowmere.example"));
     expect(mail?.to).toContain("member@harrowmere.example");
     expect(mail?.text).toContain("Amendment A1 to section 1 of HCA 103");
+    expect(mail?.text).not.toContain("this copy");
+    const copy = inbox.find((x) => x.subject === "Filing receipt: Amendment A1 to HCA 103" && x.to.includes("clerk@harrowmere.example"));
+    expect(copy?.text).toContain("You receive this copy because you filed the amendment");
     // No internal id, no ISO 8601 time (the chamber's format instead).
     expect(mail?.text).not.toContain(r.body.id);
     expect(mail?.text).not.toMatch(/\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/);

@@ -195,7 +195,7 @@ async function queueReceipt(tx: Tx, actor: Actor, m: MeasureRow, a: AmendmentRow
     seen.add(s.userId);
     await enqueueMail({ kind: "amendment-receipt", ref: a.id, chamberId: actor.chamber.id, to: s.email, subject, text: body(false) }, tx);
   }
-  if (!seen.has(actor.user.id)) await enqueueMail({ kind: "amendment-receipt", ref: a.id, chamberId: actor.chamber.id, to: filer.email, subject: `${subject} (copy)`, text: body(true) }, tx);
+  if (!seen.has(actor.user.id)) await enqueueMail({ kind: "amendment-receipt", ref: a.id, chamberId: actor.chamber.id, to: filer.email, subject, text: body(true) }, tx);
 }
 
 /**
