@@ -144,6 +144,7 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
         {!people ? (
           <p className="text-ink-soft">Loading…</p>
         ) : (
+          <div className="overflow-x-auto">
           <table className="gw-table">
             <thead>
               <tr>
@@ -179,7 +180,7 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
                     <td>
                       {m.userId !== selfUserId && (
                         <button type="button" className="gw-btn-quiet" onClick={() => ask({ kind: "remove", memberId: m.id, name: m.name, role: m.role })}>
-                          Remove {m.name}…
+                          Remove<span className="sr-only"> {m.name}</span>…
                         </button>
                       )}
                     </td>
@@ -188,6 +189,7 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
               ))}
             </tbody>
           </table>
+          </div>
         )}
       </section>
       {canAdminister && removed.length > 0 && (
@@ -212,7 +214,7 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
                   <td>{day(r.removedAt)}, by {r.removedBy}</td>
                   <td>
                     <button type="button" className="gw-btn-quiet" onClick={() => ask({ kind: "restore", userId: r.userId, name: r.name, role: r.role })}>
-                      Restore {r.name}…
+                      Restore<span className="sr-only"> {r.name}</span>…
                     </button>
                   </td>
                 </tr>
