@@ -15,6 +15,10 @@ export const ERROR_CODES = {
   "not-found": "Not found.",
   /** A write was based on a stale version. */
   conflict: "The record changed since it was read.",
+  /** The request would repeat or finalise something and must be sent again with `confirm: true` (`details` says what). */
+  "needs-confirmation": "This needs your confirmation first.",
+  /** The record is archived: it can be read, not changed. */
+  archived: "The record is archived.",
   unauthenticated: "Sign-in required.",
   forbidden: "Not permitted.",
   /** A body or upload is larger than allowed. */

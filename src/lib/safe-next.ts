@@ -15,6 +15,7 @@ const PAGES: RegExp[] = [
   "/",
   "/chambers",
   "/people",
+  "/people/log",
   "/circulation",
   "/dev/mail",
   "/floor",

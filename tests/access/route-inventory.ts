@@ -121,7 +121,11 @@ export const API_ROUTES: readonly ApiRoute[] = [
   { file: "api/people/index.ts", method: "GET", path: "/api/people", audience: ALL_ROLES, outsider: "own-chamber" },
   { file: "api/people/invitations/index.ts", method: "POST", path: "/api/people/invitations", audience: CHIEF, outsider: "own-chamber", body: () => ({ email: "access-test@harrowmere.example", role: "observer" }) },
   { file: "api/people/invitations/[id].ts", method: "DELETE", path: "/api/people/invitations/:id", audience: CHIEF, outsider: "refused", params: { id: "invitation" } },
-  { file: "api/people/members/[id].ts", method: "PATCH", path: "/api/people/members/:id", audience: CHIEF, outsider: "refused", params: { id: "member" }, body: () => ({ role: "observer" }) },
+  { file: "api/people/members/[id].ts", method: "PATCH", path: "/api/people/members/:id", audience: CHIEF, outsider: "refused", params: { id: "member" }, body: () => ({ role: "observer" }), note: "recorded in the people log; never leaves the chamber without a chief clerk" },
+  { file: "api/people/members/[id].ts", method: "DELETE", path: "/api/people/members/:id", audience: CHIEF, outsider: "refused", params: { id: "member" }, note: "removes the person from the chamber (the account stays; restorable); never the last chief clerk; recorded in the people log" },
+  { file: "api/people/removed/index.ts", method: "GET", path: "/api/people/removed", audience: CHIEF, outsider: "own-chamber" },
+  { file: "api/people/removed/[id].ts", method: "POST", path: "/api/people/removed/:id", audience: CHIEF, outsider: "refused", params: { id: "member" }, note: "restores a removed person (by account) with the role they held; recorded in the people log" },
+  { file: "api/people/log.ts", method: "GET", path: "/api/people/log", audience: CHIEF, outsider: "own-chamber" },
 
   // rulebooks
   { file: "api/rulebooks/index.ts", method: "GET", path: "/api/rulebooks", audience: ALL_ROLES, outsider: "own-chamber" },
@@ -162,6 +166,7 @@ export const API_ROUTES: readonly ApiRoute[] = [
   { file: "api/measures/sponsors.ts", method: "GET", path: "/api/measures/sponsors", audience: ALL_ROLES, outsider: "own-chamber" },
   { file: "api/measures/[id]/index.ts", method: "GET", path: "/api/measures/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "measure" } },
   { file: "api/measures/[id]/index.ts", method: "PATCH", path: "/api/measures/:id", audience: CLERKS, outsider: "refused", params: { id: "measure" }, body: () => ({ version: 1, title: "Taken over" }) },
+  { file: "api/measures/[id]/archive.ts", method: "POST", path: "/api/measures/:id/archive", audience: CLERKS, outsider: "refused", params: { id: "measure" }, body: () => ({ version: 1 }), note: "archived measures leave the lists and option forms, stay readable; later changes answer 409 archived" },
   { file: "api/measures/[id]/amendments.ts", method: "GET", path: "/api/measures/:id/amendments", audience: ALL_ROLES, outsider: "refused", params: { id: "measure" } },
   { file: "api/measures/[id]/amendments.ts", method: "POST", path: "/api/measures/:id/amendments", audience: FILERS, outsider: "refused", params: { id: "measure" }, body: () => ({ form: "insert", target: "measure", text: "access" }) },
   { file: "api/measures/[id]/tree.ts", method: "GET", path: "/api/measures/:id/tree", audience: ALL_ROLES, outsider: "refused", params: { id: "measure" } },
@@ -232,6 +237,7 @@ export const PAGE_ROUTES: readonly PageRoute[] = [
   { file: "not-permitted.astro", path: "/not-permitted", audience: "signed-in", outsider: "own-chamber", note: "rendered in place (403) by every page a role may not open (guardPage); says which roles may, with a way back" },
   { file: "index.astro", path: "/", audience: ALL_ROLES, outsider: "own-chamber" },
   { file: "people.astro", path: "/people", audience: ALL_ROLES, outsider: "own-chamber" },
+  { file: "people/log.astro", path: "/people/log", audience: CHIEF, outsider: "own-chamber" },
   { file: "rulebooks/index.astro", path: "/rulebooks", audience: ALL_ROLES, outsider: "own-chamber" },
   { file: "rulebooks/new.astro", path: "/rulebooks/new", audience: CLERKS, outsider: "own-chamber", note: "other roles get the not-permitted page (403)" },
   { file: "rulebooks/[id].astro", path: "/rulebooks/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "rulebookVersion" } },

@@ -47,6 +47,11 @@ describe("rulings in the browser", () => {
     rulingUrl = page.url();
     await expect.poll(() => page.getByText("Draft", { exact: true }).count()).toBeGreaterThan(0);
     await page.getByRole("button", { name: "Issue ruling" }).click();
+    // Issuing is final: the dialog names the ruling and says so before anything happens.
+    const dialog = page.getByTestId("ruling-confirm");
+    await expect.poll(() => dialog.getByRole("heading", { name: /^Issue Ruling \d+\?$/ }).count()).toBe(1);
+    expect(await dialog.innerText()).toContain("cannot be undone");
+    await dialog.getByRole("button", { name: "Issue it" }).click();
     await expect.poll(() => page.getByText(/is issued\./).count()).toBe(1);
     const h1 = (await page.locator("h1").textContent()) ?? "";
     rulingNumber = /Ruling (\d+)/.exec(h1)?.[1] ?? "";

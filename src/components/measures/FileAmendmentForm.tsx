@@ -1,4 +1,4 @@
-import { useState, type SubmitEvent } from "react";
+import { useEffect, useRef, useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import AmendmentFields, { LINES_HINT, readAmendmentFields } from "./AmendmentFields.tsx";
 import { ApiError, apiCall } from "../shared/api.ts";
@@ -12,7 +12,20 @@ interface Props {
   legislators: Array<{ id: string; name: string; bloc: string; own: boolean }>;
 }
 
-const filedSchema = z.object({ id: z.string(), key: z.string(), status: z.string() });
+const filedSchema = z.object({
+  id: z.string(),
+  key: z.string(),
+  status: z.string(),
+  name: z.string().nullable(),
+  check: z.object({ degree: z.number().nullable(), findings: z.array(z.object({ severity: z.enum(["error", "warning", "info"]), message: z.string() })) }).nullable(),
+});
+type Filed = z.output<typeof filedSchema>;
+
+const SEVERITY_WORDS = { error: "Out of order", warning: "Warning", info: "Note" } as const;
+const DEGREE_WORDS: Record<number, string> = { 1: "an amendment of the first degree", 2: "an amendment of the second degree (an amendment to an amendment)", 3: "an amendment of the third degree" };
+
+/** Kept across the reload that shows the new row, so the confirmation stays on screen. */
+const keptKey = (measureId: string) => `gw-filed:${measureId}`;
 
 /** A member's (or clerk's) amendment: typed in or uploaded; filed at once or saved as a draft. */
 export default function FileAmendmentForm({ measureId, sections, amendments, legislators }: Props) {
@@ -21,6 +34,56 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
   const [message, setMessage] = useState<string | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+  const [filed, setFiled] = useState<Filed | null>(null);
+  /** The repeat question: what the server said, and the same filing to send again with `confirm`. */
+  const [repeat, setRepeat] = useState<{ question: string; send: () => Promise<Filed> } | null>(null);
+  const confirmation = useRef<HTMLDivElement>(null);
+  const question = useRef<HTMLDivElement>(null);
+
+  useEffect(() => {
+    const kept = sessionStorage.getItem(keptKey(measureId));
+    if (!kept) return;
+    sessionStorage.removeItem(keptKey(measureId));
+    const parsed = filedSchema.safeParse(JSON.parse(kept));
+    if (parsed.success) setFiled(parsed.data);
+  }, [measureId]);
+  useEffect(() => {
+    if (filed) confirmation.current?.focus();
+  }, [filed]);
+  useEffect(() => {
+    if (repeat) question.current?.focus();
+  }, [repeat]);
+
+  function done(out: Filed) {
+    if (out.status === "draft") {
+      setMessage(`Saved as a draft (${out.key}). File it when ready.`);
+      setTimeout(() => window.location.reload(), 1500);
+      return;
+    }
+    setFiled(out);
+    sessionStorage.setItem(keptKey(measureId), JSON.stringify(out));
+    window.location.reload();
+  }
+
+  async function attempt(send: () => Promise<Filed>, again: () => Promise<Filed>) {
+    setBusy(true);
+    setAt(() => noIssues);
+    setMessage(null);
+    setFailure(null);
+    setFiled(null);
+    setRepeat(null);
+    try {
+      done(await send());
+    } catch (err) {
+      if (err instanceof ApiError && err.code === "needs-confirmation") setRepeat({ question: err.message, send: again });
+      else {
+        setAt(() => issueLookup(err, { byField: true }));
+        setFailure(err instanceof ApiError ? err.message : "Could not file the amendment.");
+      }
+    } finally {
+      setBusy(false);
+    }
+  }
 
   async function onSubmit(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
@@ -31,34 +94,20 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
       setAt(() => issueLookup([{ path: "lines", message: LINES_HINT }]));
       return;
     }
-    setBusy(true);
-    setAt(() => noIssues);
-    setMessage(null);
-    setFailure(null);
-    try {
-      let out;
+    const send = (confirm: boolean) => {
       if (mode === "upload") {
         const form = new FormData();
         for (const k of ["form", "target", "lines", "title", "subjects", "text", "committee"]) form.set(k, String(fd.get(k) ?? ""));
         form.set("sponsors", fields.sponsors.join(","));
         form.set("draft", String(draft));
+        form.set("confirm", String(confirm));
         const file = fd.get("file");
         if (file instanceof File && file.size > 0) form.set("file", file);
-        out = await apiCall(filedSchema, `/api/measures/${measureId}/amendments`, { method: "POST", form });
-      } else {
-        out = await apiCall(filedSchema, `/api/measures/${measureId}/amendments`, {
-          method: "POST",
-          body: { ...fields, draft },
-        });
+        return apiCall(filedSchema, `/api/measures/${measureId}/amendments`, { method: "POST", form });
       }
-      setMessage(out.status === "draft" ? `Saved as a draft (${out.key}). File it when ready.` : `Filed as Amendment ${out.key}. A filing receipt is on its way to your e-mail.`);
-      setTimeout(() => window.location.reload(), 1500);
-    } catch (err) {
-      setAt(() => issueLookup(err, { byField: true }));
-      setFailure(err instanceof ApiError ? err.message : "Could not file the amendment.");
-    } finally {
-      setBusy(false);
-    }
+      return apiCall(filedSchema, `/api/measures/${measureId}/amendments`, { method: "POST", body: { ...fields, draft, confirm } });
+    };
+    await attempt(() => send(false), () => send(true));
   }
 
   return (
@@ -84,6 +133,30 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
       />
       <Alert>{failure}</Alert>
       <Alert tone="ok" look="box">{message}</Alert>
+      {repeat && (
+        <div ref={question} tabIndex={-1} role="group" aria-labelledby="fa-repeat" className="gw-advisory space-y-2" data-testid="filing-repeat">
+          <p id="fa-repeat" className="font-semibold">{repeat.question}</p>
+          <div className="flex flex-wrap gap-2">
+            <button type="button" className="gw-btn" disabled={busy} onClick={() => void attempt(repeat.send, repeat.send)}>File it anyway</button>
+            <button type="button" className="gw-btn-quiet" disabled={busy} onClick={() => setRepeat(null)}>Do not file</button>
+          </div>
+        </div>
+      )}
+      {filed && (
+        <div ref={confirmation} tabIndex={-1} role="group" aria-label="Filing confirmation">
+          <Alert tone="ok" look="box" testId="filing-confirmation">
+            <span className="block font-semibold">Filed as {filed.name ?? `Amendment ${filed.key}`}. The receipt goes to its sponsors by e-mail.</span>
+            {filed.check?.degree != null && <span className="mt-1 block">The tree check reads it as {DEGREE_WORDS[filed.check.degree] ?? `an amendment of degree ${filed.check.degree}`}.</span>}
+            {filed.check && filed.check.findings.length === 0 && <span className="mt-1 block">The tree check found nothing to raise.</span>}
+            {filed.check && filed.check.findings.length > 0 && (
+              <ul className="mt-1 list-disc pl-5" data-testid="filing-findings">
+                {filed.check.findings.map((f, i) => <li key={i}><strong>{SEVERITY_WORDS[f.severity]}:</strong> {f.message}</li>)}
+              </ul>
+            )}
+            <span className="mt-1 block"><a className="underline" href={`/measures/${measureId}/tree#${filed.key}`}>See it in the tree</a>. The tree check advises; the presiding officer rules.</span>
+          </Alert>
+        </div>
+      )}
       <div className="flex gap-2">
         <button type="submit" className="gw-btn" value="file" disabled={busy}>File amendment</button>
         <button type="submit" className="gw-btn-quiet" value="draft" disabled={busy}>Save as draft</button>

@@ -5,12 +5,18 @@ import { Alert, errorText } from "../shared/Alert.tsx";
 import { apiCall } from "../shared/api.ts";
 import { day } from "../shared/dates.ts";
 import { issueLookup, noIssues, TextField, type IssueLookup } from "../shared/fields.tsx";
+import { ConfirmDialog } from "../shared/ConfirmDialog.tsx";
 
 const peopleSchema = z.object({
   members: z.array(z.object({ id: z.string(), userId: z.string(), name: z.string(), email: z.string(), role: z.string(), since: z.string() })),
   invitations: z.array(z.object({ id: z.string(), email: z.string(), role: z.string().nullable(), status: z.string(), expiresAt: z.string() })),
 });
 type People = z.infer<typeof peopleSchema>;
+const removedSchema = z.object({ removed: z.array(z.object({ userId: z.string(), name: z.string(), role: z.string(), removedAt: z.string(), removedBy: z.string() })) });
+type Removed = z.infer<typeof removedSchema>["removed"];
+
+/** A change waiting for the chief clerk's confirmation. */
+type Pending = { kind: "role"; memberId: string; name: string; from: string; to: string } | { kind: "remove"; memberId: string; name: string; role: string } | { kind: "restore"; userId: string; name: string; role: string };
 
 interface Props {
   canAdminister: boolean;
@@ -29,10 +35,15 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
   const [status, setStatus] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [fields, setFields] = useState<IssueLookup>(() => noIssues);
+  const [removed, setRemoved] = useState<Removed>([]);
+  const [pending, setPending] = useState<Pending | null>(null);
+  const [busy, setBusy] = useState(false);
+  const [refusal, setRefusal] = useState<string | null>(null);
 
   async function load() {
     try {
       setPeople(await apiCall(peopleSchema, "/api/people"));
+      if (canAdminister) setRemoved((await apiCall(removedSchema, "/api/people/removed")).removed);
     } catch {
       setError("Could not load the chamber's people.");
     }
@@ -59,16 +70,37 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
     await load();
   }
 
-  async function onRole(memberId: string, role: string, name: string) {
+  function ask(p: Pending) {
     setStatus(null);
     setError(null);
+    setRefusal(null);
+    setPending(p);
+  }
+
+  /** Do the confirmed change; a refusal stays in the dialog, success closes it and says what happened. */
+  async function onConfirmed() {
+    if (!pending) return;
+    setBusy(true);
+    setRefusal(null);
     try {
-      await apiCall(anyAnswer, `/api/people/members/${memberId}`, { method: "PATCH", body: { role } });
-      setStatus(`${name} is now ${roleLabel(role)}.`);
+      if (pending.kind === "role") await apiCall(anyAnswer, `/api/people/members/${pending.memberId}`, { method: "PATCH", body: { role: pending.to } });
+      else if (pending.kind === "remove") await apiCall(anyAnswer, `/api/people/members/${pending.memberId}`, { method: "DELETE" });
+      else await apiCall(anyAnswer, `/api/people/removed/${pending.userId}`, { method: "POST" });
+      const done = pending;
+      setPending(null);
+      await load();
+      setStatus(
+        done.kind === "role"
+          ? `${done.name} is now ${roleLabel(done.to)}. The change is in the people log.`
+          : done.kind === "remove"
+            ? `${done.name} was removed from the chamber. The removal is in the people log.`
+            : `${done.name} is back in the chamber as ${roleLabel(done.role)}.`,
+      );
     } catch (err) {
-      setError(errorText(err, "The role was not changed."));
+      setRefusal(errorText(err, "Nothing was changed."));
+    } finally {
+      setBusy(false);
     }
-    await load();
   }
 
   async function onCancel(id: string, email: string) {
@@ -112,12 +144,18 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
         {!people ? (
           <p className="text-ink-soft">Loading…</p>
         ) : (
+          <div className="overflow-x-auto">
           <table className="gw-table">
             <thead>
               <tr>
                 <th scope="col">Name</th>
                 <th scope="col">E-mail</th>
                 <th scope="col">Role</th>
+                {canAdminister && (
+                  <th scope="col">
+                    <span className="sr-only">Actions</span>
+                  </th>
+                )}
               </tr>
             </thead>
             <tbody>
@@ -127,7 +165,7 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
                   <td>{m.email}</td>
                   <td>
                     {canAdminister && m.userId !== selfUserId ? (
-                      <select aria-label={`Role of ${m.name}`} className="rounded-md border border-rule bg-white px-2 py-1" value={m.role} onChange={(e) => onRole(m.id, e.target.value, m.name)}>
+                      <select aria-label={`Role of ${m.name}`} className="rounded-md border border-rule bg-white px-2 py-1" value={m.role} onChange={(e) => ask({ kind: "role", memberId: m.id, name: m.name, from: m.role, to: e.target.value })}>
                         {CHAMBER_ROLES.map((r) => (
                           <option key={r} value={r}>
                             {ROLE_LABELS[r]}
@@ -138,12 +176,91 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
                       roleLabel(m.role)
                     )}
                   </td>
+                  {canAdminister && (
+                    <td>
+                      {m.userId !== selfUserId && (
+                        <button type="button" className="gw-btn-quiet" onClick={() => ask({ kind: "remove", memberId: m.id, name: m.name, role: m.role })}>
+                          Remove<span className="sr-only"> {m.name}</span>…
+                        </button>
+                      )}
+                    </td>
+                  )}
                 </tr>
               ))}
             </tbody>
           </table>
+          </div>
         )}
       </section>
+      {canAdminister && removed.length > 0 && (
+        <section>
+          <h2 className="mb-2">Removed from the chamber</h2>
+          <table className="gw-table" data-testid="removed-people">
+            <thead>
+              <tr>
+                <th scope="col">Name</th>
+                <th scope="col">Role held</th>
+                <th scope="col">Removed</th>
+                <th scope="col">
+                  <span className="sr-only">Actions</span>
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {removed.map((r) => (
+                <tr key={r.userId}>
+                  <td>{r.name}</td>
+                  <td>{roleLabel(r.role)}</td>
+                  <td>{day(r.removedAt)}, by {r.removedBy}</td>
+                  <td>
+                    <button type="button" className="gw-btn-quiet" onClick={() => ask({ kind: "restore", userId: r.userId, name: r.name, role: r.role })}>
+                      Restore<span className="sr-only"> {r.name}</span>…
+                    </button>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </section>
+      )}
+      {canAdminister && (
+        <p>
+          <a className="underline" href="/people/log">
+            People log: who changed which role, removed or restored whom, and when
+          </a>
+        </p>
+      )}
+      <ConfirmDialog
+        open={pending !== null}
+        testId="people-confirm"
+        title={
+          pending?.kind === "role"
+            ? `Make ${pending.name} ${roleLabel(pending.to)}?`
+            : pending?.kind === "remove"
+              ? `Remove ${pending.name} from the chamber?`
+              : pending
+                ? `Restore ${pending.name} as ${roleLabel(pending.role)}?`
+                : ""
+        }
+        confirm={pending?.kind === "role" ? "Change the role" : pending?.kind === "remove" ? "Remove" : "Restore"}
+        danger={pending?.kind !== "restore"}
+        busy={busy}
+        error={refusal}
+        onConfirm={() => void onConfirmed()}
+        onCancel={() => setPending(null)}
+      >
+        {pending?.kind === "role" && (
+          <p>
+            {pending.name} goes from {roleLabel(pending.from)} to {roleLabel(pending.to)} at once, with what that role may do. This cannot be undone: changing it back is a new change, and both stay in the people log with your name.
+          </p>
+        )}
+        {pending?.kind === "remove" && (
+          <p>
+            {pending.name} ({roleLabel(pending.role)}) loses access to the chamber at once. The removal cannot be undone: it stays in the people log with your name. You can restore {pending.name} later from this page, with the same role.
+          </p>
+        )}
+        {pending?.kind === "restore" && <p>{pending.name} gets access to the chamber again at once. The restoration is recorded in the people log with your name.</p>}
+      </ConfirmDialog>
       {canAdminister && people && (
         <section>
           <h2 className="mb-2">Pending invitations</h2>

@@ -2,7 +2,8 @@ import { useCallback, useEffect, useState } from "react";
 import { DECISION_LABELS } from "../../lib/rulings/ruling-content.ts";
 import { APPEAL_OUTCOME_LABELS } from "../../lib/rulings/appeal-outcome.ts";
 import DeliveryTable from "../circulation/DeliveryTable.tsx";
-import { apiCall } from "../shared/api.ts";
+import { ApiError, apiCall } from "../shared/api.ts";
+import { ConfirmDialog } from "../shared/ConfirmDialog.tsx";
 import { listsView, rulingDetail, type ListView, type RulingDetail, type RulingView } from "./api.ts";
 import RulingEditor from "./RulingEditor.tsx";
 import { z } from "zod";
@@ -98,6 +99,9 @@ export default function RulingPage({ initial, can, timeZone }: Props) {
   const [listId, setListId] = useState("");
   const [message, setMessage] = useState<{ kind: "ok" | "error"; text: string } | null>(null);
   const [busy, setBusy] = useState(false);
+  /** The confirmation open: issuing, or sending again to a list that already received this revision (the server's words). */
+  const [asking, setAsking] = useState<{ kind: "issue" } | { kind: "resend"; question: string } | null>(null);
+  const [refusal, setRefusal] = useState<string | null>(null);
   const r = data.ruling;
 
   const reload = useCallback(async () => {
@@ -129,16 +133,46 @@ export default function RulingPage({ initial, can, timeZone }: Props) {
     }
   }
 
+  /** Run a confirmed action: success closes the dialog and says so; a refusal stays in the dialog. */
+  async function confirmed(fn: () => Promise<string>) {
+    setBusy(true);
+    setRefusal(null);
+    try {
+      const text = await fn();
+      setAsking(null);
+      await reload();
+      setMessage({ kind: "ok", text });
+    } catch (e) {
+      setRefusal((e as Error).message);
+    } finally {
+      setBusy(false);
+    }
+  }
   const issue = () =>
-    act(async () => {
+    confirmed(async () => {
       await apiCall(issuedView, `/api/rulings/${r.id}/issue`, { method: "POST", body: { version: r.version } });
       return `Ruling ${r.number} is issued.`;
     });
-  const send = () =>
-    act(async () => {
-      const s = await apiCall(sentView, "/api/circulation", { method: "POST", body: { rulingId: r.id, listId } });
-      return `Queued ${s.queued} message${s.queued === 1 ? "" : "s"}${s.skipped.length ? `; ${s.skipped.length} unsubscribed address${s.skipped.length === 1 ? "" : "es"} left out` : ""}.`;
-    });
+  const sendTo = async (confirm: boolean) => {
+    const s = await apiCall(sentView, "/api/circulation", { method: "POST", body: { rulingId: r.id, listId, confirm } });
+    return `Queued ${s.queued} message${s.queued === 1 ? "" : "s"}${s.skipped.length ? `; ${s.skipped.length} unsubscribed address${s.skipped.length === 1 ? "" : "es"} left out` : ""}.`;
+  };
+  const send = async () => {
+    setBusy(true);
+    setMessage(null);
+    try {
+      const text = await sendTo(false);
+      await reload();
+      setMessage({ kind: "ok", text });
+    } catch (e) {
+      if (e instanceof ApiError && e.code === "needs-confirmation") {
+        setRefusal(null);
+        setAsking({ kind: "resend", question: e.message });
+      } else setMessage({ kind: "error", text: (e as Error).message });
+    } finally {
+      setBusy(false);
+    }
+  };
   const retry = (id: string) =>
     act(async () => {
       await apiCall(z.object({ id: z.string() }), `/api/circulation/messages/${id}/retry`, { method: "POST" });
@@ -180,8 +214,16 @@ export default function RulingPage({ initial, can, timeZone }: Props) {
               </button>
             )}
             {r.status === "draft" && can.issue && (
-              <button type="button" className="gw-btn" onClick={issue} disabled={busy}>
-                Issue ruling
+              <button
+                type="button"
+                className="gw-btn"
+                onClick={() => {
+                  setRefusal(null);
+                  setAsking({ kind: "issue" });
+                }}
+                disabled={busy}
+              >
+                Issue ruling…
               </button>
             )}
             {r.status === "issued" && can.issue && (
@@ -190,6 +232,22 @@ export default function RulingPage({ initial, can, timeZone }: Props) {
               </button>
             )}
           </div>
+          <ConfirmDialog
+            open={asking !== null}
+            testId="ruling-confirm"
+            title={asking?.kind === "resend" ? `Send Ruling ${r.number} to this list again?` : `Issue Ruling ${r.number}?`}
+            confirm={asking?.kind === "resend" ? "Send it again" : "Issue it"}
+            busy={busy}
+            error={refusal}
+            onConfirm={() => void (asking?.kind === "resend" ? confirmed(() => sendTo(true)) : issue())}
+            onCancel={() => setAsking(null)}
+          >
+            {asking?.kind === "resend" ? (
+              <p>{asking.question}</p>
+            ) : (
+              <p>Issuing makes the ruling part of the chamber's record. This cannot be undone: an issued ruling is never edited or withdrawn, and a later correction is a new revision beside it.</p>
+            )}
+          </ConfirmDialog>
           {message && (
             <p role={message.kind === "error" ? "alert" : "status"} className={message.kind === "error" ? "gw-error mt-3" : "mt-3 text-sm font-semibold text-verdict-ok"}>
               {message.text}

@@ -100,6 +100,8 @@ export const amendmentFileSchema = z.object({
   committee: safe(z.string().trim().max(200)).nullable().default(null),
   /** Save without filing: no number, no receipt. */
   draft: z.boolean().default(false),
+  /** File even though the same person filed an identical amendment within the last hour. */
+  confirm: z.boolean().default(false),
 });
 
 export const amendmentUpdateSchema = z.object({

@@ -16,6 +16,8 @@ export const STATUS: Record<ErrorCode, number> = {
   forbidden: 403,
   "not-found": 404,
   conflict: 409,
+  "needs-confirmation": 409,
+  archived: 409,
   "too-large": 413,
   "limit-exceeded": 422,
   "rate-limited": 429,

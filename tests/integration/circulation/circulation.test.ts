@@ -127,7 +127,28 @@ describe("sending a ruling", () => {
     expect((await call(send.POST, "POST", "/api/circulation", { as: s.as.staff, body: { rulingId: r.id, listId: "9d3a3a52-58f3-4c1e-9a53-3f2b2c3c8d11" } })).status).toBe(404);
     expect(await tableCounts()).toEqual(afterDraft);
     expect(afterDraft.rulings).toBe(before.rulings + 1);
-    for (const role of ["staff", "clerk", "chief-clerk"] as const) expect((await call(send.POST, "POST", "/api/circulation", { as: s.as[role], body: { rulingId: r.id, listId: clerksDesk.id } })).status, role).toBe(201);
+    for (const role of ["staff", "clerk", "chief-clerk"] as const) {
+      const other = await issuedRuling();
+      expect((await call(send.POST, "POST", "/api/circulation", { as: s.as[role], body: { rulingId: other.id, listId: clerksDesk.id } })).status, role).toBe(201);
+    }
+  });
+
+  it("asks before sending a ruling to a list that already received it, queueing nothing until confirmed (common practice, no source)", async () => {
+    const r = await issuedRuling();
+    expect((await call(send.POST, "POST", "/api/circulation", { as: s.as.staff, body: { rulingId: r.id, listId: press.id } })).status).toBe(201);
+    const before = await tableCounts();
+    const again = await call(send.POST, "POST", "/api/circulation", { as: s.as.clerk, body: { rulingId: r.id, listId: press.id } });
+    expect(again.status).toBe(409);
+    expect(again.body.error.code).toBe("needs-confirmation");
+    expect(again.body.error.details).toMatchObject({ reason: "already-circulated", list: "Press gallery" });
+    expect(again.body.error.message).toContain("Press gallery");
+    expect(again.body.error.message).not.toMatch(/\d{4}-\d{2}-\d{2}T/);
+    expect(await tableCounts()).toEqual(before);
+    // Another list has not had it: no question.
+    expect((await call(send.POST, "POST", "/api/circulation", { as: s.as.clerk, body: { rulingId: r.id, listId: clerksDesk.id } })).status).toBe(201);
+    const confirmed = await call(send.POST, "POST", "/api/circulation", { as: s.as.clerk, body: { rulingId: r.id, listId: press.id, confirm: true } });
+    expect(confirmed.status).toBe(201);
+    expect(confirmed.body.queued).toBe(3);
   });
 
   it("refuses to send to a list whose stored entries are damaged (a logged 500), queueing nothing, never sending to nobody", async () => {

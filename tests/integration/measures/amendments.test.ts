@@ -7,6 +7,7 @@ import { db } from "../../../src/lib/server/db.ts";
 import { deliverOutbox } from "../../../src/lib/server/mail.ts";
 import { outbox } from "../../../src/lib/db/schema/mail.ts";
 import { amendments } from "../../../src/lib/db/schema/measures.ts";
+import { legislators } from "../../../src/lib/db/schema/chamber.ts";
 import { startMailCatcher, type CaughtMessage, type MailCatcher } from "../../../src/lib/server/dev/mail-catcher.ts";
 import { seedMeasures } from "../../../src/lib/server/seed/measures.ts";
 import * as measuresRoute from "../../../src/pages/api/measures/index.ts";
@@ -83,18 +84,72 @@ describe("filing amendments", () => {
     expect((await file(m.id, {})).body.number).toBe(21);
   });
 
-  it("queues the filing receipt in the same transaction and delivers it to the filer", async () => {
+  it("queues the receipt in the same transaction to each sponsor with an account, the filer in copy; it reads like a clerk's receipt", async () => {
     const m = await newMeasure("HCA 103");
-    const r = await file(m.id, { title: "Receipt please" });
-    const [queued] = await db.select().from(outbox).where(and(eq(outbox.ref, r.body.id), eq(outbox.kind, "amendment-receipt")));
-    expect(queued.to).toBe("member@harrowmere.example");
+    const [linked] = await db.select({ id: legislators.id }).from(legislators).where(and(eq(legislators.chamberId, s.chambers.harrowmere), eq(legislators.userId, s.as.member.userId)));
+    const other = L.find((id) => id !== linked.id)!;
+    // The clerk files for the member: the member (a sponsor) gets the receipt, the clerk a copy.
+    const r = await file(m.id, { title: "Receipt please", sponsors: [linked.id, other] }, s.as.clerk);
+    expect(r.status).toBe(201);
+    const queued = await db.select().from(outbox).where(and(eq(outbox.ref, r.body.id), eq(outbox.kind, "amendment-receipt")));
+    expect(queued.map((q) => [q.to, q.subject]).sort()).toEqual([
+      ["clerk@harrowmere.example", "Filing receipt: Amendment A1 to HCA 103"],
+      ["member@harrowmere.example", "Filing receipt: Amendment A1 to HCA 103"],
+    ]);
     const before = (await db.select().from(outbox)).length;
     expect((await file(m.id, { target: "s7" })).status).toBe(422);
     expect((await db.select().from(outbox)).length).toBe(before);
     await deliverOutbox(100);
-    const mail = inbox.find((x) => x.subject === "Filing receipt: Amendment A1 to HCA 103");
+    const mail = inbox.find((x) => x.subject === "Filing receipt: Amendment A1 to HCA 103" && x.to.includes("member@harrowmere.example"));
     expect(mail?.to).toContain("member@harrowmere.example");
-    expect(mail?.text).toContain(`HCA 103/A1/${r.body.id}`);
+    expect(mail?.text).toContain("Amendment A1 to section 1 of HCA 103");
+    expect(mail?.text).not.toContain("this copy");
+    const copy = inbox.find((x) => x.subject === "Filing receipt: Amendment A1 to HCA 103" && x.to.includes("clerk@harrowmere.example"));
+    expect(copy?.text).toContain("You receive this copy because you filed the amendment");
+    // No internal id, no ISO 8601 time (the chamber's format instead).
+    expect(mail?.text).not.toContain(r.body.id);
+    expect(mail?.text).not.toMatch(/\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/);
+    expect(mail?.text).toMatch(/filed on \d{1,2} [A-Z][a-z]+ \d{4}, \d{2}:\d{2}/);
+    // A member who files as a sponsor gets one receipt, no copy.
+    const own = await file(m.id, { title: "My own", text: "Another line.", sponsors: [linked.id] });
+    expect((await db.select({ to: outbox.to, subject: outbox.subject }).from(outbox).where(eq(outbox.ref, own.body.id)))).toEqual([{ to: "member@harrowmere.example", subject: "Filing receipt: Amendment A2 to HCA 103" }]);
+  });
+
+  it("answers a filing with its name in words and the tree check's findings on it", async () => {
+    const m = await newMeasure("HCA 109");
+    const a1 = await file(m.id, { title: "First" });
+    expect(a1.body.name).toBe("Amendment A1 to section 1 of HCA 109");
+    expect(a1.body.check.degree).toBe(1);
+    const a2 = await file(m.id, { title: "Second", target: "A1", form: "insert" });
+    expect(a2.body.name).toBe("Amendment A2 to Amendment A1 to HCA 109");
+    expect(a2.body.check.degree).toBe(2);
+    const a3 = await file(m.id, { title: "Third", target: "A2", form: "insert" });
+    expect(a3.body.check.degree).toBe(3);
+    // Beyond the second degree is out of order (Robert's Rules of Order Revised, 1915, §33): an error at once.
+    expect(a3.body.check.findings.filter((f: { severity: string }) => f.severity === "error").length).toBeGreaterThan(0);
+    const lines = await file(m.id, { title: "Lines", form: "strike", lines: [2, 3], text: "" });
+    expect(lines.body.name).toBe("Amendment A4 to section 1, lines 2–3, of HCA 109");
+  });
+
+  it("asks before storing a filing identical to one the same person filed within the hour; stores nothing until confirmed", async () => {
+    const m = await newMeasure("HCA 190");
+    expect((await file(m.id, { title: "Once" })).status).toBe(201);
+    const before = await tableCounts();
+    const again = await file(m.id, { title: "Once" });
+    expect(again.status).toBe(409);
+    expect(again.body.error.code).toBe("needs-confirmation");
+    expect(again.body.error.details).toMatchObject({ reason: "repeated-filing", amendment: "A1" });
+    expect(again.body.error.message).toContain("Amendment A1 to section 1 of HCA 190");
+    expect(await tableCounts()).toEqual(before);
+    // Another person filing the same text is not a repeat; a different text is not either.
+    expect((await file(m.id, { title: "Once" }, s.as.clerk)).body.key).toBe("A2");
+    expect((await file(m.id, { title: "Once", text: "A different line." })).body.key).toBe("A3");
+    // Confirmed, it is stored with the next number (none lost to the refused attempt).
+    const confirmed = await file(m.id, { title: "Once", confirm: true });
+    expect(confirmed.status).toBe(201);
+    expect(confirmed.body.key).toBe("A4");
+    // A draft is never a repeat.
+    expect((await file(m.id, { title: "Once", draft: true })).status).toBe(201);
   });
 
   it("files from an uploaded document, keeping it and using its text", async () => {

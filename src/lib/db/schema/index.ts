@@ -11,3 +11,4 @@ export * from "./rate-limit.ts";
 export * from "./auth-throttle.ts";
 export * from "./journal.ts";
 export * from "./chamber-text.ts";
+export * from "./people-audit.ts";

@@ -52,6 +52,9 @@ export const measures = pgTable(
     /** The last amendment number handed out; bumped in the filing transaction, so numbers are gap-free. */
     amendmentCounter: integer("amendment_counter").notNull().default(0),
     version: integer("version").notNull().default(1),
+    /** Set when a clerk archives the measure (a mistake, a duplicate): it leaves the lists and takes no changes, but stays readable. */
+    archivedAt: timestamp("archived_at", { withTimezone: true }),
+    archivedBy: text("archived_by").references(() => user.id, { onDelete: "set null" }),
     createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),

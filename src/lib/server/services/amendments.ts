@@ -3,11 +3,13 @@
  * a filing receipt queued in the same transaction, drafts, edits with optimistic concurrency,
  * and the audit trail of each change.
  */
-import { and, asc, eq, sql as dsql } from "drizzle-orm";
+import { and, asc, desc, eq, gt, inArray, isNull, sql as dsql } from "drizzle-orm";
 import { lineRangeFromText } from "../../amendments/line-range-text.ts";
 import type { z } from "zod";
 import { db, type Tx } from "../db.ts";
-import { user } from "../../db/schema/auth.ts";
+import { member, user } from "../../db/schema/auth.ts";
+import { legislators } from "../../db/schema/chamber.ts";
+import { filedAmendmentInWords } from "../../amendments/amendment-words.ts";
 import { amendments, measureAttachments, measures } from "../../db/schema/measures.ts";
 import { GavelError, parseWith } from "../../errors.ts";
 import { can } from "../../permissions.ts";
@@ -16,8 +18,9 @@ import { enqueueMail } from "../mail.ts";
 import { assertFresh, recordAudit } from "../measure-audit.ts";
 import { amendmentFileSchema, amendmentUpdateSchema, AMENDMENT_STATUS_LABELS, FORM_LABELS, versionOnlySchema } from "../../measures/measure-schemas.ts";
 import { subjectList } from "../measure-sections.ts";
+import { treeOf } from "./trees.ts";
 import { checkDocument, type MultipartUpload } from "../uploads.ts";
-import { checkLegislators, legislatorNames, measureRow, type MeasureRow } from "./measures.ts";
+import { assertNotArchived, checkLegislators, legislatorNames, measureRow, type MeasureRow } from "./measures.ts";
 import { dateStyleOf, formatDateTime } from "../../text/dates.ts";
 
 export type AmendmentRow = typeof amendments.$inferSelect;
@@ -89,6 +92,11 @@ function targetLabel(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow):
   return `Amendment ${keys.get(a.targetAmendmentId ?? "") ?? "(removed)"}`;
 }
 
+function wordsOf(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow): string {
+  const words = filedAmendmentInWords({ key: amendmentKey(a), measure: m.number, targetKind: a.targetKind, section: a.targetSection, targetKey: keys.get(a.targetAmendmentId ?? "") ?? null, lines: a.lineFrom === null ? null : [a.lineFrom, a.lineTo ?? a.lineFrom] });
+  return a.number === null ? words.replace(/^Amendment \S+/, "A draft amendment") : words;
+}
+
 function view(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow, names: ReadonlyMap<string, string>) {
   return {
     id: a.id,
@@ -100,6 +108,8 @@ function view(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow, names: 
     formLabel: FORM_LABELS[a.form as keyof typeof FORM_LABELS] ?? a.form,
     target: a.targetKind === "measure" ? "measure" : a.targetKind === "section" ? a.targetSection! : (keys.get(a.targetAmendmentId ?? "") ?? a.targetAmendmentId!),
     targetLabel: targetLabel(a, keys, m),
+    /** In words: "Amendment A3 to section 2 of HCA 12" (a draft: "A draft amendment to …"). */
+    words: wordsOf(a, keys, m),
     lines: a.lineFrom === null ? null : ([a.lineFrom, a.lineTo!] as [number, number]),
     text: a.text,
     subjects: a.subjects,
@@ -136,33 +146,103 @@ async function nextNumber(tx: Tx, measureId: string): Promise<number> {
   return r.n;
 }
 
-async function queueReceipt(tx: Tx, actor: Actor, m: MeasureRow, a: AmendmentRow, sponsorNames: string[]): Promise<void> {
-  const [filer] = await tx.select({ email: user.email, name: user.name }).from(user).where(eq(user.id, actor.user.id));
-  const key = amendmentKey(a);
-  const base = process.env.BETTER_AUTH_URL ?? "";
-  const text = [
-    `Filing receipt — ${actor.chamber.name}`,
-    "",
-    `Amendment ${key} to ${m.number} (${m.title}) was filed on ${formatDateTime(a.filedAt!, dateStyleOf(actor.chamber))} (${dateStyleOf(actor.chamber).timeZone}).`,
-    `Receipt reference: ${m.number}/${key}/${a.id}`,
-    `Form: ${FORM_LABELS[a.form as keyof typeof FORM_LABELS] ?? a.form}`,
-    `Sponsors: ${sponsorNames.length ? sponsorNames.join(", ") : "none named"}`,
-    `Filed by: ${filer.name}`,
-    "",
-    `See where it stands in the tree: ${base}/measures/${m.id}/tree#${key}`,
-    "",
-    "Filing records the amendment; whether it is in order is for the presiding officer, under the chamber's rules.",
-  ].join("\n");
-  await enqueueMail({ kind: "amendment-receipt", ref: a.id, chamberId: actor.chamber.id, to: filer.email, subject: `Filing receipt: Amendment ${key} to ${m.number}`, text }, tx);
+/** The amendment named in words, as a confirmation and a receipt read it. */
+async function nameOf(q: Tx | typeof db, m: MeasureRow, a: AmendmentRow): Promise<string> {
+  let targetKey: string | null = null;
+  if (a.targetKind === "amendment" && a.targetAmendmentId) {
+    const [t] = await q.select({ id: amendments.id, number: amendments.number }).from(amendments).where(eq(amendments.id, a.targetAmendmentId));
+    targetKey = t ? amendmentKey(t) : null;
+  }
+  return filedAmendmentInWords({ key: amendmentKey(a), measure: m.number, targetKind: a.targetKind, section: a.targetSection, targetKey, lines: a.lineFrom === null ? null : [a.lineFrom, a.lineTo ?? a.lineFrom] });
 }
 
-type FileInput = z.output<typeof amendmentFileSchema>;
+/**
+ * The filing receipt: one message to each sponsor who has an account in the chamber, and a copy to
+ * the filer when the filer is not among them. Named in words, dated in the chamber's format; no
+ * internal reference.
+ */
+async function queueReceipt(tx: Tx, actor: Actor, m: MeasureRow, a: AmendmentRow, sponsorNames: string[]): Promise<void> {
+  const [filer] = await tx.select({ email: user.email, name: user.name }).from(user).where(eq(user.id, actor.user.id));
+  const sponsorAccounts = a.sponsors.length
+    ? await tx
+        .select({ userId: user.id, email: user.email, name: user.name })
+        .from(legislators)
+        .innerJoin(user, eq(user.id, legislators.userId))
+        .innerJoin(member, and(eq(member.userId, user.id), eq(member.organizationId, actor.chamber.id)))
+        .where(and(eq(legislators.chamberId, actor.chamber.id), inArray(legislators.id, a.sponsors)))
+    : [];
+  const key = amendmentKey(a);
+  const name = await nameOf(tx, m, a);
+  const base = process.env.BETTER_AUTH_URL ?? "";
+  const body = (copy: boolean) =>
+    [
+      `Filing receipt — ${actor.chamber.name}`,
+      "",
+      `${name} (${m.title})${a.title ? `, “${a.title}”,` : ""} was filed on ${formatDateTime(a.filedAt!, dateStyleOf(actor.chamber))}.`,
+      `Form: ${FORM_LABELS[a.form as keyof typeof FORM_LABELS] ?? a.form}`,
+      `Sponsors: ${sponsorNames.length ? sponsorNames.join(", ") : "none named"}`,
+      `Filed by: ${filer.name}`,
+      ...(copy ? ["", "You receive this copy because you filed the amendment; each sponsor with an account has the receipt."] : []),
+      "",
+      `See where it stands in the tree: ${base}/measures/${m.id}/tree#${key}`,
+      "",
+      "Filing records the amendment; whether it is in order is for the presiding officer, under the chamber's rules.",
+    ].join("\n");
+  const subject = `Filing receipt: Amendment ${key} to ${m.number}`;
+  const seen = new Set<string>();
+  for (const s of sponsorAccounts) {
+    if (seen.has(s.userId)) continue;
+    seen.add(s.userId);
+    await enqueueMail({ kind: "amendment-receipt", ref: a.id, chamberId: actor.chamber.id, to: s.email, subject, text: body(false) }, tx);
+  }
+  if (!seen.has(actor.user.id)) await enqueueMail({ kind: "amendment-receipt", ref: a.id, chamberId: actor.chamber.id, to: filer.email, subject, text: body(true) }, tx);
+}
+
+/**
+ * A filing identical to one the same person filed on this measure in the last hour asks first
+ * (common practice, no source: a double-clicked or resubmitted form must not file twice).
+ */
+async function assertNotRepeated(tx: Tx, actor: Actor, m: MeasureRow, input: FileInput, target: ResolvedTarget): Promise<void> {
+  const since = new Date(Date.now() - 60 * 60 * 1000);
+  const same = await tx
+    .select()
+    .from(amendments)
+    .where(
+      and(
+        eq(amendments.measureId, m.id),
+        eq(amendments.filedBy, actor.user.id),
+        eq(amendments.status, "filed"),
+        gt(amendments.filedAt, since),
+        eq(amendments.form, input.form),
+        eq(amendments.targetKind, target.targetKind),
+        target.targetSection === null ? isNull(amendments.targetSection) : eq(amendments.targetSection, target.targetSection),
+        target.targetAmendmentId === null ? isNull(amendments.targetAmendmentId) : eq(amendments.targetAmendmentId, target.targetAmendmentId),
+        input.lines ? and(eq(amendments.lineFrom, input.lines[0]), eq(amendments.lineTo, input.lines[1])) : isNull(amendments.lineFrom),
+        eq(amendments.text, input.text),
+        input.title === null ? isNull(amendments.title) : eq(amendments.title, input.title),
+      ),
+    )
+    .orderBy(desc(amendments.filedAt))
+    .limit(1);
+  const [earlier] = same;
+  if (!earlier) return;
+  const name = await nameOf(tx, m, earlier);
+  throw new GavelError("needs-confirmation", `You filed the same amendment ${formatDateTime(earlier.filedAt!, dateStyleOf(actor.chamber))}: ${name}. File it again anyway?`, {
+    details: { reason: "repeated-filing", amendment: amendmentKey(earlier), name },
+  });
+}
+
+/** `confirm` is the form's "File it anyway"; callers of our own (the seed) may leave it out. */
+type FileInput = Omit<z.output<typeof amendmentFileSchema>, "confirm"> & { confirm?: boolean };
 
 async function insertAmendment(tx: Tx, actor: Actor, m: MeasureRow, input: FileInput, attachmentId: string | null): Promise<AmendmentRow> {
+  assertNotArchived(m);
   if (CLOSED_MEASURE.has(m.status)) throw new GavelError("unprocessable", `${m.number} is ${m.status}; it takes no more amendments.`, { issues: [{ path: "(measure)", message: `measure is ${m.status}` }] });
   const names = await checkLegislators(actor.chamber.id, input.sponsors, "sponsors", tx);
   const target = await resolveTarget(tx, m, input.target, input.lines);
+  // The measure's row lock (nextNumber) serialises concurrent filings, so a repeat sent twice at once is caught too.
   const number = input.draft ? null : await nextNumber(tx, m.id);
+  if (!input.draft && !input.confirm) await assertNotRepeated(tx, actor, m, input, target);
   const [row] = await tx
     .insert(amendments)
     .values({
@@ -189,9 +269,24 @@ async function insertAmendment(tx: Tx, actor: Actor, m: MeasureRow, input: FileI
   return row;
 }
 
+/**
+ * What the filer sees at once: the amendment named in words and the tree check's findings on it
+ * (degree, sponsors, germaneness…), from the same validation the tree page shows.
+ */
+async function filingAnswer(actor: Actor, id: string) {
+  const view = await getAmendment(actor, id);
+  if (view.status === "draft") return { ...view, name: null, check: null };
+  const a = await amendmentRow(actor.chamber.id, id);
+  const m = await measureRow(actor.chamber.id, a.measureId);
+  const tree = await treeOf(actor, m.id);
+  const node = tree.nodes.find((n) => n.key === view.key);
+  const findings = tree.findings.filter((f) => f.amendment === view.key && !f.overridden).map((f) => ({ severity: f.severity, message: f.message }));
+  return { ...view, name: await nameOf(db, m, a), check: { degree: node?.degree ?? null, findings } };
+}
+
 export async function fileAmendment(actor: Actor, measureId: string, input: FileInput) {
-  const row = await db.transaction(async (tx) => insertAmendment(tx, actor, await measureRow(actor.chamber.id, measureId, tx), input, null));
-  return getAmendment(actor, row.id);
+  const row = await db.transaction(async (tx) => insertAmendment(tx, actor, await measureRow(actor.chamber.id, measureId, tx, true), input, null));
+  return filingAnswer(actor, row.id);
 }
 
 function parseLines(s: string | undefined): [number, number] | null {
@@ -215,17 +310,19 @@ export async function fileAmendmentFromUpload(actor: Actor, measureId: string, {
       sponsors: fields.sponsors ? fields.sponsors.split(",").map((s) => s.trim()).filter(Boolean) : [],
       committee: fields.committee || null,
       draft: fields.draft === "true",
+      confirm: fields.confirm === "true",
     },
     "upload",
   );
   if (!file) throw new GavelError("invalid-input", "upload: attach the amendment as `file`", { issues: [{ path: "file", message: "required" }] });
   const doc = await checkDocument(file);
   const row = await db.transaction(async (tx) => {
-    const m = await measureRow(actor.chamber.id, measureId, tx);
+    const m = await measureRow(actor.chamber.id, measureId, tx, true);
+    assertNotArchived(m);
     const [att] = await tx.insert(measureAttachments).values({ chamberId: actor.chamber.id, filename: doc.filename, mediaType: doc.mediaType, size: doc.size, sha256: doc.sha256, bytes: doc.bytes, extractedText: doc.text, uploadedBy: actor.user.id }).returning({ id: measureAttachments.id });
     return insertAmendment(tx, actor, m, { ...input, text: input.text.trim() ? input.text : doc.text.slice(0, 200_000) }, att.id);
   });
-  return getAmendment(actor, row.id);
+  return filingAnswer(actor, row.id);
 }
 
 /** Clerks edit any amendment; a member edits their own while it is a draft or filed, and may withdraw it. */
@@ -244,6 +341,7 @@ export async function updateAmendment(actor: Actor, id: string, input: z.output<
     await assertFresh(tx, { entity: "amendment", entityId: a.id, label: `Amendment ${amendmentKey(a)}` }, input.version, a.version);
     if (a.status === "draft" && input.status) throw new GavelError("unprocessable", "status: file the draft first (POST /api/amendments/:id/file)", { issues: [{ path: "status", message: "a draft is filed, not given a status" }] });
     const m = await measureRow(actor.chamber.id, a.measureId, tx);
+    assertNotArchived(m);
     if (input.sponsors) await checkLegislators(actor.chamber.id, input.sponsors, "sponsors", tx);
     const lines = input.lines !== undefined ? input.lines : a.lineFrom === null ? null : ([a.lineFrom, a.lineTo!] as [number, number]);
     const currentTarget = a.targetKind === "measure" ? "measure" : a.targetKind === "section" ? a.targetSection! : a.targetAmendmentId!;
@@ -268,6 +366,7 @@ export async function fileDraft(actor: Actor, id: string, input: z.output<typeof
     await assertFresh(tx, { entity: "amendment", entityId: a.id, label: `Amendment ${amendmentKey(a)}` }, input.version, a.version);
     if (a.status !== "draft") throw new GavelError("conflict", `Amendment ${amendmentKey(a)} is already filed.`, { issues: [{ path: "(status)", message: `is ${a.status}` }] });
     const m = await measureRow(actor.chamber.id, a.measureId, tx);
+    assertNotArchived(m);
     if (CLOSED_MEASURE.has(m.status)) throw new GavelError("unprocessable", `${m.number} is ${m.status}; it takes no more amendments.`);
     const number = await nextNumber(tx, m.id);
     const [next] = await tx.update(amendments).set({ number, status: "filed", filedAt: new Date(), filedBy: actor.user.id, version: a.version + 1, updatedAt: new Date() }).where(eq(amendments.id, a.id)).returning();
@@ -277,5 +376,5 @@ export async function fileDraft(actor: Actor, id: string, input: z.output<typeof
     const names = await legislatorNames(actor.chamber.id, tx);
     await queueReceipt(tx, actor, m, next, next.sponsors.map((s) => names.get(s) ?? s));
   });
-  return getAmendment(actor, id);
+  return filingAnswer(actor, id);
 }

@@ -21,11 +21,17 @@ import { readStored } from "../stored-json.ts";
 import { enqueueMail, requeueMail } from "../mail.ts";
 import { signUnsubscribe, verifyUnsubscribe } from "../circulation-unsubscribe.ts";
 import type { Actor } from "../http.ts";
+import { dateStyleOf, formatDateTime } from "../../text/dates.ts";
 
 const uuid = z.uuid();
 export const listInputSchema = distributionListSchema;
 export const listUpdateSchema = distributionListSchema.extend({ version: version() });
-export const sendSchema = z.object({ rulingId: uuid, listId: uuid });
+export const sendSchema = z.object({
+  rulingId: uuid,
+  listId: uuid,
+  /** Send even though this revision of the ruling already went to this list. */
+  confirm: z.boolean().default(false),
+});
 /** The digest, and optionally the chamber's list to send it to (`listId`; without it, the clerks' list). */
 export const digestSchema = floorDigestSchema.extend({ listId: safe(z.string().max(200)).nullish() });
 export const unsubscribeSchema = z.object({ token: safe(z.string().min(10).max(2000)) });
@@ -235,8 +241,24 @@ export async function circulateRulingInTx(tx: Tx, actor: Actor, ruling: RulingRo
 
 export async function circulateRuling(actor: Actor, input: z.output<typeof sendSchema>) {
   return db.transaction(async (tx) => {
-    const [ruling] = await tx.select().from(rulings).where(and(eq(rulings.id, input.rulingId), eq(rulings.chamberId, actor.chamber.id))).for("share");
+    // The row lock serialises sendings of one ruling, so two sent at once cannot both miss the earlier one.
+    const [ruling] = await tx.select().from(rulings).where(and(eq(rulings.id, input.rulingId), eq(rulings.chamberId, actor.chamber.id))).for("update");
     if (!ruling) throw new GavelError("not-found", "No such ruling in this chamber.");
+    if (!input.confirm && ruling.status === "issued") {
+      const list = await loadList(tx, actor.chamber.id, input.listId);
+      const [earlier] = await tx
+        .select({ at: circulations.createdAt, by: circulations.sentByName })
+        .from(circulations)
+        .where(and(eq(circulations.chamberId, actor.chamber.id), eq(circulations.rulingId, ruling.id), eq(circulations.rulingRevision, ruling.revision), eq(circulations.listId, list.id)))
+        .orderBy(desc(circulations.createdAt))
+        .limit(1);
+      if (earlier) {
+        const when = formatDateTime(earlier.at, dateStyleOf(actor.chamber));
+        throw new GavelError("needs-confirmation", `Ruling ${ruling.number} already went to “${list.name}” on ${when} (sent by ${earlier.by}). Its recipients would get it twice. Send it again anyway?`, {
+          details: { reason: "already-circulated", list: list.name },
+        });
+      }
+    }
     return circulateRulingInTx(tx, actor, ruling, input.listId);
   });
 }

@@ -5,7 +5,7 @@
  * Versions of the measure (the alternatives) come from the voting engine's amendmentTreeModel over
  * the amendments the estimate considers; CSV parsing and validation are the pure src/lib/estimates.
  */
-import { and, asc, desc, eq, inArray } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull } from "drizzle-orm";
 import { z } from "zod";
 import { safe, version, queryInt } from "../../schema-parts.ts";
 import { db, type Tx } from "../db.ts";
@@ -26,6 +26,7 @@ import { amendmentKey } from "./amendments.ts";
 import { measureRow } from "./measures.ts";
 import { caseFromRows, MEASURE_KEY } from "./trees.ts";
 import { readStored } from "../stored-json.ts";
+import { sectionInWords } from "../../amendments/amendment-words.ts";
 
 export type EstimateRow = typeof estimates.$inferSelect;
 
@@ -113,7 +114,7 @@ export async function treeFor(chamberId: string, measureId: string, scope: strin
       chosen.map((a) => {
         const r = byKey.get(a.id)!;
         const degree: 1 | 2 = a.target === MEASURE_KEY || sectionHeading.has(a.target) ? 1 : 2;
-        const targetLabel = a.target === MEASURE_KEY ? `the whole of ${m.number}` : sectionHeading.has(a.target) ? `section ${a.target.replace(/^s/, "")} (${sectionHeading.get(a.target)})` : `amendment ${a.target}`;
+        const targetLabel = a.target === MEASURE_KEY ? `the whole of ${m.number}` : sectionHeading.has(a.target) ? `${sectionInWords(a.target)} (${sectionHeading.get(a.target)})` : `amendment ${a.target}`;
         return [a.id, { title: r.title, form: r.form, target: a.target, targetLabel, lines: r.lineFrom === null ? null : [r.lineFrom, r.lineTo!] as [number, number], degree }];
       }),
     ),
@@ -287,7 +288,7 @@ export async function setSharing(actor: Actor, id: string, input: z.output<typeo
 /** People of the chamber the author can share with, and the measures that can carry estimates. */
 export async function estimateOptions(actor: Actor) {
   const people = await db.select({ id: user.id, name: user.name, role: member.role }).from(member).innerJoin(user, eq(member.userId, user.id)).where(eq(member.organizationId, actor.chamber.id)).orderBy(asc(user.name));
-  const ms = await db.select({ id: measures.id, number: measures.number, title: measures.title }).from(measures).where(eq(measures.chamberId, actor.chamber.id)).orderBy(asc(measures.number));
+  const ms = await db.select({ id: measures.id, number: measures.number, title: measures.title }).from(measures).where(and(isNull(measures.archivedAt), eq(measures.chamberId, actor.chamber.id))).orderBy(asc(measures.number));
   return { people: people.filter((p) => p.id !== actor.user.id), measures: ms, roles: CHAMBER_ROLES, canCreate: can(actor.role, "estimate:create") };
 }
 

@@ -3,7 +3,8 @@
  * optimistic concurrency, and their attachments and audit log. Every query is scoped by the
  * actor's chamber; another chamber's measure is "not found".
  */
-import { and, asc, count, eq, inArray } from "drizzle-orm";
+import { and, asc, count, desc, eq, inArray, isNotNull, isNull } from "drizzle-orm";
+import { user } from "../../db/schema/auth.ts";
 import type { z } from "zod";
 import { chamberMemory } from "../chamber-memory.ts";
 import { db, type Tx } from "../db.ts";
@@ -12,7 +13,7 @@ import { amendments, measureAttachments, measures, type StoredSection } from "..
 import { GavelError, parseWith } from "../../errors.ts";
 import type { Actor } from "../http.ts";
 import { assertFresh, auditOf, recordAudit } from "../measure-audit.ts";
-import { measureCreateSchema, measureUpdateSchema, sectionInputSchema } from "../../measures/measure-schemas.ts";
+import { measureCreateSchema, measureUpdateSchema, sectionInputSchema, versionOnlySchema } from "../../measures/measure-schemas.ts";
 import { countLines, parseMeasureText, subjectList } from "../measure-sections.ts";
 import { checkDocument, type MultipartUpload } from "../uploads.ts";
 
@@ -32,6 +33,11 @@ export async function measureRow(chamberId: string, id: string, q: Tx | typeof d
   const [row] = lock ? await base.for("update") : await base;
   if (!row) throw new GavelError("not-found", "No such measure in this chamber.");
   return row;
+}
+
+/** An archived measure is read, never changed: every write to it or its amendments answers 409 "archived". */
+export function assertNotArchived(m: MeasureRow): void {
+  if (m.archivedAt) throw new GavelError("archived", `${m.number} is archived: it can be read, not changed.`, { details: { measure: m.number } });
 }
 
 /** Legislators of the chamber by id; unknown ids are an input error at `path`. */
@@ -86,7 +92,7 @@ export async function listMeasures(actor: Actor) {
   const rows = await db
     .select({ id: measures.id, number: measures.number, title: measures.title, committee: measures.committee, status: measures.status, sittingAt: measures.sittingAt, updatedAt: measures.updatedAt })
     .from(measures)
-    .where(eq(measures.chamberId, actor.chamber.id))
+    .where(and(eq(measures.chamberId, actor.chamber.id), isNull(measures.archivedAt)))
     .orderBy(asc(measures.number));
   const counts = await db.select({ measureId: amendments.measureId, n: count() }).from(amendments).where(eq(amendments.chamberId, actor.chamber.id)).groupBy(amendments.measureId);
   const byMeasure = new Map(counts.map((c) => [c.measureId, c.n]));
@@ -112,7 +118,34 @@ export async function getMeasure(actor: Actor, id: string) {
     attachment: attachment ?? null,
     version: m.version,
     updatedAt: m.updatedAt.toISOString(),
+    archivedAt: m.archivedAt?.toISOString() ?? null,
   };
+}
+
+/** Measures archived in this chamber, newest first: still readable, offered nowhere else. */
+export async function listArchivedMeasures(actor: Actor) {
+  const rows = await db
+    .select({ id: measures.id, number: measures.number, title: measures.title, archivedAt: measures.archivedAt, archivedByName: user.name })
+    .from(measures)
+    .leftJoin(user, eq(user.id, measures.archivedBy))
+    .where(and(eq(measures.chamberId, actor.chamber.id), isNotNull(measures.archivedAt)))
+    .orderBy(desc(measures.archivedAt));
+  return { measures: rows.map((r) => ({ ...r, archivedAt: r.archivedAt!.toISOString() })) };
+}
+
+/**
+ * Archive a measure filed by mistake or twice: it leaves the lists and the forms that offer
+ * measures, stays readable, and takes no more changes. Sent with the version the clerk read.
+ */
+export async function archiveMeasure(actor: Actor, id: string, input: z.output<typeof versionOnlySchema>) {
+  await db.transaction(async (tx) => {
+    const m = await measureRow(actor.chamber.id, id, tx, true);
+    assertNotArchived(m);
+    await assertFresh(tx, { entity: "measure", entityId: m.id, label: `Measure ${m.number}` }, input.version, m.version);
+    const [next] = await tx.update(measures).set({ archivedAt: new Date(), archivedBy: actor.user.id, version: m.version + 1, updatedAt: new Date() }).where(eq(measures.id, m.id)).returning();
+    await recordAudit(tx, actor, { measureId: m.id, entity: "measure", entityId: m.id, action: "archived", version: next.version, before: snapshot(m), after: snapshot(next) });
+  });
+  return getMeasure(actor, id);
 }
 
 type CreateInput = z.output<typeof measureCreateSchema>;
@@ -167,6 +200,7 @@ export async function createMeasureFromUpload(actor: Actor, { fields, file }: Mu
 export async function updateMeasure(actor: Actor, id: string, input: z.output<typeof measureUpdateSchema>) {
   await db.transaction(async (tx) => {
     const m = await measureRow(actor.chamber.id, id, tx, true);
+    assertNotArchived(m);
     await assertFresh(tx, { entity: "measure", entityId: m.id, label: `Measure ${m.number}` }, input.version, m.version);
     if (input.sponsors) await checkLegislators(actor.chamber.id, input.sponsors, "sponsors", tx);
     if (input.number && input.number !== m.number) {

@@ -4,7 +4,7 @@
  * websearch_to_tsquery) and related-precedent suggestions. Every query is scoped to the
  * actor's chamber; another chamber's ruling answers 404.
  */
-import { and, asc, desc, eq, inArray, lte, ne, sql as dsql, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, lte, ne, sql as dsql, type SQL } from "drizzle-orm";
 import { z } from "zod";
 import { calendarDate, queryInt, safe, version } from "../../schema-parts.ts";
 import { db, type Tx } from "../db.ts";
@@ -392,7 +392,7 @@ export async function relatedPrecedents(actor: Actor, q: z.output<typeof related
 export async function draftingOptions(actor: Actor) {
   const chamberId = actor.chamber.id;
   const legs = await db.select({ id: legislators.id, name: legislators.name, bloc: legislators.bloc, office: legislators.office }).from(legislators).where(eq(legislators.chamberId, chamberId)).orderBy(asc(legislators.name));
-  const ms = await db.select({ id: measures.id, number: measures.number, title: measures.title }).from(measures).where(eq(measures.chamberId, chamberId)).orderBy(asc(measures.number));
+  const ms = await db.select({ id: measures.id, number: measures.number, title: measures.title }).from(measures).where(and(isNull(measures.archivedAt), eq(measures.chamberId, chamberId))).orderBy(asc(measures.number));
   const ams = await db
     .select({ id: amendments.id, number: amendments.number, title: amendments.title, measureId: amendments.measureId })
     .from(amendments)

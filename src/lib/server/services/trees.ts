@@ -19,7 +19,7 @@ import { adoptedRulebookOf } from "../measure-rulebook.ts";
 import type { overrideCreateSchema, FindingView, TreeNodeView, TreeView } from "../../measures/measure-schemas.ts";
 import { amendmentKey, amendmentRow, type AmendmentRow } from "./amendments.ts";
 import { nextAdoptionInForce } from "./rulebooks.ts";
-import { assertMeasureId, legislatorNames, measureRow, type MeasureRow } from "./measures.ts";
+import { assertMeasureId, assertNotArchived, legislatorNames, measureRow, type MeasureRow } from "./measures.ts";
 
 /** The measure's id inside the tree (sections and amendments have their own). */
 export const MEASURE_KEY = "measure";
@@ -139,6 +139,7 @@ export async function recordOverride(actor: Actor, measureId: string, input: z.o
     if (!r) throw new GavelError("unprocessable", "rulingId: no such ruling in this chamber", { issues: [{ path: "rulingId", message: "no such ruling" }] });
   }
   const row = await db.transaction(async (tx) => {
+    assertNotArchived(await measureRow(actor.chamber.id, measureId, tx));
     const locked = await amendmentRow(actor.chamber.id, a.id, tx, true);
     await assertFresh(tx, { entity: "amendment", entityId: a.id, label: `Amendment ${key}` }, input.version, locked.version);
     const [dup] = await tx.select({ id: treeOverrides.id }).from(treeOverrides).where(and(eq(treeOverrides.amendmentId, a.id), eq(treeOverrides.code, input.code)));
@@ -156,6 +157,7 @@ export async function revokeOverride(actor: Actor, measureId: string, overrideId
   await db.transaction(async (tx) => {
     const [o] = await tx.select().from(treeOverrides).where(and(eq(treeOverrides.id, overrideId), eq(treeOverrides.measureId, measureId), eq(treeOverrides.chamberId, actor.chamber.id))).for("update");
     if (!o) throw new GavelError("not-found", "No such override on this measure.");
+    assertNotArchived(await measureRow(actor.chamber.id, measureId, tx));
     const a = await amendmentRow(actor.chamber.id, o.amendmentId, tx);
     await tx.delete(treeOverrides).where(eq(treeOverrides.id, o.id));
     await recordAudit(tx, actor, { measureId, entity: "override", entityId: o.id, action: `revoked override of ${o.code} on ${amendmentKey(a)}`, version: 0, before: { amendment: amendmentKey(a), code: o.code, rulingRef: o.rulingRef, rulingId: o.rulingId, note: o.note }, after: null });
