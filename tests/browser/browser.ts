@@ -143,14 +143,15 @@ export function pageForFile(): { readonly page: Page; signInFresh(role: string):
  */
 export async function pickSponsors(scope: import("playwright-core").Locator | Page, positions: number[], how: "click" | "tap" = "click"): Promise<string[]> {
   const search = scope.getByRole("combobox", { name: "Sponsors" });
+  const list = scope.getByRole("listbox", { name: "Legislators" });
   const added: string[] = [];
   for (const i of positions) {
     await search.fill("");
     await search.click();
-    const entry = (await scope.getByRole("option").nth(i).innerText()).trim();
+    const entry = (await list.getByRole("option").nth(i).innerText()).trim();
     const name = entry.replace(/\s*\([^)]*\)$/, "");
     await search.fill(name);
-    const option = scope.getByRole("option", { name: entry, exact: true }).first();
+    const option = list.getByRole("option", { name: entry, exact: true }).first();
     await (how === "tap" ? option.tap() : option.click());
     await visible(scope.getByRole("button", { name: `Remove ${name}`, exact: true }));
     added.push(entry);
