@@ -53,6 +53,14 @@ describe("on a phone (390 px)", () => {
         await shot(page, `phone-too-wide-${p.file.replace(/[^a-z0-9]+/gi, "-")}`);
       }
     }
+    // Every estimate of the chamber too (ballots and spatial pages differ), beyond the inventory's one sample.
+    const all = await sql`SELECT e.id, e.title FROM estimates e JOIN organization o ON o.id = e.chamber_id WHERE o.slug LIKE 'harrowmere%' AND e.kind = 'spatial' ORDER BY e.created_at LIMIT 3`;
+    expect(all.length).toBeGreaterThan(0);
+    for (const e of all) {
+      await open(`/orders/${e.id}`);
+      const w = await widths();
+      if (w.doc > w.viewport) wide.push(`estimate “${e.title}”: ${w.doc} px wide`);
+    }
     expect(wide).toEqual([]);
     await open("/");
     await shot(page, "phone-desk");

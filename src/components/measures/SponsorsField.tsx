@@ -20,7 +20,7 @@ export function matchLegislators(legislators: Legislator[], query: string, chose
  * listbox: arrows move, Enter adds, Escape closes). The form receives one hidden `sponsors`
  * value per sponsor, as the multiple select did, so the API is unchanged.
  */
-export default function SponsorsField({ id, legislators, defaultValue, at = noIssues, className }: { id: string; size?: number; legislators: Legislator[]; defaultValue?: string[]; at?: IssueLookup; className?: string }) {
+export default function SponsorsField({ id, legislators, defaultValue, at = noIssues, className }: { id: string; legislators: Legislator[]; defaultValue?: string[]; at?: IssueLookup; className?: string }) {
   const [chosen, setChosen] = useState<string[]>(() => (defaultValue ?? []).filter((v) => legislators.some((l) => l.id === v)));
   const [query, setQuery] = useState("");
   const [open, setOpen] = useState(false);
