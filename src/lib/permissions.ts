@@ -39,6 +39,8 @@ export const PERMISSIONS = [
   "circulation:send",
   "lists:edit",
   "mail:view-caught",
+  /** See colleagues' e-mail addresses (people page and every API that lists people). */
+  "people:see-email",
   /** Cancel any analysis run of the chamber, not only one's own (the worker pool is shared). */
   "analysis:cancel-any",
 ] as const;

@@ -9,6 +9,9 @@ import { tableCounts } from "../support/db.ts";
 import type { Seeded } from "../support/fixtures.ts";
 import { API_ROUTES, outsiderStatuses, refusedRoles, urlOf, type ApiRoute, type Samples } from "./route-inventory.ts";
 import { harrowmereMarkers, seedSamples } from "./samples.ts";
+import { sql } from "../../src/lib/server/db.ts";
+import { CHAMBER_ROLES, can, type ChamberRole } from "../../src/lib/permissions.ts";
+import { DEMO_ACCOUNTS } from "../../src/lib/server/seed/demo-data.ts";
 
 let s: Seeded;
 let samples: Samples;
@@ -94,6 +97,49 @@ describe("refusals", () => {
       expect(res.status, label(r)).toBeLessThan(500);
       const text = typeof res.body === "string" ? res.body : JSON.stringify(res.body);
       for (const m of markers) expect(text.includes(m), `${label(r)} leaks ${m}`).toBe(false);
+    }
+  });
+});
+
+// Colleagues' e-mail addresses go only to roles holding "people:see-email" (chief clerk and
+// clerks). Every GET route a role may read is asked, and no colleague's address may appear in
+// the answer (one's own may). Distribution and delivery are the circulation desk's own work
+// (staff send to those addresses), so the circulation routes and a ruling's `circulations` (the
+// deliveries, given only to roles holding "circulation:send") are left out. Common practice
+// (data minimisation), no source.
+describe("e-mail addresses of people", () => {
+  async function addresses(): Promise<string[]> {
+    const rows = await sql.unsafe(`SELECT u.email AS v FROM "user" u JOIN member m ON m.user_id = u.id WHERE m.organization_id = $1`, [s.chambers.harrowmere]);
+    return rows.map((r) => String(r.v).toLowerCase());
+  }
+  const own = (role: ChamberRole) => DEMO_ACCOUNTS.find((a) => a.chamber === "harrowmere" && a.role === role)!.email.toLowerCase();
+  const readable = guarded.filter((r) => r.method === "GET" && !r.stream && !r.starterOnly && r.file !== "api/dev/mail.ts" && !r.file.startsWith("api/circulation/"));
+
+  it("members, staff and observers receive no colleague's address from any route they may read", async () => {
+    const all = await addresses();
+    expect(all.length).toBeGreaterThan(4);
+    let asked = 0;
+    for (const role of CHAMBER_ROLES.filter((r) => !can(r, "people:see-email"))) {
+      const others = all.filter((e) => e !== own(role));
+      for (const r of readable.filter((x) => x.audience === "signed-in" || (Array.isArray(x.audience) && x.audience.includes(role)))) {
+        const res = await send(r, s.as[role]);
+        const body = can(role, "circulation:send") && res.body && typeof res.body === "object" && "circulations" in res.body ? { ...res.body, circulations: [] } : res.body;
+        const text = (typeof body === "string" ? body : JSON.stringify(body)).toLowerCase();
+        for (const e of others) expect(text.includes(e), `${label(r)} as ${role} gives ${e}`).toBe(false);
+        asked++;
+      }
+    }
+    expect(asked).toBeGreaterThan(30);
+  });
+
+  it("the chief clerk and clerks see every colleague's address in the people list", async () => {
+    const all = await addresses();
+    const people = API_ROUTES.find((r) => r.path === "/api/people")!;
+    for (const role of CHAMBER_ROLES.filter((r) => can(r, "people:see-email"))) {
+      expect(role === "chief-clerk" || role === "clerk", role).toBe(true);
+      const res = await send(people, s.as[role]);
+      const got = (res.body as { members: Array<{ email: string | null }> }).members.map((m) => m.email);
+      expect(got.sort()).toEqual([...all].sort());
     }
   });
 });

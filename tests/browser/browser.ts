@@ -42,7 +42,7 @@ export async function islandsReady(page: Page, timeout = 30_000): Promise<void> 
 
 const patched = new WeakSet<Page>();
 /** Make `goto`, `reload`, `goBack` and `waitForURL` also wait for the page's islands to hydrate. */
-function waitForIslandsOnNavigation(page: Page): Page {
+export function waitForIslandsOnNavigation(page: Page): Page {
   if (patched.has(page)) return page;
   patched.add(page);
   for (const name of ["goto", "reload", "goBack", "waitForURL"] as const) {
@@ -133,4 +133,28 @@ export function pageForFile(): { readonly page: Page; signInFresh(role: string):
       await signInAs(page, role);
     },
   };
+}
+
+/**
+ * Add sponsors with the sponsor picker inside `scope`, as a clerk does: open the search, read the
+ * roster entry at each position of the list offered, type part of that name to filter, then choose
+ * it. `how` is "click" (mouse) or "tap" (touch; the page's context needs hasTouch). Returns the
+ * names added, as the list shows them ("Name (Bloc)").
+ */
+export async function pickSponsors(scope: import("playwright-core").Locator | Page, positions: number[], how: "click" | "tap" = "click"): Promise<string[]> {
+  const search = scope.getByRole("combobox", { name: "Sponsors" });
+  const list = scope.getByRole("listbox", { name: "Legislators" });
+  const added: string[] = [];
+  for (const i of positions) {
+    await search.fill("");
+    await search.click();
+    const entry = (await list.getByRole("option").nth(i).innerText()).trim();
+    const name = entry.replace(/\s*\([^)]*\)$/, "");
+    await search.fill(name);
+    const option = list.getByRole("option", { name: entry, exact: true }).first();
+    await (how === "tap" ? option.tap() : option.click());
+    await visible(scope.getByRole("button", { name: `Remove ${name}`, exact: true }));
+    added.push(entry);
+  }
+  return added;
 }

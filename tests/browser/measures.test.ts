@@ -6,7 +6,7 @@ import { describe, expect, it, vi } from "vitest";
 import postgres from "postgres";
 import type { Page } from "playwright-core";
 import { join } from "node:path";
-import { BASE_URL, SHOTS, account, browserForFile, shot, signInAs, textOf, visible } from "./browser.ts";
+import { BASE_URL, SHOTS, account, browserForFile, pickSponsors, shot, signInAs, textOf, visible } from "./browser.ts";
 
 const browser = browserForFile();
 
@@ -103,7 +103,8 @@ describe("filing", () => {
     await form.getByLabel("Short title").fill(title);
     await form.getByLabel("Text of the amendment").fill("Each lamp shall give at least 4000 lumens.");
     await form.getByLabel("Subject tags").fill("lighting");
-    await form.getByLabel("Sponsors").selectOption([{ index: 5 }, { index: 6 }]);
+    await pickSponsors(form, [5, 5]);
+    expect(await form.getByTestId("sponsor-chips").locator("input[name=sponsors]").count()).toBe(3);
     await shot(page, "measures-file-form");
     await form.getByRole("button", { name: "File amendment" }).click();
     const status = await textOf(form.getByRole("status"));

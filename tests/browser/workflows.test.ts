@@ -8,7 +8,7 @@ import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import type { BrowserContext, Page } from "playwright-core";
-import { BASE_URL, launch, shot, signInAs, textOf, visible } from "./browser.ts";
+import { BASE_URL, launch, pickSponsors, shot, signInAs, textOf, visible } from "./browser.ts";
 
 // One signed-in browser per role, shared by the tests (signing in is the slowest step).
 let clerk: Awaited<ReturnType<typeof launch>>;
@@ -53,7 +53,7 @@ describe("measures and amendments on the pages", () => {
     await page.getByLabel("Title", { exact: true }).fill("Quayside Bollards Ordinance");
     await page.getByLabel("Committee of jurisdiction").fill("Harbour Works");
     await page.getByLabel("Status").selectOption("in-committee");
-    await page.getByLabel("Sponsors").selectOption({ index: 0 });
+    await pickSponsors(page, [0]);
     await page.getByLabel("Text", { exact: true }).fill("## Section 1 — Bollards\nSubjects: bollards, safety\nBollards shall stand on the quay.\nThey shall be painted.\n## Section 2 — Costs\nSubjects: finance\nThe harbour dues pay for them.");
     await Promise.all([page.waitForURL(/\/measures\/[0-9a-f-]{36}$/), page.getByRole("button", { name: "Introduce measure" }).click()]);
     measureUrl = page.url();

@@ -57,7 +57,7 @@ export default function AmendmentFields({ prefix, sections, amendments, legislat
       {text ?? <TextField id={id("text")} path="text" name="text" label="Text of the amendment" at={at} multiline rows={4} defaultValue={defaults.text} />}
       <div className="grid gap-3 sm:grid-cols-2">
         <TextField id={id("subjects")} path="subjects" name="subjects" label="Subject tags" at={at} defaultValue={defaults.subjects} placeholder="lighting, safety" hint="Comma-separated. Germaneness is judged on these." />
-        <SponsorsField id={id("sponsors")} size={5} legislators={legislators} defaultValue={defaults.sponsors} at={at} />
+        <SponsorsField id={id("sponsors")} legislators={legislators} defaultValue={defaults.sponsors} at={at} />
       </div>
     </>
   );

@@ -34,7 +34,7 @@ export default function MeasureFields({ prefix, legislators, defaults, at }: Pro
       <Field id={id("status")} path="status" label="Status" at={at} control={(attrs) => <select {...attrs} name="status" className="gw-input" defaultValue={defaults.status}>{MEASURE_STATUSES.map((s) => <option key={s} value={s}>{s}</option>)}</select>} />
       <TextField id={id("sitting")} path="sittingAt" name="sittingAt" type="datetime-local" label="On the floor at" at={at} defaultValue={defaults.sittingAt} />
       <TextField id={id("subjects")} path="subjects" name="subjects" label="Subject tags" at={at} className="sm:col-span-2" defaultValue={defaults.subjects} placeholder="harbour, safety" hint="Comma-separated." />
-      {legislators.length > 0 && <SponsorsField id={id("sponsors")} size={4} legislators={legislators} defaultValue={defaults.sponsors} at={at} />}
+      {legislators.length > 0 && <SponsorsField id={id("sponsors")} legislators={legislators} defaultValue={defaults.sponsors} at={at} />}
     </div>
   );
 }

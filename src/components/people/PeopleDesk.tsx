@@ -8,7 +8,7 @@ import { issueLookup, noIssues, TextField, type IssueLookup } from "../shared/fi
 import { ConfirmDialog } from "../shared/ConfirmDialog.tsx";
 
 const peopleSchema = z.object({
-  members: z.array(z.object({ id: z.string(), userId: z.string(), name: z.string(), email: z.string(), role: z.string(), since: z.string() })),
+  members: z.array(z.object({ id: z.string(), userId: z.string(), name: z.string(), email: z.string().nullable(), role: z.string(), since: z.string() })),
   invitations: z.array(z.object({ id: z.string(), email: z.string(), role: z.string().nullable(), status: z.string(), expiresAt: z.string() })),
 });
 type People = z.infer<typeof peopleSchema>;
@@ -20,6 +20,8 @@ type Pending = { kind: "role"; memberId: string; name: string; from: string; to:
 
 interface Props {
   canAdminister: boolean;
+  /** Whether the e-mail column is shown (the server sends addresses only to those who may see them). */
+  showEmail: boolean;
   selfUserId: string;
 }
 
@@ -30,7 +32,7 @@ function roleLabel(role: string | null): string {
   return role && (CHAMBER_ROLES as readonly string[]).includes(role) ? ROLE_LABELS[role as ChamberRole] : (role ?? "—");
 }
 
-export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
+export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Props) {
   const [people, setPeople] = useState<People | null>(null);
   const [status, setStatus] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
@@ -149,7 +151,7 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
             <thead>
               <tr>
                 <th scope="col">Name</th>
-                <th scope="col">E-mail</th>
+                {showEmail && <th scope="col">E-mail</th>}
                 <th scope="col">Role</th>
                 {canAdminister && (
                   <th scope="col">
@@ -162,7 +164,7 @@ export default function PeopleDesk({ canAdminister, selfUserId }: Props) {
               {people.members.map((m) => (
                 <tr key={m.id}>
                   <td>{m.name}</td>
-                  <td>{m.email}</td>
+                  {showEmail && <td>{m.email}</td>}
                   <td>
                     {canAdminister && m.userId !== selfUserId ? (
                       <select aria-label={`Role of ${m.name}`} className="rounded-md border border-rule bg-white px-2 py-1" value={m.role} onChange={(e) => ask({ kind: "role", memberId: m.id, name: m.name, from: m.role, to: e.target.value })}>

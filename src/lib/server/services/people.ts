@@ -21,6 +21,9 @@ export async function listPeople(actor: Actor) {
     .innerJoin(user, eq(member.userId, user.id))
     .where(eq(member.organizationId, actor.chamber.id))
     .orderBy(asc(user.name));
+  // Addresses go only to those who may see them (chief clerk and clerks); others get null.
+  const seeEmail = can(actor.role, "people:see-email");
+  const people = members.map((m) => ({ ...m, email: seeEmail ? m.email : null }));
   const invitations = can(actor.role, "people:invite")
     ? await db
         .select({ id: invitation.id, email: invitation.email, role: invitation.role, status: invitation.status, expiresAt: invitation.expiresAt })
@@ -28,7 +31,7 @@ export async function listPeople(actor: Actor) {
         .where(and(eq(invitation.organizationId, actor.chamber.id), eq(invitation.status, "pending"), gt(invitation.expiresAt, new Date())))
         .orderBy(asc(invitation.email))
     : [];
-  return { members, invitations };
+  return { members: people, invitations };
 }
 
 export async function invite(actor: Actor, headers: Headers, input: z.output<typeof inviteSchema>) {
