@@ -6,9 +6,10 @@
 // are HttpOnly and SameSite; the security headers are on every page.
 // Common practice (OWASP: access control, XSS prevention, secure headers), no source.
 import postgres from "postgres";
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { ACCOUNTS, BASE_URL, launch, shot } from "./browser.ts";
+import { apiAs, pageSamples } from "./samples.ts";
 import { PAGE_ROUTES, refusedRoles, urlOf, type PageRoute, type Samples } from "../access/route-inventory.ts";
 
 const XSS = `<script>alert("gw")</script><img src=x onerror="alert(1)">`;
@@ -27,12 +28,7 @@ async function signIn(email: string, password: string): Promise<{ cookie: string
   return { cookie: setCookie.map((c) => c.split(";")[0]).join("; "), setCookie };
 }
 
-const api = async (path: string, cookie: string, body?: unknown) => {
-  const r = await fetch(`${BASE_URL}${path}`, body === undefined ? { headers: { cookie } } : { method: "POST", headers: { cookie, origin: BASE_URL, "content-type": "application/json" }, body: JSON.stringify(body) });
-  const json = await r.json();
-  if (!r.ok) throw new Error(`${path}: ${r.status} ${JSON.stringify(json)}`);
-  return json;
-};
+const api = apiAs;
 
 const get = (path: string, cookie?: string) => fetch(`${BASE_URL}${path}`, { headers: cookie ? { cookie } : {}, redirect: "manual" });
 
@@ -40,31 +36,8 @@ beforeAll(async () => {
   if (!process.env.DATABASE_URL) throw new Error("DATABASE_URL (the app's database) is needed to look up the seeded records");
   sql = postgres(process.env.DATABASE_URL, { max: 2, onnotice: () => {} });
   for (const a of ACCOUNTS) cookies[a.chamber === "harrowmere" ? a.role : `outsider-${a.role}`] = (await signIn(a.email, a.password)).cookie;
+  samples = await pageSamples(sql, cookies.clerk);
   const [h] = await sql`SELECT id FROM organization WHERE slug LIKE 'harrowmere%'`;
-  const one = async (q: Promise<postgres.RowList<postgres.Row[]>>) => String((await q)[0]?.id ?? "");
-  const adopted = await one(sql`SELECT v.id FROM rulebook_adoptions a JOIN rulebook_versions v ON v.id = a.version_id WHERE a.chamber_id = ${h.id} ORDER BY a.effective_from DESC LIMIT 1`);
-  const latest = await one(sql`SELECT id FROM rulebook_versions WHERE chamber_id = ${h.id} ORDER BY number DESC LIMIT 1`);
-  const estimate = await one(sql`SELECT id FROM estimates WHERE chamber_id = ${h.id} AND kind = 'ballots' ORDER BY created_at LIMIT 1`);
-  const started = await api("/api/analysis/runs", cookies.clerk, { estimateId: estimate });
-  await vi.waitFor(
-    async () => {
-      const status = (await api(`/api/analysis/runs/${started.runId}`, cookies.clerk)).run.status;
-      if (status !== "done") throw new Error(`the sample analysis is ${status}`);
-    },
-    { timeout: 60_000, interval: 200 },
-  );
-  const orders = await api(`/api/analysis/runs/${started.runId}/orders`, cookies.clerk);
-  samples = {
-    measure: await one(sql`SELECT id FROM measures WHERE chamber_id = ${h.id} ORDER BY number LIMIT 1`),
-    sitting: await one(sql`SELECT id FROM sittings WHERE chamber_id = ${h.id} ORDER BY opened_at LIMIT 1`),
-    estimate,
-    run: started.runId,
-    runOrder: orders.orders[0].questions.join(","),
-    rulebookVersion: adopted,
-    rulebookVersion2: latest,
-    issuedRuling: await one(sql`SELECT id FROM rulings WHERE chamber_id = ${h.id} AND status = 'issued' ORDER BY created_at LIMIT 1`),
-  } as Samples;
-  for (const [k, v] of Object.entries(samples)) if (!v) throw new Error(`no sample ${k} in the seeded database`);
   const rows = await sql`
     SELECT id::text AS v FROM measures WHERE chamber_id = ${h.id}
     UNION SELECT id::text FROM rulings WHERE chamber_id = ${h.id}

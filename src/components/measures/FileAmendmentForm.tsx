@@ -82,8 +82,8 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
           ) : undefined
         }
       />
-      <Alert>{failure}</Alert>
-      <Alert tone="ok" look="box">{message}</Alert>
+      <Alert focus>{failure}</Alert>
+      <Alert tone="ok" look="box" focus>{message}</Alert>
       <div className="flex gap-2">
         <button type="submit" className="gw-btn" value="file" disabled={busy}>File amendment</button>
         <button type="submit" className="gw-btn-quiet" value="draft" disabled={busy}>Save as draft</button>
