@@ -58,6 +58,8 @@ describe("the clerk's words on every page", () => {
       const path = urlOf(p, samples);
       await page.goto(`${BASE_URL}${path}`);
       if (p.file === "orders/[id].astro") await page.getByRole("heading", { name: "The legal orders" }).waitFor({ timeout: 60_000 });
+      // The measure's History, with every change opened (before and after).
+      if (p.file === "measures/[id]/index.astro") await page.locator("[data-testid=audit-table] details").evaluateAll((ds) => ds.forEach((d) => ((d as HTMLDetailsElement).open = true)));
       problems.push(...(await developerWords(page, path)));
     }
     // The analysis page with an order walked through, and a page that is not found.
