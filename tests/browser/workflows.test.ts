@@ -58,7 +58,7 @@ describe("measures and amendments on the pages", () => {
     await Promise.all([page.waitForURL(/\/measures\/[0-9a-f-]{36}$/), page.getByRole("button", { name: "Introduce measure" }).click()]);
     measureUrl = page.url();
     expect(await textOf(page.locator("h1"))).toContain(NUMBER);
-    expect(await textOf(page.getByText(/status in-committee/))).toContain("Harbour Works");
+    expect(await textOf(page.getByText(/· in committee ·/))).toContain("Harbour Works");
 
     // A second tab opens the same version before the first one saves.
     const late = await clerk.context.newPage();

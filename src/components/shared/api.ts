@@ -8,6 +8,9 @@ import { invalidInputWords, issueWords } from "../../lib/text/field-words.ts";
 
 export type Issue = { path: string; message: string };
 
+/** The validator's summary ("ruling: raisedById: must be …"); a message written for people is kept. */
+const ZOD_SUMMARY = /^[\w -]+: [\w.()-]+: /;
+
 export class ApiError extends Error {
   constructor(
     readonly status: number,
@@ -59,7 +62,7 @@ async function send(url: string, init: ApiInit): Promise<Response> {
     const { code, message, issues, details } = e.data.error;
     // Field paths and validator terms are for the API and the CLI: a person reads the field in words.
     const plain = issues.map((i) => ({ path: i.path, message: issueWords(i.message) }));
-    throw new ApiError(res.status, code, code === "invalid-input" && issues.length > 0 ? invalidInputWords(issues) : message, plain, details);
+    throw new ApiError(res.status, code, code === "invalid-input" && issues.length > 0 && ZOD_SUMMARY.test(message) ? invalidInputWords(issues) : message, plain, details);
   }
   throw new ApiError(res.status, "internal", `The server answered ${res.status}. Nothing was saved.`);
 }
