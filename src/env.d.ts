@@ -15,6 +15,8 @@ declare global {
       chambers: Array<{ id: string; name: string; slug: string; timeZone: string; role: ChamberRole }>;
       /** Per-request nonce for the content security policy. */
       requestId: string;
+      /** Set by `answerPage` (page-guard.ts) before rendering /404 in place: what to tell the reader. */
+      pageAnswer?: { status: number; title: string; message: string; back?: { href: string; label: string } };
       /** The TCP peer of the connection, set by scripts/serve.mjs (never from a header). */
       peerAddress?: string;
     }

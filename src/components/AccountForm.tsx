@@ -85,8 +85,8 @@ export default function AccountForm({ mode, next = "/", token, email }: Props) {
           hint={mode === "sign-in" ? undefined : "At least 10 characters."}
         />
       )}
-      <Alert id="form-err">{errors.form}</Alert>
-      <Alert tone="ok" look="box">{message}</Alert>
+      <Alert id="form-err" focus>{errors.form}</Alert>
+      <Alert tone="ok" look="box" focus>{message}</Alert>
       <button type="submit" className="gw-btn" disabled={busy}>
         {SUBMIT[mode]}
       </button>

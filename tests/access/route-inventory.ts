@@ -234,6 +234,7 @@ export const PAGE_ROUTES: readonly PageRoute[] = [
   { file: "unsubscribe/index.astro", path: "/unsubscribe", audience: "public", outsider: "own-chamber", note: "signed token" },
   { file: "invitations/[id].astro", path: "/invitations/:id", audience: "public", outsider: "own-chamber", note: "the invitation id is the secret; accepting needs the invited address" },
   { file: "chambers.astro", path: "/chambers", audience: "signed-in", outsider: "own-chamber" },
+  { file: "404.astro", path: "/404", audience: "public", outsider: "own-chamber", note: "the not-found answer inside the layout: for an address no page answers, and rendered in place (answerPage) for a record the chamber does not have or a damaged link; with a title and a way back" },
   { file: "not-permitted.astro", path: "/not-permitted", audience: "signed-in", outsider: "own-chamber", note: "rendered in place (403) by every page a role may not open (guardPage); says which roles may, with a way back" },
   { file: "index.astro", path: "/", audience: ALL_ROLES, outsider: "own-chamber" },
   { file: "people.astro", path: "/people", audience: ALL_ROLES, outsider: "own-chamber" },

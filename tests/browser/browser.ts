@@ -10,13 +10,15 @@ export const BASE_URL = process.env.GAVELWRIGHT_TEST_URL ?? "http://127.0.0.1:43
 export const SHOTS = join(process.cwd(), "test-results", "screenshots");
 export const ACCOUNTS = demoAccounts;
 
-export async function launch(): Promise<{ context: BrowserContext; close(): Promise<void> }> {
+/** `bypassCSP`: let a test inject a script of its own (axe-core) into pages served under the strict policy. */
+export async function launch(options: { bypassCSP?: boolean } = {}): Promise<{ context: BrowserContext; close(): Promise<void> }> {
   mkdirSync(SHOTS, { recursive: true });
   const profile = mkdtempSync(join(tmpdir(), "gw-chromium-"));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
     headless: true,
     viewport: { width: 1360, height: 900 },
+    bypassCSP: options.bypassCSP ?? false,
     args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--disable-dev-shm-usage"],
   });
   context.on("page", waitForIslandsOnNavigation);

@@ -95,7 +95,7 @@ describe("rulebook authoring", () => {
     await expect.poll(() => placeOf("Take a recess")).toBe(1);
     expect(await placeOf("Fix the time to which to adjourn")).toBe(2);
     // US House Rule XVI cl. 4(c) (paraphrase): equal privilege is one place holding both motions.
-    await page.getByRole("button", { name: "Give Fix the time to which to adjourn equal rank with the motion above" }).click();
+    await page.getByRole("button", { name: "Equal with above: Fix the time to which to adjourn takes equal rank with the motion above" }).click();
     await expect.poll(() => placeOf("Fix the time to which to adjourn")).toBe(1);
     expect(await placeOf("Take a recess")).toBe(1);
     expect(await list.locator("li").first().getByText("equal rank").count()).toBe(2);

@@ -58,7 +58,7 @@ describe("measures and amendments on the pages", () => {
     await Promise.all([page.waitForURL(/\/measures\/[0-9a-f-]{36}$/), page.getByRole("button", { name: "Introduce measure" }).click()]);
     measureUrl = page.url();
     expect(await textOf(page.locator("h1"))).toContain(NUMBER);
-    expect(await textOf(page.getByText(/status in-committee/))).toContain("Harbour Works");
+    expect(await textOf(page.getByText(/· in committee ·/))).toContain("Harbour Works");
 
     // A second tab opens the same version before the first one saves.
     const late = await clerk.context.newPage();
@@ -135,12 +135,12 @@ describe("measures and amendments on the pages", () => {
     expect(await details.getByLabel("Ruling relied on").inputValue()).toMatch(new RegExp(`^Ruling ${number}`));
     await shot(page, "workflows-override-picker");
     await details.getByRole("button", { name: "Record override" }).click();
-    expect(await textOf(page.getByRole("status").filter({ hasText: "Override of" }))).toContain(`resting on Ruling ${number}`);
+    expect(await textOf(page.getByRole("status").filter({ hasText: "Override on Amendment A1 recorded" }))).toContain(`resting on Ruling ${number}`);
     await visible(details.getByText(`Ruling: Ruling ${number}`));
     expect(await details.getByRole("link", { name: new RegExp(`^Ruling ${number} \\(`) }).first().getAttribute("href")).toMatch(/^\/rulings\/[0-9a-f-]{36}$/);
     await shot(page, "workflows-override-recorded");
     await details.getByRole("button", { name: "Revoke override" }).click();
-    expect(await textOf(page.getByRole("status").filter({ hasText: "revoked" }))).toMatch(/Override of .+ on A1 revoked/);
+    expect(await textOf(page.getByRole("status").filter({ hasText: "revoked" }))).toMatch(/Override on Amendment A1 revoked: “.+” counts again/);
     expect(await details.getByRole("button", { name: "Revoke override" }).count()).toBe(0);
 
     // A finding on the demo tree shows the issued precedents that cite the same rule.

@@ -47,8 +47,8 @@ export default function LegalMovesList({ moves, caption }: { moves: Verdict[]; c
             {m.reasons.length > 0 && (
               <ul className="mt-1 list-disc pl-5 text-sm">
                 {m.reasons.map((r) => (
-                  <li key={r.rule}>
-                    {r.message} <span className="text-ink-soft">— <ClauseCitation citation={r.citation} clause={r.clause} /> <code className="text-xs">[{r.rule}]</code></span>
+                  <li key={r.rule} data-rule={r.rule}>
+                    {r.message} <span className="text-ink-soft">— <ClauseCitation citation={r.citation} clause={r.clause} /></span>
                   </li>
                 ))}
               </ul>

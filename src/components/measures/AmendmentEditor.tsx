@@ -1,6 +1,7 @@
 import { useEffect, useRef, useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import type { AMENDMENT_FORMS } from "../../lib/amendments/case-schema.ts";
+import { statusLabel } from "../../lib/measures/measure-schemas.ts";
 import AmendmentFields, { LINES_HINT, readAmendmentFields } from "./AmendmentFields.tsx";
 import { apiCall } from "../shared/api.ts";
 import { conflictText } from "./api.ts";
@@ -70,7 +71,7 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
           <label htmlFor="ae-pick" className="gw-label">Edit an amendment</label>
           <select id="ae-pick" className="gw-input" value="" onChange={(e) => setKey(e.target.value)}>
             <option value="">Choose one…</option>
-            {editable.map((x) => <option key={x.id} value={x.key}>{x.key}{x.title ? ` — ${x.title}` : ""} ({x.status})</option>)}
+            {editable.map((x) => <option key={x.id} value={x.key}>{x.key}{x.title ? ` — ${x.title}` : ""} ({statusLabel("amendment", x.status).toLowerCase()})</option>)}
           </select>
         </div>
         <p className="gw-hint">Or use Edit on its row above. Text, target and lines, form, subjects and sponsors can be changed.</p>
@@ -115,7 +116,7 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
           <div>
             <label htmlFor="ae-pick" className="gw-label">Amendment to edit</label>
             <select id="ae-pick" className="gw-input" value={key} onChange={(e) => { setKey(e.target.value); setFailure(null); setAt(() => noIssues); }}>
-              {editable.map((x) => <option key={x.id} value={x.key}>{x.key}{x.title ? ` — ${x.title}` : ""} ({x.status})</option>)}
+              {editable.map((x) => <option key={x.id} value={x.key}>{x.key}{x.title ? ` — ${x.title}` : ""} ({statusLabel("amendment", x.status).toLowerCase()})</option>)}
             </select>
           </div>
         )}
@@ -134,7 +135,7 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
           {stale && <button type="button" className="gw-btn-quiet mt-2" onClick={() => window.location.reload()}>Reload the current version</button>}
         </Alert>
       )}
-      <p className="gw-hint">Status ({a.status}) is changed in the table above. Saving is based on version {a.version}.</p>
+      <p className="gw-hint">Status ({statusLabel("amendment", a.status).toLowerCase()}) is changed in the table above. Saving is based on version {a.version}.</p>
       <button type="submit" className="gw-btn" disabled={busy}>Save amendment {a.key}</button>
     </form>
   );

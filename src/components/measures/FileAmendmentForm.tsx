@@ -131,8 +131,8 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
           ) : undefined
         }
       />
-      <Alert>{failure}</Alert>
-      <Alert tone="ok" look="box">{message}</Alert>
+      <Alert focus>{failure}</Alert>
+      <Alert tone="ok" look="box" focus>{message}</Alert>
       {repeat && (
         <div ref={question} tabIndex={-1} role="group" aria-labelledby="fa-repeat" className="gw-advisory space-y-2" data-testid="filing-repeat">
           <p id="fa-repeat" className="font-semibold">{repeat.question}</p>

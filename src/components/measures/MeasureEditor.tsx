@@ -1,6 +1,6 @@
 import { useState, type SubmitEvent } from "react";
 import { z } from "zod";
-import type { MeasureStatus } from "../../lib/measures/measure-schemas.ts";
+import { SECTION_STATUS_LABELS, type MeasureStatus } from "../../lib/measures/measure-schemas.ts";
 import MeasureFields, { readMeasureFields } from "./MeasureFields.tsx";
 import { apiCall } from "../shared/api.ts";
 import { conflictText } from "./api.ts";
@@ -113,7 +113,7 @@ export default function MeasureEditor({ measure, legislators, timeZone }: Props)
             </div>
             <div className="mt-2 grid gap-2 sm:grid-cols-3">
               <TextField id={`me-s${i}-heading`} path={`sections.${i}.heading`} label="Heading" at={at} className="sm:col-span-2" value={s.heading} onChange={(v) => patch(i, { heading: v })} maxLength={500} />
-              <SelectField id={`me-s${i}-status`} path={`sections.${i}.status`} label="Text status" at={at} value={s.status} options={SECTION_STATUSES} onChange={(v) => patch(i, { status: v })} />
+              <SelectField id={`me-s${i}-status`} path={`sections.${i}.status`} label="Text status" at={at} value={s.status} options={SECTION_STATUSES} labels={SECTION_STATUS_LABELS} onChange={(v) => patch(i, { status: v })} />
             </div>
             <TextField id={`me-s${i}-text`} path={`sections.${i}.text`} label={`Text of § ${s.id ?? "new section"}`} at={at} className="mt-2" multiline rows={Math.min(10, Math.max(3, s.text.split("\n").length + 1))} value={s.text} onChange={(v) => patch(i, { text: v })} hint="One line per numbered line; amendments cite these line numbers." />
             <TextField id={`me-s${i}-subjects`} path={`sections.${i}.subjects`} label={`Subject tags of § ${s.id ?? "new section"}`} at={at} className="mt-2" value={s.subjects} onChange={(v) => patch(i, { subjects: v })} />

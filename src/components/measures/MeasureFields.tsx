@@ -1,4 +1,4 @@
-import { MEASURE_STATUSES, type MeasureStatus } from "../../lib/measures/measure-schemas.ts";
+import { MEASURE_STATUSES, MEASURE_STATUS_LABELS, type MeasureStatus } from "../../lib/measures/measure-schemas.ts";
 import { Field, TextField, type IssueLookup } from "../shared/fields.tsx";
 import { fromInput } from "../shared/dates.ts";
 import SponsorsField from "./SponsorsField.tsx";
@@ -31,7 +31,7 @@ export default function MeasureFields({ prefix, legislators, defaults, at }: Pro
       <TextField id={id("number")} path="number" name="number" label="Number" at={at} defaultValue={defaults.number} placeholder="HCA 14" />
       <TextField id={id("title")} path="title" name="title" label="Title" at={at} className="sm:col-span-2" defaultValue={defaults.title} maxLength={500} />
       <TextField id={id("committee")} path="committee" name="committee" label="Committee of jurisdiction" at={at} defaultValue={defaults.committee} maxLength={200} />
-      <Field id={id("status")} path="status" label="Status" at={at} control={(attrs) => <select {...attrs} name="status" className="gw-input" defaultValue={defaults.status}>{MEASURE_STATUSES.map((s) => <option key={s} value={s}>{s}</option>)}</select>} />
+      <Field id={id("status")} path="status" label="Status" at={at} control={(attrs) => <select {...attrs} name="status" className="gw-input" defaultValue={defaults.status}>{MEASURE_STATUSES.map((s) => <option key={s} value={s}>{MEASURE_STATUS_LABELS[s]}</option>)}</select>} />
       <TextField id={id("sitting")} path="sittingAt" name="sittingAt" type="datetime-local" label="On the floor at" at={at} defaultValue={defaults.sittingAt} />
       <TextField id={id("subjects")} path="subjects" name="subjects" label="Subject tags" at={at} className="sm:col-span-2" defaultValue={defaults.subjects} placeholder="harbour, safety" hint="Comma-separated." />
       {legislators.length > 0 && <SponsorsField id={id("sponsors")} legislators={legislators} defaultValue={defaults.sponsors} at={at} />}

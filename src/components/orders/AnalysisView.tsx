@@ -82,11 +82,17 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
     if (!runId) return;
     try {
       setWalk(await apiCall(walkSchema, `/api/analysis/runs/${runId}/walk?order=${encodeURIComponent(order.join(","))}`));
-      setTimeout(() => document.getElementById("walk-through")?.scrollIntoView({ behavior: "smooth" }), 50);
     } catch (e) {
       setError(e instanceof ApiError ? e.message : "Could not walk through that order.");
     }
   };
+
+  // The walk-through answers the click: the page scrolls to it and focus moves to its heading.
+  useEffect(() => {
+    if (!walk) return;
+    document.getElementById("walk-through")?.scrollIntoView({ behavior: "smooth" });
+    document.getElementById("walk-h")?.focus();
+  }, [walk]);
 
   const cancel = async () => {
     if (!result) return;
@@ -119,11 +125,13 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
   const a = result.analysis!;
   const versions = result.versions!;
   const short = (id: string) => versions.find((v) => v.id === id)?.short ?? id;
+  /** A question of an order in words: an amendment's key, a version by its short name, or final passage. */
+  const ask = (q: string) => (q === "passage" ? "Final passage" : short(q));
   const m = a.majority;
   const graph = graphSelection(versions.map((v) => v.id), m.margins, m.topCycle, showAll);
   return (
     <div className="space-y-6">
-      <p className="text-sm text-ink-soft">Rulebook: {result.run.rulebook}. Procedure: {a.procedure === "amendment" ? "amendment procedure (pairwise votes)" : "successive procedure (yes/no in turn)"}. {a.thresholds ? `Votes required: amendments ${thresholdInWords(a.thresholds.amendment)}; passage ${thresholdInWords(a.thresholds.passage)}${a.thresholds.passageFrom === "main-motion" ? " (the main motion's vote in the rulebook)" : ""}. ` : ""}{a.quorum ? (a.quorum.met === null ? `Quorum not checked (no membership known); ${a.quorum.present} attending. ` : `Quorum ${a.quorum.required}, ${a.quorum.present} attending. `) : ""}{a.tieRule && a.tieRule !== "motion-fails" ? `Tie rule: ${a.tieRule}. ` : ""}{result.run.cached ? "Answered from the stored analysis of identical inputs." : "Freshly computed."}</p>
+      <p className="text-sm text-ink-soft">Rulebook: {result.run.rulebook}. Procedure: {a.procedure === "amendment" ? "amendment procedure (pairwise votes)" : "successive procedure (yes/no in turn)"}. {a.thresholds ? `Votes required: amendments ${thresholdInWords(a.thresholds.amendment)}; passage ${thresholdInWords(a.thresholds.passage)}${a.thresholds.passageFrom === "main-motion" ? " (the main motion's vote in the rulebook)" : ""}. ` : ""}{a.quorum ? (a.quorum.met === null ? `Quorum not checked (no membership known); ${a.quorum.present} attending. ` : `Quorum ${a.quorum.required}, ${a.quorum.present} attending. `) : ""}{a.tieRule && a.tieRule !== "motion-fails" ? `Tie rule: ${a.tieRule.replace(/-/g, " ")}. ` : ""}{result.run.cached ? "Answered from the stored analysis of identical inputs." : "Freshly computed."}</p>
 
       <section className="gw-card" aria-labelledby="findings-h">
         <h2 id="findings-h" className="text-lg font-semibold">Findings</h2>
@@ -207,7 +215,7 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
                 {orders.orders.map((o) => (
                   <tr key={o.rank}>
                     <td>{o.rank}</td>
-                    <td className="font-mono text-xs">{o.questions.join(" → ")}</td>
+                    <td>{o.questions.map(ask).join(" → ")}</td>
                     <td>{o.sincereShort}</td>
                     <td>{o.sophisticatedShort}{o.sincere !== o.sophisticated && <span className="gw-chip ml-2 border-brass text-brass-text">differs</span>}</td>
                     <td className="whitespace-nowrap">
@@ -230,11 +238,11 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
 
       {walk && (
         <section id="walk-through" className="gw-card" aria-labelledby="walk-h">
-          <h2 id="walk-h" className="text-lg font-semibold">Vote by vote: {walk.walk.order.join(" → ")}</h2>
+          <h2 id="walk-h" className="text-lg font-semibold" tabIndex={-1}>Vote by vote: {walk.walk.order.map(ask).join(" → ")}</h2>
           <p className="gw-advisory mt-2">{ADVISORY}</p>
           <div className="mt-3 grid gap-4 lg:grid-cols-2">
-            <WalkColumn title="Sincere voting" note={a.procedure === "successive" ? "Successive procedure: a member votes for an amendment only if the text it makes is the member's first choice among the versions still within reach (the no-change option included); final passage sets the text reached against no change." : "Members vote for the version they prefer of the two before them."} steps={walk.walk.sincere.steps} outcome={walk.walk.sincere.outcome} short={short} />
-            <WalkColumn title="Sophisticated voting" note="Members look ahead and vote for the branch that ends better for them." steps={walk.walk.sophisticated.steps} outcome={walk.walk.sophisticated.outcome} short={short} />
+            <WalkColumn title="Sincere voting" note={a.procedure === "successive" ? "Successive procedure: a member votes for an amendment only if the text it makes is the member's first choice among the versions still within reach (the no-change option included); final passage sets the text reached against no change." : "Members vote for the version they prefer of the two before them."} steps={walk.walk.sincere.steps} outcome={walk.walk.sincere.outcome} short={short} ask={ask} />
+            <WalkColumn title="Sophisticated voting" note="Members look ahead and vote for the branch that ends better for them." steps={walk.walk.sophisticated.steps} outcome={walk.walk.sophisticated.outcome} short={short} ask={ask} />
           </div>
           <a className="gw-btn mt-4" href={`/orders/${estimateId}/script?run=${result.run.id}&order=${encodeURIComponent(walk.walk.order.join(","))}`}>Open the chair's script for this order</a>
         </section>
@@ -248,7 +256,7 @@ function setInWords(ids: string[], short: (id: string) => string, more = ""): st
   return ids.length <= 6 ? ids.map(short).join(", ") : `${ids.length} versions${more}`;
 }
 
-function WalkColumn({ title, note, steps, outcome, short }: { title: string; note: string; steps: Step[]; outcome: string; short: (id: string) => string }) {
+function WalkColumn({ title, note, steps, outcome, short, ask }: { title: string; note: string; steps: Step[]; outcome: string; short: (id: string) => string; ask: (q: string) => string }) {
   return (
     <div>
       <h3 className="font-semibold">{title}</h3>
@@ -256,7 +264,7 @@ function WalkColumn({ title, note, steps, outcome, short }: { title: string; not
       <ol className="mt-2 space-y-2">
         {steps.map((s, i) => (
           <li key={i} className="rounded border border-rule p-2 text-sm">
-            <span className="font-semibold">{s.question === "passage" ? "Final passage" : s.question}</span>{" "}
+            <span className="font-semibold">{ask(s.question)}</span>{" "}
             {!s.put ? <span className="text-ink-soft">— falls, not put</span> : (
               <>
                 — {short(s.motion!)} against {short(s.base!)}:{" "}

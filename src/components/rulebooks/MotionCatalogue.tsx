@@ -93,9 +93,9 @@ export default function MotionCatalogue({ doc, at, readOnly, setMotion, update }
                 <button type="button" className="gw-btn-quiet px-2" aria-label={`Move ${m.name} up`} disabled={tierIndex === 0 && tierSize === 1} onClick={() => { const next = moveUp(view, id); reorder(next, `${m.name} moved up to place ${place(next, id)}.`); }}>↑</button>
                 <button type="button" className="gw-btn-quiet px-2" aria-label={`Move ${m.name} down`} disabled={tierIndex === view.tiers.length - 1 && tierSize === 1} onClick={() => { const next = moveDown(view, id); reorder(next, `${m.name} moved down to place ${place(next, id)}.`); }}>↓</button>
                 {tierSize > 1 ? (
-                  <button type="button" className="gw-btn-quiet px-2 text-sm" aria-label={`Give ${m.name} its own place`} onClick={() => { const next = separate(view, id); reorder(next, `${m.name} has its own place, ${place(next, id)}.`); }}>Own place</button>
+                  <button type="button" className="gw-btn-quiet px-2 text-sm" aria-label={`Own place: ${m.name} gets a place of its own`} onClick={() => { const next = separate(view, id); reorder(next, `${m.name} has its own place, ${place(next, id)}.`); }}>Own place</button>
                 ) : (
-                  tierIndex > 0 && <button type="button" className="gw-btn-quiet px-2 text-sm" aria-label={`Give ${m.name} equal rank with the motion above`} onClick={() => { const next = tieWithAbove(view, id); reorder(next, `${m.name} now has equal rank with ${view.tiers[tierIndex - 1].map(name).join(" and ")}.`); }}>Equal with above</button>
+                  tierIndex > 0 && <button type="button" className="gw-btn-quiet px-2 text-sm" aria-label={`Equal with above: ${m.name} takes equal rank with the motion above`} onClick={() => { const next = tieWithAbove(view, id); reorder(next, `${m.name} now has equal rank with ${view.tiers[tierIndex - 1].map(name).join(" and ")}.`); }}>Equal with above</button>
                 )}
               </>
             )}

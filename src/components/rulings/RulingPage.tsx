@@ -60,12 +60,9 @@ export function RulingBody({ r }: { r: RulingView }) {
           <h3>Citations</h3>
           <ul className="mt-2 list-disc pl-5 text-sm">
             {r.citations.map((c, i) => (
-              <li key={i}>
+              <li key={i} data-rule={c.kind === "rule" ? (c.ruleId ?? undefined) : undefined}>
                 {c.kind === "rule" ? (
-                  <>
-                    {c.citation}
-                    {c.ruleId && <span className="text-ink-soft"> (rule {c.ruleId})</span>}
-                  </>
+                  c.citation
                 ) : (
                   <a href={`/rulings/${c.rulingId}`}>{c.label ?? "Earlier ruling"}</a>
                 )}

@@ -8,9 +8,12 @@
  * - `issues`: the field issues to list under the message, from `listFrom` of them (default 2: the
  *   message already says the first); `showPaths` prints each issue's path (for the rulebook's JSON,
  *   where the path is what the clerk edits); at most `limit` (default 20).
+ * - `focus`: the message answers what the person just did (signing in, filing, recording, a step):
+ *   it takes the keyboard focus each time it appears or changes, so a screen reader and a
+ *   keyboard user land on it (WCAG 2.2, 3.3.1 and 4.1.3; common practice for form results).
  * Keep `testId`s: browser tests select on them.
  */
-import type { ReactNode } from "react";
+import { useEffect, useRef, type ReactNode } from "react";
 import type { Issue } from "./api.ts";
 
 interface Props {
@@ -24,6 +27,7 @@ interface Props {
   showPaths?: boolean;
   listFrom?: number;
   limit?: number;
+  focus?: boolean;
 }
 
 const CLASSES: Record<NonNullable<Props["tone"]>, Record<NonNullable<Props["look"]>, string>> = {
@@ -41,8 +45,15 @@ const CLASSES: Record<NonNullable<Props["tone"]>, Record<NonNullable<Props["look
   },
 };
 
-export function Alert({ children, tone = "error", look = "text", id, testId, className, issues, showPaths = false, listFrom = 2, limit = 20 }: Props) {
-  if (children === null || children === undefined || children === false || children === "") return null;
+export function Alert({ children, tone = "error", look = "text", id, testId, className, issues, showPaths = false, listFrom = 2, limit = 20, focus = false }: Props) {
+  const ref = useRef<HTMLElement>(null);
+  const empty = children === null || children === undefined || children === false || children === "";
+  const key = empty ? "" : typeof children === "string" || typeof children === "number" ? String(children) : "shown";
+  useEffect(() => {
+    if (focus && key) ref.current?.focus();
+  }, [focus, key]);
+  if (empty) return null;
+  const focusable = focus ? { tabIndex: -1, ref: ref as never } : {};
   const role = tone === "error" ? "alert" : "status";
   const cls = [CLASSES[tone][look], className].filter(Boolean).join(" ");
   const list =
@@ -62,19 +73,19 @@ export function Alert({ children, tone = "error", look = "text", id, testId, cla
     ) : null;
   if (look === "inline" || look === "on-dark")
     return (
-      <span role={role} id={id} data-testid={testId} className={cls}>
+      <span role={role} id={id} data-testid={testId} className={cls} {...focusable}>
         {children}
       </span>
     );
   if (list || look === "box")
     return (
-      <div role={role} id={id} data-testid={testId} className={cls}>
+      <div role={role} id={id} data-testid={testId} className={cls} {...focusable}>
         {children}
         {list}
       </div>
     );
   return (
-    <p role={role} id={id} data-testid={testId} className={cls}>
+    <p role={role} id={id} data-testid={testId} className={cls} {...focusable}>
       {children}
     </p>
   );

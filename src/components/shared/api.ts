@@ -4,8 +4,12 @@
  * every island shows a refusal the same way.
  */
 import { z } from "zod";
+import { invalidInputWords, issueWords } from "../../lib/text/field-words.ts";
 
 export type Issue = { path: string; message: string };
+
+/** The validator's summary ("ruling: raisedById: must be …"); a message written for people is kept. */
+const ZOD_SUMMARY = /^[\w -]+: [\w.()-]+: /;
 
 export class ApiError extends Error {
   constructor(
@@ -54,7 +58,12 @@ async function send(url: string, init: ApiInit): Promise<Response> {
     /* no JSON body */
   }
   const e = errorBody.safeParse(data);
-  if (e.success) throw new ApiError(res.status, e.data.error.code, e.data.error.message, e.data.error.issues, e.data.error.details);
+  if (e.success) {
+    const { code, message, issues, details } = e.data.error;
+    // Field paths and validator terms are for the API and the CLI: a person reads the field in words.
+    const plain = issues.map((i) => ({ path: i.path, message: issueWords(i.message) }));
+    throw new ApiError(res.status, code, code === "invalid-input" && issues.length > 0 && ZOD_SUMMARY.test(message) ? invalidInputWords(issues) : message, plain, details);
+  }
   throw new ApiError(res.status, "internal", `The server answered ${res.status}. Nothing was saved.`);
 }
 

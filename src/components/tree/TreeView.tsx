@@ -1,7 +1,7 @@
-import { useCallback, useEffect, useMemo, useRef, useState, type KeyboardEvent } from "react";
+import { useCallback, useEffect, useMemo, useRef, useState, type KeyboardEvent, type ReactNode } from "react";
 import { Background, Controls, MiniMap, ReactFlow, ReactFlowProvider, useReactFlow, type Edge } from "@xyflow/react";
 import "@xyflow/react/dist/style.css";
-import { treeViewSchema, type FindingView, type TreeView as TreeData } from "../../lib/measures/measure-schemas.ts";
+import { formLabel, statusLabel, treeViewSchema, type FindingView, type TreeNodeView, type TreeView as TreeData } from "../../lib/measures/measure-schemas.ts";
 import { ApiError, apiCall } from "../shared/api.ts";
 import { conflictText } from "../measures/api.ts";
 import { layoutTree } from "./layout.ts";
@@ -20,8 +20,66 @@ interface Props {
 }
 
 const nodeTypes = { tree: TreeNodeCard };
+const SEVERITY_WORDS: Record<string, string> = { error: "error", warning: "warning", info: "note" };
 const SEVERITY_CHIP: Record<string, string> = { error: "border-verdict-bar bg-verdict-bar-tint text-verdict-bar", warning: "border-verdict-query bg-verdict-query-tint text-verdict-query", info: "border-chamber bg-chamber-tint text-chamber-dark" };
 const LARGE = 40;
+/** Below this zoom the drawing's smallest text (12 px) would read under 11 px. */
+const LEGIBLE = 0.9;
+
+/** What an amendment amends, in words. */
+function targetWords(byKey: Map<string, TreeNodeView>, key: string | null): string {
+  const t = key ? byKey.get(key) : undefined;
+  if (!t) return "(missing target)";
+  return t.kind === "measure" ? `the whole measure (${t.label})` : t.kind === "section" ? `§ ${t.label}` : `Amendment ${t.label}`;
+}
+
+/** The other amendments a finding concerns (conflicts, cycles, perfecting before a substitute), in words. */
+function RelatedAmendments({ finding }: { finding: FindingView }) {
+  const others = (finding.related ?? []).filter((k) => k !== finding.amendment);
+  if (others.length === 0) return null;
+  return <p className="text-sm" data-testid={`related-amendments-${finding.amendment}`}>Other amendments concerned: {others.join(", ")}.</p>;
+}
+
+/** The tree as an indented outline, in reading order: the view on narrow screens. */
+function Outline({ data, selected, onSelect }: { data: TreeData; selected: string; onSelect: (key: string) => void }) {
+  const children = new Map<string, TreeNodeView[]>();
+  for (const n of data.nodes) if (n.parent) children.set(n.parent, [...(children.get(n.parent) ?? []), n]);
+  const errors = new Map<string, number>();
+  for (const f of data.findings) if (!f.overridden && f.severity === "error") errors.set(f.amendment, (errors.get(f.amendment) ?? 0) + 1);
+  const item = (n: TreeNodeView, seen: Set<string>): ReactNode => {
+    if (seen.has(n.key)) return null;
+    seen.add(n.key);
+    const kids = children.get(n.key) ?? [];
+    const name = n.kind === "amendment" ? `Amendment ${n.label}` : n.kind === "section" ? `§ ${n.label}` : n.label;
+    return (
+      <li key={n.key}>
+        <button type="button" className={`w-full rounded px-2 py-1.5 text-left ${n.key === selected ? "bg-chamber-tint font-semibold" : "hover:bg-chamber-tint"}`} aria-current={n.key === selected ? "true" : undefined} onClick={() => onSelect(n.key)}>
+          {name}
+          {n.title ? ` — ${n.title}` : ""}
+          {n.kind === "amendment" && <span className="text-ink-soft"> · {statusLabel("amendment", n.status)}</span>}
+          {errors.get(n.key) ? <span className="text-verdict-bar"> · {errors.get(n.key)} {errors.get(n.key) === 1 ? "error" : "errors"}</span> : null}
+        </button>
+        {kids.length > 0 && <ul className="ml-4 border-l border-rule pl-2">{kids.map((k) => item(k, seen))}</ul>}
+      </li>
+    );
+  };
+  const seen = new Set<string>();
+  const roots = data.nodes.filter((n) => n.kind === "measure");
+  const listed = roots.map((r) => item(r, seen));
+  const rest = data.nodes.filter((n) => !seen.has(n.key));
+  return (
+    <section className="gw-card md:hidden" aria-labelledby="tree-outline-h" data-testid="tree-outline">
+      <h2 id="tree-outline-h" className="text-step-1">Outline of the tree</h2>
+      <ul className="mt-2">{listed}</ul>
+      {rest.length > 0 && (
+        <>
+          <h3 className="mt-3 text-step-0">Amendments whose target is missing or in a cycle</h3>
+          <ul>{rest.map((n) => item(n, seen))}</ul>
+        </>
+      )}
+    </section>
+  );
+}
 
 function Drawing({ data, selected, onSelect }: { data: TreeData; selected: string; onSelect: (key: string) => void }) {
   const flow = useReactFlow();
@@ -35,7 +93,7 @@ function Drawing({ data, selected, onSelect }: { data: TreeData; selected: strin
     () =>
       data.nodes.map((n) => {
         const b = boxes.get(n.key)!;
-        return { id: n.key, type: "tree", position: { x: b.x, y: b.y }, width: b.width, height: b.height, data: { node: n, findings: byAmendment.get(n.key) ?? [], selected: n.key === selected }, ariaLabel: `${n.kind} ${n.label}${n.title ? `: ${n.title}` : ""}`, draggable: false, connectable: false } as TreeFlowNode;
+        return { id: n.key, type: "tree", position: { x: b.x, y: b.y }, width: b.width, height: b.height, data: { node: n, findings: byAmendment.get(n.key) ?? [], selected: n.key === selected }, draggable: false, connectable: false } as TreeFlowNode;
       }),
     [data.nodes, boxes, byAmendment, selected],
   );
@@ -45,7 +103,7 @@ function Drawing({ data, selected, onSelect }: { data: TreeData; selected: strin
   // Large trees open at a readable zoom on the selected node (the measure at first) and follow the selection.
   useEffect(() => {
     const b = boxes.get(selected);
-    if (b && large) void flow.setCenter(b.x + b.width / 2 + 300, b.y + b.height / 2, { zoom: Math.max(flow.getZoom(), 0.75), duration: 150 });
+    if (b && large) void flow.setCenter(b.x + b.width / 2 + 300, b.y + b.height / 2, { zoom: Math.max(flow.getZoom(), 1), duration: 150 });
   }, [selected, boxes, flow, large]);
 
   return (
@@ -54,8 +112,16 @@ function Drawing({ data, selected, onSelect }: { data: TreeData; selected: strin
       edges={edges}
       nodeTypes={nodeTypes}
       onNodeClick={(_, n) => onSelect(n.id)}
-      fitView={!large}
-      fitViewOptions={{ padding: 0.08, maxZoom: 1.1 }}
+      onInit={(instance) => {
+        // The whole tree when it fits at a legible size; otherwise its top (the first sections, in reading order) at full size.
+        if (large) return;
+        void instance.fitView({ padding: 0.08, maxZoom: 1.1 }).then(() => {
+          if (instance.getZoom() < LEGIBLE) void instance.setViewport({ x: 0, y: 0, zoom: 1 });
+        });
+      }}
+      nodesFocusable={false}
+      edgesFocusable={false}
+      elementsSelectable={false}
       minZoom={0.05}
       maxZoom={2}
       nodesDraggable={false}
@@ -145,7 +211,7 @@ function OverrideForm({ measureId, finding, version, onDone }: { measureId: stri
     setError(null);
     try {
       await apiCall(z.object({ id: z.string() }), `/api/measures/${measureId}/overrides`, { method: "POST", body: { amendmentId: finding.amendmentId, code: finding.code, version, rulingRef: ref, rulingId: picked?.id ?? null, note: note || null } });
-      onDone(`Override of ${finding.code} on ${finding.amendment} recorded${picked ? `, resting on Ruling ${picked.number}` : ""}.`);
+      onDone(`Override on Amendment ${finding.amendment} recorded${picked ? `, resting on Ruling ${picked.number}` : ""}: “${finding.message}”`);
     } catch (e) {
       setError(conflictText(e, "Could not record the override."));
     } finally {
@@ -198,12 +264,12 @@ function RevokeButton({ measureId, finding, onDone }: { measureId: string; findi
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
   async function revoke() {
-    if (!window.confirm(`Revoke the override of ${finding.code} on ${finding.amendment}? The finding will count again.`)) return;
+    if (!window.confirm(`Revoke the override on Amendment ${finding.amendment} (“${finding.message}”)? The finding will count again.`)) return;
     setBusy(true);
     setError(null);
     try {
       await apiCall(z.object({ revoked: z.string() }), `/api/measures/${measureId}/overrides/${finding.overrideId}`, { method: "DELETE" });
-      onDone(`Override of ${finding.code} on ${finding.amendment} revoked.`);
+      onDone(`Override on Amendment ${finding.amendment} revoked: “${finding.message}” counts again.`);
     } catch (e) {
       setError(e instanceof ApiError ? e.message : "Could not revoke the override.");
     } finally {
@@ -269,9 +335,9 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-center gap-2" data-testid="tree-counts">
-        <span className={`gw-chip ${SEVERITY_CHIP.error}`}>{data.counts.error} errors</span>
-        <span className={`gw-chip ${SEVERITY_CHIP.warning}`}>{data.counts.warning} warnings</span>
-        <span className={`gw-chip ${SEVERITY_CHIP.info}`}>{data.counts.info} notes</span>
+        <span className={`gw-chip ${SEVERITY_CHIP.error}`}>{data.counts.error} {data.counts.error === 1 ? "error" : "errors"}</span>
+        <span className={`gw-chip ${SEVERITY_CHIP.warning}`}>{data.counts.warning} {data.counts.warning === 1 ? "warning" : "warnings"}</span>
+        <span className={`gw-chip ${SEVERITY_CHIP.info}`}>{data.counts.info} {data.counts.info === 1 ? "note" : "notes"}</span>
         <span className="gw-chip border-verdict-ok bg-verdict-ok-tint text-verdict-ok">{data.counts.overridden} overridden</span>
         <span className="text-sm text-ink-soft">
           Rulebook: {data.rulebook.title} — {data.rulebook.source}
@@ -287,13 +353,14 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
           aria-roledescription="amendment tree"
           aria-label={`Amendment tree of ${data.measure.number}. Selected: ${node ? `${node.label}${node.title ? `, ${node.title}` : ""}` : "none"}. Arrow keys move between nodes.`}
           onKeyDown={onKeyDown}
-          className="gw-card h-[560px] p-0 focus-visible:outline-4"
+          className="gw-card hidden h-[600px] p-0 focus-visible:outline-4 md:block"
           data-testid="tree-drawing"
         >
           <ReactFlowProvider>
             <Drawing data={data} selected={selected} onSelect={(k) => { setSelected(k); wrapper.current?.focus(); }} />
           </ReactFlowProvider>
         </div>
+        <Outline data={data} selected={selected} onSelect={setSelected} />
         <aside className="grid gap-4 lg:grid-cols-2 2xl:grid-cols-1 2xl:content-start">
           <section className="gw-card" aria-live="polite" data-testid="tree-details">
             {node ? (
@@ -307,9 +374,9 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
                     <>
                       <dt className="text-ink-soft">Degree</dt><dd data-testid="tree-degree">{node.degree ?? "unknown"}{roleWords(node.role, node.underSubstitute) ? ` · ${roleWords(node.role, node.underSubstitute)}` : ""}</dd>
                       {node.slot && (<><dt className="text-ink-soft">Place</dt><dd data-testid="tree-slot">{slotWords(node.slot)}</dd></>)}
-                      <dt className="text-ink-soft">Form</dt><dd>{node.form}</dd>
-                      <dt className="text-ink-soft">Amends</dt><dd>{node.parent ?? "(missing target)"}{node.lines ? `, lines ${node.lines[0]}–${node.lines[1]}` : ""}</dd>
-                      <dt className="text-ink-soft">Status</dt><dd>{node.status}</dd>
+                      <dt className="text-ink-soft">Form</dt><dd>{formLabel(node.form)}</dd>
+                      <dt className="text-ink-soft">Amends</dt><dd>{targetWords(byKey, node.parent)}{node.lines ? `, lines ${node.lines[0]}–${node.lines[1]}` : ""}</dd>
+                      <dt className="text-ink-soft">Status</dt><dd>{statusLabel("amendment", node.status)}</dd>
                       <dt className="text-ink-soft">Filed</dt><dd>{node.filedAt ? when(node.filedAt) : "not yet"}</dd>
                       <dt className="text-ink-soft">Sponsors</dt><dd>{node.sponsors.join(", ") || "none"}</dd>
                     </>
@@ -324,8 +391,9 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
                     <ul className="space-y-2">
                       {findings.map((f) => (
                         <li key={f.code} className="rounded border border-rule p-2 text-sm" data-testid={`finding-${f.amendment}-${f.code}`}>
-                          <span className={`gw-chip ${f.overridden ? "border-verdict-ok bg-verdict-ok-tint text-verdict-ok" : SEVERITY_CHIP[f.severity]}`}>{f.overridden ? "overridden" : f.severity}</span> <code>{f.code}</code>
+                          <span className={`gw-chip ${f.overridden ? "border-verdict-ok bg-verdict-ok-tint text-verdict-ok" : SEVERITY_CHIP[f.severity]}`}>{f.overridden ? "overridden" : SEVERITY_WORDS[f.severity]}</span>
                           <p className="mt-1">{f.message}</p>
+                          <RelatedAmendments finding={f} />
                           <p className="text-xs text-ink-soft"><ClauseCitation citation={f.citation} clause={f.clause} /></p>
                           {f.overridden && (
                             <p className="text-xs font-semibold text-verdict-ok">
@@ -360,19 +428,18 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
         <summary className="cursor-pointer font-serif text-step-1 font-semibold text-chamber-dark">All findings ({data.findings.length})</summary>
         <table className="gw-table mt-2" data-testid="findings-table">
           <thead>
-            <tr><th>Amendment</th><th>Severity</th><th>Code</th><th>Message</th><th>Rule</th></tr>
+            <tr><th>Amendment</th><th>Severity</th><th>Finding</th><th>Rule</th></tr>
           </thead>
           <tbody>
             {data.findings.map((f) => (
               <tr key={`${f.amendment}/${f.code}`}>
                 <td><button type="button" className="font-semibold text-chamber underline" onClick={() => { setSelected(f.amendment); wrapper.current?.focus(); }}>{f.amendment}</button></td>
-                <td><span className={`gw-chip ${f.overridden ? "border-verdict-ok bg-verdict-ok-tint text-verdict-ok" : SEVERITY_CHIP[f.severity]}`}>{f.overridden ? "overridden" : f.severity}</span></td>
-                <td><code>{f.code}</code></td>
-                <td>{f.message}{f.overridden && <span className="block text-xs text-verdict-ok">Ruling: {f.ruling}</span>}</td>
+                <td><span className={`gw-chip ${f.overridden ? "border-verdict-ok bg-verdict-ok-tint text-verdict-ok" : SEVERITY_CHIP[f.severity]}`}>{f.overridden ? "overridden" : SEVERITY_WORDS[f.severity]}</span></td>
+                <td data-code={f.code}>{f.message}{(f.related ?? []).filter((k) => k !== f.amendment).length > 0 && <span className="block text-sm">With: {(f.related ?? []).filter((k) => k !== f.amendment).join(", ")}</span>}{f.overridden && <span className="block text-xs text-verdict-ok">Ruling: {f.ruling}</span>}</td>
                 <td className="text-xs text-ink-soft"><ClauseCitation citation={f.citation} clause={f.clause} /></td>
               </tr>
             ))}
-            {data.findings.length === 0 && <tr><td colSpan={5}>No findings.</td></tr>}
+            {data.findings.length === 0 && <tr><td colSpan={4}>No findings.</td></tr>}
           </tbody>
         </table>
       </details>

@@ -1,11 +1,12 @@
 /**
- * Automatic layout of an amendment tree with dagre (layered drawing, Sugiyama method): left to
- * right, one column per level — the measure, its sections, then amendments by degree — so a
- * tree of hundreds of amendments grows downwards in columns rather than into one wide row.
- * Pure: no DOM, no React; the drawing and the tests call the same function.
+ * Layout of an amendment tree in reading order: left to right, one column per level (the measure,
+ * its sections, then amendments by degree), and top-down in the order given — the caller passes
+ * sections in text order and amendments in filing order, so §1 sits above §2 and A1 above A2, as
+ * the arrow keys, the outline and the printout read. A tidy tree: every leaf gets the next row,
+ * a parent sits level with the middle of its children, so a tree of hundreds of amendments grows
+ * downwards rather than into one wide row. Pure: no DOM, no React; the drawing and the tests call
+ * the same function.
  */
-import dagre from "@dagrejs/dagre";
-
 export interface LayoutInput {
   key: string;
   kind: "measure" | "section" | "amendment";
@@ -20,30 +21,46 @@ export interface Box {
 }
 
 export const NODE_SIZE: Record<LayoutInput["kind"], { width: number; height: number }> = {
-  measure: { width: 230, height: 76 },
-  section: { width: 190, height: 52 },
-  amendment: { width: 200, height: 72 },
+  measure: { width: 250, height: 84 },
+  section: { width: 220, height: 60 },
+  amendment: { width: 240, height: 84 },
 };
 
-/** Top-left corner and size of every node. Nodes whose parent is missing sit in the first amendment column. */
+const MARGIN = 20;
+/** Between rows and between columns. */
+const ROW_GAP = 16;
+const COLUMN = Math.max(...Object.values(NODE_SIZE).map((s) => s.width)) + 70;
+
+/**
+ * Top-left corner and size of every node. Nodes whose parent is missing, and cycles of targets,
+ * hang below everything else in the first amendment column.
+ */
 export function layoutTree(nodes: readonly LayoutInput[]): Map<string, Box> {
-  const g = new dagre.graphlib.Graph();
-  g.setGraph({ rankdir: "LR", nodesep: 14, ranksep: 90, marginx: 20, marginy: 20 });
-  g.setDefaultEdgeLabel(() => ({}));
   const keys = new Set(nodes.map((n) => n.key));
-  for (const n of nodes) g.setNode(n.key, { ...NODE_SIZE[n.kind] });
-  const measure = nodes.find((n) => n.kind === "measure")?.key;
-  for (const n of nodes) {
-    if (n.parent && keys.has(n.parent) && n.parent !== n.key) g.setEdge(n.parent, n.key);
-    // Orphans (missing target, cycles) hang from the measure with a long edge so they still get a column.
-    else if (n.kind === "amendment" && measure) g.setEdge(measure, n.key, { minlen: 2 });
-  }
-  dagre.layout(g);
+  const children = new Map<string, LayoutInput[]>();
+  for (const n of nodes) if (n.parent && keys.has(n.parent) && n.parent !== n.key) children.set(n.parent, [...(children.get(n.parent) ?? []), n]);
   const out = new Map<string, Box>();
-  for (const n of nodes) {
-    const p = g.node(n.key);
+  const columnBottom: number[] = [];
+  let cursor = MARGIN;
+
+  function place(n: LayoutInput, depth: number): void {
     const size = NODE_SIZE[n.kind];
-    out.set(n.key, { x: p.x - size.width / 2, y: p.y - size.height / 2, ...size });
+    const below = (columnBottom[depth] ?? -Infinity) + ROW_GAP;
+    out.set(n.key, { x: MARGIN + depth * COLUMN, y: 0, ...size }); // marks it placed (cycles stop here)
+    const kids = (children.get(n.key) ?? []).filter((c) => !out.has(c.key));
+    for (const c of kids) if (!out.has(c.key)) place(c, depth + 1);
+    const placedKids = kids.map((c) => out.get(c.key)!).filter((b) => b.x === MARGIN + (depth + 1) * COLUMN);
+    const y =
+      placedKids.length === 0
+        ? Math.max(cursor, below)
+        : Math.max(below, (Math.min(...placedKids.map((b) => b.y)) + Math.max(...placedKids.map((b) => b.y + b.height))) / 2 - size.height / 2);
+    out.set(n.key, { x: MARGIN + depth * COLUMN, y, ...size });
+    columnBottom[depth] = y + size.height;
+    cursor = Math.max(cursor, y + size.height + ROW_GAP);
   }
+
+  const roots = nodes.filter((n) => n.kind === "measure");
+  for (const r of roots) place(r, 0);
+  for (const n of nodes) if (!out.has(n.key)) place(n, n.kind === "section" ? 1 : 2);
   return out;
 }

@@ -22,6 +22,28 @@ export const AMENDMENT_STATUS_LABELS: Record<AmendmentStatus, string> = {
   fell: "Fell",
   "ruled-out": "Ruled out of order",
 };
+export const MEASURE_STATUS_LABELS: Record<MeasureStatus, string> = {
+  draft: "Draft",
+  introduced: "Introduced",
+  "in-committee": "In committee",
+  reported: "Reported",
+  "on-floor": "On the floor",
+  passed: "Passed",
+  failed: "Failed",
+  withdrawn: "Withdrawn",
+};
+export const SECTION_STATUS_LABELS: Record<"open" | "adopted" | "struck", string> = { open: "Open", adopted: "Adopted", struck: "Struck" };
+/** The status of a measure, section or amendment in words (an unknown value is shown as stored). */
+export function statusLabel(kind: "measure" | "section" | "amendment", status: string | null | undefined): string {
+  if (!status) return "";
+  const labels: Record<string, string> = kind === "measure" ? MEASURE_STATUS_LABELS : kind === "section" ? SECTION_STATUS_LABELS : AMENDMENT_STATUS_LABELS;
+  return labels[status] ?? status;
+}
+/** The form of an amendment in words. */
+export function formLabel(form: string | null | undefined): string {
+  if (!form) return "";
+  return (FORM_LABELS as Record<string, string>)[form] ?? form;
+}
 export const FORM_LABELS: Record<(typeof AMENDMENT_FORMS)[number], string> = {
   insert: "Insert",
   strike: "Strike",

@@ -31,7 +31,8 @@ export interface RenderedMail {
 }
 
 function citationText(c: RulingForMail["citations"][number]): string {
-  return c.kind === "rule" ? `${c.citation}${c.ruleId ? ` (rule ${c.ruleId})` : ""}` : (c.label ?? "An earlier ruling");
+  // The rule's id is the rulebook's internal name: a reader gets the citation only.
+  return c.kind === "rule" ? c.citation : (c.label ?? "An earlier ruling");
 }
 
 export function decisionLine(r: Pick<RulingForMail, "decision" | "decisionNote">): string {

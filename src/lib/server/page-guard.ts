@@ -13,6 +13,7 @@
  */
 import type { AstroGlobal } from "astro";
 import { isGavelError, type GavelError } from "../errors.ts";
+import { NAV } from "../navigation.ts";
 import { can, type Permission } from "../permissions.ts";
 import type { Actor } from "./http.ts";
 
@@ -29,6 +30,19 @@ interface PageGuardOptions {
 export function notPermitted(astro: PageContext, permission: Permission): Promise<Response> {
   const q = new URLSearchParams({ from: astro.url.pathname, need: permission });
   return astro.rewrite(`/not-permitted?${q}`);
+}
+
+/**
+ * A page that cannot be shown (no such record, a damaged link): /404 rendered in place inside the
+ * app's layout, with a title, the message in words and a way back. `back` defaults to the area the
+ * address belongs to (its list page), else the desk.
+ */
+export function answerPage(astro: PageContext, answer: { message: string; status?: number; title?: string; back?: { href: string; label: string } }): Promise<Response> {
+  const status = answer.status ?? 404;
+  const area = NAV.find((i) => i.href !== "/" && astro.url.pathname.startsWith(i.href + "/"));
+  const back = answer.back ?? (area ? { href: area.href, label: area.label } : undefined);
+  astro.locals.pageAnswer = { status, title: answer.title ?? (status === 404 ? "Not found" : "This link cannot be opened"), message: answer.message, back };
+  return astro.rewrite("/404");
 }
 
 /** The door of a page: a Response to return at once (redirect or refusal), or who is asking. */
@@ -53,7 +67,7 @@ interface Guarded<T> {
 }
 
 /**
- * `notFound`: the text of the plain 404 answer (or a function of the error giving it), or
+ * `notFound`: the message of the not-found page (answerPage) (or a function of the error giving it), or
  * "render" to render the page itself with status 404 and `data: null`.
  */
 export async function guardDetailPage<T>(astro: PageContext, options: GuardOptions<T> & { notFound: "render" }): Promise<Response | Guarded<T | null>>;
@@ -71,9 +85,10 @@ export async function guardDetailPage<T>(astro: PageContext, options: GuardOptio
         astro.response.status = 404;
         return { actor, data: null };
       }
-      return new Response(typeof options.notFound === "function" ? options.notFound(e) : options.notFound, { status: 404 });
+      return answerPage(astro, { message: typeof options.notFound === "function" ? options.notFound(e) : options.notFound });
     }
-    if (options.badInputAs400) return new Response(e.message, { status: 400 });
+    // The details name fields of the address (developer words): the reader is told in plain words.
+    if (options.badInputAs400) return answerPage(astro, { status: 400, message: "The link to this page is incomplete or damaged. Open the page again from where you found it." });
     throw e;
   }
 }

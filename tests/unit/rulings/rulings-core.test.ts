@@ -87,7 +87,8 @@ describe("renderRulingMail", () => {
     // Robert's Rules of Order Revised (1915) §21: a tie sustains the chair.
     const m = renderRulingMail({ chamberName: "H", ruling, rulingUrl: "u", unsubscribeUrl: null });
     expect(m.text).toContain("10 to sustain, 10 against. The decision of the chair stands (a tie sustains the chair).");
-    expect(m.text).toContain("- RONR (1915) §33 (rule amend)");
+    expect(m.text).toContain("- RONR (1915) §33\n");
+    expect(m.text).not.toContain("(rule amend)");
     expect(m.text).toContain("- Ruling 3");
     expect(m.text).not.toContain("unsubscribe");
   });
