@@ -107,6 +107,47 @@ describe("filing", () => {
     expect((await api(page, "GET", `/api/measures/${m.id}/amendments`)).amendments).toHaveLength(4);
     await page.close();
   });
+
+  it("a draft filed later asks first, naming it; the same text again asks before it takes a number; then it answers as a filing does", async () => {
+    const page = await browser.freshPage();
+    await signInAs(page, "clerk");
+    const m = await ownMeasure(page, "D");
+    const saveDraft = async (title: string) => {
+      await page.goto(`${BASE_URL}/measures/${m.id}`);
+      await fillAmendment(page, { target: "s2", title, text: "Insert: paid quarterly." });
+      await page.getByTestId("file-amendment").getByRole("button", { name: "Save as draft" }).click();
+      await page.getByTestId("file-amendment").getByText(/Saved as a draft/).waitFor({ timeout: 30_000 });
+    };
+    const fileNow = async () => {
+      await page.goto(`${BASE_URL}/measures/${m.id}`);
+      await page.getByRole("button", { name: "File now…" }).click();
+      return page.getByTestId("file-draft-confirm");
+    };
+
+    await saveDraft("Quarterly dues");
+    let dialog = await fileNow();
+    await expectConfirmDialog(page, dialog, `File the draft amendment to section 2 of ${m.number}?`, /next amendment number.*receipt goes to its sponsors/s);
+    // Cancelling files nothing.
+    await dialog.getByRole("button", { name: "Cancel" }).click();
+    expect((await api(page, "GET", `/api/measures/${m.id}/amendments`)).amendments.map((a: { status: string }) => a.status)).toEqual(["draft"]);
+    dialog = await fileNow();
+    await dialog.getByRole("button", { name: "File it" }).click();
+    let said = await confirmation(page);
+    expect(said).toContain(`Filed as Amendment A1 to section 2 of ${m.number}.`);
+
+    // The same text saved again as a draft: filing it asks the repeat question inside the dialog.
+    await saveDraft("Quarterly dues");
+    dialog = await fileNow();
+    await dialog.getByRole("button", { name: "File it" }).click();
+    await expect.poll(() => textOf(dialog.getByRole("heading"))).toBe("File the same amendment again?");
+    expect(await dialog.innerText()).toContain(`Amendment A1 to section 2 of ${m.number}`);
+    await shot(page, "records-draft-repeat");
+    expect((await api(page, "GET", `/api/measures/${m.id}/amendments`)).amendments.filter((a: { status: string }) => a.status === "draft")).toHaveLength(1);
+    await dialog.getByRole("button", { name: "File it anyway" }).click();
+    said = await confirmation(page);
+    expect(said).toContain(`Filed as Amendment A2 to section 2 of ${m.number}.`);
+    await page.close();
+  });
 });
 
 describe("withdrawing an amendment", () => {

@@ -4,9 +4,11 @@ import { AMENDMENT_STATUS_LABELS, type AmendmentStatus as Status } from "../../l
 import { ApiError, apiCall } from "../shared/api.ts";
 import { Alert } from "../shared/Alert.tsx";
 import { ConfirmDialog } from "../shared/ConfirmDialog.tsx";
+import { filedSchema, keepFiled } from "./filing.ts";
 
 interface Props {
   id: string;
+  measureId: string;
   /** The amendment in words ("Amendment A3 to section 2 of HCA 12"), for the confirmation. */
   words: string;
   status: Status;
@@ -20,19 +22,36 @@ interface Props {
  * Change an amendment's status, sending the version it was read at; a stale change shows what changed.
  * Choosing a status changes nothing until "Change status" and the confirmation that names the amendment.
  */
-export default function AmendmentStatus({ id, words, status, version, clerk, statuses }: Props) {
+export default function AmendmentStatus({ id, measureId, words, status, version, clerk, statuses }: Props) {
   const [current, setCurrent] = useState({ status, version });
   const [chosen, setChosen] = useState<Status>(status);
   const [asking, setAsking] = useState<Status | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+  /** Filing a draft: the dialog is open; `repeat` is the server's question when the same text was filed within the hour. */
+  const [filing, setFiling] = useState<{ repeat: string | null } | null>(null);
   const row = z.object({ status: z.enum(statuses as [Status, ...Status[]]), version: z.number() });
+
+  async function fileDraft(confirm: boolean) {
+    setBusy(true);
+    setError(null);
+    try {
+      // The filing form above the list shows what the tree check says about it once the page reloads.
+      keepFiled(measureId, await apiCall(filedSchema, `/api/amendments/${id}/file`, { method: "POST", body: { version: current.version, confirm } }));
+      window.location.reload();
+    } catch (e) {
+      if (e instanceof ApiError && e.code === "needs-confirmation") setFiling({ repeat: e.message });
+      else setError(e instanceof ApiError ? e.message : "Could not file the amendment.");
+    } finally {
+      setBusy(false);
+    }
+  }
 
   async function send(url: string, body: Record<string, unknown>) {
     setBusy(true);
     setError(null);
     try {
-      const out = await apiCall(row, url, { method: url.endsWith("/file") ? "POST" : "PATCH", body });
+      const out = await apiCall(row, url, { method: "PATCH", body });
       setCurrent({ status: out.status, version: out.version });
       setAsking(null);
       window.location.reload();
@@ -47,8 +66,28 @@ export default function AmendmentStatus({ id, words, status, version, clerk, sta
     return (
       <span className="flex flex-col gap-1">
         <span>Draft</span>
-        <button type="button" className="gw-btn-quiet" disabled={busy} onClick={() => void send(`/api/amendments/${id}/file`, { version: current.version })}>File now</button>
-        <Alert look="inline">{error}</Alert>
+        <button type="button" className="gw-btn-quiet" disabled={busy} onClick={() => setFiling({ repeat: null })}>File now…</button>
+        <ConfirmDialog
+          open={filing !== null}
+          testId="file-draft-confirm"
+          title={filing?.repeat ? "File the same amendment again?" : `File ${words.replace(/^A draft\b/, "the draft")}?`}
+          confirm={filing?.repeat ? "File it anyway" : "File it"}
+          danger={false}
+          busy={busy}
+          error={filing ? error : null}
+          onConfirm={() => void fileDraft(Boolean(filing?.repeat))}
+          onCancel={() => {
+            setFiling(null);
+            setError(null);
+          }}
+        >
+          {filing?.repeat ? (
+            <p>{filing.repeat}</p>
+          ) : (
+            <p>It takes the measure's next amendment number and the receipt goes to its sponsors by e-mail. A filed amendment stays on the record: it can be withdrawn, not made a draft again.</p>
+          )}
+        </ConfirmDialog>
+        {!filing && <Alert look="inline">{error}</Alert>}
       </span>
     );
   const withdrawing = asking === "withdrawn";

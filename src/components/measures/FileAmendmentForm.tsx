@@ -1,5 +1,5 @@
 import { useEffect, useRef, useState, type SubmitEvent } from "react";
-import { z } from "zod";
+import { filedSchema, keepFiled, takeFiled, type Filed } from "./filing.ts";
 import AmendmentFields, { LINES_HINT, readAmendmentFields } from "./AmendmentFields.tsx";
 import { ApiError, apiCall } from "../shared/api.ts";
 import { Alert } from "../shared/Alert.tsx";
@@ -12,20 +12,9 @@ interface Props {
   legislators: Array<{ id: string; name: string; bloc: string; own: boolean }>;
 }
 
-const filedSchema = z.object({
-  id: z.string(),
-  key: z.string(),
-  status: z.string(),
-  name: z.string().nullable(),
-  check: z.object({ degree: z.number().nullable(), findings: z.array(z.object({ severity: z.enum(["error", "warning", "info"]), message: z.string() })) }).nullable(),
-});
-type Filed = z.output<typeof filedSchema>;
 
 const SEVERITY_WORDS = { error: "Out of order", warning: "Warning", info: "Note" } as const;
 const DEGREE_WORDS: Record<number, string> = { 1: "an amendment of the first degree", 2: "an amendment of the second degree (an amendment to an amendment)", 3: "an amendment of the third degree" };
-
-/** Kept across the reload that shows the new row, so the confirmation stays on screen. */
-const keptKey = (measureId: string) => `gw-filed:${measureId}`;
 
 /** A member's (or clerk's) amendment: typed in or uploaded; filed at once or saved as a draft. */
 export default function FileAmendmentForm({ measureId, sections, amendments, legislators }: Props) {
@@ -41,11 +30,9 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
   const question = useRef<HTMLDivElement>(null);
 
   useEffect(() => {
-    const kept = sessionStorage.getItem(keptKey(measureId));
-    if (!kept) return;
-    sessionStorage.removeItem(keptKey(measureId));
-    const parsed = filedSchema.safeParse(JSON.parse(kept));
-    if (parsed.success) setFiled(parsed.data);
+    // Kept across the reload that shows the new row (this form's filing, or a draft's "File now").
+    const kept = takeFiled(measureId);
+    if (kept) setFiled(kept);
   }, [measureId]);
   useEffect(() => {
     if (filed) confirmation.current?.focus();
@@ -61,7 +48,7 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
       return;
     }
     setFiled(out);
-    sessionStorage.setItem(keptKey(measureId), JSON.stringify(out));
+    keepFiled(measureId, out);
     window.location.reload();
   }
 

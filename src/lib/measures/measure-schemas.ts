@@ -142,6 +142,9 @@ export const amendmentUpdateSchema = z.object({
 
 export const versionOnlySchema = z.object({ version: version() });
 
+/** Filing a draft: the version it was read at, and `confirm` once the filer has answered the repeat question. */
+export const draftFilingSchema = z.object({ version: version(), confirm: z.boolean().default(false) });
+
 export const overrideCreateSchema = z.object({
   amendmentId: z.uuid(),
   code: safe(z.string().regex(/^[a-z][a-z0-9-]{0,63}$/, "a finding code such as not-germane")),

@@ -148,8 +148,18 @@ describe("filing amendments", () => {
     const confirmed = await file(m.id, { title: "Once", confirm: true });
     expect(confirmed.status).toBe(201);
     expect(confirmed.body.key).toBe("A4");
-    // A draft is never a repeat.
-    expect((await file(m.id, { title: "Once", draft: true })).status).toBe(201);
+    // A draft is never a repeat; filing it later is, and asks the same question before it takes a number.
+    const draft = await file(m.id, { title: "Once", draft: true });
+    expect(draft.status).toBe(201);
+    const beforeDraft = await tableCounts();
+    const asked = await call(fileDraft.POST, "POST", "/x", { as: s.as.member, params: { id: draft.body.id }, body: { version: 1 } });
+    expect(asked.status).toBe(409);
+    expect(asked.body.error.code).toBe("needs-confirmation");
+    expect(asked.body.error.details).toMatchObject({ reason: "repeated-filing", amendment: "A4" });
+    expect(await tableCounts()).toEqual(beforeDraft);
+    const filedDraft = await call(fileDraft.POST, "POST", "/x", { as: s.as.member, params: { id: draft.body.id }, body: { version: 1, confirm: true } });
+    expect(filedDraft.status).toBe(200);
+    expect(filedDraft.body.key).toBe("A5");
   });
 
   it("files from an uploaded document, keeping it and using its text", async () => {
@@ -173,7 +183,7 @@ describe("filing amendments", () => {
     expect(d.body.status).toBe("draft");
     expect(d.body.number).toBeNull();
     expect(await db.select().from(outbox).where(eq(outbox.ref, d.body.id))).toEqual([]);
-    await file(m.id, {});
+    await file(m.id, { text: "Another text, filed before the draft." });
     expect((await call(fileDraft.POST, "POST", "/x", { as: s.outsider, params: { id: d.body.id }, body: { version: 1 } })).status).toBe(404);
     const filed = await call(fileDraft.POST, "POST", "/x", { as: s.as.member, params: { id: d.body.id }, body: { version: 1 } });
     expect(filed.status).toBe(200);

@@ -73,7 +73,7 @@ describe("the list of pages safeNext accepts follows src/pages", () => {
   it("every page file (with a sample id) is accepted, except those one is never sent back to", async () => {
     const { readdirSync } = await import("node:fs");
     const { join, relative, sep } = await import("node:path");
-    const NOT_A_DESTINATION = new Set(["/sign-in", "/sign-up", "/reset-password", "/unsubscribe", "/not-permitted"]);
+    const NOT_A_DESTINATION = new Set(["/sign-in", "/sign-up", "/reset-password", "/unsubscribe", "/not-permitted", "/404"]);
     const paths: string[] = [];
     const walk = (dir: string) => {
       for (const e of readdirSync(dir, { withFileTypes: true })) {

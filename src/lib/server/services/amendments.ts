@@ -16,7 +16,7 @@ import { can } from "../../permissions.ts";
 import type { Actor } from "../http.ts";
 import { enqueueMail } from "../mail.ts";
 import { assertFresh, recordAudit } from "../measure-audit.ts";
-import { amendmentFileSchema, amendmentUpdateSchema, AMENDMENT_STATUS_LABELS, FORM_LABELS, versionOnlySchema } from "../../measures/measure-schemas.ts";
+import { amendmentFileSchema, amendmentUpdateSchema, AMENDMENT_STATUS_LABELS, FORM_LABELS, type draftFilingSchema } from "../../measures/measure-schemas.ts";
 import { subjectList } from "../measure-sections.ts";
 import { treeOf } from "./trees.ts";
 import { checkDocument, type MultipartUpload } from "../uploads.ts";
@@ -202,7 +202,15 @@ async function queueReceipt(tx: Tx, actor: Actor, m: MeasureRow, a: AmendmentRow
  * A filing identical to one the same person filed on this measure in the last hour asks first
  * (common practice, no source: a double-clicked or resubmitted form must not file twice).
  */
-async function assertNotRepeated(tx: Tx, actor: Actor, m: MeasureRow, input: FileInput, target: ResolvedTarget): Promise<void> {
+/** What makes two filings the same: form, target, lines, text and title. */
+interface FilingShape extends ResolvedTarget {
+  form: string;
+  lines: [number, number] | null;
+  text: string;
+  title: string | null;
+}
+
+async function assertNotRepeated(tx: Tx, actor: Actor, m: MeasureRow, input: FilingShape): Promise<void> {
   const since = new Date(Date.now() - 60 * 60 * 1000);
   const same = await tx
     .select()
@@ -214,9 +222,9 @@ async function assertNotRepeated(tx: Tx, actor: Actor, m: MeasureRow, input: Fil
         eq(amendments.status, "filed"),
         gt(amendments.filedAt, since),
         eq(amendments.form, input.form),
-        eq(amendments.targetKind, target.targetKind),
-        target.targetSection === null ? isNull(amendments.targetSection) : eq(amendments.targetSection, target.targetSection),
-        target.targetAmendmentId === null ? isNull(amendments.targetAmendmentId) : eq(amendments.targetAmendmentId, target.targetAmendmentId),
+        eq(amendments.targetKind, input.targetKind),
+        input.targetSection === null ? isNull(amendments.targetSection) : eq(amendments.targetSection, input.targetSection),
+        input.targetAmendmentId === null ? isNull(amendments.targetAmendmentId) : eq(amendments.targetAmendmentId, input.targetAmendmentId),
         input.lines ? and(eq(amendments.lineFrom, input.lines[0]), eq(amendments.lineTo, input.lines[1])) : isNull(amendments.lineFrom),
         eq(amendments.text, input.text),
         input.title === null ? isNull(amendments.title) : eq(amendments.title, input.title),
@@ -242,7 +250,7 @@ async function insertAmendment(tx: Tx, actor: Actor, m: MeasureRow, input: FileI
   const target = await resolveTarget(tx, m, input.target, input.lines);
   // The measure's row lock (nextNumber) serialises concurrent filings, so a repeat sent twice at once is caught too.
   const number = input.draft ? null : await nextNumber(tx, m.id);
-  if (!input.draft && !input.confirm) await assertNotRepeated(tx, actor, m, input, target);
+  if (!input.draft && !input.confirm) await assertNotRepeated(tx, actor, m, { ...input, ...target });
   const [row] = await tx
     .insert(amendments)
     .values({
@@ -359,7 +367,7 @@ export async function updateAmendment(actor: Actor, id: string, input: z.output<
 }
 
 /** File a draft: it gets the measure's next number and a receipt is queued. */
-export async function fileDraft(actor: Actor, id: string, input: z.output<typeof versionOnlySchema>) {
+export async function fileDraft(actor: Actor, id: string, input: z.output<typeof draftFilingSchema>) {
   await db.transaction(async (tx) => {
     const a = await amendmentRow(actor.chamber.id, id, tx, true);
     assertMayEdit(actor, a, {});
@@ -369,6 +377,8 @@ export async function fileDraft(actor: Actor, id: string, input: z.output<typeof
     assertNotArchived(m);
     if (CLOSED_MEASURE.has(m.status)) throw new GavelError("unprocessable", `${m.number} is ${m.status}; it takes no more amendments.`);
     const number = await nextNumber(tx, m.id);
+    // A draft filed twice over (or the same text filed from the form an hour ago) asks first, as a filing does.
+    if (!input.confirm) await assertNotRepeated(tx, actor, m, { ...a, lines: a.lineFrom === null || a.lineTo === null ? null : [a.lineFrom, a.lineTo] });
     const [next] = await tx.update(amendments).set({ number, status: "filed", filedAt: new Date(), filedBy: actor.user.id, version: a.version + 1, updatedAt: new Date() }).where(eq(amendments.id, a.id)).returning();
     await recordAudit(tx, actor, { measureId: m.id, entity: "amendment", entityId: a.id, action: `filed ${amendmentKey(next)}`, version: next.version, before: snapshot(a), after: snapshot(next) });
     // On the transaction's own connection: a second pool connection here deadlocks the pool when
