@@ -30,7 +30,11 @@ describe("rulings in the browser", () => {
     await expect.poll(async () => raisedBy.locator("option").count()).toBeGreaterThan(1);
     await raisedBy.selectOption({ index: 3 });
     await page.getByLabel("What it was raised against").fill(target);
-    await page.getByLabel("Motion concerned (rulebook id, optional)").fill("commit");
+    // Motions and rules are offered by their names and citations, never by the rulebook's ids.
+    await page.getByLabel("Motion concerned (optional)").selectOption({ label: "Refer to a standing committee" });
+    const ruleChoices = (await page.getByLabel(/^Rule of /).locator("option").allInnerTexts()).slice(1);
+    expect(ruleChoices.length).toBeGreaterThan(5);
+    for (const text of ruleChoices) expect(text).not.toMatch(/^[a-z0-9]+(?:-[a-z0-9]+)+\b/);
     await page.getByLabel("Question put to the chair").fill("Is a motion to refer in order while the previous question is pending?");
     await page.getByLabel("Point of order sustained").check();
     await page.getByLabel("Reasoning").fill(`The previous question outranks the motion to commit; while it is pending, a motion to refer cannot be made. The ${marker} test phrase marks this ruling.`);
@@ -57,6 +61,8 @@ describe("rulings in the browser", () => {
     rulingNumber = /Ruling (\d+)/.exec(h1)?.[1] ?? "";
     expect(rulingNumber).not.toBe("");
     await expect.poll(() => page.getByText("Revision 1").count()).toBe(1);
+    expect(await page.locator("main").innerText()).toContain("Refer to a standing committee");
+    expect(await page.locator("main").innerText()).not.toMatch(/\bcommit\b/);
     await shot(page, "rulings-2-issued");
   });
 

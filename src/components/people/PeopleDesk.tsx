@@ -181,8 +181,8 @@ export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Pro
                   {canAdminister && (
                     <td>
                       {m.userId !== selfUserId && (
-                        <button type="button" className="gw-btn-quiet" onClick={() => ask({ kind: "remove", memberId: m.id, name: m.name, role: m.role })}>
-                          Remove<span className="sr-only"> {m.name}</span>…
+                        <button type="button" className="gw-btn-quiet" aria-label={`Remove ${m.name}…`} onClick={() => ask({ kind: "remove", memberId: m.id, name: m.name, role: m.role })}>
+                          Remove…
                         </button>
                       )}
                     </td>
@@ -215,8 +215,8 @@ export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Pro
                   <td>{roleLabel(r.role)}</td>
                   <td>{day(r.removedAt)}, by {r.removedBy}</td>
                   <td>
-                    <button type="button" className="gw-btn-quiet" onClick={() => ask({ kind: "restore", userId: r.userId, name: r.name, role: r.role })}>
-                      Restore<span className="sr-only"> {r.name}</span>…
+                    <button type="button" className="gw-btn-quiet" aria-label={`Restore ${r.name}…`} onClick={() => ask({ kind: "restore", userId: r.userId, name: r.name, role: r.role })}>
+                      Restore…
                     </button>
                   </td>
                 </tr>

@@ -172,6 +172,8 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
     }
   }
 
+  // The rulebook's motions by name; a motion a ruling already names that the rulebook no longer has stays choosable.
+  const motionChoices = [...(opts?.rulebook?.motions ?? []), ...(d.motion && !opts?.rulebook?.motions.some((m) => m.id === d.motion) ? [{ id: d.motion, name: initial?.motionName ?? d.motion }] : [])];
   const amendmentsHere = opts?.amendments.filter((a) => !d.measureId || a.measureId === d.measureId) ?? [];
 
   return (
@@ -216,17 +218,19 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
           <ChoiceField path="amendmentId" label="Amendment (optional)" empty="None" value={d.amendmentId} choices={amendmentsHere} onChange={(v) => set("amendmentId", v)} at={at} />
           <div>
             <label htmlFor="f-motion" className="gw-label">
-              Motion concerned (rulebook id, optional)
+              Motion concerned (optional)
             </label>
-            <input id="f-motion" className="gw-input" list="motion-ids" value={d.motion} onChange={(e) => set("motion", e.target.value)} placeholder="e.g. previous-question" {...describedBy("f-motion", "motion", at)} />
-            <datalist id="motion-ids">
-              {opts?.rulebook?.rules.map((r) => (
-                <option key={r.ruleId} value={r.ruleId} />
+            <select id="f-motion" className="gw-input" value={d.motion} onChange={(e) => set("motion", e.target.value)} {...describedBy("f-motion", "motion", at)}>
+              <option value="">None</option>
+              {motionChoices.map((m) => (
+                <option key={m.id} value={m.id}>
+                  {m.name}
+                </option>
               ))}
-            </datalist>
+            </select>
             <FieldMessages id="f-motion" path="motion" at={at} />
           </div>
-          <TextField id="f-targetRef" label="Reference (finding or record id, optional)" value={d.targetRef} onChange={(v) => set("targetRef", v)} />
+          <TextField id="f-targetRef" label="Reference (optional)" value={d.targetRef} onChange={(v) => set("targetRef", v)} placeholder="e.g. Journal, p. 214" />
           <TextField id="f-question" path="question" label="Question put to the chair" value={d.question} onChange={(v) => set("question", v)} multiline rows={2} className="sm:col-span-2" at={at} />
         </fieldset>
 
@@ -258,7 +262,7 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
                     {c.kind === "rule" ? (
                       <>
                         {c.citation}
-                        {c.ruleId && <span className="text-ink-soft"> · rule {c.ruleId}</span>}
+                        {c.ruleId && opts?.rulebook && <span className="text-ink-soft"> · {opts.rulebook.rules.find((r) => r.ruleId === c.ruleId)?.name ?? "a rule of the rulebook"}</span>}
                       </>
                     ) : (
                       <>{c.label ?? "Earlier ruling"} (precedent)</>
@@ -284,7 +288,7 @@ export default function RulingEditor({ mode, initial, onSaved, onCancel }: Props
                     <option value="">Choose a rule…</option>
                     {opts.rulebook.rules.map((r) => (
                       <option key={r.ruleId} value={r.ruleId}>
-                        {r.ruleId} — {r.citation}
+                        {r.citation} — {r.name.length > 90 ? `${r.name.slice(0, 89)}…` : r.name}
                       </option>
                     ))}
                   </select>

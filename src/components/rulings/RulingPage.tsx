@@ -29,7 +29,7 @@ export function RulingBody({ r }: { r: RulingView }) {
         <dd>
           {r.target.label}
           {r.measureLabel && <span className="text-ink-soft"> · {r.measureLabel}</span>}
-          {r.motion && <span className="gw-chip ml-2 border-rule text-ink-soft">{r.motion}</span>}
+          {r.motion && <span className="gw-chip ml-2 border-rule text-ink-soft">{r.motionName ?? r.motion}</span>}
         </dd>
         <dt className="font-semibold text-ink-soft">Question</dt>
         <dd>{r.question}</dd>

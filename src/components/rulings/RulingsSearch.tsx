@@ -68,8 +68,8 @@ export default function RulingsSearch({ initialQuery, canSeeDrafts }: Props) {
           <input id="s-q" type="search" className="gw-input" value={query.q ?? ""} onChange={(e) => setQuery({ ...query, q: e.target.value })} placeholder='e.g. third degree amendment, "previous question", germane -tolls' />
           <p className="gw-hint">Words are matched in all their forms; use quotes for a phrase and a minus sign to exclude a word.</p>
         </div>
-        {field("rule", "Rule (id or citation)", { placeholder: "amendment-degree" })}
-        {field("motion", "Motion", { placeholder: "previous-question" })}
+        {field("rule", "Rule (its citation)", { placeholder: "e.g. SO 31" })}
+        {field("motion", "Motion", { placeholder: "e.g. close debate" })}
         {field("measure", "Measure", { placeholder: "number or title" })}
         <div className="grid grid-cols-2 gap-2">
           {field("from", "From", { type: "date" })}

@@ -23,6 +23,8 @@ export const rulingView = z.object({
   measureLabel: z.string().nullable(),
   amendmentId: z.string().nullable(),
   motion: z.string().nullable(),
+  /** The motion by the name the chamber's rulebook gives it. */
+  motionName: z.string().nullable().optional(),
   question: z.string(),
   decision: z.enum(["sustained", "not-sustained", "other"]).nullable(),
   decisionNote: z.string(),
@@ -57,7 +59,7 @@ export const draftingOptions = z.object({
   measures: z.array(z.object({ id: z.string(), label: z.string() })),
   amendments: z.array(z.object({ id: z.string(), measureId: z.string(), label: z.string() })),
   sittings: z.array(z.object({ id: z.string(), title: z.string(), date: z.string() })),
-  rulebook: z.object({ id: z.string(), label: z.string(), rules: z.array(z.object({ ruleId: z.string(), citation: z.string(), name: z.string() })) }).nullable(),
+  rulebook: z.object({ id: z.string(), label: z.string(), rules: z.array(z.object({ ruleId: z.string(), citation: z.string(), name: z.string() })), motions: z.array(z.object({ id: z.string(), name: z.string() })) }).nullable(),
   rulings: z.array(z.object({ id: z.string(), label: z.string() })),
 });
 export type DraftingOptions = z.output<typeof draftingOptions>;

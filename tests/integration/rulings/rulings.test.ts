@@ -2,6 +2,7 @@
 // precedents, and every route's role / anonymous / other-chamber checks, against PostgreSQL.
 // Product contract unless a source is named beside the check.
 import { beforeAll, describe, expect, it } from "vitest";
+import { seedRulebooks } from "../../../src/lib/server/seed/rulebooks.ts";
 import { and, eq } from "drizzle-orm";
 import { db } from "../../../src/lib/server/db.ts";
 import { rulingRevisions } from "../../../src/lib/db/schema/rulings.ts";
@@ -23,6 +24,8 @@ let saltreachChamber: string;
 
 beforeAll(async () => {
   s = await seedChambers();
+  // Harrowmere adopts its demo rulebook (rulebooks/demo-chamber.json), whose motion names the rulings read.
+  await seedRulebooks();
   [raiser] = await harrowmereLegislators(s.chambers.harrowmere);
   saltreachChamber = s.chambers.saltreach;
 });
@@ -75,7 +78,7 @@ describe("drafting", () => {
   it("checks cited rule ids against the rulebook version", async () => {
     const [v] = await db
       .insert(rulebookVersions)
-      .values({ chamberId: s.chambers.harrowmere, number: 1, title: "Harrowmere standing orders", document: { motions: [{ id: "previous-question", name: "Previous question", citation: "RONR (1915) §29" }], rules: [{ id: "amendment-degree", citation: "RONR (1915) §33" }] } })
+      .values({ chamberId: s.chambers.harrowmere, number: 99, title: "Harrowmere standing orders", document: { motions: [{ id: "previous-question", name: "Previous question", citation: "RONR (1915) §29" }], rules: [{ id: "amendment-degree", citation: "RONR (1915) §33" }] } })
       .returning();
     const unknown = await call(index.POST, "POST", "/api/rulings", { as: s.as.clerk, body: rulingBody(raiser.id, { citations: [{ kind: "rule", rulebookVersionId: v.id, ruleId: "no-such-rule", citation: "SO 99" }] }) });
     expect(unknown.status).toBe(422);
@@ -209,6 +212,14 @@ describe("precedent search", () => {
   it("filters by motion and date, and shows only issued rulings to non-clerks", async () => {
     const byMotion = await search(s.as.observer, { motion: "amend" });
     expect(byMotion.body.results.map((r: { id: string }) => r.id)).toEqual([target.id]);
+    // A person writes the motion as the chamber's rulebook names it: Harrowmere's adopted rulebook
+    // (rulebooks/demo-chamber.json, our own demo) calls previous-question "Close debate".
+    await issued();
+    const byId = await search(s.as.observer, { motion: "previous-question" });
+    const byName = await search(s.as.observer, { motion: "close debate" });
+    expect(byId.body.results.length).toBeGreaterThan(0);
+    expect(byName.body.results.map((r: { id: string }) => r.id)).toEqual(byId.body.results.map((r: { id: string }) => r.id));
+    expect(byName.body.results.every((r: { motion: string; motionName: string }) => r.motion === "previous-question" && r.motionName === "Close debate")).toBe(true);
     const inMay = await search(s.as.observer, { from: "2026-05-01", to: "2026-05-31" });
     expect(inMay.body.results.map((r: { id: string }) => r.id)).toEqual([target.id]);
     const all = await search(s.as.observer, {});
@@ -243,6 +254,8 @@ describe("drafting options", () => {
     const r = await call(options.GET, "GET", "/api/rulings/options", { as: s.as.clerk });
     expect(r.status).toBe(200);
     expect(r.body.legislators).toHaveLength(40);
+    // Motions are offered by the names the adopted rulebook gives them.
+    expect(r.body.rulebook.motions).toContainEqual({ id: "previous-question", name: "Close debate" });
     const other = await call(options.GET, "GET", "/api/rulings/options", { as: s.outsider });
     expect(other.body.legislators.some((l: { id: string }) => l.id === raiser.id)).toBe(false);
   });

@@ -14,7 +14,7 @@ import { sittings } from "../../db/schema/floor.ts";
 import { rulebookAdoptions, rulebookVersions } from "../../db/schema/rulebooks.ts";
 import { rulingRevisions, rulings } from "../../db/schema/rulings.ts";
 import { circulations, outbox } from "../../db/schema/mail.ts";
-import { GavelError, type InputIssue } from "../../errors.ts";
+import { GavelError, isGavelError, type InputIssue } from "../../errors.ts";
 import { can } from "../../permissions.ts";
 import { appealOutcome } from "../../rulings/appeal-outcome.ts";
 import { appealTallySchema, citationSchema, issueReadiness, rulingContentSchema, type AppealTally, type Citation, type RulingContent } from "../../rulings/ruling-content.ts";
@@ -23,6 +23,7 @@ import { dateStyleOf, isoDateIn } from "../../text/dates.ts";
 import type { Actor } from "../http.ts";
 import { circulateRulingInTx } from "./circulation.ts";
 import { searchJournals } from "./journal.ts";
+import { loadRulebook } from "./rulebooks.ts";
 
 const uuid = z.uuid();
 export const createDraftSchema = rulingContentSchema;
@@ -86,7 +87,35 @@ export function contentOf(r: Row): RulingContent {
   };
 }
 
-export function toRuling(r: Row) {
+/**
+ * The motion's name as the chamber's adopted rulebook gives it ("Close debate" for previous-question in
+ * one chamber, "Previous question" in another); a motion no longer in the rulebook reads as its id in words.
+ */
+function motionNameOf(id: string | null, names?: ReadonlyMap<string, string>): string | null {
+  if (!id) return null;
+  const named = names?.get(id);
+  if (named) return named;
+  const words = id.replace(/[-_]+/g, " ").trim();
+  return words.charAt(0).toUpperCase() + words.slice(1);
+}
+
+/** The adopted rulebook's motions, id → name (none adopted: empty). */
+async function adoptedMotionNames(chamberId: string): Promise<Map<string, string>> {
+  try {
+    return new Map((await loadRulebook(chamberId)).rulebook.motions.map((m) => [m.id, m.name]));
+  } catch (e) {
+    if (isGavelError(e) && e.code === "not-found") return new Map();
+    throw e;
+  }
+}
+
+/** The motions a ruling may concern, by name, from a rulebook document. */
+export function motionChoices(document: unknown): Array<{ id: string; name: string }> {
+  const doc = z.object({ motions: z.array(z.object({ id: z.string(), name: z.string().optional() }).loose()).optional() }).loose().safeParse(document);
+  return doc.success ? (doc.data.motions ?? []).map((m) => ({ id: m.id, name: m.name ?? motionNameOf(m.id)! })) : [];
+}
+
+export function toRuling(r: Row, motionNames?: ReadonlyMap<string, string>) {
   const appeal = storedAppeal(r);
   return {
     id: r.id,
@@ -101,6 +130,7 @@ export function toRuling(r: Row) {
     measureLabel: r.measureLabel,
     amendmentId: r.amendmentId,
     motion: r.motion,
+    motionName: motionNameOf(r.motion, motionNames),
     question: r.question,
     decision: r.decision,
     decisionNote: r.decisionNote ?? "",
@@ -334,7 +364,7 @@ export async function getRuling(actor: Actor, id: string) {
     }));
   }
   return {
-    ruling: toRuling(row),
+    ruling: toRuling(row, await adoptedMotionNames(actor.chamber.id)),
     revisions: revisions.map((r) => ({ ...r, issuedAt: r.issuedAt.toISOString() })),
     circulations: sendings,
   };
@@ -349,7 +379,13 @@ export async function searchRulings(actor: Actor, q: z.output<typeof searchSchem
   if (tsq) where.push(dsql`${rulings.search} @@ ${tsq}`);
   if (q.rule) where.push(dsql`${q.rule.toLowerCase()} = ANY(${rulings.citationKeys})`);
   if (q.measure) where.push(uuid.safeParse(q.measure).success ? eq(rulings.measureId, q.measure) : dsql`${rulings.measureLabel} ILIKE ${"%" + q.measure.replace(/[\\%_]/g, (m) => "\\" + m) + "%"}`);
-  if (q.motion) where.push(dsql`(${rulings.motion} = ${q.motion} OR (${rulings.targetKind} = 'motion' AND ${rulings.targetRef} = ${q.motion}))`);
+  const motionNames = await adoptedMotionNames(actor.chamber.id);
+  if (q.motion) {
+    // The motion as a person writes it ("close debate") or as the rulebook names it (previous-question).
+    const said = q.motion.trim().toLowerCase();
+    const ids = [...new Set([q.motion, ...[...motionNames].filter(([id, name]) => name.toLowerCase() === said || motionNameOf(id)!.toLowerCase() === said).map(([id]) => id)])];
+    where.push(dsql`(${inArray(rulings.motion, ids)} OR (${rulings.targetKind} = 'motion' AND ${inArray(rulings.targetRef, ids)}))`);
+  }
   if (q.from) where.push(dsql`${rulings.sittingDate} >= ${q.from}`);
   if (q.to) where.push(dsql`${rulings.sittingDate} <= ${q.to}`);
   const rank = tsq ? dsql<number>`ts_rank_cd(${rulings.search}, ${tsq})` : dsql<number>`0`;
@@ -362,7 +398,7 @@ export async function searchRulings(actor: Actor, q: z.output<typeof searchSchem
     .limit(q.limit);
   // Approved journals of sittings with the same words, searched beside the precedents (issue 19 item 2).
   const journals = q.q && !q.rule && !q.measure && !q.motion ? await searchJournals(actor, { q: q.q, limit: 10 }) : [];
-  return { results: rows.map((r) => ({ ...toRuling(r.row), rank: Number(r.rank), snippet: r.snippet })), journals };
+  return { results: rows.map((r) => ({ ...toRuling(r.row, motionNames), rank: Number(r.rank), snippet: r.snippet })), journals };
 }
 
 /**
@@ -412,7 +448,7 @@ export async function draftingOptions(actor: Actor) {
     measures: ms.map((m) => ({ id: m.id, label: `${m.number} — ${m.title}` })),
     amendments: ams.map((a) => ({ id: a.id, measureId: a.measureId, label: `Amendment ${a.number}${a.title ? ` — ${a.title}` : ""}` })),
     sittings: sits.map((s) => ({ id: s.id, title: s.title, date: isoDateIn(s.openedAt, dateStyleOf(actor.chamber)) })),
-    rulebook: adopted ? { id: adopted.id, label: `${adopted.title} (version ${adopted.number})`, rules: citableRules(adopted.document) } : null,
+    rulebook: adopted ? { id: adopted.id, label: `${adopted.title} (version ${adopted.number})`, rules: citableRules(adopted.document), motions: motionChoices(adopted.document) } : null,
     rulings: earlier.map((r) => ({ id: r.id, label: `Ruling ${r.number} — ${r.targetLabel}` })),
   };
 }
