@@ -43,6 +43,8 @@ beforeAll(async () => {
   made.later.id = (await api("/api/measures", clerkCookie, { number: made.later.number, title: `Desk later ${stamp}`, status: "on-floor", subjects: ["harbour"], sittingAt: laterAt.toISOString(), text: "## Section 1 — Quays\nSubjects: harbour\nThe quays shall be lit." })).id;
   // An amendment on another subject with no sponsor: open errors in the tree check.
   await api(`/api/measures/${made.later.id}/amendments`, clerkCookie, { form: "insert", target: "s1", subjects: ["fisheries"], sponsors: [], text: "Nets shall be dried on the quay." });
+  // The member's own draft, which only the member's desk lists (a draft takes part in the tree check).
+  await api(`/api/measures/${made.later.id}/amendments`, await cookieOf("member"), { form: "insert", target: "s1", title: `Desk draft ${stamp}`, subjects: ["harbour"], sponsors: [], text: "The quays shall be swept daily.", draft: true });
   treeErrors = (await api(`/api/measures/${made.later.id}/tree`, clerkCookie)).counts.error;
   const [legislator] = await sql`SELECT id FROM legislators WHERE chamber_id = ${h.id} ORDER BY name LIMIT 1`;
   const draft = await api("/api/rulings", clerkCookie, { raisedById: legislator.id, target: { kind: "motion", ref: "previous-question", label: `Desk ruling ${stamp}` }, motion: "previous-question", question: `Is the desk ruling ${stamp} in order?`, decision: "not-sustained", reasoning: "Common practice.", citations: [{ kind: "rule", ruleId: "previous-question", citation: "RONR (1915) §29" }], sitting: "Desk sitting", sittingDate: "2026-04-02" });
@@ -82,6 +84,15 @@ describe("the desk", () => {
       expect(await page.getByTestId("desk-errors").innerText()).not.toContain(made.soon.number);
       expect(await textOf(page.getByTestId("desk-rulings"))).toContain(`Ruling ${made.ruling}: Is the desk ruling ${stamp} in order?`);
       await textOf(page.getByTestId("desk-analyses"));
+      const own = page.getByTestId("desk-own");
+      if (role === "member") {
+        const text = await textOf(own);
+        expect(text).toContain(`A draft amendment to section 1 of ${made.later.number} — “Desk draft ${stamp}” (a draft, not yet filed)`);
+      } else if (role === "staff" || role === "observer") {
+        expect(await own.count()).toBe(0);
+      } else {
+        expect(await textOf(own)).not.toContain(`Desk draft ${stamp}`);
+      }
       const mail = page.getByTestId("desk-mail");
       if (role === "chief-clerk" || role === "clerk") {
         expect(await textOf(mail)).toContain(`“${made.mailSubject}”`);
@@ -92,9 +103,9 @@ describe("the desk", () => {
       // The deadline link leads to the measure.
       await Promise.all([page.waitForURL(new RegExp(`/measures/${made.later.id}$`)), page.getByTestId("desk-deadlines").getByRole("link", { name: made.later.number }).click()]);
       expect(await textOf(page.locator("h1"))).toContain(made.later.number);
-      if (role === "clerk") {
+      if (role === "clerk" || role === "member") {
         await page.goto(`${BASE_URL}/`);
-        await shot(page, "desk-clerk");
+        await shot(page, `desk-${role}`);
       }
       await page.close();
     });

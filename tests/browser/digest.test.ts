@@ -52,6 +52,20 @@ describe("floor-day digest in the browser", () => {
     // The sending is listed under "Sent" with its delivery counts.
     await expect.poll(() => page.getByRole("region", { name: "Sent" }).getByText(`floor-day digest — ${sitting}, 14 May 2026`).count()).toBe(1);
     await shot(page, "digest-2-sent");
+
+    // Sending the same sitting's digest to the same list again asks first; cancelling sends nothing.
+    const sentRows = () => page.getByRole("region", { name: "Sent" }).getByText(`floor-day digest — ${sitting}, 14 May 2026`).count();
+    await form.getByRole("button", { name: "Send the digest" }).click();
+    const dialog = page.getByTestId("digest-repeat");
+    await expect.poll(() => dialog.getByRole("heading", { name: "Send the digest again?" }).count()).toBe(1);
+    expect(await dialog.innerText()).toContain(`The digest for ${sitting} already went to “Clerks' desk”`);
+    expect(await dialog.evaluate((d) => d.contains(document.activeElement))).toBe(true);
+    await shot(page, "digest-2c-repeat");
+    await dialog.getByRole("button", { name: "Cancel" }).click();
+    expect(await sentRows()).toBe(1);
+    await form.getByRole("button", { name: "Send the digest" }).click();
+    await dialog.getByRole("button", { name: "Send it again" }).click();
+    await expect.poll(sentRows).toBe(2);
   });
 
   it("staff may choose another list of the chamber instead, and only that list is sent the digest", async () => {

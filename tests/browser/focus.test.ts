@@ -46,8 +46,11 @@ describe("focus follows the message", () => {
     await form.getByLabel("Short title").fill("Focus on the receipt");
     await form.getByLabel("Text of the amendment").fill("Each lamp shall be inspected yearly.");
     await form.getByLabel("Subject tags").fill("lighting");
+    // Filing reloads the page to list the new row; the confirmation is focused once it has.
+    const reloaded = page.waitForEvent("load");
     await form.getByRole("button", { name: "File amendment" }).click();
-    const f = await focusedOn(page, "[data-testid=file-amendment] [role=status]");
+    await reloaded;
+    const f = await focusedOn(page, "[data-testid=file-amendment] [aria-label='Filing confirmation']");
     expect(f.text).toMatch(/Filed as Amendment A\d+/);
     await page.close();
   });

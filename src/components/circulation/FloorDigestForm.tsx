@@ -1,6 +1,7 @@
 import { useCallback, useEffect, useState, type SubmitEvent } from "react";
 import { z } from "zod";
-import { apiCall } from "../shared/api.ts";
+import { ApiError, apiCall } from "../shared/api.ts";
+import { ConfirmDialog } from "../shared/ConfirmDialog.tsx";
 import { messageView, type ListView } from "../rulings/api.ts";
 import DeliveryTable from "./DeliveryTable.tsx";
 import { Alert } from "../shared/Alert.tsx";
@@ -107,6 +108,8 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
   const [sent, setSent] = useState<z.output<typeof sentView> | null>(null);
   const [nextKey, setNextKey] = useState(1);
   const [listId, setListId] = useState("");
+  /** The server's question when this digest already went to the list. */
+  const [repeat, setRepeat] = useState<string | null>(null);
 
   useEffect(() => {
     apiCall(sittingsView, "/api/floor/sittings").then(
@@ -133,6 +136,10 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
 
   async function submit(e: SubmitEvent) {
     e.preventDefault();
+    await send(false);
+  }
+
+  async function send(confirm: boolean) {
     setBusy(true);
     setError(null);
     setAt(() => noIssues);
@@ -149,17 +156,23 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
       proposedOrder: parseOrder(order),
       note,
       ...(chosen ? { listId: chosen.id } : {}),
+      confirm,
     };
     try {
       const s = await apiCall(sentView, "/api/circulation/digest", {
         method: "POST",
         body,
       });
+      setRepeat(null);
       setSent(s);
       onSent();
     } catch (err) {
-      setAt(() => issueLookup(err, { byField: true }));
-      setError((err as Error).message);
+      if (err instanceof ApiError && err.code === "needs-confirmation") setRepeat(err.message);
+      else {
+        setRepeat(null);
+        setAt(() => issueLookup(err, { byField: true }));
+        setError((err as Error).message);
+      }
     } finally {
       setBusy(false);
     }
@@ -291,6 +304,9 @@ export default function FloorDigestForm({ lists, onSent }: { lists: ListView[] |
       <button type="submit" className="gw-btn" disabled={busy || !sitting.trim() || !date}>
         Send the digest
       </button>
+      <ConfirmDialog open={repeat !== null} testId="digest-repeat" title="Send the digest again?" confirm="Send it again" busy={busy} onConfirm={() => void send(true)} onCancel={() => setRepeat(null)}>
+        <p>{repeat}</p>
+      </ConfirmDialog>
       {sent && (
         <div className="gw-card mt-2" aria-label="Digest sent">
           <Alert tone="ok">

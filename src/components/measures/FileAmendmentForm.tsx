@@ -47,7 +47,7 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
       setTimeout(() => window.location.reload(), 1500);
       return;
     }
-    setFiled(out);
+    // Shown (and focused) after the reload that lists the new row, not before it.
     keepFiled(measureId, out);
     window.location.reload();
   }

@@ -351,6 +351,27 @@ describe("floor-day digest to a chosen list", () => {
     await drain();
     expect(addresses(digests())).toEqual([emailOf("chief-clerk"), emailOf("clerk")].sort());
   });
+
+  it("asks before sending the same sitting's digest to a list that already had it; queues nothing until confirmed", async () => {
+    const again = { sitting: "Eighth sitting", date: "2026-04-22", proposedOrder: [{ label: "Passage" }] };
+    expect((await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as.clerk, body: again })).status).toBe(201);
+    await drain();
+    inbox.length = 0;
+    const before = await tableCounts();
+    const asked = await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as.staff, body: again });
+    expect(asked.status).toBe(409);
+    expect(asked.body.error.code).toBe("needs-confirmation");
+    expect(asked.body.error.message).toContain("The digest for Eighth sitting already went to “Clerks' desk”");
+    expect(await tableCounts()).toEqual(before);
+    // Another sitting, or another list, is not a repeat.
+    const other = await makeList(s.as.staff, { name: "Digest readers", entries: [{ kind: "role", role: "chief-clerk" }] });
+    expect((await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as.staff, body: { ...again, listId: other.id } })).status).toBe(201);
+    expect((await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as.staff, body: { ...again, sitting: "Ninth sitting" } })).status).toBe(201);
+    // Confirmed, it goes again.
+    const confirmed = await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as.staff, body: { ...again, confirm: true } });
+    expect(confirmed.status).toBe(201);
+    expect(confirmed.body.listName).toBe("Clerks' desk");
+  });
 });
 
 describe("caught mail (development view)", () => {

@@ -3,7 +3,7 @@
 // SO 64: amendments filed 48 hours before the sitting) counted back from the measure's sitting;
 // everything else is the product's own contract (issue 15, item 10), common practice, no source.
 import { beforeAll, describe, expect, it } from "vitest";
-import { and, eq } from "drizzle-orm";
+import { and, eq, isNull } from "drizzle-orm";
 import { db } from "../../../src/lib/server/db.ts";
 import { loadContext } from "../../../src/lib/server/context.ts";
 import { requireActor, type Actor } from "../../../src/lib/server/http.ts";
@@ -16,6 +16,9 @@ import { analysisRuns, estimates } from "../../../src/lib/db/schema/estimates.ts
 import { outbox } from "../../../src/lib/db/schema/mail.ts";
 import { sittings } from "../../../src/lib/db/schema/floor.ts";
 import * as measureIndex from "../../../src/pages/api/measures/index.ts";
+import * as filing from "../../../src/pages/api/measures/[id]/amendments.ts";
+import * as archiveRoute from "../../../src/pages/api/measures/[id]/archive.ts";
+import { legislators } from "../../../src/lib/db/schema/chamber.ts";
 import * as rulingIndex from "../../../src/pages/api/rulings/index.ts";
 import * as rulingIssue from "../../../src/pages/api/rulings/[id]/issue.ts";
 import * as sittingIndex from "../../../src/pages/api/floor/sittings/index.ts";
@@ -79,9 +82,40 @@ describe("the desk", () => {
     expect(desk.deadlines.map((d) => d.deadline)).toEqual([...desk.deadlines.map((d) => d.deadline)].sort());
   });
 
-  it("lists exactly the open measures whose tree check has open errors, with their count", async () => {
+  it("shows a member their own drafts and the pending amendments they filed or sponsor, nobody else's, on open measures only", async () => {
+    const member = await actorOf(s.as.member);
+    const [own] = await db.select({ id: legislators.id }).from(legislators).where(and(eq(legislators.chamberId, s.chambers.harrowmere), eq(legislators.userId, member.user.id)));
+    const [other] = await db.select({ id: legislators.id }).from(legislators).where(and(eq(legislators.chamberId, s.chambers.harrowmere), eq(legislators.name, (await harrowmereLegislators(s.chambers.harrowmere)).find((l) => l.id !== own.id)!.name)));
+    const m = await newMeasure("DESK 7", null);
+    const file = async (as: Session, body: Record<string, unknown>, measureId = m) => {
+      const r = await call(filing.POST, "POST", "/x", { as, params: { id: measureId }, body: { form: "insert", target: "s1", text: "A line.", subjects: ["harbour"], sponsors: [], ...body } });
+      expect(r.status, JSON.stringify(r.body)).toBe(201);
+      return r.body.id as string;
+    };
+    const draft = await file(s.as.member, { title: "Mine, a draft", draft: true, sponsors: [own.id] });
+    const filedByMe = await file(s.as.member, { title: "Mine, filed", sponsors: [own.id] });
+    const sponsored = await file(s.as.clerk, { title: "Sponsored by me", sponsors: [own.id, other.id] });
+    const notMine = await file(s.as.clerk, { title: "Someone else's", sponsors: [other.id] });
+    const clerkDraft = await file(s.as.clerk, { title: "The clerk's draft", draft: true, sponsors: [own.id] });
+    const gone = await newMeasure("DESK 8", null);
+    const onArchived = await file(s.as.member, { title: "On a measure archived later", sponsors: [own.id] }, gone);
+    expect((await call(archiveRoute.POST, "POST", "/x", { as: s.as.clerk, params: { id: gone }, body: { version: 1 } })).status).toBeLessThan(300);
+
+    const desk = await deskOf(member);
+    const ids = desk.ownAmendments!.map((a) => a.id);
+    expect(ids).toEqual(expect.arrayContaining([draft, filedByMe, sponsored]));
+    for (const id of [notMine, clerkDraft, onArchived]) expect(ids).not.toContain(id);
+    const byId = new Map(desk.ownAmendments!.map((a) => [a.id, a]));
+    expect(byId.get(draft)).toMatchObject({ status: "draft", words: "A draft amendment to section 1 of DESK 7" });
+    expect(byId.get(filedByMe)).toMatchObject({ status: "filed", words: expect.stringMatching(/^Amendment A\d+ to section 1 of DESK 7$/) });
+    // Those who do not file amendments have no such list.
+    expect((await deskOf(await actorOf(s.as.staff))).ownAmendments).toBeNull();
+    expect((await deskOf(await actorOf(s.as.observer))).ownAmendments).toBeNull();
+  });
+
+  it("lists exactly the open measures (not archived) whose tree check has open errors, with their count", async () => {
     const desk = await deskOf(await actorOf(s.as.member));
-    const open = await db.select({ id: measures.id, status: measures.status }).from(measures).where(eq(measures.chamberId, s.chambers.harrowmere));
+    const open = await db.select({ id: measures.id, status: measures.status }).from(measures).where(and(eq(measures.chamberId, s.chambers.harrowmere), isNull(measures.archivedAt)));
     const clerk = await actorOf(s.as.clerk);
     const expected = [];
     for (const m of open.filter((x) => !["passed", "failed", "withdrawn"].includes(x.status))) {

@@ -33,7 +33,7 @@ export const sendSchema = z.object({
   confirm: z.boolean().default(false),
 });
 /** The digest, and optionally the chamber's list to send it to (`listId`; without it, the clerks' list). */
-export const digestSchema = floorDigestSchema.extend({ listId: safe(z.string().max(200)).nullish() });
+export const digestSchema = floorDigestSchema.extend({ listId: safe(z.string().max(200)).nullish(), confirm: z.boolean().default(false) });
 export const unsubscribeSchema = z.object({ token: safe(z.string().min(10).max(2000)) });
 
 type ListRow = typeof distributionLists.$inferSelect;
@@ -304,9 +304,35 @@ export async function enqueueFloorDigest(chamberId: string, digestInput: unknown
   return tx ? run(tx) : db.transaction(run);
 }
 
+/**
+ * Send the floor-day digest from the circulation desk. The digest for a sitting and day that already
+ * went to the same list asks first (409 needs-confirmation, sent again with `confirm`), as a ruling
+ * does: its recipients would get it twice (common practice, no source).
+ */
 export async function sendFloorDigest(actor: Actor, input: z.output<typeof digestSchema>) {
-  const { listId, ...digest } = input;
-  return enqueueFloorDigest(actor.chamber.id, digest, { userId: actor.user.id, name: actor.user.name }, undefined, { listId });
+  const { listId, confirm, ...digest } = input;
+  return db.transaction(async (tx) => {
+    // One sending of a digest at a time per chamber, so two sent at once cannot both miss the other.
+    await tx.execute(dsql`SELECT pg_advisory_xact_lock(hashtext(${"floor-digest:" + actor.chamber.id}))`);
+    if (!confirm) {
+      const subject = renderFloorDigest({ chamberName: await chamberName(tx, actor.chamber.id), digest: floorDigestSchema.parse(digest), unsubscribeUrl: null }).subject;
+      const [clerks] = listId ? [] : await tx.select({ id: distributionLists.id }).from(distributionLists).where(and(eq(distributionLists.chamberId, actor.chamber.id), eq(distributionLists.purpose, "clerks")));
+      const target = listId ?? clerks?.id ?? null;
+      const [earlier] = await tx
+        .select({ at: circulations.createdAt, by: circulations.sentByName, listName: circulations.listName })
+        .from(circulations)
+        .where(and(eq(circulations.chamberId, actor.chamber.id), eq(circulations.kind, "floor-digest"), eq(circulations.subject, subject), target && uuid.safeParse(target).success ? eq(circulations.listId, target) : isNull(circulations.listId)))
+        .orderBy(desc(circulations.createdAt))
+        .limit(1);
+      if (earlier) {
+        const when = formatDateTime(earlier.at, dateStyleOf(actor.chamber));
+        throw new GavelError("needs-confirmation", `The digest for ${digest.sitting} already went to “${earlier.listName}” on ${when} (sent by ${earlier.by}). Its recipients would get it twice. Send it again anyway?`, {
+          details: { reason: "already-circulated", list: earlier.listName },
+        });
+      }
+    }
+    return enqueueFloorDigest(actor.chamber.id, digest, { userId: actor.user.id, name: actor.user.name }, tx, { listId });
+  });
 }
 
 const STATUSES = ["queued", "sending", "sent", "failed", "uncertain"] as const;

@@ -6,9 +6,11 @@
  * analyses running (those the person may read), and, for those who may see addresses (chief
  * clerk and clerks), mail not delivered.
  */
-import { and, asc, desc, eq, gt, inArray, isNotNull, ne, notInArray, or } from "drizzle-orm";
+import { and, asc, desc, eq, gt, inArray, isNotNull, isNull, ne, notInArray, or, sql as dsql } from "drizzle-orm";
 import { db } from "../db.ts";
-import { measures } from "../../db/schema/measures.ts";
+import { amendments, measures } from "../../db/schema/measures.ts";
+import { legislators } from "../../db/schema/chamber.ts";
+import { filedAmendmentInWords } from "../../amendments/amendment-words.ts";
 import { sittings } from "../../db/schema/floor.ts";
 import { rulings } from "../../db/schema/rulings.ts";
 import { analysisRuns, estimates } from "../../db/schema/estimates.ts";
@@ -43,6 +45,11 @@ export interface Desk {
   deadlines: Array<MeasureRef & { deadline: string; sittingAt: string; hoursBefore: number; citation: string | null }>;
   recentRulings: Array<{ id: string; number: number; question: string; issuedAt: string }>;
   analysesRunning: Array<{ id: string; estimateId: string; estimateTitle: string; startedAt: string; progress: number }>;
+  /**
+   * The person's own amendments on measures still open: drafts they have not filed, and amendments
+   * they filed or sponsor that are still pending. null for those who do not file amendments.
+   */
+  ownAmendments: Array<{ id: string; measureId: string; words: string; title: string | null; status: "draft" | "filed" }> | null;
   /** null when the person may not see it (it names recipients' addresses). */
   undeliveredMail: Array<{ id: string; to: string; subject: string; status: string; lastError: string | null; createdAt: string }> | null;
 }
@@ -54,7 +61,7 @@ export async function deskOf(actor: Actor, now: Date = new Date()): Promise<Desk
     db
       .select({ id: measures.id, number: measures.number, title: measures.title, sittingAt: measures.sittingAt })
       .from(measures)
-      .where(and(eq(measures.chamberId, chamberId), notInArray(measures.status, [...CLOSED_STATUSES])))
+      .where(and(eq(measures.chamberId, chamberId), notInArray(measures.status, [...CLOSED_STATUSES]), isNull(measures.archivedAt)))
       .orderBy(asc(measures.number)),
     db.select({ id: sittings.id, title: sittings.title, openedAt: sittings.openedAt }).from(sittings).where(and(eq(sittings.chamberId, chamberId), eq(sittings.status, "open"))).orderBy(desc(sittings.openedAt)),
     db
@@ -103,6 +110,7 @@ export async function deskOf(actor: Actor, now: Date = new Date()): Promise<Desk
   const treeErrors = trees.filter((t) => t.errors > 0).map((t) => ({ id: t.m.id, number: t.m.number, title: t.m.title, errors: t.errors }));
 
   return {
+    ownAmendments: can(actor.role, "amendment:file") ? await ownAmendmentsOf(actor, active) : null,
     nextSitting,
     openSittings: open.map((s) => ({ id: s.id, title: s.title, openedAt: s.openedAt.toISOString() })),
     treeErrors,
@@ -111,4 +119,32 @@ export async function deskOf(actor: Actor, now: Date = new Date()): Promise<Desk
     analysesRunning: running.filter((r) => visibleTo(r, actor)).map((r) => ({ id: r.id, estimateId: r.estimateId, estimateTitle: r.title, startedAt: r.createdAt.toISOString(), progress: r.progress })),
     undeliveredMail: mail?.map((o) => ({ id: o.id, to: o.to, subject: o.subject, status: o.status, lastError: o.lastError, createdAt: o.createdAt.toISOString() })) ?? null,
   };
+}
+
+/** Drafts the person saved and pending amendments they filed or sponsor, on the measures given (those still open). */
+async function ownAmendmentsOf(actor: Actor, open: ReadonlyArray<{ id: string; number: string }>): Promise<NonNullable<Desk["ownAmendments"]>> {
+  if (open.length === 0) return [];
+  const chamberId = actor.chamber.id;
+  const mine = await db.select({ id: legislators.id }).from(legislators).where(and(eq(legislators.chamberId, chamberId), eq(legislators.userId, actor.user.id)));
+  const rows = await db
+    .select()
+    .from(amendments)
+    .where(
+      and(
+        eq(amendments.chamberId, chamberId),
+        inArray(
+          amendments.measureId,
+          open.map((m) => m.id),
+        ),
+        or(and(eq(amendments.status, "draft"), eq(amendments.filedBy, actor.user.id)), and(eq(amendments.status, "filed"), or(eq(amendments.filedBy, actor.user.id), ...mine.map((l) => dsql`${amendments.sponsors} @> ${JSON.stringify([l.id])}::jsonb`)))),
+      ),
+    )
+    .orderBy(asc(amendments.measureId), asc(amendments.number), asc(amendments.createdAt));
+  const targets = rows.flatMap((a) => (a.targetAmendmentId ? [a.targetAmendmentId] : []));
+  const numbers = new Map(targets.length ? (await db.select({ id: amendments.id, number: amendments.number }).from(amendments).where(inArray(amendments.id, targets))).map((t) => [t.id, t.number]) : []);
+  const measureNumber = new Map(open.map((m) => [m.id, m.number]));
+  return rows.map((a) => {
+    const words = filedAmendmentInWords({ key: a.number === null ? "" : `A${a.number}`, measure: measureNumber.get(a.measureId)!, targetKind: a.targetKind, section: a.targetSection, targetKey: a.targetAmendmentId && numbers.get(a.targetAmendmentId) != null ? `A${numbers.get(a.targetAmendmentId)}` : null, lines: a.lineFrom === null ? null : [a.lineFrom, a.lineTo ?? a.lineFrom] });
+    return { id: a.id, measureId: a.measureId, words: a.number === null ? words.replace(/^Amendment \S*/, "A draft amendment") : words, title: a.title, status: a.status as "draft" | "filed" };
+  });
 }
