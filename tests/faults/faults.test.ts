@@ -51,10 +51,12 @@ function traffic(cookie: string, workers = 4) {
   const seen: Seen[] = [];
   let running = true;
   const one = async (i: number) => {
+    // A request that never answers is a failure of its own (status 0, named), not a hung test.
+    const signal = AbortSignal.timeout(20_000);
     const r =
       i % 2
-        ? await fetch(`${server.base}/api/measures/${measureId}/tree`, { headers: { cookie } })
-        : await fetch(`${server.base}/api/moves`, { method: "POST", headers: { cookie, origin: server.base, "content-type": "application/json" }, body: JSON.stringify({ state: { pending: [{ motion: "main" }] } }) });
+        ? await fetch(`${server.base}/api/measures/${measureId}/tree`, { headers: { cookie }, signal })
+        : await fetch(`${server.base}/api/moves`, { method: "POST", headers: { cookie, origin: server.base, "content-type": "application/json" }, body: JSON.stringify({ state: { pending: [{ motion: "main" }] } }), signal });
     seen.push({ status: r.status, body: await r.text(), retryAfter: r.headers.get("retry-after") });
   };
   const loops = Array.from({ length: workers }, async (_, w) => {
@@ -62,7 +64,7 @@ function traffic(cookie: string, workers = 4) {
       try {
         await one(i);
       } catch (e) {
-        seen.push({ status: 0, body: String(e), retryAfter: null });
+        seen.push({ status: 0, body: `${i % 2 ? "tree" : "moves"}: ${String(e)}`, retryAfter: null });
       }
     }
   });
@@ -76,19 +78,25 @@ function traffic(cookie: string, workers = 4) {
 }
 
 /** Wait (no sleeping: vi.waitFor retries the check) until `ok` holds; the message names what was awaited. */
-async function until(what: string, ok: () => Promise<boolean> | boolean, timeout = 60_000) {
+async function until(what: string, ok: () => Promise<boolean> | boolean, timeout = 60_000, seen?: Seen[]) {
   await vi.waitFor(
     async () => {
-      if (!(await ok())) throw new Error(`still waiting for ${what}`);
+      if (!(await ok())) throw new Error(`still waiting for ${what}${seen ? `; the last answers: ${lastAnswers(seen)}` : ""}`);
     },
     { timeout, interval: 100 },
   );
+}
+/** The statuses of the last answers and the first words of the last one, for a failure message. */
+function lastAnswers(seen: Seen[]): string {
+  const last = seen.slice(-20);
+  return `${last.map((x) => x.status).join(" ")} (${last.at(-1)?.body.slice(0, 160) ?? "none"})`;
 }
 const answered = (seen: Seen[], from: number, status: number) => seen.slice(from).filter((x) => x.status === status).length;
 
 function expectClean(seen: Seen[]) {
   const statuses = [...new Set(seen.map((x) => x.status))].sort();
-  expect(statuses.every((s) => s === 200 || s === 503), `statuses seen: ${statuses}`).toBe(true);
+  const unclean = seen.filter((x) => x.status !== 200 && x.status !== 503).slice(0, 3).map((x) => `${x.status}: ${x.body.slice(0, 300)}`);
+  expect(statuses.every((s) => s === 200 || s === 503), `statuses seen: ${statuses}; for instance ${unclean.join(" | ")}`).toBe(true);
   for (const x of seen.filter((y) => y.status === 503)) {
     expect(JSON.parse(x.body).error.code).toBe("unavailable");
     expect(x.retryAfter).toBe("5");
@@ -117,8 +125,9 @@ describe("PostgreSQL goes away while requests run", () => {
       await cluster.start();
       const restarted = t.seen.length;
       // The pool tries again within half a second (db-options.ts reconnectBackoff): on the 2-core machine
-      // this whole test then took about 4 s; with the driver's default back-off, 30 to over 80 s.
-      await until("the server to answer 200 again", () => answered(t.seen, restarted, 200) >= 10);
+      // this whole test then took about 4 s; with the driver's default back-off, 30 to over 80 s. A request
+      // waiting on the LISTEN connection's answer once hung for good here (notices.ts, statement deadline).
+      await until("the server to answer 200 again", () => answered(t.seen, restarted, 200) >= 10, 60_000, t.seen);
       } finally {
         await t.stop();
       }

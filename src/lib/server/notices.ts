@@ -42,10 +42,48 @@ function connection(): postgres.Sql {
     connection: { application_name: NOTICES_APPLICATION_NAME },
     onnotice: () => {},
     onnotify: (channel, payload) => dispatch(channel, payload),
-    onclose: () => lost(),
+    // Only the connection in use: one set aside (below) must not unsettle its successor.
+    onclose: () => {
+      if (conn === created) lost();
+    },
   };
-  conn = postgres(url, options);
-  return conn;
+  const created = postgres(url, options);
+  conn = created;
+  return created;
+}
+
+/**
+ * How long a statement on the LISTEN connection may take before the connection is given up:
+ * past the connect timeout, with room to spare. Each is tiny (LISTEN, pg_notify).
+ */
+const STATEMENT_DEADLINE_MS = Math.max(3000, connectTimeout() * 1000 + 1000);
+
+/**
+ * Run a statement on the LISTEN connection, with a deadline. postgres.js (3.4.9) can leave a
+ * statement unanswered for good when PostgreSQL is restarted under it; tests/faults saw pg_notify
+ * hang that way, and every request waiting on `caughtUp` with it. Past the deadline the statement
+ * is refused, the connection is set aside (closed in the background) and the next statement opens
+ * a new one, so neither a request nor the reconnection waits on a lost answer.
+ */
+async function onListenConnection<T>(run: (c: postgres.Sql) => Promise<T>): Promise<T> {
+  const c = connection();
+  let timer: NodeJS.Timeout | undefined;
+  const late = new Promise<never>((_, reject) => {
+    timer = setTimeout(() => {
+      if (conn === c) {
+        conn = null;
+        lost();
+      }
+      c.end({ timeout: 0 }).catch(() => {});
+      reject(new Error(`no answer on the LISTEN connection within ${STATEMENT_DEADLINE_MS} ms; it was replaced`));
+    }, STATEMENT_DEADLINE_MS);
+    timer.unref();
+  });
+  try {
+    return await Promise.race([run(c), late]);
+  } finally {
+    clearTimeout(timer);
+  }
 }
 
 function dispatch(channel: string, payload: string) {
@@ -69,8 +107,7 @@ const quoted = (channel: string) => `"${channel.replace(/"/g, '""')}"`;
 /** LISTEN on every channel that has handlers; resolves when all are in place. */
 function listenAll(): Promise<void> {
   pending ??= (async () => {
-    const c = connection();
-    for (const channel of handlers.keys()) await c.unsafe(`LISTEN ${quoted(channel)}`);
+    for (const channel of handlers.keys()) await onListenConnection((c) => c.unsafe(`LISTEN ${quoted(channel)}`));
     retryDelay = 1000;
     setListening(true);
   })().finally(() => {
@@ -110,7 +147,7 @@ export async function onNotice(channel: string, fn: Handler): Promise<() => void
     set.delete(fn);
   };
   try {
-    if (isNew && listening) await connection().unsafe(`LISTEN ${quoted(channel)}`);
+    if (isNew && listening) await onListenConnection((c) => c.unsafe(`LISTEN ${quoted(channel)}`));
     else if (!listening) await listenAll();
   } catch (e) {
     off();
@@ -179,7 +216,7 @@ async function roundTrip(): Promise<boolean> {
       timer = setTimeout(() => resolve(false), FENCE_WAIT_MS);
     });
     try {
-      await connection()`SELECT pg_notify(${FENCE_CHANNEL}, ${token})`;
+      await onListenConnection((c) => c`SELECT pg_notify(${FENCE_CHANNEL}, ${token})`);
       if (await back) return true;
       timedOut = true;
     } finally {
