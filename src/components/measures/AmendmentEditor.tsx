@@ -11,6 +11,8 @@ import { issueLookup, noIssues, type IssueLookup } from "../shared/fields.tsx";
 export interface EditableAmendment {
   id: string;
   key: string;
+  /** What a person reads: the key ("A3") or, for a draft, "Draft 1". */
+  label: string;
   status: string;
   form: (typeof AMENDMENT_FORMS)[number];
   target: string;
@@ -71,7 +73,7 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
           <label htmlFor="ae-pick" className="gw-label">Edit an amendment</label>
           <select id="ae-pick" className="gw-input" value="" onChange={(e) => setKey(e.target.value)}>
             <option value="">Choose one…</option>
-            {editable.map((x) => <option key={x.id} value={x.key}>{x.key}{x.title ? ` — ${x.title}` : ""} ({statusLabel("amendment", x.status).toLowerCase()})</option>)}
+            {editable.map((x) => <option key={x.id} value={x.key}>{x.label}{x.title ? ` — ${x.title}` : ""} ({statusLabel("amendment", x.status).toLowerCase()})</option>)}
           </select>
         </div>
         <p className="gw-hint">Or use Edit on its row above. Text, target and lines, form, subjects and sponsors can be changed.</p>
@@ -111,12 +113,12 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
   return (
     <form ref={root} key={a.id} id="edit-amendment" className="gw-card space-y-3" onSubmit={onSubmit} aria-labelledby="ae-h" data-testid="amendment-editor">
       <div className="flex flex-wrap items-end justify-between gap-3">
-        <h2 id="ae-h" className="text-step-2">Edit amendment {a.key}</h2>
+        <h2 id="ae-h" className="text-step-2">Edit {a.key === a.label ? `amendment ${a.key}` : a.label.toLowerCase()}</h2>
         {editable.length > 0 && (
           <div>
             <label htmlFor="ae-pick" className="gw-label">Amendment to edit</label>
             <select id="ae-pick" className="gw-input" value={key} onChange={(e) => { setKey(e.target.value); setFailure(null); setAt(() => noIssues); }}>
-              {editable.map((x) => <option key={x.id} value={x.key}>{x.key}{x.title ? ` — ${x.title}` : ""} ({statusLabel("amendment", x.status).toLowerCase()})</option>)}
+              {editable.map((x) => <option key={x.id} value={x.key}>{x.label}{x.title ? ` — ${x.title}` : ""} ({statusLabel("amendment", x.status).toLowerCase()})</option>)}
             </select>
           </div>
         )}
@@ -136,7 +138,7 @@ export default function AmendmentEditor({ editable, sections, targets, legislato
         </Alert>
       )}
       <p className="gw-hint">Status ({statusLabel("amendment", a.status).toLowerCase()}) is changed in the table above. Saving is based on version {a.version}.</p>
-      <button type="submit" className="gw-btn" disabled={busy}>Save amendment {a.key}</button>
+      <button type="submit" className="gw-btn" disabled={busy}>Save {a.key === a.label ? `amendment ${a.key}` : a.label.toLowerCase()}</button>
     </form>
   );
 }

@@ -30,3 +30,13 @@ export function filedAmendmentInWords(a: AmendmentTargetWords): string {
   if (a.targetKind === "amendment") return `${own} to Amendment ${a.targetKey ?? "(removed)"} to ${a.measure}`;
   return `${own} to ${a.measure}`;
 }
+
+/**
+ * What a person reads for a draft amendment, which has no number yet: "Draft" when the measure has
+ * one, "Draft 1", "Draft 2"… in the order they were saved when it has several. `amendments` in the
+ * order they were saved; the map holds the drafts' keys only.
+ */
+export function draftLabels(amendments: ReadonlyArray<{ key: string; draft: boolean }>): Map<string, string> {
+  const drafts = amendments.filter((a) => a.draft);
+  return new Map(drafts.map((a, i) => [a.key, drafts.length === 1 ? "Draft" : `Draft ${i + 1}`]));
+}

@@ -18,6 +18,7 @@ import * as overrideOne from "../../../src/pages/api/measures/[id]/overrides/[oi
 import * as auditRoute from "../../../src/pages/api/measures/[id]/audit.ts";
 import * as amendment from "../../../src/pages/api/amendments/[id]/index.ts";
 import * as fileDraft from "../../../src/pages/api/amendments/[id]/file.ts";
+import * as treeRoute from "../../../src/pages/api/measures/[id]/tree.ts";
 import { call } from "../../support/app.ts";
 import { tableCounts } from "../../support/db.ts";
 import { seedChambers, type Seeded } from "../../support/fixtures.ts";
@@ -179,9 +180,17 @@ describe("filing amendments", () => {
 
   it("saves a draft without a number or receipt, and files it later with the next number", async () => {
     const m = await newMeasure("HCA 105");
-    const d = await file(m.id, { draft: true });
+    // On another subject and with no sponsor, so that the tree check has findings on it.
+    const d = await file(m.id, { draft: true, subjects: ["fisheries"], sponsors: [] });
     expect(d.body.status).toBe("draft");
     expect(d.body.number).toBeNull();
+    // A draft reads as "Draft" wherever a person reads it (list, drawing, findings), never as its internal key.
+    expect(d.body.label).toBe("Draft");
+    const tree = (await call(treeRoute.GET, "GET", "/x", { as: s.as.member, params: { id: m.id } })).body;
+    expect(tree.nodes.find((n: { key: string }) => n.key === d.body.key).label).toBe("Draft");
+    const onDraft = tree.findings.filter((f: { amendment: string }) => f.amendment === d.body.key);
+    expect(onDraft.length).toBeGreaterThan(0);
+    for (const f of tree.findings) expect(f.message).not.toContain(d.body.key);
     expect(await db.select().from(outbox).where(eq(outbox.ref, d.body.id))).toEqual([]);
     await file(m.id, { text: "Another text, filed before the draft." });
     expect((await call(fileDraft.POST, "POST", "/x", { as: s.outsider, params: { id: d.body.id }, body: { version: 1 } })).status).toBe(404);

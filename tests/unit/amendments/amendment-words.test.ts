@@ -1,6 +1,6 @@
 // How a filed amendment is named in a confirmation or a receipt (common practice, no source).
 import { describe, expect, it } from "vitest";
-import { filedAmendmentInWords, sectionInWords } from "../../../src/lib/amendments/amendment-words.ts";
+import { draftLabels, filedAmendmentInWords, sectionInWords } from "../../../src/lib/amendments/amendment-words.ts";
 
 describe("filedAmendmentInWords", () => {
   it("names the section by its number, with lines when given", () => {
@@ -15,5 +15,15 @@ describe("filedAmendmentInWords", () => {
   it("keeps section ids of another shape as written", () => {
     expect(sectionInWords("preamble")).toBe("section preamble");
     expect(sectionInWords("s10")).toBe("section 10");
+  });
+});
+
+describe("draftLabels", () => {
+  it("names drafts in the order they were saved, never by their internal key; numbered amendments are left out", () => {
+    const one = draftLabels([{ key: "A1", draft: false }, { key: "D-4d7cf41c", draft: true }]);
+    expect([...one]).toEqual([["D-4d7cf41c", "Draft"]]);
+    const two = draftLabels([{ key: "D-aa", draft: true }, { key: "A1", draft: false }, { key: "D-bb", draft: true }]);
+    expect([...two]).toEqual([["D-aa", "Draft 1"], ["D-bb", "Draft 2"]]);
+    expect(draftLabels([{ key: "A1", draft: false }]).size).toBe(0);
   });
 });

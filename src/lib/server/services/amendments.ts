@@ -9,7 +9,7 @@ import type { z } from "zod";
 import { db, type Tx } from "../db.ts";
 import { member, user } from "../../db/schema/auth.ts";
 import { legislators } from "../../db/schema/chamber.ts";
-import { filedAmendmentInWords } from "../../amendments/amendment-words.ts";
+import { draftLabels, filedAmendmentInWords } from "../../amendments/amendment-words.ts";
 import { amendments, measureAttachments, measures } from "../../db/schema/measures.ts";
 import { GavelError, parseWith } from "../../errors.ts";
 import { can } from "../../permissions.ts";
@@ -131,7 +131,9 @@ export async function listAmendments(actor: Actor, measureId: string) {
   const rows = await db.select().from(amendments).where(and(eq(amendments.measureId, m.id), eq(amendments.chamberId, actor.chamber.id))).orderBy(asc(dsql`coalesce(${amendments.number}, 2147483647)`), asc(amendments.createdAt));
   const keys = new Map(rows.map((r) => [r.id, amendmentKey(r)]));
   const names = await legislatorNames(actor.chamber.id);
-  return { amendments: rows.map((r) => view(r, keys, m, names)) };
+  // Drafts come last, in the order they were saved: "Draft 1", "Draft 2"… (never their internal key).
+  const labels = draftLabels(rows.map((r) => ({ key: keys.get(r.id)!, draft: r.number === null })));
+  return { amendments: rows.map((r) => ({ ...view(r, keys, m, names), label: labels.get(keys.get(r.id)!) ?? keys.get(r.id)! })) };
 }
 
 export async function getAmendment(actor: Actor, id: string) {

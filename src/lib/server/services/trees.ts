@@ -9,6 +9,7 @@ import { db } from "../db.ts";
 import { amendments, treeOverrides } from "../../db/schema/measures.ts";
 import { rulings } from "../../db/schema/rulings.ts";
 import { validateTree, type Finding } from "../../amendments/validate-tree.ts";
+import { draftLabels } from "../../amendments/amendment-words.ts";
 import type { AmendmentInput, MeasureInput } from "../../amendments/case-schema.ts";
 import { GavelError } from "../../errors.ts";
 import type { Actor } from "../http.ts";
@@ -97,6 +98,9 @@ async function buildTreeView(chamberId: string, measureId: string): Promise<{ vi
     const o = overrides.find((x) => x.amendmentId === rowId && x.code === f.code);
     return { ...f, amendmentId: rowId, overrideId: o?.id ?? null, overrideRulingId: o?.rulingId ?? null, overrideNote: o?.note ?? null };
   });
+  // A draft reads as "Draft 1" (amendment-words.ts), on the drawing and in the findings, never as its internal key.
+  const drafts = draftLabels(rows.map((r) => ({ key: keys.get(r.id)!, draft: r.number === null })));
+  if (drafts.size) for (const f of findings) for (const [key, label] of drafts) f.message = f.message.replaceAll(`Amendment ${key}`, label).replaceAll(key, label);
   const nodes: TreeNodeView[] = [
     { key: MEASURE_KEY, kind: "measure", id: m.id, label: m.number, title: m.title, parent: null, degree: 0, form: null, status: m.status, subjects: m.subjects, sponsors: m.sponsors.map((s) => names.get(s) ?? s), filedAt: null, text: null, lines: null, version: m.version },
     ...m.sections.map((s): TreeNodeView => ({ key: s.id, kind: "section", id: null, label: s.id, title: s.heading ?? null, parent: MEASURE_KEY, degree: 0, form: null, status: s.status, subjects: s.subjects, sponsors: [], filedAt: null, text: s.text ?? null, lines: null, version: null })),
@@ -104,7 +108,7 @@ async function buildTreeView(chamberId: string, measureId: string): Promise<{ vi
       const key = keys.get(r.id)!;
       const n = result.tree.nodes[key];
       const parent = n && !n.targetMissing ? n.target : null;
-      return { key, kind: "amendment", id: r.id, label: key, title: r.title, parent, degree: n?.degree ?? null, role: n?.role ?? null, slot: n?.slot ?? null, underSubstitute: n?.underSubstitute ?? null, form: r.form, status: r.status, subjects: r.subjects, sponsors: r.sponsors.map((s) => names.get(s) ?? s), filedAt: r.filedAt?.toISOString() ?? null, text: r.text, lines: r.lineFrom === null ? null : [r.lineFrom, r.lineTo!], version: r.version };
+      return { key, kind: "amendment", id: r.id, label: drafts.get(key) ?? key, title: r.title, parent, degree: n?.degree ?? null, role: n?.role ?? null, slot: n?.slot ?? null, underSubstitute: n?.underSubstitute ?? null, form: r.form, status: r.status, subjects: r.subjects, sponsors: r.sponsors.map((s) => names.get(s) ?? s), filedAt: r.filedAt?.toISOString() ?? null, text: r.text, lines: r.lineFrom === null ? null : [r.lineFrom, r.lineTo!], version: r.version };
     }),
   ];
   const counts = { error: 0, warning: 0, info: 0, overridden: 0 };
