@@ -18,7 +18,6 @@ import * as overrideOne from "../../../src/pages/api/measures/[id]/overrides/[oi
 import * as auditRoute from "../../../src/pages/api/measures/[id]/audit.ts";
 import * as amendment from "../../../src/pages/api/amendments/[id]/index.ts";
 import * as fileDraft from "../../../src/pages/api/amendments/[id]/file.ts";
-import * as treeRoute from "../../../src/pages/api/measures/[id]/tree.ts";
 import { call } from "../../support/app.ts";
 import { tableCounts } from "../../support/db.ts";
 import { seedChambers, type Seeded } from "../../support/fixtures.ts";
