@@ -1,10 +1,9 @@
 import { useState } from "react";
-import { ApiError } from "../shared/api.ts";
 import { when } from "../shared/dates.ts";
 import ConfirmBox from "./ConfirmBox.tsx";
 import VoteFields from "./VoteFields.tsx";
 import type { HistoryLine } from "./schemas.ts";
-import { checkDraft, EMPTY_VOTE, fieldOfPath, VOTE_FIELD_LABELS, voteWords, type VoteDraft, type VoteEvent, type VoteField } from "./vote-entry.ts";
+import { checkDraft, EMPTY_VOTE, voteFieldIssues, voteWords, type VoteDraft, type VoteEvent, type VoteField } from "./vote-entry.ts";
 import type { Outcome } from "./VoteForm.tsx";
 
 const NOT_CORRECTABLE = new Set(["strike", "rulebook", "close"]);
@@ -68,17 +67,11 @@ function Correction({ line, busy, record, onDone }: { line: HistoryLine; busy: b
     if (r.ok) return onDone();
     setConfirm(null);
     const e = r.error;
-    if (e instanceof ApiError && e.status === 400 && e.issues.length) {
-      const next: Partial<Record<VoteField | "reason", string>> = {};
-      for (const i of e.issues) {
-        const f = fieldOfPath(i.path);
-        if (f) next[f] = `${f === "reason" ? "Reason" : VOTE_FIELD_LABELS[f]}: ${i.message}`;
-      }
-      if (Object.keys(next).length) {
-        setErrors(next);
-        setFailure("Not recorded: check the fields marked above.");
-        return;
-      }
+    const issues = voteFieldIssues(e, true);
+    if (issues) {
+      setErrors(issues);
+      setFailure("Not recorded: check the fields marked above.");
+      return;
     }
     setFailure(e instanceof Error ? e.message : "Not recorded.");
   }

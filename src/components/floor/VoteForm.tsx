@@ -3,7 +3,7 @@ import { ApiError } from "../shared/api.ts";
 import ConfirmBox from "./ConfirmBox.tsx";
 import VoteFields from "./VoteFields.tsx";
 import type { Question } from "./schemas.ts";
-import { checkDraft, EMPTY_VOTE, fieldOfPath, VOTE_FIELD_LABELS, voteWords, type VoteDraft, type VoteEvent, type VoteField } from "./vote-entry.ts";
+import { checkDraft, EMPTY_VOTE, voteFieldIssues, voteWords, type VoteDraft, type VoteEvent, type VoteField } from "./vote-entry.ts";
 
 export type Outcome = { ok: true } | { ok: false; error: unknown };
 
@@ -61,17 +61,11 @@ export default function VoteForm({ question, busy, record }: Props) {
       setMismatch({ message: e.message, vote });
       return;
     }
-    if (e instanceof ApiError && e.status === 400 && e.issues.length) {
-      const next: Partial<Record<VoteField, string>> = {};
-      for (const i of e.issues) {
-        const f = fieldOfPath(i.path);
-        if (f && f !== "reason") next[f] = `${VOTE_FIELD_LABELS[f]}: ${i.message}`;
-      }
-      if (Object.keys(next).length) {
-        setErrors(next);
-        setFailure("Not recorded: check the fields marked above.");
-        return;
-      }
+    const issues = voteFieldIssues(e, false);
+    if (issues) {
+      setErrors(issues);
+      setFailure("Not recorded: check the fields marked above.");
+      return;
     }
     setFailure(e instanceof Error ? e.message : "Not recorded.");
   }

@@ -5,6 +5,7 @@
  * here by the labels the clerk sees.
  */
 import type { RollPosition } from "../../lib/procedure/voting-methods.ts";
+import { ApiError } from "../shared/api.ts";
 
 export interface VoteDraft {
   result: "" | "adopted" | "rejected";
@@ -92,4 +93,19 @@ export function fieldOfPath(path: string): VoteField | "reason" | null {
   if (last === "tally") return "yes";
   if (path.includes(".roll")) return "roll";
   return null;
+}
+
+/**
+ * A refused vote entry's field issues, each under the field it names ("Ayes: must be a whole
+ * number"), or null when the refusal names no field of the form. `withReason`: the correction form,
+ * which also has a reason field.
+ */
+export function voteFieldIssues<R extends boolean>(e: unknown, withReason: R): Partial<Record<R extends true ? VoteField | "reason" : VoteField, string>> | null {
+  if (!(e instanceof ApiError) || e.status !== 400 || !e.issues.length) return null;
+  const next: Partial<Record<VoteField | "reason", string>> = {};
+  for (const i of e.issues) {
+    const f = fieldOfPath(i.path);
+    if (f === "reason" ? withReason : f) next[f!] = `${f === "reason" ? "Reason" : VOTE_FIELD_LABELS[f!]}: ${i.message}`;
+  }
+  return Object.keys(next).length ? next : null;
 }

@@ -66,17 +66,25 @@ export const motionWindowSchema = z.object({
   citation: citationSchema,
 });
 
+/**
+ * A motion's characteristics as a variant sets them or a floor scenario expects them (each stated
+ * one exactly; reconsiderable by its name, not the older true/false).
+ */
+export const characteristicsShape = {
+  second: z.boolean(),
+  debatable: z.boolean(),
+  amendable: z.boolean(),
+  vote: z.enum(VOTE_THRESHOLDS),
+  interrupt: z.boolean(),
+  reconsiderable: z.enum(RECONSIDERABLE),
+};
+
 /** Characteristics a variant may set when its condition holds. */
 export const variantSetSchema = z
   .object({
     class: z.enum(MOTION_CLASSES),
     rank: z.number().int().min(0).max(1000).nullable(),
-    second: z.boolean(),
-    debatable: z.boolean(),
-    amendable: z.boolean(),
-    vote: z.enum(VOTE_THRESHOLDS),
-    interrupt: z.boolean(),
-    reconsiderable: z.enum(RECONSIDERABLE),
+    ...characteristicsShape,
   })
   .partial()
   .strict()

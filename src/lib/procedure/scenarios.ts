@@ -13,8 +13,7 @@ import { idSchema, measureSchema, amendmentSchema } from "../amendments/case-sch
 import { validateTree } from "../amendments/validate-tree.ts";
 import { floorStateSchema } from "./floor-state-schema.ts";
 import { legalMoves, type MotionVerdict } from "./legal-moves.ts";
-import { RECONSIDERABLE, type Rulebook } from "./rulebook-schema.ts";
-import { VOTE_THRESHOLDS } from "./voting-section.ts";
+import { characteristicsShape, type Rulebook } from "./rulebook-schema.ts";
 
 export const SCENARIOS_FORMAT = "gavelwright.scenarios";
 export const SCENARIOS_FORMAT_VERSION = 1;
@@ -30,12 +29,7 @@ export const motionExpectationSchema = z
     reasons: z.array(z.string().min(1).max(64)).max(50),
     degree: z.number().int().min(1).max(10),
     appliesTo: idSchema.nullable(),
-    second: z.boolean(),
-    debatable: z.boolean(),
-    amendable: z.boolean(),
-    vote: z.enum(VOTE_THRESHOLDS),
-    interrupt: z.boolean(),
-    reconsiderable: z.enum(RECONSIDERABLE),
+    ...characteristicsShape,
   })
   .partial()
   .strict()

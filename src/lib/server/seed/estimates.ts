@@ -7,14 +7,12 @@
  */
 import { and, asc, eq } from "drizzle-orm";
 import { db } from "../db.ts";
-import { organization, user } from "../../db/schema/auth.ts";
 import { legislators } from "../../db/schema/chamber.ts";
 import { measures } from "../../db/schema/measures.ts";
 import { estimates } from "../../db/schema/estimates.ts";
 import { CHAMBER_ROLES } from "../../permissions.ts";
-import type { Actor } from "../http.ts";
 import { createEstimate } from "../services/estimates.ts";
-import { DEMO_ACCOUNTS, DEMO_CHAMBERS } from "./demo-data.ts";
+import { demoActor } from "./actors.ts";
 
 export const DEMO_BALLOTS_TITLE = "Bloc rankings before the sitting (clerk's projection)";
 export const DEMO_SPATIAL_TITLE = "Lighting and cost: where the blocs stand";
@@ -36,16 +34,9 @@ const BLOC_IDEALS: Record<string, [number, number]> = {
   Independents: [4, 8],
 };
 
-async function clerkActor(): Promise<Actor | null> {
-  const [chamber] = await db.select({ id: organization.id, name: organization.name, slug: organization.slug, timeZone: organization.timeZone }).from(organization).where(eq(organization.slug, DEMO_CHAMBERS.harrowmere.slug));
-  const account = DEMO_ACCOUNTS.find((a) => a.chamber === "harrowmere" && a.role === "clerk")!;
-  const [u] = await db.select().from(user).where(eq(user.email, account.email));
-  if (!chamber || !u) return null;
-  return { user: u as Actor["user"], chamber, role: "clerk" };
-}
 
 export async function seedEstimates(): Promise<{ ballotsId: string; spatialId: string } | null> {
-  const actor = await clerkActor();
+  const actor = await demoActor("harrowmere", "clerk");
   if (!actor) return null;
   const [m] = await db.select({ id: measures.id }).from(measures).where(and(eq(measures.chamberId, actor.chamber.id), eq(measures.number, "HCA 12")));
   if (!m) return null;

@@ -7,26 +7,17 @@
  */
 import { and, asc, eq } from "drizzle-orm";
 import { db } from "../db.ts";
-import { organization, user } from "../../db/schema/auth.ts";
 import { legislators } from "../../db/schema/chamber.ts";
 import { amendments, measures } from "../../db/schema/measures.ts";
-import type { Actor } from "../http.ts";
 import { fileAmendment } from "../services/amendments.ts";
 import { createMeasure } from "../services/measures.ts";
-import { DEMO_ACCOUNTS, DEMO_CHAMBERS } from "./demo-data.ts";
+import { demoActor } from "./actors.ts";
 
 const DAY = 86_400_000;
 
-async function clerkActor(): Promise<Actor | null> {
-  const [chamber] = await db.select({ id: organization.id, name: organization.name, slug: organization.slug, timeZone: organization.timeZone }).from(organization).where(eq(organization.slug, DEMO_CHAMBERS.harrowmere.slug));
-  const account = DEMO_ACCOUNTS.find((a) => a.chamber === "harrowmere" && a.role === "clerk")!;
-  const [u] = await db.select().from(user).where(eq(user.email, account.email));
-  if (!chamber || !u) return null;
-  return { user: u as Actor["user"], chamber, role: "clerk" };
-}
 
 export async function seedMeasures(now = new Date()): Promise<{ measureId: string } | null> {
-  const actor = await clerkActor();
+  const actor = await demoActor("harrowmere", "clerk");
   if (!actor) return null;
   const [existing] = await db.select({ id: measures.id }).from(measures).where(and(eq(measures.chamberId, actor.chamber.id), eq(measures.number, "HCA 12")));
   if (existing) return { measureId: existing.id };

@@ -5,33 +5,20 @@
  */
 import { and, eq } from "drizzle-orm";
 import { db } from "../db.ts";
-import { member, organization, user } from "../../db/schema/auth.ts";
 import { rulebookVersions } from "../../db/schema/rulebooks.ts";
 import { sittings } from "../../db/schema/floor.ts";
-import { isChamberRole } from "../../permissions.ts";
-import type { Actor } from "../http.ts";
 import { rulebookTemplate } from "../rulebook-templates.ts";
 import { adoptVersion, rulebookInForce, saveVersion } from "../services/rulebooks.ts";
 import { openSitting, recordEvent } from "../services/floor.ts";
-import { DEMO_ACCOUNTS, DEMO_CHAMBERS } from "./demo-data.ts";
+import { demoActor } from "./actors.ts";
 
 export const DEMO_SITTING_TITLE = "Sitting of 3 December";
 export const DEMO_MAIN_MOTION = "That the Assembly approve the Moorland Footpaths Ordinance as reported by the Lanes and Commons Committee";
 
-async function clerkActor(chamberKey: keyof typeof DEMO_CHAMBERS): Promise<Actor> {
-  const account = DEMO_ACCOUNTS.find((a) => a.chamber === chamberKey && a.role === "chief-clerk")!;
-  const [row] = await db
-    .select({ user, chamber: { id: organization.id, name: organization.name, slug: organization.slug, timeZone: organization.timeZone }, role: member.role })
-    .from(user)
-    .innerJoin(member, eq(member.userId, user.id))
-    .innerJoin(organization, eq(member.organizationId, organization.id))
-    .where(and(eq(user.email, account.email), eq(organization.slug, DEMO_CHAMBERS[chamberKey].slug)));
-  if (!row || !isChamberRole(row.role)) throw new Error(`seed: no chief clerk for ${chamberKey}`);
-  return { user: row.user as Actor["user"], chamber: row.chamber, role: row.role };
-}
 
 export async function seedRulebooks(): Promise<void> {
-  const actor = await clerkActor("harrowmere");
+  const actor = await demoActor("harrowmere", "chief-clerk");
+  if (!actor) throw new Error("seed: no chief clerk for harrowmere");
   const [existing] = await db.select({ id: rulebookVersions.id }).from(rulebookVersions).where(eq(rulebookVersions.chamberId, actor.chamber.id)).limit(1);
   if (!existing) {
     const t = await rulebookTemplate("demo-chamber");
