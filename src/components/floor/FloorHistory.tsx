@@ -3,7 +3,7 @@ import { when } from "../shared/dates.ts";
 import ConfirmBox from "./ConfirmBox.tsx";
 import VoteFields from "./VoteFields.tsx";
 import type { HistoryLine } from "./schemas.ts";
-import { checkDraft, EMPTY_VOTE, voteFieldIssues, voteWords, type VoteDraft, type VoteEvent, type VoteField } from "./vote-entry.ts";
+import { checkDraft, EMPTY_VOTE, voteRefusal, voteWords, type VoteDraft, type VoteEvent, type VoteField } from "./vote-entry.ts";
 import type { Outcome } from "./VoteForm.tsx";
 
 const NOT_CORRECTABLE = new Set(["strike", "rulebook", "close"]);
@@ -67,13 +67,9 @@ function Correction({ line, busy, record, onDone }: { line: HistoryLine; busy: b
     if (r.ok) return onDone();
     setConfirm(null);
     const e = r.error;
-    const issues = voteFieldIssues(e, true);
-    if (issues) {
-      setErrors(issues);
-      setFailure("Not recorded: check the fields marked above.");
-      return;
-    }
-    setFailure(e instanceof Error ? e.message : "Not recorded.");
+    const refused = voteRefusal(e, true);
+    if (refused.errors) setErrors(refused.errors);
+    setFailure(refused.failure);
   }
 
   return (

@@ -3,7 +3,7 @@ import { ApiError } from "../shared/api.ts";
 import ConfirmBox from "./ConfirmBox.tsx";
 import VoteFields from "./VoteFields.tsx";
 import type { Question } from "./schemas.ts";
-import { checkDraft, EMPTY_VOTE, voteFieldIssues, voteWords, type VoteDraft, type VoteEvent, type VoteField } from "./vote-entry.ts";
+import { checkDraft, EMPTY_VOTE, voteRefusal, voteWords, type VoteDraft, type VoteEvent, type VoteField } from "./vote-entry.ts";
 
 export type Outcome = { ok: true } | { ok: false; error: unknown };
 
@@ -61,13 +61,9 @@ export default function VoteForm({ question, busy, record }: Props) {
       setMismatch({ message: e.message, vote });
       return;
     }
-    const issues = voteFieldIssues(e, false);
-    if (issues) {
-      setErrors(issues);
-      setFailure("Not recorded: check the fields marked above.");
-      return;
-    }
-    setFailure(e instanceof Error ? e.message : "Not recorded.");
+    const refused = voteRefusal(e, false);
+    if (refused.errors) setErrors(refused.errors);
+    setFailure(refused.failure);
   }
 
   return (

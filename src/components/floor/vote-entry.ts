@@ -109,3 +109,9 @@ export function voteFieldIssues<R extends boolean>(e: unknown, withReason: R): P
   }
   return Object.keys(next).length ? next : null;
 }
+
+/** What the form shows for a refused entry: the field issues (null when none) and the line above the button. */
+export function voteRefusal<R extends boolean>(e: unknown, withReason: R): { errors: ReturnType<typeof voteFieldIssues<R>>; failure: string } {
+  const errors = voteFieldIssues(e, withReason);
+  return { errors, failure: errors ? "Not recorded: check the fields marked above." : e instanceof Error ? e.message : "Not recorded." };
+}
