@@ -5,7 +5,9 @@
  * the arrow keys, the outline and the printout read. A tidy tree: every leaf gets the next row,
  * a parent sits level with the middle of its children, so a tree of hundreds of amendments grows
  * downwards rather than into one wide row. Pure: no DOM, no React; the drawing and the tests call
- * the same function.
+ * the same function. (A general graph layout such as dagre, used before, orders siblings to reduce
+ * crossings, not in the order of the text, so §3 could sit above §1; a tree in a given order needs
+ * no more than this.)
  */
 export interface LayoutInput {
   key: string;
