@@ -39,7 +39,7 @@ export const PERMISSIONS = [
   "circulation:send",
   "lists:edit",
   "mail:view-caught",
-  /** See colleagues' e-mail addresses (people page and every API that lists people). */
+  /** See colleagues' e-mail addresses (people page and every API that lists people; staff see the addresses their circulations go to, which is their work). */
   "people:see-email",
   /** Cancel any analysis run of the chamber, not only one's own (the worker pool is shared). */
   "analysis:cancel-any",

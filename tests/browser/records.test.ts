@@ -299,6 +299,15 @@ describe("archiving a measure", () => {
     const page = await browser.freshPage();
     await signInAs(page, "clerk");
     const m = await ownMeasure(page, "X");
+    // An amendment on another subject with no sponsor: findings a clerk may override, until the measure is archived.
+    await api(page, "POST", `/api/measures/${m.id}/amendments`, { form: "insert", target: "s1", subjects: ["fisheries"], sponsors: [], text: "Nets shall be dried on the quay." });
+    const overrideOffers = async () => {
+      await page.goto(`${BASE_URL}/measures/${m.id}/tree`);
+      await page.getByRole("button", { name: "A1", exact: true }).first().click();
+      await visible(page.getByTestId(/^finding-A1-/).first());
+      return page.getByRole("button", { name: "Override with a ruling…" }).count();
+    };
+    expect(await overrideOffers()).toBeGreaterThan(0);
     await page.goto(`${BASE_URL}/measures/${m.id}`);
     await page.getByText("Edit this measure's fields and sections…").click();
     await page.getByRole("button", { name: "Archive this measure…" }).click();
@@ -315,6 +324,9 @@ describe("archiving a measure", () => {
     await page.getByTestId("archived-measures").locator("summary").click();
     await page.getByTestId("archived-measures").getByRole("link", { name: new RegExp(m.number) }).click();
     await page.waitForURL(`${BASE_URL}/measures/${m.id}`);
+    await visible(page.getByTestId("archived-notice"));
+    // Its tree can be read, with a notice, and offers no override.
+    expect(await overrideOffers()).toBe(0);
     await visible(page.getByTestId("archived-notice"));
     await page.close();
   });

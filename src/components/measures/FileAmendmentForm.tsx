@@ -43,7 +43,7 @@ export default function FileAmendmentForm({ measureId, sections, amendments, leg
 
   function done(out: Filed) {
     if (out.status === "draft") {
-      setMessage(`Saved as a draft (${out.key}). File it when ready.`);
+      setMessage("Saved as a draft. File it from the list of amendments when ready.");
       setTimeout(() => window.location.reload(), 1500);
       return;
     }

@@ -168,6 +168,9 @@ export const findingViewSchema = z.object({
   clause: z.string().optional(),
   message: z.string(),
   related: z.array(z.string()).optional(),
+  /** What a person reads for `amendment` and each of `related`: the key ("A3") or, for a draft, "Draft 1". */
+  amendmentLabel: z.string().optional(),
+  relatedLabels: z.array(z.string()).optional(),
   overridden: z.boolean().optional(),
   ruling: z.string().optional(),
   overrideId: z.string().nullable().optional(),
@@ -202,7 +205,7 @@ export const treeNodeViewSchema = z.object({
 export type TreeNodeView = z.infer<typeof treeNodeViewSchema>;
 
 export const treeViewSchema = z.object({
-  measure: z.object({ id: z.string(), number: z.string(), title: z.string(), version: z.number(), sittingAt: z.string().nullable() }),
+  measure: z.object({ id: z.string(), number: z.string(), title: z.string(), version: z.number(), sittingAt: z.string().nullable(), archived: z.boolean().default(false) }),
   rulebook: z.object({ id: z.string(), title: z.string(), source: z.string(), maxDegree: z.number(), minSponsors: z.number() }),
   nodes: z.array(treeNodeViewSchema),
   findings: z.array(findingViewSchema),

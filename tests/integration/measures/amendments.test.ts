@@ -190,6 +190,13 @@ describe("filing amendments", () => {
     const onDraft = tree.findings.filter((f: { amendment: string }) => f.amendment === d.body.key);
     expect(onDraft.length).toBeGreaterThan(0);
     for (const f of tree.findings) expect(f.message).not.toContain(d.body.key);
+    expect(onDraft.every((f: { amendmentLabel: string }) => f.amendmentLabel === "Draft")).toBe(true);
+    // A draft is before no one: an amendment to it is refused until it is filed, and nothing is stored.
+    const before = await tableCounts();
+    const onIt = await file(m.id, { target: d.body.id, form: "insert", text: "Amending a draft." });
+    expect(onIt.status).toBe(422);
+    expect(onIt.body.error.issues[0]).toMatchObject({ path: "target", message: expect.stringContaining("still a draft") });
+    expect(await tableCounts()).toEqual(before);
     expect(await db.select().from(outbox).where(eq(outbox.ref, d.body.id))).toEqual([]);
     await file(m.id, { text: "Another text, filed before the draft." });
     expect((await call(fileDraft.POST, "POST", "/x", { as: s.outsider, params: { id: d.body.id }, body: { version: 1 } })).status).toBe(404);

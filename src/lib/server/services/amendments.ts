@@ -58,7 +58,9 @@ async function resolveTarget(tx: Tx, m: MeasureRow, target: string, lines: [numb
     const byNumber = /^A(\d{1,9})$/i.exec(target);
     const where = byNumber ? eq(amendments.number, Number(byNumber[1])) : uuidLike.test(target) ? eq(amendments.id, target) : null;
     if (where) {
-      const [t] = await tx.select({ id: amendments.id }).from(amendments).where(and(eq(amendments.measureId, m.id), where));
+      const [t] = await tx.select({ id: amendments.id, number: amendments.number }).from(amendments).where(and(eq(amendments.measureId, m.id), where));
+      // A draft is before no one: it can be amended once it is filed (and has its number).
+      if (t && t.number === null) throw bad("that amendment is still a draft; an amendment to it can be filed once it is filed");
       if (t) out = { targetKind: "amendment", targetSection: null, targetAmendmentId: t.id };
     }
   }

@@ -314,6 +314,9 @@ export async function sendFloorDigest(actor: Actor, input: z.output<typeof diges
   return db.transaction(async (tx) => {
     // One sending of a digest at a time per chamber, so two sent at once cannot both miss the other.
     await tx.execute(dsql`SELECT pg_advisory_xact_lock(hashtext(${"floor-digest:" + actor.chamber.id}))`);
+    // A list named that is not this chamber's is refused first (422 on listId), before any repeat question.
+    if (listId && !(uuid.safeParse(listId).success && (await tx.select({ id: distributionLists.id }).from(distributionLists).where(and(eq(distributionLists.id, listId), eq(distributionLists.chamberId, actor.chamber.id)))).length))
+      throw new GavelError("unprocessable", "listId: no such distribution list in this chamber.", { issues: [{ path: "listId", message: "no such distribution list in this chamber" }] });
     if (!confirm) {
       const subject = renderFloorDigest({ chamberName: await chamberName(tx, actor.chamber.id), digest: floorDigestSchema.parse(digest), unsubscribeUrl: null }).subject;
       const [clerks] = listId ? [] : await tx.select({ id: distributionLists.id }).from(distributionLists).where(and(eq(distributionLists.chamberId, actor.chamber.id), eq(distributionLists.purpose, "clerks")));
@@ -321,7 +324,7 @@ export async function sendFloorDigest(actor: Actor, input: z.output<typeof diges
       const [earlier] = await tx
         .select({ at: circulations.createdAt, by: circulations.sentByName, listName: circulations.listName })
         .from(circulations)
-        .where(and(eq(circulations.chamberId, actor.chamber.id), eq(circulations.kind, "floor-digest"), eq(circulations.subject, subject), target && uuid.safeParse(target).success ? eq(circulations.listId, target) : isNull(circulations.listId)))
+        .where(and(eq(circulations.chamberId, actor.chamber.id), eq(circulations.kind, "floor-digest"), eq(circulations.subject, subject), target ? eq(circulations.listId, target) : isNull(circulations.listId)))
         .orderBy(desc(circulations.createdAt))
         .limit(1);
       if (earlier) {

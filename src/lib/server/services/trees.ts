@@ -100,7 +100,11 @@ async function buildTreeView(chamberId: string, measureId: string): Promise<{ vi
   });
   // A draft reads as "Draft 1" (amendment-words.ts), on the drawing and in the findings, never as its internal key.
   const drafts = draftLabels(rows.map((r) => ({ key: keys.get(r.id)!, draft: r.number === null })));
-  if (drafts.size) for (const f of findings) for (const [key, label] of drafts) f.message = f.message.replaceAll(`Amendment ${key}`, label).replaceAll(key, label);
+  for (const f of findings) {
+    f.amendmentLabel = drafts.get(f.amendment) ?? f.amendment;
+    if (f.related) f.relatedLabels = f.related.map((k) => drafts.get(k) ?? k);
+    for (const [key, label] of drafts) f.message = f.message.replaceAll(`Amendment ${key}`, label).replaceAll(key, label);
+  }
   const nodes: TreeNodeView[] = [
     { key: MEASURE_KEY, kind: "measure", id: m.id, label: m.number, title: m.title, parent: null, degree: 0, form: null, status: m.status, subjects: m.subjects, sponsors: m.sponsors.map((s) => names.get(s) ?? s), filedAt: null, text: null, lines: null, version: m.version },
     ...m.sections.map((s): TreeNodeView => ({ key: s.id, kind: "section", id: null, label: s.id, title: s.heading ?? null, parent: MEASURE_KEY, degree: 0, form: null, status: s.status, subjects: s.subjects, sponsors: [], filedAt: null, text: s.text ?? null, lines: null, version: null })),
@@ -117,7 +121,7 @@ async function buildTreeView(chamberId: string, measureId: string): Promise<{ vi
     else counts[f.severity]++;
   }
   const view: TreeView = {
-    measure: { id: m.id, number: m.number, title: m.title, version: m.version, sittingAt: m.sittingAt?.toISOString() ?? null },
+    measure: { id: m.id, number: m.number, title: m.title, version: m.version, sittingAt: m.sittingAt?.toISOString() ?? null, archived: m.archivedAt !== null },
     rulebook: { id: rb.rulebook.id, title: rb.rulebook.title, source: rb.source, maxDegree: rb.rulebook.amendments.maxDegree, minSponsors: rb.rulebook.amendments.minSponsors },
     nodes,
     findings,
