@@ -2,6 +2,7 @@ import { useEffect, useState, type SubmitEvent } from "react";
 import { z } from "zod";
 import { CHAMBER_ROLES, ROLE_LABELS, isChamberRole } from "../../lib/permissions.ts";
 import FloorDigestForm from "./FloorDigestForm.tsx";
+import { useLatestAnswer } from "../shared/useLatestAnswer.ts";
 import { apiCall, ApiError } from "../shared/api.ts";
 import { listsView, messageView, STATUS_CHIP, STATUS_LABEL, type ListView } from "../rulings/api.ts";
 import { Alert } from "../shared/Alert.tsx";
@@ -146,13 +147,8 @@ function ListEditor({ list, people, onSaved, onCancel }: { list: ListView | null
 
 function Deliveries({ id }: { id: string }) {
   const [msgs, setMsgs] = useState<z.output<typeof messageView>[] | null>(null);
-  useEffect(() => {
-    let stale = false; // an answer for another item arriving late is dropped
-    apiCall(circulationDetail, `/api/circulation/${id}`).then((d) => !stale && setMsgs(d.messages), () => !stale && setMsgs([]));
-    return () => {
-      stale = true;
-    };
-  }, [id]);
+  // An answer for another item arriving late is dropped.
+  useLatestAnswer(circulationDetail, { url: `/api/circulation/${id}` }, (d) => setMsgs(d.messages), () => setMsgs([]));
   if (!msgs) return <p className="text-sm text-ink-soft">Loading…</p>;
   return (
     <ul className="mt-2 space-y-1 text-sm">

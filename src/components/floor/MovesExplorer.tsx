@@ -1,5 +1,6 @@
 import { useEffect, useState } from "react";
 import { z } from "zod";
+import { useLatestAnswer } from "../shared/useLatestAnswer.ts";
 import { apiCall, ApiError } from "../shared/api.ts";
 import { librarySchema, type Library } from "../rulebooks/schemas.ts";
 import LegalMovesList from "./LegalMovesList.tsx";
@@ -37,21 +38,17 @@ export default function MovesExplorer() {
     apiCall(librarySchema, "/api/rulebooks").then(setLibrary, () => setLibrary(null));
   }, []);
 
-  useEffect(() => {
-    let stale = false;
-    apiCall(movesAnswerSchema, "/api/moves", { method: "POST", body: { state: { pending, floor: facts }, ...(version ? { version } : {}) } }).then(
-      (a) => {
-        if (stale) return;
-        setAnswer(a);
-        setError(null);
-        if (catalogue.length === 0 || pending.length === 0) setCatalogue(a.moves);
-      },
-      (e) => !stale && setError({ message: e instanceof Error ? e.message : "Could not ask.", issues: e instanceof ApiError ? e.issues : [] }),
-    );
-    return () => {
-      stale = true;
-    };
-  }, [pending, facts, version]);
+  // Only the answer to the question as it now stands counts (an earlier one arriving late is dropped).
+  useLatestAnswer(
+    movesAnswerSchema,
+    { url: "/api/moves", method: "POST", body: { state: { pending, floor: facts }, ...(version ? { version } : {}) } },
+    (a) => {
+      setAnswer(a);
+      setError(null);
+      if (catalogue.length === 0 || pending.length === 0) setCatalogue(a.moves);
+    },
+    (e) => setError({ message: e instanceof Error ? e.message : "Could not ask.", issues: e instanceof ApiError ? e.issues : [] }),
+  );
 
   const nameOf = (id: string) => catalogue.find((m) => m.motion === id)?.name ?? id;
   // The degree an amendment takes follows the stack (it applies to the question directly below it).

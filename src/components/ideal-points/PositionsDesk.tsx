@@ -7,6 +7,7 @@
  */
 import { useEffect, useMemo, useRef, useState } from "react";
 import { z } from "zod";
+import { useLatestAnswer } from "../shared/useLatestAnswer.ts";
 import { ApiError, apiCall, type Issue } from "../shared/api.ts";
 import { Alert } from "../shared/Alert.tsx";
 
@@ -341,17 +342,16 @@ function SaveAsEstimate({ result, blocOf }: { result: Result; blocOf: (m: string
       if (o.measures[0]) setMeasureId(o.measures[0].id);
     }, () => setError({ message: "Could not load the measures.", issues: [] }));
   }, []);
-  useEffect(() => {
-    if (!measureId) return;
-    let stale = false; // an answer for a measure no longer chosen is dropped
-    apiCall(versionsSchema, `/api/estimates/versions?measureId=${encodeURIComponent(measureId)}`).then(
-      (t) => { if (!stale) { setPending(t.pending); setScope([]); } },
-      () => !stale && setError({ message: "Could not list the measure's amendments.", issues: [] }),
-    );
-    return () => {
-      stale = true;
-    };
-  }, [measureId]);
+  // An answer for a measure no longer chosen is dropped.
+  useLatestAnswer(
+    versionsSchema,
+    measureId ? { url: `/api/estimates/versions?measureId=${encodeURIComponent(measureId)}` } : null,
+    (t) => {
+      setPending(t.pending);
+      setScope([]);
+    },
+    () => setError({ message: "Could not list the measure's amendments.", issues: [] }),
+  );
 
   const place = (key: string) => places[key] ?? Array.from({ length: d }, () => "");
   const setPlace = (key: string, k: number, v: string) => setPlaces((p) => ({ ...p, [key]: place(key).map((x, i) => (i === k ? v : x)) }));

@@ -5,6 +5,7 @@
 import { useEffect, useState } from "react";
 import { z } from "zod";
 import { Alert } from "../shared/Alert.tsx";
+import { useLatestAnswer } from "../shared/useLatestAnswer.ts";
 import { ApiError, apiCall } from "../shared/api.ts";
 import { versionSchema } from "./api.ts";
 
@@ -33,19 +34,17 @@ export default function NewEstimate() {
       if (o.measures[0]) setMeasureId(o.measures[0].id);
     }, () => setError("Could not load the measures."));
   }, []);
-  useEffect(() => {
-    if (!measureId) return;
-    // Only the answer for the latest choice counts: an earlier answer arriving late is dropped.
-    let stale = false;
-    apiCall(versionsSchema, `/api/estimates/versions?measureId=${measureId}&scope=${scope.join(",")}`).then(
-      (t) => { if (!stale) { setTree(t); setError(null); } },
-      (e) => !stale && setError(e instanceof ApiError ? e.message : "Could not list the versions."),
-    );
-    setPreview(null);
-    return () => {
-      stale = true;
-    };
-  }, [measureId, scope]);
+  // Only the answer for the latest choice counts: an earlier answer arriving late is dropped.
+  useLatestAnswer(
+    versionsSchema,
+    measureId ? { url: `/api/estimates/versions?measureId=${measureId}&scope=${scope.join(",")}` } : null,
+    (t) => {
+      setTree(t);
+      setError(null);
+    },
+    (e) => setError(e instanceof ApiError ? e.message : "Could not list the versions."),
+  );
+  useEffect(() => setPreview(null), [measureId, scope]);
 
   const query = (extra: Record<string, string>) => new URLSearchParams({ measureId, scope: scope.join(","), kind, partial, per, ...(kind === "spatial" ? { dimensions } : {}), ...extra }).toString();
   /** Start from the roster instead of a file: an unfilled draft (one row per bloc or member), filled in on the estimate's page. */

@@ -1,5 +1,6 @@
 import { useEffect, useState } from "react";
 import { z } from "zod";
+import { useLatestAnswer } from "../shared/useLatestAnswer.ts";
 import { apiCall } from "../shared/api.ts";
 import { when } from "../shared/dates.ts";
 import { Alert } from "../shared/Alert.tsx";
@@ -68,17 +69,8 @@ export default function RulebookCompare({ from, to }: { from: string; to: string
   const [data, setData] = useState<z.output<typeof compareSchema> | null>(null);
   const [error, setError] = useState<string | null>(null);
   const chosen = Boolean(from && to);
-  useEffect(() => {
-    if (!chosen) return;
-    let stale = false; // an answer for an earlier pair arriving late is dropped
-    apiCall(compareSchema, `/api/rulebooks/compare?from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`).then(
-      (d) => !stale && setData(d),
-      (e) => !stale && setError(e instanceof Error ? e.message : "Could not compare."),
-    );
-    return () => {
-      stale = true;
-    };
-  }, [from, to, chosen]);
+  // An answer for an earlier pair arriving late is dropped.
+  useLatestAnswer(compareSchema, chosen ? { url: `/api/rulebooks/compare?from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}` } : null, setData, (e) => setError(e instanceof Error ? e.message : "Could not compare."));
   if (!chosen) return <ChooseVersions from={from} to={to} />;
   if (error) return <Alert>{error}</Alert>;
   if (!data) return <p className="text-ink-soft">Comparing…</p>;
