@@ -176,7 +176,7 @@ export const API_ROUTES: readonly ApiRoute[] = [
   { file: "api/measures/[id]/overrides/[oid].ts", method: "DELETE", path: "/api/measures/:id/overrides/:oid", audience: CLERKS, outsider: "refused", params: { id: "measure", oid: "override" } },
   { file: "api/amendments/[id]/index.ts", method: "GET", path: "/api/amendments/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "amendment" } },
   { file: "api/amendments/[id]/index.ts", method: "PATCH", path: "/api/amendments/:id", audience: FILERS, outsider: "refused", params: { id: "amendment" }, body: () => ({ version: 1, text: "taken over" }), note: "a member only while it is their own filed amendment" },
-  { file: "api/amendments/[id]/file.ts", method: "POST", path: "/api/amendments/:id/file", audience: FILERS, outsider: "refused", params: { id: "draftAmendment" }, body: () => ({ version: 1 }), note: "a member only their own draft" },
+  { file: "api/amendments/[id]/file.ts", method: "POST", path: "/api/amendments/:id/file", audience: FILERS, outsider: "refused", params: { id: "draftAmendment" }, body: () => ({ version: 1 }), note: "a member only their own draft; body `{ version, confirm? }`, 409 `needs-confirmation` when the same amendment was filed within the hour" },
 
   // estimates and order analyses
   { file: "api/estimates/index.ts", method: "GET", path: "/api/estimates", audience: ALL_ROLES, outsider: "own-chamber", query: (s) => ({ measureId: s.measure }), note: "shared and own estimates only" },
@@ -203,9 +203,9 @@ export const API_ROUTES: readonly ApiRoute[] = [
   { file: "api/analysis/runs/[id]/script.ts", method: "GET", path: "/api/analysis/runs/:id/script?order", audience: ALL_ROLES, outsider: "refused", params: { id: "run" }, query: (s) => ({ order: s.runOrder }) },
 
   // rulings and circulation
-  { file: "api/rulings/index.ts", method: "GET", path: "/api/rulings", audience: ALL_ROLES, outsider: "own-chamber", note: "?status=draft or all: clerks only" },
+  { file: "api/rulings/index.ts", method: "GET", path: "/api/rulings", audience: ALL_ROLES, outsider: "own-chamber", note: "?status=draft or all: clerks only; ?motion= takes the motion's id or the name the adopted rulebook gives it; each result carries `motionName`" },
   { file: "api/rulings/index.ts", method: "POST", path: "/api/rulings", audience: CLERKS, outsider: "refused", body: (s) => rulingContent(s), note: "raisedById names a Harrowmere legislator" },
-  { file: "api/rulings/options.ts", method: "GET", path: "/api/rulings/options", audience: CLERKS, outsider: "own-chamber" },
+  { file: "api/rulings/options.ts", method: "GET", path: "/api/rulings/options", audience: CLERKS, outsider: "own-chamber", note: "`rulebook.motions`: the adopted rulebook's motions by name" },
   { file: "api/rulings/related.ts", method: "GET", path: "/api/rulings/related", audience: ALL_ROLES, outsider: "own-chamber", query: () => ({ text: "previous question division" }) },
   { file: "api/rulings/[id].ts", method: "GET", path: "/api/rulings/:id", audience: ALL_ROLES, outsider: "refused", params: { id: "issuedRuling" }, note: "drafts only to clerks" },
   { file: "api/rulings/[id].ts", method: "PUT", path: "/api/rulings/:id", audience: CLERKS, outsider: "refused", params: { id: "draftRuling" }, body: (s) => ({ version: 1, content: rulingContent(s) }) },
@@ -214,7 +214,7 @@ export const API_ROUTES: readonly ApiRoute[] = [
   { file: "api/circulation/index.ts", method: "GET", path: "/api/circulation", audience: SENDERS, outsider: "own-chamber" },
   { file: "api/circulation/index.ts", method: "POST", path: "/api/circulation", audience: SENDERS, outsider: "refused", body: (s) => ({ rulingId: s.issuedRuling, listId: s.list }) },
   { file: "api/circulation/[id].ts", method: "GET", path: "/api/circulation/:id", audience: SENDERS, outsider: "refused", params: { id: "circulation" } },
-  { file: "api/circulation/digest.ts", method: "POST", path: "/api/circulation/digest", audience: SENDERS, outsider: "own-chamber", body: () => ({ sitting: "Access sitting", date: "2026-04-02" }) },
+  { file: "api/circulation/digest.ts", method: "POST", path: "/api/circulation/digest", audience: SENDERS, outsider: "own-chamber", body: () => ({ sitting: "Access sitting", date: "2026-04-02" }), note: "409 `needs-confirmation` when that sitting's digest already went to the list; `confirm: true` sends it again" },
   { file: "api/circulation/lists/index.ts", method: "GET", path: "/api/circulation/lists", audience: SENDERS, outsider: "own-chamber" },
   { file: "api/circulation/lists/index.ts", method: "POST", path: "/api/circulation/lists", audience: SENDERS, outsider: "own-chamber", body: () => ({ name: "Access list", entries: [] }) },
   { file: "api/circulation/lists/[id].ts", method: "GET", path: "/api/circulation/lists/:id", audience: SENDERS, outsider: "refused", params: { id: "list" } },
