@@ -1,6 +1,7 @@
 // Records a clerk can trust, in the browser: filing answers at once with the amendment named in
 // words and the tree check's findings, and asks before filing the same thing twice; what cannot be
-// undone (withdrawing, issuing a ruling, changing a role, removing a person, archiving a measure)
+// undone (withdrawing, issuing a ruling, changing a role, removing a person, cancelling an
+// invitation, archiving a measure)
 // asks first in a dialog that names the thing, with the focus moved into it, at desktop and phone
 // width; sending a ruling to a list that already had it asks first; the people log says who did
 // what. Every test makes its own measures, rulings, lists and people. Common practice, no source.
@@ -27,7 +28,7 @@ async function ownMeasure(page: Page, label: string): Promise<{ id: string; numb
 }
 
 /** The dialog is open, named, says what follows, and has the focus inside it. */
-async function expectConfirmDialog(page: Page, dialog: Locator, title: string | RegExp, says: RegExp): Promise<void> {
+async function expectConfirmDialog(dialog: Locator, title: string | RegExp, says: RegExp): Promise<void> {
   await visible(dialog);
   const heading = await textOf(dialog.getByRole("heading"));
   if (typeof title === "string") expect(heading).toBe(title);
@@ -126,7 +127,7 @@ describe("filing", () => {
 
     await saveDraft("Quarterly dues");
     let dialog = await fileNow();
-    await expectConfirmDialog(page, dialog, `File the draft amendment to section 2 of ${m.number}?`, /next amendment number.*receipt goes to its sponsors/s);
+    await expectConfirmDialog(dialog, `File the draft amendment to section 2 of ${m.number}?`, /next amendment number.*receipt goes to its sponsors/s);
     // Cancelling files nothing.
     await dialog.getByRole("button", { name: "Cancel" }).click();
     expect((await api(page, "GET", `/api/measures/${m.id}/amendments`)).amendments.map((a: { status: string }) => a.status)).toEqual(["draft"]);
@@ -168,7 +169,7 @@ describe("withdrawing an amendment", () => {
       await page.setViewportSize({ width, height: width === 390 ? 844 : 900 });
       await row.getByRole("button", { name: "Withdraw…" }).click();
       const dialog = page.getByTestId("status-confirm");
-      await expectConfirmDialog(page, dialog, `Withdraw Amendment A1 to section 2 of ${m.number}?`, /cannot be undone/);
+      await expectConfirmDialog(dialog, `Withdraw Amendment A1 to section 2 of ${m.number}?`, /cannot be undone/);
       const box = await dialog.boundingBox();
       expect(box!.x).toBeGreaterThanOrEqual(0);
       expect(box!.x + box!.width).toBeLessThanOrEqual(width);
@@ -207,7 +208,7 @@ describe("rulings", () => {
     await page.goto(`${BASE_URL}/rulings/${draft.id}`);
     await page.getByRole("button", { name: "Issue ruling…" }).click();
     const dialog = page.getByTestId("ruling-confirm");
-    await expectConfirmDialog(page, dialog, /^Issue Ruling \d+\?$/, /cannot be undone/);
+    await expectConfirmDialog(dialog, /^Issue Ruling \d+\?$/, /cannot be undone/);
     await page.setViewportSize({ width: 390, height: 844 });
     const box = await dialog.boundingBox();
     expect(box!.x + box!.width).toBeLessThanOrEqual(390);
@@ -225,7 +226,7 @@ describe("rulings", () => {
     await page.getByRole("button", { name: "Send by e-mail" }).click();
     await expect.poll(() => page.getByText(/Queued 1 message\./).count()).toBe(1);
     await page.getByRole("button", { name: "Send by e-mail" }).click();
-    await expectConfirmDialog(page, dialog, /^Send Ruling \d+ to this list again\?$/, new RegExp(`already went to “${list.name}”.*get it twice`, "s"));
+    await expectConfirmDialog(dialog, /^Send Ruling \d+ to this list again\?$/, new RegExp(`already went to “${list.name}”.*get it twice`, "s"));
     expect(await dialog.innerText()).not.toMatch(/\d{4}-\d{2}-\d{2}T/);
     await shot(page, "records-resend-dialog");
     await dialog.getByRole("button", { name: "Cancel" }).click();
@@ -257,13 +258,13 @@ describe("people", () => {
     await visible(role);
     await role.selectOption("clerk");
     const dialog = page.getByTestId("people-confirm");
-    await expectConfirmDialog(page, dialog, `Make ${name} Clerk?`, /cannot be undone/);
+    await expectConfirmDialog(dialog, `Make ${name} Clerk?`, /cannot be undone/);
     await dialog.getByRole("button", { name: "Change the role" }).click();
     expect(await textOf(page.getByRole("status").filter({ hasText: "is now Clerk" }))).toBe(`${name} is now Clerk. The change is in the people log.`);
 
     await page.setViewportSize({ width: 390, height: 844 });
     await page.getByRole("button", { name: `Remove ${name}…` }).click();
-    await expectConfirmDialog(page, dialog, `Remove ${name} from the chamber?`, /loses access to the chamber at once/);
+    await expectConfirmDialog(dialog, `Remove ${name} from the chamber?`, /loses access to the chamber at once/);
     const box = await dialog.boundingBox();
     expect(box!.x + box!.width).toBeLessThanOrEqual(390);
     await shot(page, "records-remove-dialog-phone");
@@ -276,7 +277,7 @@ describe("people", () => {
     await shot(page, "records-people-removed");
 
     await removed.getByRole("button", { name: `Restore ${name}…` }).click();
-    await expectConfirmDialog(page, dialog, `Restore ${name} as Clerk?`, /access to the chamber again/);
+    await expectConfirmDialog(dialog, `Restore ${name} as Clerk?`, /access to the chamber again/);
     await dialog.getByRole("button", { name: "Restore" }).click();
     await visible(page.getByRole("status").filter({ hasText: "is back in the chamber as Clerk" }));
     await visible(page.getByLabel(`Role of ${name}`));
@@ -290,6 +291,33 @@ describe("people", () => {
     expect(log).toContain("Odile Fenwright");
     expect(log).not.toMatch(/\d{4}-\d{2}-\d{2}T|chief-clerk|role-changed/);
     await shot(page, "records-people-log");
+    await page.close();
+  });
+});
+
+describe("invitations", () => {
+  it("cancelling an invitation asks first, naming the address; keeping it changes nothing", async () => {
+    const email = `withdrawn-${stamp()}@example.org`;
+    const page = await browser.freshPage();
+    await signInAs(page, "chief-clerk");
+    await page.goto(`${BASE_URL}/people`);
+    await page.getByLabel("E-mail to invite").fill(email);
+    await page.getByRole("button", { name: "Send invitation" }).click();
+    await visible(page.getByText(`Invitation sent to ${email}.`));
+    const cancel = page.getByRole("button", { name: `Cancel the invitation to ${email}…` });
+    const dialog = page.getByTestId("people-confirm");
+
+    await cancel.click();
+    await expectConfirmDialog(dialog, `Cancel the invitation to ${email}?`, /stops working at once; this cannot be undone/);
+    await dialog.getByRole("button", { name: "Keep it" }).click();
+    await expect.poll(() => dialog.isVisible()).toBe(false);
+    expect(await cancel.count(), "kept: the invitation is still listed").toBe(1);
+
+    await cancel.click();
+    await shot(page, "records-cancel-invitation");
+    await dialog.getByRole("button", { name: "Cancel the invitation" }).click();
+    await visible(page.getByRole("status").filter({ hasText: `Invitation to ${email} cancelled.` }));
+    await expect.poll(() => cancel.count()).toBe(0);
     await page.close();
   });
 });
@@ -312,7 +340,7 @@ describe("archiving a measure", () => {
     await page.getByText("Edit this measure's fields and sections…").click();
     await page.getByRole("button", { name: "Archive this measure…" }).click();
     const dialog = page.getByTestId("archive-confirm");
-    await expectConfirmDialog(page, dialog, `Archive ${m.number} — Quay records X?`, /cannot be undone/);
+    await expectConfirmDialog(dialog, `Archive ${m.number} — Quay records X?`, /cannot be undone/);
     await dialog.getByRole("button", { name: "Archive it" }).click();
     await page.waitForLoadState("load");
     expect(await textOf(page.getByTestId("archived-notice"), 30_000)).toMatch(/^Archived on \d{1,2} [A-Z][a-z]+ \d{4}, \d{2}:\d{2}\. It can be read here/);

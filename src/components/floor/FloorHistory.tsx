@@ -3,7 +3,7 @@ import { when } from "../shared/dates.ts";
 import ConfirmBox from "./ConfirmBox.tsx";
 import VoteFields from "./VoteFields.tsx";
 import type { HistoryLine } from "./schemas.ts";
-import { checkDraft, EMPTY_VOTE, voteRefusal, voteWords, type VoteDraft, type VoteEvent, type VoteField } from "./vote-entry.ts";
+import { checkDraft, EMPTY_VOTE, showRefusal, voteWords, type VoteDraft, type VoteEvent, type VoteField } from "./vote-entry.ts";
 import type { Outcome } from "./VoteForm.tsx";
 
 const NOT_CORRECTABLE = new Set(["strike", "rulebook", "close"]);
@@ -66,10 +66,7 @@ function Correction({ line, busy, record, onDone }: { line: HistoryLine; busy: b
     const r = await record({ kind: "strike", entry: line.seq, reason: c.reason, ...(c.vote ? { replacement: { kind: "voted", ...c.vote, againstCount } } : {}) });
     if (r.ok) return onDone();
     setConfirm(null);
-    const e = r.error;
-    const refused = voteRefusal(e, true);
-    if (refused.errors) setErrors(refused.errors);
-    setFailure(refused.failure);
+    showRefusal(r.error, true, setErrors, setFailure);
   }
 
   return (

@@ -3,7 +3,7 @@ import { ApiError } from "../shared/api.ts";
 import ConfirmBox from "./ConfirmBox.tsx";
 import VoteFields from "./VoteFields.tsx";
 import type { Question } from "./schemas.ts";
-import { checkDraft, EMPTY_VOTE, voteRefusal, voteWords, type VoteDraft, type VoteEvent, type VoteField } from "./vote-entry.ts";
+import { checkDraft, EMPTY_VOTE, showRefusal, voteWords, type VoteDraft, type VoteEvent, type VoteField } from "./vote-entry.ts";
 
 export type Outcome = { ok: true } | { ok: false; error: unknown };
 
@@ -61,9 +61,7 @@ export default function VoteForm({ question, busy, record }: Props) {
       setMismatch({ message: e.message, vote });
       return;
     }
-    const refused = voteRefusal(e, false);
-    if (refused.errors) setErrors(refused.errors);
-    setFailure(refused.failure);
+    showRefusal(e, false, setErrors, setFailure);
   }
 
   return (

@@ -110,8 +110,12 @@ export function voteFieldIssues<R extends boolean>(e: unknown, withReason: R): P
   return Object.keys(next).length ? next : null;
 }
 
-/** What the form shows for a refused entry: the field issues (null when none) and the line above the button. */
-export function voteRefusal<R extends boolean>(e: unknown, withReason: R): { errors: ReturnType<typeof voteFieldIssues<R>>; failure: string } {
+/**
+ * Show a refused entry on its form: the field issues under their fields (when the refusal names
+ * any) and the line above the button ("Not recorded: …").
+ */
+export function showRefusal<R extends boolean>(e: unknown, withReason: R, setErrors: (errors: NonNullable<ReturnType<typeof voteFieldIssues<R>>>) => void, setFailure: (failure: string) => void): void {
   const errors = voteFieldIssues(e, withReason);
-  return { errors, failure: errors ? "Not recorded: check the fields marked above." : e instanceof Error ? e.message : "Not recorded." };
+  if (errors) setErrors(errors);
+  setFailure(errors ? "Not recorded: check the fields marked above." : e instanceof Error ? e.message : "Not recorded.");
 }

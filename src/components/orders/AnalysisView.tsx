@@ -13,6 +13,7 @@ import { cycleSentence, graphSelection } from "../../lib/estimates/majority-matr
 import OutcomeChart from "./OutcomeChart.tsx";
 import { thresholdInWords } from "../../lib/estimates/version-words.ts";
 import { Alert } from "../shared/Alert.tsx";
+import { TableHead } from "../shared/TableHead.tsx";
 
 type RunResult = z.output<typeof runResultSchema>;
 type OrdersPage = z.output<typeof ordersPageSchema>;
@@ -210,7 +211,7 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
           <>
             <div className="relative mt-3 overflow-x-auto" role="region" aria-labelledby="orders-h" tabIndex={0}>
             <table className="gw-table">
-              <thead><tr><th scope="col">#</th><th scope="col">Questions in order</th><th scope="col">Sincere outcome</th><th scope="col">Sophisticated outcome</th><th scope="col"><span className="sr-only">Actions</span></th></tr></thead>
+              <TableHead columns={["#", "Questions in order", "Sincere outcome", "Sophisticated outcome"]} actions />
               <tbody>
                 {orders.orders.map((o) => (
                   <tr key={o.rank}>

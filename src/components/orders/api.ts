@@ -1,11 +1,11 @@
 /**
  * The estimates and analysis API's answers, as zod schemas the islands parse with (never cast);
- * the calls themselves go through the shared client in ../shared/api.ts.
+ * the calls themselves go through the shared client in ../shared/api.ts. An analysis is read with
+ * the engine's own schema (lib/voting/orders-analysis-schema.ts), the one the cache stores by.
  */
 import { z } from "zod";
+import { ordersAnalysisSchema } from "../../lib/voting/orders-analysis-schema.ts";
 
-
-const count = z.union([z.number(), z.string()]);
 export const versionSchema = z.object({ id: z.string(), short: z.string(), words: z.string() });
 export const findingSchema = z.object({ id: z.string(), headline: z.string(), detail: z.string(), caution: z.string() });
 export const runSchema = z.object({
@@ -19,31 +19,10 @@ export const runSchema = z.object({
   estimateVersion: z.number(),
   error: z.looseObject({ code: z.string(), message: z.string(), stopped: z.literal("over-the-limit").optional(), limit: z.object({ kind: z.enum(["time", "memory"]), value: z.number(), unit: z.string() }).optional() }).nullable(),
 });
-export const analysisSchema = z.object({
-  procedure: z.enum(["amendment", "successive"]),
-  threshold: z.string(),
-  thresholds: z.object({ amendment: z.string(), passage: z.string(), passageFrom: z.string(), members: z.number().nullable(), membersFrom: z.string().nullable() }).optional(),
-  tieRule: z.string().optional(),
-  quorum: z.object({ kind: z.string(), required: z.number().nullable(), present: z.number(), met: z.boolean().nullable() }).optional(),
-  alternatives: z.array(z.object({ id: z.string(), amendments: z.array(z.string()) })),
-  questions: z.array(z.object({ id: z.string(), kind: z.string() })),
-  constraints: z.array(z.tuple([z.string(), z.string()])),
-  majority: z.object({
-    margins: z.record(z.string(), z.record(z.string(), z.number())),
-    condorcetWinner: z.string().nullable(),
-    topCycle: z.array(z.string()),
-    uncoveredSet: z.array(z.string()),
-    banksSet: z.array(z.string()),
-    banksComplete: z.boolean(),
-  }),
-  orders: count,
-  sincere: z.record(z.string(), count),
-  sophisticated: z.record(z.string(), count),
-});
 export const runResultSchema = z.object({
   run: runSchema,
   versions: z.array(versionSchema).optional(),
-  analysis: analysisSchema.optional(),
+  analysis: ordersAnalysisSchema.optional(),
   listed: z.object({ count: z.number(), complete: z.boolean() }).optional(),
   findings: z.array(findingSchema).optional(),
 });

@@ -6,6 +6,7 @@ import { apiCall } from "../shared/api.ts";
 import { day } from "../shared/dates.ts";
 import { issueLookup, noIssues, TextField, type IssueLookup } from "../shared/fields.tsx";
 import { ConfirmDialog } from "../shared/ConfirmDialog.tsx";
+import { TableHead } from "../shared/TableHead.tsx";
 
 const peopleSchema = z.object({
   members: z.array(z.object({ id: z.string(), userId: z.string(), name: z.string(), email: z.string().nullable(), role: z.string(), since: z.string() })),
@@ -16,7 +17,11 @@ const removedSchema = z.object({ removed: z.array(z.object({ userId: z.string(),
 type Removed = z.infer<typeof removedSchema>["removed"];
 
 /** A change waiting for the chief clerk's confirmation. */
-type Pending = { kind: "role"; memberId: string; name: string; from: string; to: string } | { kind: "remove"; memberId: string; name: string; role: string } | { kind: "restore"; userId: string; name: string; role: string };
+type Pending =
+  | { kind: "role"; memberId: string; name: string; from: string; to: string }
+  | { kind: "remove"; memberId: string; name: string; role: string }
+  | { kind: "restore"; userId: string; name: string; role: string }
+  | { kind: "cancel"; invitationId: string; email: string };
 
 interface Props {
   canAdminister: boolean;
@@ -30,6 +35,54 @@ const anyAnswer = z.unknown();
 
 function roleLabel(role: string | null): string {
   return role && (CHAMBER_ROLES as readonly string[]).includes(role) ? ROLE_LABELS[role as ChamberRole] : (role ?? "—");
+}
+
+/** For each change: what the dialog asks and says, its button, the request, and what the desk says once done. */
+function change(p: Pending): { title: string; says: string; confirm: string; danger: boolean; path: string; method: "PATCH" | "DELETE" | "POST"; send?: unknown; done: string; keep?: string } {
+  switch (p.kind) {
+    case "role":
+      return {
+        title: `Make ${p.name} ${roleLabel(p.to)}?`,
+        says: `${p.name} goes from ${roleLabel(p.from)} to ${roleLabel(p.to)} at once, with what that role may do. This cannot be undone: changing it back is a new change, and both stay in the people log with your name.`,
+        confirm: "Change the role",
+        danger: true,
+        path: `/api/people/members/${p.memberId}`,
+        method: "PATCH",
+        send: { role: p.to },
+        done: `${p.name} is now ${roleLabel(p.to)}. The change is in the people log.`,
+      };
+    case "remove":
+      return {
+        title: `Remove ${p.name} from the chamber?`,
+        says: `${p.name} (${roleLabel(p.role)}) loses access to the chamber at once. The removal cannot be undone: it stays in the people log with your name. You can restore ${p.name} later from this page, with the same role.`,
+        confirm: "Remove",
+        danger: true,
+        path: `/api/people/members/${p.memberId}`,
+        method: "DELETE",
+        done: `${p.name} was removed from the chamber. The removal is in the people log.`,
+      };
+    case "restore":
+      return {
+        title: `Restore ${p.name} as ${roleLabel(p.role)}?`,
+        says: `${p.name} gets access to the chamber again at once. The restoration is recorded in the people log with your name.`,
+        confirm: "Restore",
+        danger: false,
+        path: `/api/people/removed/${p.userId}`,
+        method: "POST",
+        done: `${p.name} is back in the chamber as ${roleLabel(p.role)}.`,
+      };
+    case "cancel":
+      return {
+        title: `Cancel the invitation to ${p.email}?`,
+        says: `The link sent to ${p.email} stops working at once; this cannot be undone. To let them in later, send a new invitation.`,
+        confirm: "Cancel the invitation",
+        keep: "Keep it",
+        danger: true,
+        path: `/api/people/invitations/${p.invitationId}`,
+        method: "DELETE",
+        done: `Invitation to ${p.email} cancelled.`,
+      };
+  }
 }
 
 export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Props) {
@@ -85,19 +138,11 @@ export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Pro
     setBusy(true);
     setRefusal(null);
     try {
-      if (pending.kind === "role") await apiCall(anyAnswer, `/api/people/members/${pending.memberId}`, { method: "PATCH", body: { role: pending.to } });
-      else if (pending.kind === "remove") await apiCall(anyAnswer, `/api/people/members/${pending.memberId}`, { method: "DELETE" });
-      else await apiCall(anyAnswer, `/api/people/removed/${pending.userId}`, { method: "POST" });
-      const done = pending;
+      const c = change(pending);
+      await apiCall(anyAnswer, c.path, { method: c.method, ...(c.send === undefined ? {} : { body: c.send }) });
       setPending(null);
       await load();
-      setStatus(
-        done.kind === "role"
-          ? `${done.name} is now ${roleLabel(done.to)}. The change is in the people log.`
-          : done.kind === "remove"
-            ? `${done.name} was removed from the chamber. The removal is in the people log.`
-            : `${done.name} is back in the chamber as ${roleLabel(done.role)}.`,
-      );
+      setStatus(c.done);
     } catch (err) {
       setRefusal(errorText(err, "Nothing was changed."));
     } finally {
@@ -105,16 +150,7 @@ export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Pro
     }
   }
 
-  async function onCancel(id: string, email: string) {
-    try {
-      await apiCall(anyAnswer, `/api/people/invitations/${id}`, { method: "DELETE" });
-      setStatus(`Invitation to ${email} cancelled.`);
-    } catch (err) {
-      setError(errorText(err, "The invitation was not cancelled."));
-    }
-    await load();
-  }
-
+  const asked = pending && change(pending);
   return (
     <div className="space-y-6">
       <div aria-live="polite">
@@ -148,18 +184,7 @@ export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Pro
         ) : (
           <div className="overflow-x-auto">
           <table className="gw-table">
-            <thead>
-              <tr>
-                <th scope="col">Name</th>
-                {showEmail && <th scope="col">E-mail</th>}
-                <th scope="col">Role</th>
-                {canAdminister && (
-                  <th scope="col">
-                    <span className="sr-only">Actions</span>
-                  </th>
-                )}
-              </tr>
-            </thead>
+            <TableHead columns={["Name", showEmail && "E-mail", "Role"]} actions={canAdminister} />
             <tbody>
               {people.members.map((m) => (
                 <tr key={m.id}>
@@ -198,16 +223,7 @@ export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Pro
         <section>
           <h2 className="mb-2">Removed from the chamber</h2>
           <table className="gw-table" data-testid="removed-people">
-            <thead>
-              <tr>
-                <th scope="col">Name</th>
-                <th scope="col">Role held</th>
-                <th scope="col">Removed</th>
-                <th scope="col">
-                  <span className="sr-only">Actions</span>
-                </th>
-              </tr>
-            </thead>
+            <TableHead columns={["Name", "Role held", "Removed"]} actions />
             <tbody>
               {removed.map((r) => (
                 <tr key={r.userId}>
@@ -233,35 +249,18 @@ export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Pro
         </p>
       )}
       <ConfirmDialog
-        open={pending !== null}
+        open={asked !== null}
         testId="people-confirm"
-        title={
-          pending?.kind === "role"
-            ? `Make ${pending.name} ${roleLabel(pending.to)}?`
-            : pending?.kind === "remove"
-              ? `Remove ${pending.name} from the chamber?`
-              : pending
-                ? `Restore ${pending.name} as ${roleLabel(pending.role)}?`
-                : ""
-        }
-        confirm={pending?.kind === "role" ? "Change the role" : pending?.kind === "remove" ? "Remove" : "Restore"}
-        danger={pending?.kind !== "restore"}
+        title={asked?.title ?? ""}
+        confirm={asked?.confirm ?? ""}
+        cancel={asked?.keep}
+        danger={asked?.danger}
         busy={busy}
         error={refusal}
         onConfirm={() => void onConfirmed()}
         onCancel={() => setPending(null)}
       >
-        {pending?.kind === "role" && (
-          <p>
-            {pending.name} goes from {roleLabel(pending.from)} to {roleLabel(pending.to)} at once, with what that role may do. This cannot be undone: changing it back is a new change, and both stay in the people log with your name.
-          </p>
-        )}
-        {pending?.kind === "remove" && (
-          <p>
-            {pending.name} ({roleLabel(pending.role)}) loses access to the chamber at once. The removal cannot be undone: it stays in the people log with your name. You can restore {pending.name} later from this page, with the same role.
-          </p>
-        )}
-        {pending?.kind === "restore" && <p>{pending.name} gets access to the chamber again at once. The restoration is recorded in the people log with your name.</p>}
+        {asked && <p>{asked.says}</p>}
       </ConfirmDialog>
       {canAdminister && people && (
         <section>
@@ -270,16 +269,7 @@ export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Pro
             <p className="text-ink-soft">None.</p>
           ) : (
             <table className="gw-table">
-              <thead>
-                <tr>
-                  <th scope="col">E-mail</th>
-                  <th scope="col">Role</th>
-                  <th scope="col">Expires</th>
-                  <th scope="col">
-                    <span className="sr-only">Actions</span>
-                  </th>
-                </tr>
-              </thead>
+              <TableHead columns={["E-mail", "Role", "Expires"]} actions />
               <tbody>
                 {people.invitations.map((i) => (
                   <tr key={i.id}>
@@ -287,8 +277,8 @@ export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Pro
                     <td>{roleLabel(i.role)}</td>
                     <td>{day(i.expiresAt)}</td>
                     <td>
-                      <button type="button" className="gw-btn-quiet" onClick={() => onCancel(i.id, i.email)}>
-                        Cancel
+                      <button type="button" className="gw-btn-quiet" aria-label={`Cancel the invitation to ${i.email}…`} onClick={() => ask({ kind: "cancel", invitationId: i.id, email: i.email })}>
+                        Cancel…
                       </button>
                     </td>
                   </tr>

@@ -28,18 +28,17 @@ function ChooseVersions({ from, to }: { from: string; to: string }) {
     <form method="get" action="/rulebooks/compare" className="gw-card space-y-3" data-testid="choose-versions">
       <p>Choose the two versions to compare.</p>
       <div className="grid gap-3 md:grid-cols-2">
-        <div>
-          <label htmlFor="cmp-from" className="gw-label">Earlier version</label>
-          <select id="cmp-from" name="from" className="gw-input" defaultValue={from || versions[1].id}>
-            {versions.map((v) => <option key={v.id} value={v.id}>{label(v)}</option>)}
-          </select>
-        </div>
-        <div>
-          <label htmlFor="cmp-to" className="gw-label">Later version</label>
-          <select id="cmp-to" name="to" className="gw-input" defaultValue={to || versions[0].id}>
-            {versions.map((v) => <option key={v.id} value={v.id}>{label(v)}</option>)}
-          </select>
-        </div>
+        {[
+          { name: "from", label: "Earlier version", chosen: from || versions[1].id },
+          { name: "to", label: "Later version", chosen: to || versions[0].id },
+        ].map((side) => (
+          <div key={side.name}>
+            <label htmlFor={`cmp-${side.name}`} className="gw-label">{side.label}</label>
+            <select id={`cmp-${side.name}`} name={side.name} className="gw-input" defaultValue={side.chosen}>
+              {versions.map((v) => <option key={v.id} value={v.id}>{label(v)}</option>)}
+            </select>
+          </div>
+        ))}
       </div>
       <button type="submit" className="gw-btn">Compare</button>
     </form>

@@ -3,6 +3,7 @@ import { apiCall, ApiError, type Issue } from "../shared/api.ts";
 import { day, when } from "../shared/dates.ts";
 import { librarySchema, savedSchema, type Library, type TemplateMeta } from "./schemas.ts";
 import { Alert } from "../shared/Alert.tsx";
+import { TableHead } from "../shared/TableHead.tsx";
 
 /** "from the template …" in the clerk's words: the template's title, never its file id. */
 export function originLabel(origin: string, templates: TemplateMeta[]): string | null {
@@ -110,9 +111,7 @@ export default function RulebookLibrary({ canEdit }: { canEdit: boolean }) {
         ) : (
           <div className="mt-2 overflow-x-auto rounded-md border border-rule bg-white">
             <table className="gw-table" data-testid="versions">
-              <thead>
-                <tr><th>No.</th><th>Title</th><th>Note</th><th>Saved</th><th>By</th><th>Adopted</th><th><span className="sr-only">Actions</span></th></tr>
-              </thead>
+              <TableHead columns={["No.", "Title", "Note", "Saved", "By", "Adopted"]} actions />
               <tbody>
                 {lib.versions.map((v) => (
                   <tr key={v.id}>

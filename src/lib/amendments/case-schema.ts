@@ -64,7 +64,6 @@ export const amendmentSchema = z.object({
   status: z.enum(["draft", "filed", "pending", "adopted", "rejected", "withdrawn", "fell", "ruled-out"]).default("filed"),
 });
 
-export type SectionInput = z.input<typeof sectionSchema>;
 export type Section = z.output<typeof sectionSchema>;
 export type MeasureInput = z.input<typeof measureSchema>;
 export type Measure = z.output<typeof measureSchema>;

@@ -249,10 +249,7 @@ export const rulebookSchema = z.object({
 });
 
 export type MotionInput = z.input<typeof motionSchema>;
-export type MotionVariant = z.output<typeof motionVariantSchema>;
-export type VoteAlternative = z.output<typeof voteAlternativeSchema>;
 export type Motion = z.output<typeof motionSchema>;
-export type AmendmentRules = z.output<typeof amendmentRulesSchema>;
 export type RuleDefinition = z.output<typeof ruleSchema>;
 export type RulebookInput = z.input<typeof rulebookSchema>;
 /** A parsed rulebook; after parseRulebook every ranked motion's `rank` is resolved. */

@@ -41,39 +41,22 @@ export async function seedEstimates(): Promise<{ ballotsId: string; spatialId: s
   const [m] = await db.select({ id: measures.id }).from(measures).where(and(eq(measures.chamberId, actor.chamber.id), eq(measures.number, "HCA 12")));
   if (!m) return null;
   const have = await db.select({ id: estimates.id, title: estimates.title }).from(estimates).where(and(eq(estimates.chamberId, actor.chamber.id), eq(estimates.measureId, m.id)));
-  const find = (t: string) => have.find((e) => e.title === t)?.id;
   const roster = await db.select({ name: legislators.name, bloc: legislators.bloc }).from(legislators).where(eq(legislators.chamberId, actor.chamber.id)).orderBy(asc(legislators.createdAt), asc(legislators.name));
-  const shared = { sharedRoles: [...CHAMBER_ROLES], sharedUsers: [] as string[] };
-  const ballotsId =
-    find(DEMO_BALLOTS_TITLE) ??
-    (
-      await createEstimate(actor, {
-        measureId: m.id,
-        title: DEMO_BALLOTS_TITLE,
-        scope: DEMO_SCOPE,
-        note: "Each legislator ranked as the bloc whip expects.",
-        content: { kind: "ballots", partial: "abstain", rows: roster.map((r) => ({ member: r.name, bloc: r.bloc, weight: 1, ranking: BLOC_RANKINGS[r.bloc] ?? ["Q"] })) },
-        ...shared,
-      })
-    ).id;
-  const spatialId =
-    find(DEMO_SPATIAL_TITLE) ??
-    (
-      await createEstimate(actor, {
-        measureId: m.id,
-        title: DEMO_SPATIAL_TITLE,
-        scope: DEMO_SCOPE,
-        note: "Positions on two axes: how strict the lighting standard is, and how much is spent from harbour dues.",
-        content: {
-          kind: "spatial",
-          dimensions: ["Lighting standard", "Spending from harbour dues"],
-          statusQuo: [3, 5],
-          measure: [5, 5],
-          effects: { A1: { shift: [2, 1] }, A2: { shift: [0, -2] }, A7: { shift: [0, 2] } },
-          members: roster.map((r) => ({ member: r.name, bloc: r.bloc, weight: 1, ideal: BLOC_IDEALS[r.bloc] ?? [5, 5] })),
-        },
-        ...shared,
-      })
-    ).id;
+  /** The estimate of this title on HCA 12, made (shared with every role) when missing. */
+  const ensure = async (title: string, note: string, content: Parameters<typeof createEstimate>[1]["content"]) =>
+    have.find((e) => e.title === title)?.id ?? (await createEstimate(actor, { measureId: m.id, title, scope: DEMO_SCOPE, note, content, sharedRoles: [...CHAMBER_ROLES], sharedUsers: [] })).id;
+  const ballotsId = await ensure(DEMO_BALLOTS_TITLE, "Each legislator ranked as the bloc whip expects.", {
+    kind: "ballots",
+    partial: "abstain",
+    rows: roster.map((r) => ({ member: r.name, bloc: r.bloc, weight: 1, ranking: BLOC_RANKINGS[r.bloc] ?? ["Q"] })),
+  });
+  const spatialId = await ensure(DEMO_SPATIAL_TITLE, "Positions on two axes: how strict the lighting standard is, and how much is spent from harbour dues.", {
+    kind: "spatial",
+    dimensions: ["Lighting standard", "Spending from harbour dues"],
+    statusQuo: [3, 5],
+    measure: [5, 5],
+    effects: { A1: { shift: [2, 1] }, A2: { shift: [0, -2] }, A7: { shift: [0, 2] } },
+    members: roster.map((r) => ({ member: r.name, bloc: r.bloc, weight: 1, ideal: BLOC_IDEALS[r.bloc] ?? [5, 5] })),
+  });
   return { ballotsId, spatialId };
 }
