@@ -23,5 +23,7 @@ export default getViteConfig({
     fileParallelism: false,
     testTimeout: 30_000,
     hookTimeout: 60_000,
+    // expect.poll waits for an event; vitest's default deadline (1 s) is shorter than a loaded machine may take.
+    expect: { poll: { timeout: 10_000, interval: 50 } },
   },
 });

@@ -1,5 +1,5 @@
 // Shared helpers for browser tests: Debian's Chromium driven by playwright-core.
-import { afterAll, beforeAll } from "vitest";
+import { afterAll, beforeAll, expect } from "vitest";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
 import { mkdtempSync, rmSync, mkdirSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -80,6 +80,24 @@ export async function shot(page: Page, name: string): Promise<string> {
   const path = join(SHOTS, `${name}.png`);
   await page.screenshot({ path, fullPage: true });
   return path;
+}
+
+/**
+ * At phone width (390 × 844): `locator` is visible and fits across the screen, a screenshot
+ * `<name>-phone` is taken, and the page goes back to the desktop width it opened at.
+ */
+export async function fitsPhone(page: Page, locator: import("playwright-core").Locator, name: string): Promise<void> {
+  await page.setViewportSize({ width: 390, height: 844 });
+  try {
+    await visible(locator);
+    const box = await locator.first().boundingBox();
+    expect(box, `${name}: shown at phone width`).not.toBeNull();
+    expect(box!.x, `${name}: starts on screen`).toBeGreaterThanOrEqual(0);
+    expect(box!.x + box!.width, `${name}: fits the phone's 390 px`).toBeLessThanOrEqual(390);
+    await shot(page, `${name}-phone`);
+  } finally {
+    await page.setViewportSize({ width: 1360, height: 900 });
+  }
 }
 
 /** The text of the first element matching `locator`, once it is visible. */

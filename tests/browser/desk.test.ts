@@ -7,7 +7,7 @@
 import postgres from "postgres";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
-import { ACCOUNTS, BASE_URL, browserForFile, shot, signInAs, textOf } from "./browser.ts";
+import { ACCOUNTS, BASE_URL, browserForFile, fitsPhone, shot, signInAs, textOf } from "./browser.ts";
 import { api } from "./samples.ts";
 
 const browser = browserForFile();
@@ -106,6 +106,7 @@ describe("the desk", () => {
       if (role === "clerk" || role === "member") {
         await page.goto(`${BASE_URL}/`);
         await shot(page, `desk-${role}`);
+        if (role === "member") await fitsPhone(page, page.getByTestId("desk-own"), "desk-member-own");
       }
       await page.close();
     });

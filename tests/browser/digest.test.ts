@@ -4,7 +4,7 @@
 // Product contract (common practice, no source).
 import { beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
-import { BASE_URL, account, pageForFile, shot } from "./browser.ts";
+import { BASE_URL, account, fitsPhone, pageForFile, shot } from "./browser.ts";
 
 const shared = pageForFile();
 let page: Page;
@@ -61,6 +61,7 @@ describe("floor-day digest in the browser", () => {
     expect(await dialog.innerText()).toContain(`The digest for ${sitting} already went to “Clerks' desk”`);
     expect(await dialog.evaluate((d) => d.contains(document.activeElement))).toBe(true);
     await shot(page, "digest-2c-repeat");
+    await fitsPhone(page, dialog, "digest-2c-repeat");
     await dialog.getByRole("button", { name: "Cancel" }).click();
     expect(await sentRows()).toBe(1);
     await form.getByRole("button", { name: "Send the digest" }).click();

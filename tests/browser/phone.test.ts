@@ -37,7 +37,9 @@ async function open(path: string) {
   await page.goto(`${BASE_URL}${path}`);
 }
 
-const widths = () => page.evaluate(() => ({ doc: document.documentElement.scrollWidth, body: document.body.scrollWidth, viewport: window.innerWidth }));
+// Measured against the 390 px the context sets, not window.innerWidth: a mobile browser widens its
+// layout viewport (innerWidth) to take in a page that overflows, which would hide the overflow.
+const widths = async () => ({ ...(await page.evaluate(() => ({ doc: document.documentElement.scrollWidth, body: document.body.scrollWidth }))), viewport: page.viewportSize()!.width });
 
 describe("on a phone (390 px)", () => {
   it("no page of the route inventory is wider than the screen, as the clerk", async () => {

@@ -9,7 +9,7 @@ import { describe, expect, it } from "vitest";
 import postgres from "postgres";
 import { randomUUID } from "node:crypto";
 import type { Locator, Page } from "playwright-core";
-import { BASE_URL, browserForFile, shot, signInAs, textOf, visible } from "./browser.ts";
+import { BASE_URL, browserForFile, fitsPhone, shot, signInAs, textOf, visible } from "./browser.ts";
 
 const browser = browserForFile();
 const stamp = () => `${Date.now() % 1_000_000}`;
@@ -84,14 +84,8 @@ describe("filing", () => {
     expect(said).toContain(`Filed as Amendment A3 to Amendment A2 to ${m.number}.`);
     expect(await textOf(page.getByTestId("filing-findings"))).toMatch(/Out of order:/);
     await shot(page, "records-filing-confirmation");
-    await page.setViewportSize({ width: 390, height: 844 });
-    await visible(page.getByTestId("filing-confirmation"));
-    await shot(page, "records-filing-confirmation-phone");
     // The confirmation itself fits the phone's width (the amendments table above it scrolls on its own).
-    const box = await page.getByTestId("filing-confirmation").boundingBox();
-    expect(box!.x).toBeGreaterThanOrEqual(0);
-    expect(box!.x + box!.width).toBeLessThanOrEqual(390);
-    await page.setViewportSize({ width: 1360, height: 900 });
+    await fitsPhone(page, page.getByTestId("filing-confirmation"), "records-filing-confirmation");
 
     // The same filing again within the hour: the form asks, and nothing is stored until the clerk says so.
     await page.goto(`${BASE_URL}/measures/${m.id}`);
@@ -128,6 +122,7 @@ describe("filing", () => {
     await saveDraft("Quarterly dues");
     let dialog = await fileNow();
     await expectConfirmDialog(dialog, `File the draft amendment to section 2 of ${m.number}?`, /next amendment number.*receipt goes to its sponsors/s);
+    await fitsPhone(page, dialog, "records-file-draft-dialog");
     // Cancelling files nothing.
     await dialog.getByRole("button", { name: "Cancel" }).click();
     expect((await api(page, "GET", `/api/measures/${m.id}/amendments`)).amendments.map((a: { status: string }) => a.status)).toEqual(["draft"]);
@@ -209,11 +204,7 @@ describe("rulings", () => {
     await page.getByRole("button", { name: "Issue ruling…" }).click();
     const dialog = page.getByTestId("ruling-confirm");
     await expectConfirmDialog(dialog, /^Issue Ruling \d+\?$/, /cannot be undone/);
-    await page.setViewportSize({ width: 390, height: 844 });
-    const box = await dialog.boundingBox();
-    expect(box!.x + box!.width).toBeLessThanOrEqual(390);
-    await shot(page, "records-issue-dialog-phone");
-    await page.setViewportSize({ width: 1360, height: 900 });
+    await fitsPhone(page, dialog, "records-issue-dialog");
     await dialog.getByRole("button", { name: "Issue it" }).click();
     await expect.poll(() => page.getByText(/is issued\./).count()).toBe(1);
 
@@ -262,13 +253,9 @@ describe("people", () => {
     await dialog.getByRole("button", { name: "Change the role" }).click();
     expect(await textOf(page.getByRole("status").filter({ hasText: "is now Clerk" }))).toBe(`${name} is now Clerk. The change is in the people log.`);
 
-    await page.setViewportSize({ width: 390, height: 844 });
     await page.getByRole("button", { name: `Remove ${name}…` }).click();
     await expectConfirmDialog(dialog, `Remove ${name} from the chamber?`, /loses access to the chamber at once/);
-    const box = await dialog.boundingBox();
-    expect(box!.x + box!.width).toBeLessThanOrEqual(390);
-    await shot(page, "records-remove-dialog-phone");
-    await page.setViewportSize({ width: 1360, height: 900 });
+    await fitsPhone(page, dialog, "records-remove-dialog");
     await dialog.getByRole("button", { name: "Remove", exact: true }).click();
     await visible(page.getByRole("status").filter({ hasText: "was removed from the chamber" }));
     await expect.poll(() => page.getByLabel(`Role of ${name}`).count()).toBe(0);
@@ -315,6 +302,7 @@ describe("invitations", () => {
 
     await cancel.click();
     await shot(page, "records-cancel-invitation");
+    await fitsPhone(page, dialog, "records-cancel-invitation");
     await dialog.getByRole("button", { name: "Cancel the invitation" }).click();
     await visible(page.getByRole("status").filter({ hasText: `Invitation to ${email} cancelled.` }));
     await expect.poll(() => cancel.count()).toBe(0);

@@ -213,7 +213,7 @@ export default function PositionsDesk() {
             </ul>
           )}
           <p className="gw-hint">Bars show each position's uncertainty: the range of about 95% (two standard errors either side), from {result.settings.bootstrap} re-estimates on votes simulated from the fitted model (parametric bootstrap).</p>
-          <div className="overflow-x-auto">
+          <div className="relative overflow-x-auto">
             <table className="gw-table" data-testid="positions-table">
               <caption className="sr-only">Members' estimated positions</caption>
               <thead>

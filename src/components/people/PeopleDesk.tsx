@@ -182,7 +182,7 @@ export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Pro
         {!people ? (
           <p className="text-ink-soft">Loading…</p>
         ) : (
-          <div className="overflow-x-auto">
+          <div className="relative overflow-x-auto">
           <table className="gw-table">
             <TableHead columns={["Name", showEmail && "E-mail", "Role"]} actions={canAdminister} />
             <tbody>

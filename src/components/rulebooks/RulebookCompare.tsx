@@ -99,7 +99,7 @@ export default function RulebookCompare({ from, to }: { from: string; to: string
                     <li key={`${c.kind}-${c.id}`}>
                       <span className={`gw-chip ${KIND_CHIP[c.kind]}`}>{c.kind}</span> <code>{c.id}</code>{c.name ? ` — ${c.name}` : ""}
                       {c.fields.length > 0 && (
-                        <div className="overflow-x-auto">
+                        <div className="relative overflow-x-auto">
                           <table className="gw-table mt-1">
                             <thead><tr><th>Field</th><th>Was</th><th>Now</th></tr></thead>
                             <tbody>

@@ -109,7 +109,7 @@ export default function RulebookLibrary({ canEdit }: { canEdit: boolean }) {
         {lib.versions.length === 0 ? (
           <p className="mt-1 text-ink-soft">No versions saved yet.</p>
         ) : (
-          <div className="mt-2 overflow-x-auto rounded-md border border-rule bg-white">
+          <div className="relative mt-2 overflow-x-auto rounded-md border border-rule bg-white">
             <table className="gw-table" data-testid="versions">
               <TableHead columns={["No.", "Title", "Note", "Saved", "By", "Adopted"]} actions />
               <tbody>

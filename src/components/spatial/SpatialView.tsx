@@ -252,17 +252,18 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
   return (
     <details className="gw-card" data-testid="positions-editor" open>
       <summary className="cursor-pointer font-semibold">Dimensions and positions</summary>
-      <div className="mt-2 grid gap-4 lg:grid-cols-2">
+      <div className="mt-2 grid grid-cols-1 gap-4 lg:grid-cols-2">
         <div>
           <h3 className="font-semibold">Dimensions</h3>
-          <table className="gw-table mt-1">
+          <div className="relative mt-1 overflow-x-auto" role="region" aria-label="Dimensions" tabIndex={0}>
+          <table className="gw-table">
             <thead><tr><th scope="col">#</th><th scope="col">Name</th><th scope="col">Low end</th><th scope="col">High end</th><th scope="col"><span className="sr-only">Remove</span></th></tr></thead>
             <tbody>
               {dims.map((d, i) => (
                 <tr key={i}>
                   <td>{i + 1}</td>
                   <td>
-                    <input className="gw-input mt-0" aria-label={`Name of dimension ${i + 1}`} aria-invalid={dimensionNameIssue(dims, d, i) ? true : undefined} value={d} maxLength={80} onChange={(e) => { const v = e.target.value; onChange((c) => ({ ...c, dimensions: c.dimensions.map((x, j) => (j === i ? v : x)) })); }} />
+                    <input className="gw-input mt-0 min-w-[9rem]" aria-label={`Name of dimension ${i + 1}`} aria-invalid={dimensionNameIssue(dims, d, i) ? true : undefined} value={d} maxLength={80} onChange={(e) => { const v = e.target.value; onChange((c) => ({ ...c, dimensions: c.dimensions.map((x, j) => (j === i ? v : x)) })); }} />
                     {dimensionNameIssue(dims, d, i) && <span className="gw-error block text-xs">{dimensionNameIssue(dims, d, i)}</span>}
                   </td>
                   <td><NumberBox label={`Low end of ${d}`} value={ranges[i][0]} onChange={(v) => setRange(i, 0, v)} /></td>
@@ -272,6 +273,7 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
               ))}
             </tbody>
           </table>
+          </div>
           {confirming !== null && confirming < dims.length && (
             <div className="mt-2 rounded border border-verdict-bar bg-verdict-bar-tint p-3 text-sm" role="group" aria-label="Confirm removing a dimension">
               <p>Remove dimension {confirming + 1}, “{dims[confirming]}”? Its coordinate is deleted from every member's ideal point, from the status quo and the measure, and from each amendment's position or shift. Nothing is saved until you save a new version.</p>
@@ -293,7 +295,8 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
         </div>
         <div>
           <h3 className="font-semibold">Positions</h3>
-          <table className="gw-table mt-1">
+          <div className="relative mt-1 overflow-x-auto" role="region" aria-label="Positions" tabIndex={0}>
+          <table className="gw-table">
             <thead><tr><th scope="col">Text</th><th scope="col">Given as</th>{dims.map((d, i) => <th key={i} scope="col">{d}</th>)}</tr></thead>
             <tbody>
               <tr>
@@ -327,6 +330,7 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
               })}
             </tbody>
           </table>
+          </div>
           <p className="gw-hint">A shift moves the text it amends (the measure, or the amendment it perfects) by that much on each dimension.</p>
         </div>
       </div>

@@ -432,7 +432,7 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
         </aside>
       </div>
       <p className="gw-advisory">These findings apply the chamber's rulebook mechanically. The presiding officer's ruling, the chamber's own rules and its counsel prevail; an override records such a ruling.</p>
-      <details className="gw-card overflow-x-auto" open={data.findings.length <= 30}>
+      <details className="gw-card relative overflow-x-auto" open={data.findings.length <= 30}>
         <summary className="cursor-pointer font-serif text-step-1 font-semibold text-chamber-dark">All findings ({data.findings.length})</summary>
         <table className="gw-table mt-2" data-testid="findings-table">
           <thead>
