@@ -2,7 +2,8 @@
 // amendments in filing order, the text legible at the default fit, one tab stop for the drawing and
 // none for its edges or nodes, an outline instead of the drawing on a phone, and a conflict finding
 // that names the other amendment. Reading order and legibility: common practice, no source; the
-// conflict rule: Harrowmere's fictional Standing Order 65 in rulebooks/demo-chamber.json.
+// conflict rule: Harrowmere's fictional Standing Order 65 in rulebooks/demo-chamber.json. Drafts are
+// named "Draft", "Draft-1"… wherever a person reads them, never by an internal key (common practice, no source).
 import { describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { BASE_URL, browserForFile, shot, signInAs, textOf, visible } from "./browser.ts";
@@ -83,6 +84,40 @@ describe("the tree diagram", () => {
     const [w, inner] = await page.evaluate(() => [document.documentElement.scrollWidth, window.innerWidth]);
     expect(w).toBeLessThanOrEqual(inner);
     await shot(page, "tree-phone-outline");
+    await page.close();
+  });
+
+  it("names drafts as people read them — on the drawing, in the findings and in the outline — never by an internal key", async () => {
+    const page = await browser.freshPage();
+    await signInAs(page, "clerk");
+    const number = `HCA D${Date.now() % 1_000_000}`;
+    const m = await api(page, "/api/measures", { number, title: "Draft naming ordinance", subjects: ["lighting"], text: "## Section 1\nSubjects: lighting\nLine one.\nLine two." });
+    const { legislators } = (await (await page.request.get(`${BASE_URL}/api/measures/sponsors`)).json()) as { legislators: Array<{ id: string }> };
+    const amend = (body: Record<string, unknown>) => api(page, `/api/measures/${m.id}/amendments`, { form: "insert", target: "s1", subjects: ["lighting"], ...body });
+    await amend({ sponsors: [legislators[0].id, legislators[1].id], title: "Filed lamps", text: "Filed lamps." });
+    // Two drafts with no sponsor: each has a finding on its sponsors (Harrowmere asks for two, rulebooks/demo-chamber.json).
+    await amend({ sponsors: [], title: "First draft lamps", text: "First draft lamps.", draft: true });
+    await amend({ sponsors: [], title: "Second draft lamps", text: "Second draft lamps.", draft: true });
+    await page.setViewportSize({ width: 1440, height: 900 });
+    await page.goto(`${BASE_URL}/measures/${m.id}/tree`);
+    await visible(page.getByTestId("node-Draft-2"));
+    await visible(page.getByTestId("node-Draft-1"));
+    await page.getByTestId("node-Draft-1").click();
+    expect(await textOf(page.getByTestId("tree-details").locator("h3").first())).toBe("Amendment Draft-1");
+    const table = await textOf(page.getByTestId("findings-table"));
+    expect(table).toMatch(/Amendment Draft-1 names 0 sponsor/);
+    expect(table).toMatch(/Amendment Draft-2 names 0 sponsor/);
+    expect(await page.locator("body").innerText()).not.toMatch(/\bD-[0-9a-f]{8}\b/);
+    await shot(page, "tree-drafts");
+
+    await page.setViewportSize({ width: 390, height: 844 });
+    const outline = page.getByTestId("tree-outline");
+    await visible(outline);
+    const items = (await outline.getByRole("button").allInnerTexts()).map((t) => t.split(" — ")[0]);
+    expect(items.slice(1)).toEqual(["§ s1", "Amendment A1", "Amendment Draft-1", "Amendment Draft-2"]);
+    const [w, inner] = await page.evaluate(() => [document.documentElement.scrollWidth, window.innerWidth]);
+    expect(w).toBeLessThanOrEqual(inner);
+    await shot(page, "tree-drafts-phone");
     await page.close();
   });
 });

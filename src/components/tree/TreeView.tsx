@@ -33,13 +33,10 @@ function targetWords(byKey: Map<string, TreeNodeView>, key: string | null): stri
   return t.kind === "measure" ? `the whole measure (${t.label})` : t.kind === "section" ? `§ ${t.label}` : `Amendment ${t.label}`;
 }
 
-/** The other amendments a finding concerns, as a person reads them (a draft as "Draft 1", never its key). */
+/** The other amendments a finding concerns, as a person reads them (the tree's keys: "A3", a draft "Draft"). */
 function relatedWords(f: FindingView): string[] {
-  const labels = f.relatedLabels ?? f.related ?? [];
-  return (f.related ?? []).flatMap((k, i) => (k === f.amendment ? [] : [labels[i] ?? k]));
+  return (f.related ?? []).filter((k) => k !== f.amendment);
 }
-const findingLabel = (f: FindingView) => f.amendmentLabel ?? f.amendment;
-const onAmendment = (f: FindingView) => (f.amendmentLabel && f.amendmentLabel !== f.amendment ? f.amendmentLabel.replace(/^Draft/, "the draft") : `Amendment ${f.amendment}`);
 
 /** The other amendments a finding concerns (conflicts, cycles, perfecting before a substitute), in words. */
 function RelatedAmendments({ finding }: { finding: FindingView }) {
@@ -219,7 +216,7 @@ function OverrideForm({ measureId, finding, version, onDone }: { measureId: stri
     setError(null);
     try {
       await apiCall(z.object({ id: z.string() }), `/api/measures/${measureId}/overrides`, { method: "POST", body: { amendmentId: finding.amendmentId, code: finding.code, version, rulingRef: ref, rulingId: picked?.id ?? null, note: note || null } });
-      onDone(`Override on ${onAmendment(finding)} recorded${picked ? `, resting on Ruling ${picked.number}` : ""}: “${finding.message}”`);
+      onDone(`Override on Amendment ${finding.amendment} recorded${picked ? `, resting on Ruling ${picked.number}` : ""}: “${finding.message}”`);
     } catch (e) {
       setError(conflictText(e, "Could not record the override."));
     } finally {
@@ -272,12 +269,12 @@ function RevokeButton({ measureId, finding, onDone }: { measureId: string; findi
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
   async function revoke() {
-    if (!window.confirm(`Revoke the override on ${onAmendment(finding)} (“${finding.message}”)? The finding will count again.`)) return;
+    if (!window.confirm(`Revoke the override on Amendment ${finding.amendment} (“${finding.message}”)? The finding will count again.`)) return;
     setBusy(true);
     setError(null);
     try {
       await apiCall(z.object({ revoked: z.string() }), `/api/measures/${measureId}/overrides/${finding.overrideId}`, { method: "DELETE" });
-      onDone(`Override on ${onAmendment(finding)} revoked: “${finding.message}” counts again.`);
+      onDone(`Override on Amendment ${finding.amendment} revoked: “${finding.message}” counts again.`);
     } catch (e) {
       setError(e instanceof ApiError ? e.message : "Could not revoke the override.");
     } finally {
@@ -441,7 +438,7 @@ export default function TreeView({ measureId, initial, canOverride }: Props) {
           <tbody>
             {data.findings.map((f) => (
               <tr key={`${f.amendment}/${f.code}`}>
-                <td><button type="button" className="font-semibold text-chamber underline" onClick={() => { setSelected(f.amendment); wrapper.current?.focus(); }}>{findingLabel(f)}</button></td>
+                <td><button type="button" className="font-semibold text-chamber underline" onClick={() => { setSelected(f.amendment); wrapper.current?.focus(); }}>{f.amendment}</button></td>
                 <td><span className={`gw-chip ${f.overridden ? "border-verdict-ok bg-verdict-ok-tint text-verdict-ok" : SEVERITY_CHIP[f.severity]}`}>{f.overridden ? "overridden" : SEVERITY_WORDS[f.severity]}</span></td>
                 <td data-code={f.code}>{f.message}{relatedWords(f).length > 0 && <span className="block text-sm">With: {relatedWords(f).join(", ")}</span>}{f.overridden && <span className="block text-xs text-verdict-ok">Ruling: {f.ruling}</span>}</td>
                 <td className="text-xs text-ink-soft"><ClauseCitation citation={f.citation} clause={f.clause} /></td>

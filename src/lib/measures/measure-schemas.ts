@@ -160,6 +160,7 @@ export const overrideCreateSchema = z.object({
 export const findingViewSchema = z.object({
   code: z.string(),
   severity: z.enum(["error", "warning", "info"]),
+  /** The amendment as people read it, which is its key in the tree ("A3", a draft "Draft"); `related` likewise. */
   amendment: z.string(),
   amendmentId: z.string().nullable(),
   rule: z.string(),
@@ -168,9 +169,6 @@ export const findingViewSchema = z.object({
   clause: z.string().optional(),
   message: z.string(),
   related: z.array(z.string()).optional(),
-  /** What a person reads for `amendment` and each of `related`: the key ("A3") or, for a draft, "Draft 1". */
-  amendmentLabel: z.string().optional(),
-  relatedLabels: z.array(z.string()).optional(),
   overridden: z.boolean().optional(),
   ruling: z.string().optional(),
   overrideId: z.string().nullable().optional(),

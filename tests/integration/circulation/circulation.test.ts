@@ -143,6 +143,7 @@ describe("sending a ruling", () => {
     expect(again.body.error.details).toMatchObject({ reason: "already-circulated", list: "Press gallery" });
     expect(again.body.error.message).toContain("Press gallery");
     expect(again.body.error.message).not.toMatch(/\d{4}-\d{2}-\d{2}T/);
+    expect(again.body.error.message).toMatch(/^Ruling \d+ already went to “Press gallery” on .+ \(sent by .+\)\. Its recipients would get it twice\. Send it again anyway\?$/);
     expect(await tableCounts()).toEqual(before);
     // Another list has not had it: no question.
     expect((await call(send.POST, "POST", "/api/circulation", { as: s.as.clerk, body: { rulingId: r.id, listId: clerksDesk.id } })).status).toBe(201);
@@ -325,12 +326,14 @@ describe("floor-day digest to a chosen list", () => {
   it("refuses another chamber's list, an unknown id or a malformed one with 422 on listId, queueing nothing", async () => {
     const theirs = await makeList(s.outsider, { name: "Saltreach digest readers", entries: [{ kind: "role", role: "chief-clerk" }] });
     const before = await tableCounts();
-    for (const listId of [theirs.id, "00000000-0000-4000-8000-000000000000", "not-a-list"]) {
-      const r = await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as.clerk, body: { ...body, listId } });
-      expect(r.status, listId).toBe(422);
-      expect(r.body.error.code).toBe("unprocessable");
-      expect(r.body.error.issues.map((i: { path: string }) => i.path)).toEqual(["listId"]);
-    }
+    // Whether or not the sender confirmed a repeat: the list is checked first, and once.
+    for (const listId of [theirs.id, "00000000-0000-4000-8000-000000000000", "not-a-list"])
+      for (const confirm of [false, true]) {
+        const r = await call(digest.POST, "POST", "/api/circulation/digest", { as: s.as.clerk, body: { ...body, listId, confirm } });
+        expect(r.status, listId).toBe(422);
+        expect(r.body.error.code).toBe("unprocessable");
+        expect(r.body.error.issues.map((i: { path: string }) => i.path)).toEqual(["listId"]);
+      }
     expect(await tableCounts()).toEqual(before);
     await drain();
     expect(digests()).toEqual([]);
@@ -362,6 +365,9 @@ describe("floor-day digest to a chosen list", () => {
     expect(asked.status).toBe(409);
     expect(asked.body.error.code).toBe("needs-confirmation");
     expect(asked.body.error.message).toContain("The digest for Eighth sitting already went to “Clerks' desk”");
+    // The same question as a ruling's repeat: who sent it, when, and what a second sending means.
+    expect(asked.body.error.message).toMatch(/ on .+ \(sent by .+\)\. Its recipients would get it twice\. Send it again anyway\?$/);
+    expect(asked.body.error.details).toMatchObject({ reason: "already-circulated", list: "Clerks' desk" });
     expect(await tableCounts()).toEqual(before);
     // Another sitting, or another list, is not a repeat.
     const other = await makeList(s.as.staff, { name: "Digest readers", entries: [{ kind: "role", role: "chief-clerk" }] });

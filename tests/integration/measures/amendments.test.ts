@@ -186,11 +186,12 @@ describe("filing amendments", () => {
     // A draft reads as "Draft" wherever a person reads it (list, drawing, findings), never as its internal key.
     expect(d.body.label).toBe("Draft");
     const tree = (await call(treeRoute.GET, "GET", "/x", { as: s.as.member, params: { id: m.id } })).body;
-    expect(tree.nodes.find((n: { key: string }) => n.key === d.body.key).label).toBe("Draft");
-    const onDraft = tree.findings.filter((f: { amendment: string }) => f.amendment === d.body.key);
+    // The tree is validated under that label: its node, its findings and their messages name it so.
+    expect(tree.nodes.find((n: { id: string }) => n.id === d.body.id)).toMatchObject({ key: "Draft", label: "Draft" });
+    const onDraft = tree.findings.filter((f: { amendmentId: string }) => f.amendmentId === d.body.id);
     expect(onDraft.length).toBeGreaterThan(0);
+    for (const f of onDraft) expect(f).toMatchObject({ amendment: "Draft", message: expect.stringMatching(/^Amendment Draft /) });
     for (const f of tree.findings) expect(f.message).not.toContain(d.body.key);
-    expect(onDraft.every((f: { amendmentLabel: string }) => f.amendmentLabel === "Draft")).toBe(true);
     // A draft is before no one: an amendment to it is refused until it is filed, and nothing is stored.
     const before = await tableCounts();
     const onIt = await file(m.id, { target: d.body.id, form: "insert", text: "Amending a draft." });
@@ -198,6 +199,18 @@ describe("filing amendments", () => {
     expect(onIt.body.error.issues[0]).toMatchObject({ path: "target", message: expect.stringContaining("still a draft") });
     expect(await tableCounts()).toEqual(before);
     expect(await db.select().from(outbox).where(eq(outbox.ref, d.body.id))).toEqual([]);
+    // An override on the draft rests on its row, not its label: a second draft relabels it "Draft-1" and the override holds.
+    const finding = onDraft[0];
+    const ov = await call(overrides.POST, "POST", "/x", { as: s.as.clerk, params: { id: m.id }, body: { amendmentId: d.body.id, code: finding.code, version: d.body.version, rulingRef: "Ruling 9 of the Presiding Officer" } });
+    expect(ov.status).toBe(201);
+    const second = await file(m.id, { draft: true, subjects: ["fisheries"], sponsors: [], text: "A second draft." });
+    expect(second.status).toBe(201);
+    const list = (await call(filing.GET, "GET", "/x", { as: s.as.member, params: { id: m.id } })).body.amendments;
+    expect(list.map((a: { id: string; label: string }) => [a.id, a.label])).toEqual([[d.body.id, "Draft-1"], [second.body.id, "Draft-2"]]);
+    const two = (await call(treeRoute.GET, "GET", "/x", { as: s.as.member, params: { id: m.id } })).body;
+    expect(two.nodes.filter((n: { kind: string }) => n.kind === "amendment").map((n: { id: string; key: string }) => [n.id, n.key])).toEqual([[d.body.id, "Draft-1"], [second.body.id, "Draft-2"]]);
+    expect(two.findings.find((f: { amendmentId: string; code: string }) => f.amendmentId === d.body.id && f.code === finding.code)).toMatchObject({ amendment: "Draft-1", overridden: true, overrideId: ov.body.id, message: expect.stringMatching(/^Amendment Draft-1 /) });
+    expect(two.findings.filter((f: { amendmentId: string }) => f.amendmentId === second.body.id).every((f: { amendment: string; message: string }) => f.amendment === "Draft-2" && !f.message.includes("Draft-1"))).toBe(true);
     await file(m.id, { text: "Another text, filed before the draft." });
     expect((await call(fileDraft.POST, "POST", "/x", { as: s.outsider, params: { id: d.body.id }, body: { version: 1 } })).status).toBe(404);
     const filed = await call(fileDraft.POST, "POST", "/x", { as: s.as.member, params: { id: d.body.id }, body: { version: 1 } });

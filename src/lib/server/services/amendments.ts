@@ -9,7 +9,7 @@ import type { z } from "zod";
 import { db, type Tx } from "../db.ts";
 import { member, user } from "../../db/schema/auth.ts";
 import { legislators } from "../../db/schema/chamber.ts";
-import { draftLabels, filedAmendmentInWords } from "../../amendments/amendment-words.ts";
+import { amendmentInWords, amendmentLabels, filedKey } from "../../amendments/amendment-words.ts";
 import { amendments, measureAttachments, measures } from "../../db/schema/measures.ts";
 import { GavelError, parseWith } from "../../errors.ts";
 import { can } from "../../permissions.ts";
@@ -31,7 +31,7 @@ const CLOSED_MEASURE = new Set(["passed", "failed", "withdrawn"]);
 
 /** The amendment's id in the tree: "A7" once filed, "D-1a2b3c4d" while a draft. */
 export function amendmentKey(a: Pick<AmendmentRow, "id" | "number">): string {
-  return a.number === null ? `D-${a.id.slice(0, 8)}` : `A${a.number}`;
+  return a.number === null ? `D-${a.id.slice(0, 8)}` : filedKey(a.number);
 }
 
 export async function amendmentRow(chamberId: string, id: string, q: Tx | typeof db = db, lock = false): Promise<AmendmentRow> {
@@ -94,12 +94,7 @@ function targetLabel(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow):
   return `Amendment ${keys.get(a.targetAmendmentId ?? "") ?? "(removed)"}`;
 }
 
-function wordsOf(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow): string {
-  const words = filedAmendmentInWords({ key: amendmentKey(a), measure: m.number, targetKind: a.targetKind, section: a.targetSection, targetKey: keys.get(a.targetAmendmentId ?? "") ?? null, lines: a.lineFrom === null ? null : [a.lineFrom, a.lineTo ?? a.lineFrom] });
-  return a.number === null ? words.replace(/^Amendment \S+/, "A draft amendment") : words;
-}
-
-function view(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow, names: ReadonlyMap<string, string>) {
+function view(a: AmendmentRow, keys: Map<string, string>, byId: ReadonlyMap<string, AmendmentRow>, m: MeasureRow, names: ReadonlyMap<string, string>) {
   return {
     id: a.id,
     key: amendmentKey(a),
@@ -110,8 +105,8 @@ function view(a: AmendmentRow, keys: Map<string, string>, m: MeasureRow, names: 
     formLabel: FORM_LABELS[a.form as keyof typeof FORM_LABELS] ?? a.form,
     target: a.targetKind === "measure" ? "measure" : a.targetKind === "section" ? a.targetSection! : (keys.get(a.targetAmendmentId ?? "") ?? a.targetAmendmentId!),
     targetLabel: targetLabel(a, keys, m),
-    /** In words: "Amendment A3 to section 2 of HCA 12" (a draft: "A draft amendment to …"). */
-    words: wordsOf(a, keys, m),
+    /** In words (amendmentInWords): "Amendment A3 to section 2 of HCA 12" (a draft: "A draft amendment to …"). */
+    words: amendmentInWords(a, m.number, a.targetAmendmentId ? byId.get(a.targetAmendmentId) : null),
     lines: a.lineFrom === null ? null : ([a.lineFrom, a.lineTo!] as [number, number]),
     text: a.text,
     subjects: a.subjects,
@@ -133,9 +128,10 @@ export async function listAmendments(actor: Actor, measureId: string) {
   const rows = await db.select().from(amendments).where(and(eq(amendments.measureId, m.id), eq(amendments.chamberId, actor.chamber.id))).orderBy(asc(dsql`coalesce(${amendments.number}, 2147483647)`), asc(amendments.createdAt));
   const keys = new Map(rows.map((r) => [r.id, amendmentKey(r)]));
   const names = await legislatorNames(actor.chamber.id);
-  // Drafts come last, in the order they were saved: "Draft 1", "Draft 2"… (never their internal key).
-  const labels = draftLabels(rows.map((r) => ({ key: keys.get(r.id)!, draft: r.number === null })));
-  return { amendments: rows.map((r) => ({ ...view(r, keys, m, names), label: labels.get(keys.get(r.id)!) ?? keys.get(r.id)! })) };
+  // Drafts come last, in the order they were saved: each labelled as the tree names it ("Draft", never its internal key).
+  const labels = amendmentLabels(rows);
+  const byId = new Map(rows.map((r) => [r.id, r]));
+  return { amendments: rows.map((r) => ({ ...view(r, keys, byId, m, names), label: labels.get(r.id)! })) };
 }
 
 export async function getAmendment(actor: Actor, id: string) {
@@ -152,12 +148,8 @@ async function nextNumber(tx: Tx, measureId: string): Promise<number> {
 
 /** The amendment named in words, as a confirmation and a receipt read it. */
 async function nameOf(q: Tx | typeof db, m: MeasureRow, a: AmendmentRow): Promise<string> {
-  let targetKey: string | null = null;
-  if (a.targetKind === "amendment" && a.targetAmendmentId) {
-    const [t] = await q.select({ id: amendments.id, number: amendments.number }).from(amendments).where(eq(amendments.id, a.targetAmendmentId));
-    targetKey = t ? amendmentKey(t) : null;
-  }
-  return filedAmendmentInWords({ key: amendmentKey(a), measure: m.number, targetKind: a.targetKind, section: a.targetSection, targetKey, lines: a.lineFrom === null ? null : [a.lineFrom, a.lineTo ?? a.lineFrom] });
+  const [target] = a.targetKind === "amendment" && a.targetAmendmentId ? await q.select({ number: amendments.number }).from(amendments).where(eq(amendments.id, a.targetAmendmentId)) : [];
+  return amendmentInWords(a, m.number, target);
 }
 
 /**

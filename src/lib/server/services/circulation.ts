@@ -4,7 +4,7 @@
  * one `circulations` row and one outbox row per recipient in the caller's transaction, so the
  * ruling and its queued messages commit together.
  */
-import { and, asc, desc, eq, inArray, isNull, or, sql as dsql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, or, sql as dsql, type SQL } from "drizzle-orm";
 import { z } from "zod";
 import { safe, version } from "../../schema-parts.ts";
 import { db, type Tx } from "../db.ts";
@@ -228,10 +228,12 @@ async function loadList(tx: Tx | typeof db, chamberId: string, listId: string): 
   return list;
 }
 
-/** Queue a ruling's circulation to a list inside the caller's transaction (the ruling must be issued). */
-export async function circulateRulingInTx(tx: Tx, actor: Actor, ruling: RulingRow, listId: string) {
+function assertIssued(ruling: RulingRow): void {
   if (ruling.status !== "issued") throw new GavelError("conflict", `Ruling ${ruling.number} is a draft; only issued rulings are circulated.`, { details: { status: ruling.status } });
-  const list = await loadList(tx, actor.chamber.id, listId);
+}
+
+/** Queue an issued ruling's circulation to a list of the chamber already loaded (loadList). */
+async function circulateRulingTo(tx: Tx, actor: Actor, ruling: RulingRow, list: ListRow) {
   const name = await chamberName(tx, actor.chamber.id);
   const url = `${baseUrl()}/rulings/${ruling.id}`;
   return enqueueToList(tx, { chamberId: actor.chamber.id, userId: actor.user.id, name: actor.user.name }, list, "ruling", { rulingId: ruling.id, rulingRevision: ruling.revision, ref: ruling.id }, (u) =>
@@ -239,28 +241,86 @@ export async function circulateRulingInTx(tx: Tx, actor: Actor, ruling: RulingRo
   );
 }
 
+/** Queue a ruling's circulation to a list inside the caller's transaction (the ruling must be issued). */
+export async function circulateRulingInTx(tx: Tx, actor: Actor, ruling: RulingRow, listId: string) {
+  assertIssued(ruling);
+  return circulateRulingTo(tx, actor, ruling, await loadList(tx, actor.chamber.id, listId));
+}
+
+/**
+ * The one repeat question of a sending (a ruling's revision, a sitting's digest): when a sending
+ * matching `match` already went, ask first (409 needs-confirmation, sent again with `confirm`), for
+ * its recipients would get it twice (common practice, no source). `what` names the thing sent
+ * ("Ruling 4"); the list is named as `listName` when given, else by the name it was sent under.
+ */
+async function askBeforeSendingAgain(tx: Tx, actor: Actor, match: SQL | undefined, what: string, listName?: string): Promise<void> {
+  const [earlier] = await tx
+    .select({ at: circulations.createdAt, by: circulations.sentByName, listName: circulations.listName })
+    .from(circulations)
+    .where(and(eq(circulations.chamberId, actor.chamber.id), match))
+    .orderBy(desc(circulations.createdAt))
+    .limit(1);
+  if (!earlier) return;
+  const list = listName ?? earlier.listName;
+  const when = formatDateTime(earlier.at, dateStyleOf(actor.chamber));
+  throw new GavelError("needs-confirmation", `${what} already went to “${list}” on ${when} (sent by ${earlier.by}). Its recipients would get it twice. Send it again anyway?`, {
+    details: { reason: "already-circulated", list },
+  });
+}
+
 export async function circulateRuling(actor: Actor, input: z.output<typeof sendSchema>) {
   return db.transaction(async (tx) => {
     // The row lock serialises sendings of one ruling, so two sent at once cannot both miss the earlier one.
     const [ruling] = await tx.select().from(rulings).where(and(eq(rulings.id, input.rulingId), eq(rulings.chamberId, actor.chamber.id))).for("update");
     if (!ruling) throw new GavelError("not-found", "No such ruling in this chamber.");
-    if (!input.confirm && ruling.status === "issued") {
-      const list = await loadList(tx, actor.chamber.id, input.listId);
-      const [earlier] = await tx
-        .select({ at: circulations.createdAt, by: circulations.sentByName })
-        .from(circulations)
-        .where(and(eq(circulations.chamberId, actor.chamber.id), eq(circulations.rulingId, ruling.id), eq(circulations.rulingRevision, ruling.revision), eq(circulations.listId, list.id)))
-        .orderBy(desc(circulations.createdAt))
-        .limit(1);
-      if (earlier) {
-        const when = formatDateTime(earlier.at, dateStyleOf(actor.chamber));
-        throw new GavelError("needs-confirmation", `Ruling ${ruling.number} already went to “${list.name}” on ${when} (sent by ${earlier.by}). Its recipients would get it twice. Send it again anyway?`, {
-          details: { reason: "already-circulated", list: list.name },
-        });
-      }
-    }
-    return circulateRulingInTx(tx, actor, ruling, input.listId);
+    assertIssued(ruling);
+    const list = await loadList(tx, actor.chamber.id, input.listId);
+    if (!input.confirm) await askBeforeSendingAgain(tx, actor, and(eq(circulations.rulingId, ruling.id), eq(circulations.rulingRevision, ruling.revision), eq(circulations.listId, list.id)), `Ruling ${ruling.number}`, list.name);
+    return circulateRulingTo(tx, actor, ruling, list);
   });
+}
+
+/** The clerks' list as the digest's list when the chamber has none yet: the role holders, recorded without a list. */
+function roleClerks(chamberId: string): ListRow {
+  return { id: null as unknown as string, chamberId, name: "Clerks (chief clerk and clerks)", description: "", purpose: "clerks", entries: [{ kind: "role", role: "chief-clerk" }, { kind: "role", role: "clerk" }], version: 1, createdAt: new Date(), updatedAt: new Date() };
+}
+
+/**
+ * Where a digest goes: the chamber's list `listId` when given (another chamber's list, or none, is
+ * a 422 naming `listId`), else the chamber's clerks' list (purpose "clerks"), else null: every
+ * chief clerk and clerk, recorded without a list.
+ */
+async function digestListOf(t: Tx, chamberId: string, listId: string | null | undefined): Promise<ListRow | null> {
+  if (listId) {
+    const [chosen] = uuid.safeParse(listId).success ? await t.select().from(distributionLists).where(and(eq(distributionLists.id, listId), eq(distributionLists.chamberId, chamberId))) : [];
+    if (!chosen) throw new GavelError("unprocessable", "listId: no such distribution list in this chamber.", { issues: [{ path: "listId", message: "no such distribution list in this chamber" }] });
+    return chosen;
+  }
+  const [clerks] = await t.select().from(distributionLists).where(and(eq(distributionLists.chamberId, chamberId), eq(distributionLists.purpose, "clerks")));
+  return clerks ?? null;
+}
+
+/** Queue the digest to the list digestListOf chose (null: the clerks by role, recorded without a list). */
+async function enqueueDigestTo(t: Tx, chamberId: string, digest: FloorDigest, sentBy: { userId: string | null; name: string }, chosen: ListRow | null) {
+  const name = await chamberName(t, chamberId);
+  const ref = `${digest.sitting} ${digest.date}`;
+  if (chosen) return enqueueToList(t, { chamberId, ...sentBy }, chosen, "floor-digest", { ref }, (u) => renderFloorDigest({ chamberName: name, digest, unsubscribeUrl: u }));
+  // No clerks' list yet: send to the role holders directly, recorded without a list.
+  const list = roleClerks(chamberId);
+  const recipients = await resolveRecipients(t, chamberId, entriesOf(list));
+  const off = await suppressedFor(t, chamberId, null);
+  const [c] = await t
+    .insert(circulations)
+    .values({ chamberId, kind: "floor-digest", listId: null, listName: list.name, subject: renderFloorDigest({ chamberName: name, digest, unsubscribeUrl: null }).subject, skipped: recipients.filter((r) => off.has(r.email)).map((r) => ({ email: r.email, reason: "unsubscribed" })), sentBy: sentBy.userId, sentByName: sentBy.name })
+    .returning();
+  let queued = 0;
+  for (const r of recipients.filter((r) => !off.has(r.email))) {
+    const link = unsubscribeUrl(chamberId, null, r.email);
+    const m = renderFloorDigest({ chamberName: name, digest, unsubscribeUrl: link });
+    await enqueueMail({ kind: "floor-digest", ref, chamberId, circulationId: c.id, dedupeKey: `circulation:${c.id}:${r.email}`, to: r.email, subject: m.subject, text: m.text, html: m.html, headers: { "List-Unsubscribe": `<${link}>` } }, t);
+    queued++;
+  }
+  return { id: c.id, listId: null, listName: list.name, subject: c.subject, queued, skipped: c.skipped };
 }
 
 /**
@@ -272,35 +332,7 @@ export async function circulateRuling(actor: Actor, input: z.output<typeof sendS
  */
 export async function enqueueFloorDigest(chamberId: string, digestInput: unknown, sentBy: { userId: string | null; name: string }, tx?: Tx, options: { listId?: string | null } = {}) {
   const digest: FloorDigest = floorDigestSchema.parse(digestInput);
-  const run = async (t: Tx) => {
-    if (options.listId) {
-      const chosen = uuid.safeParse(options.listId).success ? (await t.select().from(distributionLists).where(and(eq(distributionLists.id, options.listId), eq(distributionLists.chamberId, chamberId))))[0] : undefined;
-      if (!chosen) throw new GavelError("unprocessable", "listId: no such distribution list in this chamber.", { issues: [{ path: "listId", message: "no such distribution list in this chamber" }] });
-      const name = await chamberName(t, chamberId);
-      return enqueueToList(t, { chamberId, ...sentBy }, chosen, "floor-digest", { ref: `${digest.sitting} ${digest.date}` }, (u) => renderFloorDigest({ chamberName: name, digest, unsubscribeUrl: u }));
-    }
-    const [clerks] = await t.select().from(distributionLists).where(and(eq(distributionLists.chamberId, chamberId), eq(distributionLists.purpose, "clerks")));
-    const list: ListRow = clerks ?? { id: null as unknown as string, chamberId, name: "Clerks (chief clerk and clerks)", description: "", purpose: "clerks", entries: [{ kind: "role", role: "chief-clerk" }, { kind: "role", role: "clerk" }], version: 1, createdAt: new Date(), updatedAt: new Date() };
-    const name = await chamberName(t, chamberId);
-    if (!clerks) {
-      // No clerks' list yet: send to the role holders directly, recorded without a list.
-      const recipients = await resolveRecipients(t, chamberId, entriesOf(list));
-      const off = await suppressedFor(t, chamberId, null);
-      const [c] = await t
-        .insert(circulations)
-        .values({ chamberId, kind: "floor-digest", listId: null, listName: list.name, subject: renderFloorDigest({ chamberName: name, digest, unsubscribeUrl: null }).subject, skipped: recipients.filter((r) => off.has(r.email)).map((r) => ({ email: r.email, reason: "unsubscribed" })), sentBy: sentBy.userId, sentByName: sentBy.name })
-        .returning();
-      let queued = 0;
-      for (const r of recipients.filter((r) => !off.has(r.email))) {
-        const link = unsubscribeUrl(chamberId, null, r.email);
-        const m = renderFloorDigest({ chamberName: name, digest, unsubscribeUrl: link });
-        await enqueueMail({ kind: "floor-digest", ref: `${digest.sitting} ${digest.date}`, chamberId, circulationId: c.id, dedupeKey: `circulation:${c.id}:${r.email}`, to: r.email, subject: m.subject, text: m.text, html: m.html, headers: { "List-Unsubscribe": `<${link}>` } }, t);
-        queued++;
-      }
-      return { id: c.id, listId: null, listName: list.name, subject: c.subject, queued, skipped: c.skipped };
-    }
-    return enqueueToList(t, { chamberId, ...sentBy }, list, "floor-digest", { ref: `${digest.sitting} ${digest.date}` }, (u) => renderFloorDigest({ chamberName: name, digest, unsubscribeUrl: u }));
-  };
+  const run = async (t: Tx) => enqueueDigestTo(t, chamberId, digest, sentBy, await digestListOf(t, chamberId, options.listId));
   return tx ? run(tx) : db.transaction(run);
 }
 
@@ -310,31 +342,18 @@ export async function enqueueFloorDigest(chamberId: string, digestInput: unknown
  * does: its recipients would get it twice (common practice, no source).
  */
 export async function sendFloorDigest(actor: Actor, input: z.output<typeof digestSchema>) {
-  const { listId, confirm, ...digest } = input;
+  const { listId, confirm, ...rest } = input;
+  const digest: FloorDigest = floorDigestSchema.parse(rest);
   return db.transaction(async (tx) => {
     // One sending of a digest at a time per chamber, so two sent at once cannot both miss the other.
     await tx.execute(dsql`SELECT pg_advisory_xact_lock(hashtext(${"floor-digest:" + actor.chamber.id}))`);
     // A list named that is not this chamber's is refused first (422 on listId), before any repeat question.
-    if (listId && !(uuid.safeParse(listId).success && (await tx.select({ id: distributionLists.id }).from(distributionLists).where(and(eq(distributionLists.id, listId), eq(distributionLists.chamberId, actor.chamber.id)))).length))
-      throw new GavelError("unprocessable", "listId: no such distribution list in this chamber.", { issues: [{ path: "listId", message: "no such distribution list in this chamber" }] });
+    const list = await digestListOf(tx, actor.chamber.id, listId);
     if (!confirm) {
-      const subject = renderFloorDigest({ chamberName: await chamberName(tx, actor.chamber.id), digest: floorDigestSchema.parse(digest), unsubscribeUrl: null }).subject;
-      const [clerks] = listId ? [] : await tx.select({ id: distributionLists.id }).from(distributionLists).where(and(eq(distributionLists.chamberId, actor.chamber.id), eq(distributionLists.purpose, "clerks")));
-      const target = listId ?? clerks?.id ?? null;
-      const [earlier] = await tx
-        .select({ at: circulations.createdAt, by: circulations.sentByName, listName: circulations.listName })
-        .from(circulations)
-        .where(and(eq(circulations.chamberId, actor.chamber.id), eq(circulations.kind, "floor-digest"), eq(circulations.subject, subject), target ? eq(circulations.listId, target) : isNull(circulations.listId)))
-        .orderBy(desc(circulations.createdAt))
-        .limit(1);
-      if (earlier) {
-        const when = formatDateTime(earlier.at, dateStyleOf(actor.chamber));
-        throw new GavelError("needs-confirmation", `The digest for ${digest.sitting} already went to “${earlier.listName}” on ${when} (sent by ${earlier.by}). Its recipients would get it twice. Send it again anyway?`, {
-          details: { reason: "already-circulated", list: earlier.listName },
-        });
-      }
+      const subject = renderFloorDigest({ chamberName: await chamberName(tx, actor.chamber.id), digest, unsubscribeUrl: null }).subject;
+      await askBeforeSendingAgain(tx, actor, and(eq(circulations.kind, "floor-digest"), eq(circulations.subject, subject), list ? eq(circulations.listId, list.id) : isNull(circulations.listId)), `The digest for ${digest.sitting}`);
     }
-    return enqueueFloorDigest(actor.chamber.id, digest, { userId: actor.user.id, name: actor.user.name }, tx, { listId });
+    return enqueueDigestTo(tx, actor.chamber.id, digest, { userId: actor.user.id, name: actor.user.name }, list);
   });
 }
 

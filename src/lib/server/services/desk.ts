@@ -10,7 +10,7 @@ import { and, asc, desc, eq, gt, inArray, isNotNull, isNull, ne, notInArray, or,
 import { db } from "../db.ts";
 import { amendments, measures } from "../../db/schema/measures.ts";
 import { legislators } from "../../db/schema/chamber.ts";
-import { filedAmendmentInWords } from "../../amendments/amendment-words.ts";
+import { amendmentInWords } from "../../amendments/amendment-words.ts";
 import { sittings } from "../../db/schema/floor.ts";
 import { rulings } from "../../db/schema/rulings.ts";
 import { analysisRuns, estimates } from "../../db/schema/estimates.ts";
@@ -141,10 +141,10 @@ async function ownAmendmentsOf(actor: Actor, open: ReadonlyArray<{ id: string; n
     )
     .orderBy(asc(amendments.measureId), asc(amendments.number), asc(amendments.createdAt));
   const targets = rows.flatMap((a) => (a.targetAmendmentId ? [a.targetAmendmentId] : []));
-  const numbers = new Map(targets.length ? (await db.select({ id: amendments.id, number: amendments.number }).from(amendments).where(inArray(amendments.id, targets))).map((t) => [t.id, t.number]) : []);
+  const targetOf = new Map(targets.length ? (await db.select({ id: amendments.id, number: amendments.number }).from(amendments).where(inArray(amendments.id, targets))).map((t) => [t.id, t]) : []);
   const measureNumber = new Map(open.map((m) => [m.id, m.number]));
   return rows.map((a) => {
-    const words = filedAmendmentInWords({ key: a.number === null ? "" : `A${a.number}`, measure: measureNumber.get(a.measureId)!, targetKind: a.targetKind, section: a.targetSection, targetKey: a.targetAmendmentId && numbers.get(a.targetAmendmentId) != null ? `A${numbers.get(a.targetAmendmentId)}` : null, lines: a.lineFrom === null ? null : [a.lineFrom, a.lineTo ?? a.lineFrom] });
-    return { id: a.id, measureId: a.measureId, words: a.number === null ? words.replace(/^Amendment \S*/, "A draft amendment") : words, title: a.title, status: a.status as "draft" | "filed" };
+    const words = amendmentInWords(a, measureNumber.get(a.measureId)!, a.targetAmendmentId ? targetOf.get(a.targetAmendmentId) : null);
+    return { id: a.id, measureId: a.measureId, words, title: a.title, status: a.status as "draft" | "filed" };
   });
 }

@@ -97,7 +97,8 @@ export async function treeFor(chamberId: string, measureId: string, scope: strin
   const m = await measureRow(chamberId, measureId, q);
   const rows = await q.select().from(amendments).where(and(eq(amendments.measureId, m.id), eq(amendments.chamberId, chamberId))).orderBy(asc(amendments.createdAt));
   rows.sort((x, y) => (x.number ?? Infinity) - (y.number ?? Infinity));
-  const c = caseFromRows(m, rows);
+  // Under the lasting keys (amendmentKey), which an estimate's stored scope names.
+  const c = caseFromRows(m, rows, new Map(rows.map((r) => [r.id, amendmentKey(r)])));
   const pending = c.amendments.filter((a) => PENDING.has(a.status ?? "filed"));
   const keys = new Set(pending.map((a) => a.id));
   const unknown = scope.findIndex((k) => !keys.has(k));

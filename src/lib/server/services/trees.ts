@@ -9,7 +9,7 @@ import { db } from "../db.ts";
 import { amendments, treeOverrides } from "../../db/schema/measures.ts";
 import { rulings } from "../../db/schema/rulings.ts";
 import { validateTree, type Finding } from "../../amendments/validate-tree.ts";
-import { draftLabels } from "../../amendments/amendment-words.ts";
+import { amendmentLabels } from "../../amendments/amendment-words.ts";
 import type { AmendmentInput, MeasureInput } from "../../amendments/case-schema.ts";
 import { GavelError } from "../../errors.ts";
 import type { Actor } from "../http.ts";
@@ -25,15 +25,20 @@ import { assertMeasureId, assertNotArchived, legislatorNames, measureRow, type M
 /** The measure's id inside the tree (sections and amendments have their own). */
 export const MEASURE_KEY = "measure";
 
-function targetKey(a: AmendmentRow, keys: Map<string, string>): string {
+function targetKey(a: AmendmentRow, keys: ReadonlyMap<string, string>): string {
   if (a.targetKind === "measure") return MEASURE_KEY;
   if (a.targetKind === "section") return a.targetSection!;
   // An amendment whose target row is gone keeps a key that names nothing: the core reports target-missing.
   return keys.get(a.targetAmendmentId ?? "") ?? `gone-${(a.targetAmendmentId ?? "x").slice(0, 8)}`;
 }
 
-export function caseFromRows(m: MeasureRow, rows: AmendmentRow[]): { measure: MeasureInput; amendments: AmendmentInput[]; asOf?: string } {
-  const keys = new Map(rows.map((r) => [r.id, amendmentKey(r)]));
+/**
+ * The core's case for a measure and its amendment rows, each amendment under its key in `keys`
+ * (row id → key): the tree uses the labels people read (amendmentLabels: "A3", "Draft"), an
+ * estimate the lasting keys its stored scope names (amendmentKey: a draft's does not change when
+ * another draft is saved or filed).
+ */
+export function caseFromRows(m: MeasureRow, rows: AmendmentRow[], keys: ReadonlyMap<string, string>): { measure: MeasureInput; amendments: AmendmentInput[]; asOf?: string } {
   return {
     measure: { id: MEASURE_KEY, number: m.number, title: m.title, subjects: m.subjects, committee: m.committee ?? undefined, sections: m.sections.map((s) => ({ id: s.id, heading: s.heading, subjects: s.subjects, lines: s.lines, status: s.status })) },
     amendments: rows.map((r) => ({
@@ -64,8 +69,9 @@ async function loadTree(chamberId: string, measureId: string) {
     adoptedRulebookOf(chamberId),
   ]);
   rows.sort((x, y) => (x.number ?? Infinity) - (y.number ?? Infinity));
-  const keys = new Map(rows.map((r) => [r.id, amendmentKey(r)]));
-  const c = caseFromRows(m, rows);
+  // Validated under the keys people read ("A3", "Draft"), so findings, related amendments and the drawing name them so.
+  const keys = amendmentLabels(rows);
+  const c = caseFromRows(m, rows, keys);
   const input = { ...c, overrides: overrides.filter((o) => keys.has(o.amendmentId)).map((o) => ({ code: o.code, amendment: keys.get(o.amendmentId)!, ruling: o.rulingRef })) };
   // The findings depend only on the rulebook version (immutable) and the case: read it once per change.
   const key = memoKey(rb.versionId ?? rb.source, input);
@@ -98,13 +104,6 @@ async function buildTreeView(chamberId: string, measureId: string): Promise<{ vi
     const o = overrides.find((x) => x.amendmentId === rowId && x.code === f.code);
     return { ...f, amendmentId: rowId, overrideId: o?.id ?? null, overrideRulingId: o?.rulingId ?? null, overrideNote: o?.note ?? null };
   });
-  // A draft reads as "Draft 1" (amendment-words.ts), on the drawing and in the findings, never as its internal key.
-  const drafts = draftLabels(rows.map((r) => ({ key: keys.get(r.id)!, draft: r.number === null })));
-  for (const f of findings) {
-    f.amendmentLabel = drafts.get(f.amendment) ?? f.amendment;
-    if (f.related) f.relatedLabels = f.related.map((k) => drafts.get(k) ?? k);
-    for (const [key, label] of drafts) f.message = f.message.replaceAll(`Amendment ${key}`, label).replaceAll(key, label);
-  }
   const nodes: TreeNodeView[] = [
     { key: MEASURE_KEY, kind: "measure", id: m.id, label: m.number, title: m.title, parent: null, degree: 0, form: null, status: m.status, subjects: m.subjects, sponsors: m.sponsors.map((s) => names.get(s) ?? s), filedAt: null, text: null, lines: null, version: m.version },
     ...m.sections.map((s): TreeNodeView => ({ key: s.id, kind: "section", id: null, label: s.id, title: s.heading ?? null, parent: MEASURE_KEY, degree: 0, form: null, status: s.status, subjects: s.subjects, sponsors: [], filedAt: null, text: s.text ?? null, lines: null, version: null })),
@@ -112,7 +111,7 @@ async function buildTreeView(chamberId: string, measureId: string): Promise<{ vi
       const key = keys.get(r.id)!;
       const n = result.tree.nodes[key];
       const parent = n && !n.targetMissing ? n.target : null;
-      return { key, kind: "amendment", id: r.id, label: drafts.get(key) ?? key, title: r.title, parent, degree: n?.degree ?? null, role: n?.role ?? null, slot: n?.slot ?? null, underSubstitute: n?.underSubstitute ?? null, form: r.form, status: r.status, subjects: r.subjects, sponsors: r.sponsors.map((s) => names.get(s) ?? s), filedAt: r.filedAt?.toISOString() ?? null, text: r.text, lines: r.lineFrom === null ? null : [r.lineFrom, r.lineTo!], version: r.version };
+      return { key, kind: "amendment", id: r.id, label: key, title: r.title, parent, degree: n?.degree ?? null, role: n?.role ?? null, slot: n?.slot ?? null, underSubstitute: n?.underSubstitute ?? null, form: r.form, status: r.status, subjects: r.subjects, sponsors: r.sponsors.map((s) => names.get(s) ?? s), filedAt: r.filedAt?.toISOString() ?? null, text: r.text, lines: r.lineFrom === null ? null : [r.lineFrom, r.lineTo!], version: r.version };
     }),
   ];
   const counts = { error: 0, warning: 0, info: 0, overridden: 0 };
@@ -162,13 +161,15 @@ export async function recordOverride(actor: Actor, measureId: string, input: z.o
 export async function revokeOverride(actor: Actor, measureId: string, overrideId: string) {
   await measureRow(actor.chamber.id, measureId);
   if (!/^[0-9a-f-]{36}$/i.test(overrideId)) throw new GavelError("not-found", "No such override.");
+  // The amendment named in the audit as the tree names it ("A3", "Draft"), as recordOverride does.
+  const { keys } = await loadTree(actor.chamber.id, measureId);
   await db.transaction(async (tx) => {
     const [o] = await tx.select().from(treeOverrides).where(and(eq(treeOverrides.id, overrideId), eq(treeOverrides.measureId, measureId), eq(treeOverrides.chamberId, actor.chamber.id))).for("update");
     if (!o) throw new GavelError("not-found", "No such override on this measure.");
     assertNotArchived(await measureRow(actor.chamber.id, measureId, tx));
     const a = await amendmentRow(actor.chamber.id, o.amendmentId, tx);
     await tx.delete(treeOverrides).where(eq(treeOverrides.id, o.id));
-    await recordAudit(tx, actor, { measureId, entity: "override", entityId: o.id, action: `revoked override of ${o.code} on ${amendmentKey(a)}`, version: 0, before: { amendment: amendmentKey(a), code: o.code, rulingRef: o.rulingRef, rulingId: o.rulingId, note: o.note }, after: null });
+    await recordAudit(tx, actor, { measureId, entity: "override", entityId: o.id, action: `revoked override of ${o.code} on ${keys.get(a.id) ?? amendmentKey(a)}`, version: 0, before: { amendment: keys.get(a.id) ?? amendmentKey(a), code: o.code, rulingRef: o.rulingRef, rulingId: o.rulingId, note: o.note }, after: null });
   });
   return { revoked: overrideId };
 }
