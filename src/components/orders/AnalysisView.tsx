@@ -127,7 +127,7 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
   const versions = result.versions!;
   const short = (id: string) => versions.find((v) => v.id === id)?.short ?? id;
   /** A question of an order in words: an amendment's key, a version by its short name, or final passage. */
-  const ask = (q: string) => (q === "passage" ? "Final passage" : short(q));
+  const ask = (q: string) => (q === "passage" ? "Final passage" : (result.labels?.amendments[q]?.label ?? short(q)));
   const m = a.majority;
   const graph = graphSelection(versions.map((v) => v.id), m.margins, m.topCycle, showAll);
   return (
@@ -181,7 +181,7 @@ export default function AnalysisView({ estimateId, version, userCanCancel = true
           <div><dt className="font-semibold">Top cycle: {setInWords(m.topCycle, short, m.condorcetWinner ? "" : " (highlighted in the matrix)")}</dt><dd className="text-ink-soft">The smallest group of versions that each beat or tie every version outside it; sincere voting can end only here.</dd></div>
           <div><dt className="font-semibold">Uncovered set: {setInWords(m.uncoveredSet, short)}</dt><dd className="text-ink-soft">Versions no other version covers: y covers x when y beats x and every version that beats y also beats x (Gillies' variant on ties).</dd></div>
           <div><dt className="font-semibold">Banks set: {setInWords(m.banksSet, short)}{m.banksComplete ? "" : " (search stopped early; may be incomplete)"}</dt><dd className="text-ink-soft">Winners of strategic (sophisticated) voting under some order of pairwise votes: the tops of maximal chains of beating.</dd></div>
-          <div><dt className="font-semibold">Legal orders of questions: {String(a.orders)}</dt><dd className="text-ink-soft">Orders allowed by the rulebook's voting constraints ({a.constraints.map(([x, y]) => `${x} before ${y}`).join("; ") || "none"}).</dd></div>
+          <div><dt className="font-semibold">Legal orders of questions: {String(a.orders)}</dt><dd className="text-ink-soft">Orders allowed by the rulebook's voting constraints ({a.constraints.map(([x, y]) => `${ask(x)} before ${ask(y)}`).join("; ") || "none"}).</dd></div>
         </dl>
       </section>
 

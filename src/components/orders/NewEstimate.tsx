@@ -10,7 +10,7 @@ import { ApiError, apiCall } from "../shared/api.ts";
 import { versionSchema } from "./api.ts";
 
 const optionsSchema = z.object({ measures: z.array(z.object({ id: z.string(), number: z.string(), title: z.string() })) });
-const versionsSchema = z.object({ pending: z.array(z.object({ key: z.string(), title: z.string().nullable(), target: z.string(), form: z.string(), outOfOrder: z.string().nullable().optional() })), versions: z.array(versionSchema.extend({ amendments: z.array(z.string()) })) });
+const versionsSchema = z.object({ pending: z.array(z.object({ key: z.string(), label: z.string(), title: z.string().nullable(), target: z.string(), form: z.string(), outOfOrder: z.string().nullable().optional() })), versions: z.array(versionSchema.extend({ amendments: z.array(z.string()) })) });
 const previewSchema = z.object({ preview: z.literal(true), content: z.object({ kind: z.string(), rows: z.array(z.object({ member: z.string(), bloc: z.string(), weight: z.number(), ranking: z.array(z.union([z.string(), z.array(z.string())])), chair: z.boolean().optional() })).optional(), members: z.array(z.object({ member: z.string(), bloc: z.string(), weight: z.number(), ideal: z.array(z.number()) })).optional() }) });
 
 export default function NewEstimate() {
@@ -129,12 +129,12 @@ export default function NewEstimate() {
             {tree.pending.filter((p) => !p.outOfOrder).map((p) => (
               <label key={p.key} className="inline-flex items-center gap-1 text-sm">
                 <input type="checkbox" checked={scope.includes(p.key)} onChange={(e) => setScope(e.target.checked ? [...scope, p.key] : scope.filter((k) => k !== p.key))} />
-                {p.key}{p.title ? ` (${p.title})` : ""}
+                {p.label}{p.title ? ` (${p.title})` : ""}
               </label>
             ))}
           </div>
           {tree.pending.some((p) => p.outOfOrder) && (
-            <p className="gw-hint mt-2" data-testid="not-offered">Not offered: {tree.pending.filter((p) => p.outOfOrder).map((p) => `${p.key}${p.title ? ` (${p.title})` : ""} — ${p.outOfOrder}`).join("; ")}.</p>
+            <p className="gw-hint mt-2" data-testid="not-offered">Not offered: {tree.pending.filter((p) => p.outOfOrder).map((p) => `${p.label}${p.title ? ` (${p.title})` : ""} — ${p.outOfOrder}`).join("; ")}.</p>
           )}
           <div className="mt-2 text-sm">
             <p>{tree.versions.length} versions to rank:</p>

@@ -25,6 +25,8 @@ export const runResultSchema = z.object({
   analysis: ordersAnalysisSchema.optional(),
   listed: z.object({ count: z.number(), complete: z.boolean() }).optional(),
   findings: z.array(findingSchema).optional(),
+  /** What people read for each amendment key (a draft's key is internal: "Draft", "Draft-1"). */
+  labels: z.object({ amendments: z.record(z.string(), z.object({ label: z.string().optional() })) }).optional(),
 });
 export const ordersPageSchema = z.object({
   total: z.number(),

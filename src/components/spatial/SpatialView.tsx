@@ -23,7 +23,8 @@ type Spatial = Extract<EstimateContent, { kind: "spatial" }>;
 const BLOC_COLOURS = ["#1f4e79", "#8a4b08", "#2f6b3a", "#6b2f5f", "#5a5a5a", "#0f6470"];
 const STEP = 0.5;
 
-export default function SpatialView({ estimateId, content: initial, versions, scope, basedOn, canEdit }: { estimateId: string; content: Spatial; versions: Array<{ id: string; amendments: string[]; short: string }>; scope: string[]; basedOn: number; canEdit: boolean }) {
+/** `labels`: what people read for each amendment key of the scope ("A3"; a draft's "Draft"). */
+export default function SpatialView({ estimateId, content: initial, versions, scope, labels, basedOn, canEdit }: { estimateId: string; content: Spatial; versions: Array<{ id: string; amendments: string[]; short: string }>; scope: string[]; labels: Record<string, string>; basedOn: number; canEdit: boolean }) {
   const [content, setContent] = useState<Spatial>(initial);
   const [dirty, setDirty] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
@@ -103,7 +104,7 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
     return (
       <div className="space-y-4">
         <p className="gw-hint">The plot shows estimates in two dimensions; this one has {content.dimensions.length}.</p>
-        {canEdit && <PositionsEditor content={content} scope={scope} onChange={edit} />}
+        {canEdit && <PositionsEditor content={content} scope={scope} labels={labels} onChange={edit} />}
         {canEdit && <button className="gw-btn" disabled={!dirty} onClick={() => void save()}>Save these positions as a new version</button>}
         <Alert>{message}</Alert>
       </div>
@@ -188,7 +189,7 @@ export default function SpatialView({ estimateId, content: initial, versions, sc
         <Alert>{message}</Alert>
       </div>
     </div>
-    {canEdit && <PositionsEditor content={content} scope={scope} onChange={edit} />}
+    {canEdit && <PositionsEditor content={content} scope={scope} labels={labels} onChange={edit} />}
     </div>
   );
 }
@@ -221,7 +222,7 @@ function NumberBox({ value, label, onChange }: { value: number; label: string; o
  * amendment's effect (a new position, or a shift of the text it amends), edited as numbers; the
  * plot above follows every change.
  */
-function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope: string[]; onChange: (f: (c: Spatial) => Spatial) => void }) {
+function PositionsEditor({ content, scope, labels, onChange }: { content: Spatial; scope: string[]; labels: Record<string, string>; onChange: (f: (c: Spatial) => Spatial) => void }) {
   const dims = content.dimensions;
   const ranges = content.ranges ?? dims.map(() => [0, 10] as [number, number]);
   const setAt = (xs: number[], i: number, v: number) => xs.map((x, j) => (j === i ? v : x));
@@ -312,9 +313,9 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
                 const vals = kind === "position" ? effect(k).position! : kind === "shift" ? effect(k).shift! : null;
                 return (
                   <tr key={k}>
-                    <th scope="row">{k}</th>
+                    <th scope="row">{labels[k] ?? k}</th>
                     <td>
-                      <select className="gw-input mt-0 min-w-[8.5rem]" aria-label={`How ${k} moves the text`} value={kind} onChange={(e) => setEffect(k, e.target.value as "position" | "shift" | "none")}>
+                      <select className="gw-input mt-0 min-w-[8.5rem]" aria-label={`How ${labels[k] ?? k} moves the text`} value={kind} onChange={(e) => setEffect(k, e.target.value as "position" | "shift" | "none")}>
                         <option value="none">no change</option>
                         <option value="position">new position</option>
                         <option value="shift">shift by</option>
@@ -322,7 +323,7 @@ function PositionsEditor({ content, scope, onChange }: { content: Spatial; scope
                     </td>
                     {dims.map((d, i) => (
                       <td key={i}>
-                        {vals ? <NumberBox label={`${k} ${kind === "shift" ? "shift" : "position"} on ${d}`} value={vals[i] ?? 0} onChange={(v) => onChange((c) => ({ ...c, effects: { ...c.effects, [k]: kind === "position" ? { position: setAt(c.effects[k]?.position ?? [...c.measure], i, v) } : { shift: setAt(c.effects[k]?.shift ?? dims.map(() => 0), i, v) } } }))} /> : "—"}
+                        {vals ? <NumberBox label={`${labels[k] ?? k} ${kind === "shift" ? "shift" : "position"} on ${d}`} value={vals[i] ?? 0} onChange={(v) => onChange((c) => ({ ...c, effects: { ...c.effects, [k]: kind === "position" ? { position: setAt(c.effects[k]?.position ?? [...c.measure], i, v) } : { shift: setAt(c.effects[k]?.shift ?? dims.map(() => 0), i, v) } } }))} /> : "—"}
                       </td>
                     ))}
                   </tr>

@@ -8,7 +8,7 @@
  */
 import type { BranchNext, BranchStep, WalkStep, WalkThrough } from "./walk-through.ts";
 import { documentMarkdown, type Block, type DocumentModel } from "../documents/model.ts";
-import { amendmentName, listInWords, thresholdInWords, versionInWords, versionShort, type TreeLabels } from "./version-words.ts";
+import { amendmentName, keyLabel, listInWords, thresholdInWords, versionInWords, versionShort, type TreeLabels } from "./version-words.ts";
 
 export interface ScriptStep {
   number: number;
@@ -163,11 +163,11 @@ export function chairScript(walk: WalkThrough, labels: TreeLabels, passageThresh
   const passage = walk.thresholds?.passage ?? passageThreshold;
   const byId = new Map((walk.branches ?? []).map((b) => [b.id, b]));
   return {
-    title: `Chair's script: ${labels.measureLabel}, questions in the order ${walk.order.join(", ")}`,
+    title: `Chair's script: ${labels.measureLabel}, questions in the order ${walk.order.map((q) => (q === "passage" ? "final passage" : keyLabel(q, labels))).join(", ")}`,
     order: walk.order,
     steps: walk.sincere.steps.map((s, i) => stepFor(s, i + 1, labels, walk.threshold, passage)),
     branches: (walk.branches ?? []).map((b) => branchStep(b, labels, byId, walk.threshold, passage)),
-    fallsAtStart: walk.fallsAtStart ?? [],
+    fallsAtStart: (walk.fallsAtStart ?? []).map((k) => keyLabel(k, labels)),
     advisory: `Prepared by Gavelwright as an aid. The projections come from the estimate “${estimateTitle}” under sincere voting; they are not a forecast. The presiding officer's rulings, the chamber's own rules and its counsel prevail.`,
   };
 }

@@ -7,7 +7,7 @@
  * the caution that it is a projection from an estimate and that the chair and the rules decide.
  */
 import type { OrdersAnalysis } from "../voting/analyse-orders.ts";
-import { listInWords, STATUS_QUO_ID, thresholdInWords, versionInWords, versionShort, type TreeLabels } from "./version-words.ts";
+import { amendmentName, keyLabel, listInWords, STATUS_QUO_ID, thresholdInWords, versionInWords, versionShort, type TreeLabels } from "./version-words.ts";
 
 export interface Finding {
   id: "order-decides" | "order-indifferent" | "condorcet-defeated" | "condorcet-holds" | "cycle" | "strategic" | "sincere-holds" | "kills" | "saves";
@@ -88,13 +88,13 @@ export function buildFindings(a: Analysis, listing: OrderListing, labels: TreeLa
     if (seen.has(last)) continue;
     const baseId = v.amendments.length === 1 ? labels.measureKey : `${labels.measureKey}+${v.amendments[0]}`;
     if (!ids.has(baseId)) continue;
-    const name = labels.amendments[last]?.title ? `${last} (${labels.amendments[last].title})` : last;
+    const name = amendmentName(last, labels);
     if (beatsQ(baseId) && !beatsQ(v.id)) {
       seen.add(last);
-      out.push({ id: "kills", headline: `${name} would kill the measure.`, detail: `${versionShort(baseId, labels)} is projected to pass against no change (margin ${a.majority.margins[baseId][STATUS_QUO_ID]}); with ${last} adopted it is projected to fail (margin ${a.majority.margins[v.id][STATUS_QUO_ID]})${needs}.`, caution: c });
+      out.push({ id: "kills", headline: `${name} would kill the measure.`, detail: `${versionShort(baseId, labels)} is projected to pass against no change (margin ${a.majority.margins[baseId][STATUS_QUO_ID]}); with ${keyLabel(last, labels)} adopted it is projected to fail (margin ${a.majority.margins[v.id][STATUS_QUO_ID]})${needs}.`, caution: c });
     } else if (!beatsQ(baseId) && beatsQ(v.id)) {
       seen.add(last);
-      out.push({ id: "saves", headline: `${name} would save the measure.`, detail: `${versionShort(baseId, labels)} is projected to fail against no change (margin ${a.majority.margins[baseId][STATUS_QUO_ID]}); with ${last} adopted it is projected to pass (margin ${a.majority.margins[v.id][STATUS_QUO_ID]})${needs}.`, caution: c });
+      out.push({ id: "saves", headline: `${name} would save the measure.`, detail: `${versionShort(baseId, labels)} is projected to fail against no change (margin ${a.majority.margins[baseId][STATUS_QUO_ID]}); with ${keyLabel(last, labels)} adopted it is projected to pass (margin ${a.majority.margins[v.id][STATUS_QUO_ID]})${needs}.`, caution: c });
     }
   }
   return out;

@@ -7,7 +7,8 @@ export interface TreeLabels {
   /** The measure's key in version ids (e.g. "measure") and its public label (e.g. "HCA 12"). */
   measureKey: string;
   measureLabel: string;
-  amendments: Record<string, { title?: string | null; form?: string; target?: string; targetLabel?: string; lines?: [number, number] | null; degree?: 1 | 2 }>;
+  /** Per amendment key: `label` is what people read for it ("A3"; a draft's "Draft", whose key is internal). */
+  amendments: Record<string, { label?: string; title?: string | null; form?: string; target?: string; targetLabel?: string; lines?: [number, number] | null; degree?: 1 | 2 }>;
 }
 
 export const STATUS_QUO_ID = "Q";
@@ -17,9 +18,14 @@ export function listInWords(items: readonly string[]): string {
   return `${items.slice(0, -1).join(", ")} and ${items[items.length - 1]}`;
 }
 
+/** An amendment key as people read it: its label when it has one ("Draft"), else the key ("A3"). */
+export function keyLabel(key: string, labels: TreeLabels): string {
+  return labels.amendments[key]?.label ?? key;
+}
+
 export function amendmentName(key: string, labels: TreeLabels): string {
   const t = labels.amendments[key]?.title;
-  return t ? `${key} (${t})` : key;
+  return t ? `${keyLabel(key, labels)} (${t})` : keyLabel(key, labels);
 }
 
 export function versionInWords(id: string, labels: TreeLabels): string {
@@ -33,7 +39,7 @@ export function versionInWords(id: string, labels: TreeLabels): string {
 export function versionShort(id: string, labels: TreeLabels): string {
   if (id === STATUS_QUO_ID) return "Q (no change)";
   if (id === labels.measureKey) return labels.measureLabel;
-  return id.startsWith(`${labels.measureKey}+`) ? `${labels.measureLabel} + ${id.slice(labels.measureKey.length + 1).split("+").join(" + ")}` : id;
+  return id.startsWith(`${labels.measureKey}+`) ? `${labels.measureLabel} + ${id.slice(labels.measureKey.length + 1).split("+").map((k) => keyLabel(k, labels)).join(" + ")}` : id;
 }
 
 const THRESHOLD_WORDS: Record<string, string> = {

@@ -54,7 +54,14 @@ export const FORM_LABELS: Record<(typeof AMENDMENT_FORMS)[number], string> = {
 
 const tag = safe(z.string().trim().toLowerCase().min(1).max(80));
 export const tagsSchema = z.array(tag).max(50);
-const sectionId = safe(z.string().regex(ID_PATTERN, "must be 1-64 letters, digits, '.', '_', ':' or '-'"));
+/** Keys the amendment tree gives the measure and its amendments ("measure", "A3", "Draft", "Draft-2"); a section may not take one. */
+export const TREE_RESERVED_ID = /^(measure|A\d+|Draft(-\d+)?|D-[0-9a-f]{8})$/;
+const sectionId = safe(
+  z
+    .string()
+    .regex(ID_PATTERN, "must be 1-64 letters, digits, '.', '_', ':' or '-'")
+    .refine((id) => !TREE_RESERVED_ID.test(id), "is how the tree names the measure or an amendment (measure, A1, Draft, Draft-1); give the section another id, such as s1"),
+);
 
 export const sectionInputSchema = z.object({
   id: sectionId.optional(),

@@ -11,6 +11,7 @@ import * as sharing from "../../../src/pages/api/estimates/[id]/sharing.ts";
 import * as importRoute from "../../../src/pages/api/estimates/import.ts";
 import * as template from "../../../src/pages/api/estimates/template.ts";
 import * as versionList from "../../../src/pages/api/estimates/versions.ts";
+import * as filing from "../../../src/pages/api/measures/[id]/amendments.ts";
 import { seedMeasures } from "../../../src/lib/server/seed/measures.ts";
 import { seedEstimates } from "../../../src/lib/server/seed/estimates.ts";
 import { call } from "../../support/app.ts";
@@ -166,5 +167,22 @@ describe("CSV template and upload", () => {
     expect(bad.status).toBe(400);
     const bad2 = await csv("member,cost,reach\nA,1,two\n", { kind: "spatial", dimensions: "Cost,Reach", title: "x" });
     expect(bad2.body.error.issues[0].path).toBe("rows.2.reach");
+  });
+});
+
+describe("a draft in the scope", () => {
+  it("reads as “Draft”, never as its internal key, in the editor's list and in the versions' names", async () => {
+    const made = await call(filing.POST, "POST", `/api/measures/${measureId}/amendments`, { as: s.as.clerk, params: { id: measureId }, body: { draft: true, form: "insert", target: "s1", sponsors: [], subjects: ["lighting"], text: "Lamps at every bollard.", title: "Bollard lamps" } });
+    expect(made.status).toBe(201);
+    const offered = await call(versionList.GET, "GET", "/x", { as: s.as.clerk, query: { measureId, scope: "A1" } });
+    const draft = offered.body.pending.find((p: { title: string | null }) => p.title === "Bollard lamps");
+    expect(draft.label).toBe("Draft");
+    expect(draft.key).not.toBe("Draft");
+    const r = await call(versionList.GET, "GET", "/x", { as: s.as.clerk, query: { measureId, scope: `A1,${draft.key}` } });
+    expect(r.status).toBe(200);
+    const withDraft = r.body.versions.find((v: { amendments: string[] }) => v.amendments.includes(draft.key) && v.amendments.length === 1);
+    expect(withDraft.short).toBe("HCA 12 + Draft");
+    expect(withDraft.words).toBe("HCA 12 as amended by Draft (Bollard lamps)");
+    expect(JSON.stringify(r.body.versions)).not.toContain(`+ ${draft.key}`);
   });
 });

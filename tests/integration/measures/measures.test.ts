@@ -61,6 +61,18 @@ describe("creating measures", () => {
     expect(r.status).toBe(400);
     expect(r.body.error.issues[0].path).toBe("sections.1.id");
   });
+
+  it("refuses a section id the amendment tree gives the measure or an amendment (A1, Draft), storing nothing", async () => {
+    for (const [i, id] of ["A1", "Draft", "Draft-2", "measure"].entries()) {
+      const before = await tableCounts();
+      const r = await create({ number: `HCA 2${5 + i}`, title: "Clash", sections: [{ id: "s1", text: "x" }, { id, text: "y" }] });
+      expect(r.status, id).toBe(400);
+      expect(r.body.error.issues[0].path).toBe("sections.1.id");
+      expect(r.body.error.issues[0].message).toContain("give the section another id");
+      expect(await tableCounts()).toEqual(before);
+    }
+    expect((await create({ number: "HCA 29", title: "Fine", sections: [{ id: "A1x", text: "x" }, { id: "Drafting", text: "y" }] })).status).toBe(201);
+  });
 });
 
 describe("reading measures", () => {

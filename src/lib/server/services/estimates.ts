@@ -26,7 +26,7 @@ import { amendmentKey } from "./amendments.ts";
 import { measureRow } from "./measures.ts";
 import { caseFromRows, MEASURE_KEY } from "./trees.ts";
 import { readStored } from "../stored-json.ts";
-import { sectionInWords } from "../../amendments/amendment-words.ts";
+import { amendmentLabels, sectionInWords } from "../../amendments/amendment-words.ts";
 
 export type EstimateRow = typeof estimates.$inferSelect;
 
@@ -107,6 +107,9 @@ export async function treeFor(chamberId: string, measureId: string, scope: strin
   const chosen = pending.filter((a) => scope.includes(a.id));
   const model = amendmentTreeModel({ measure: c.measure, amendments: chosen }, "scope");
   const byKey = new Map(rows.map((r) => [amendmentKey(r), r]));
+  // What people read for each key: "A3"; a draft, whose lasting key is internal, "Draft" or "Draft-1".
+  const readable = amendmentLabels(rows);
+  const labelOf = (key: string) => readable.get(byKey.get(key)?.id ?? "") ?? key;
   const sectionHeading = new Map(m.sections.map((s) => [s.id, s.heading ?? s.id]));
   const labels: TreeLabels = {
     measureKey: MEASURE_KEY,
@@ -115,15 +118,15 @@ export async function treeFor(chamberId: string, measureId: string, scope: strin
       chosen.map((a) => {
         const r = byKey.get(a.id)!;
         const degree: 1 | 2 = a.target === MEASURE_KEY || sectionHeading.has(a.target) ? 1 : 2;
-        const targetLabel = a.target === MEASURE_KEY ? `the whole of ${m.number}` : sectionHeading.has(a.target) ? `${sectionInWords(a.target)} (${sectionHeading.get(a.target)})` : `amendment ${a.target}`;
-        return [a.id, { title: r.title, form: r.form, target: a.target, targetLabel, lines: r.lineFrom === null ? null : [r.lineFrom, r.lineTo!] as [number, number], degree }];
+        const targetLabel = a.target === MEASURE_KEY ? `the whole of ${m.number}` : sectionHeading.has(a.target) ? `${sectionInWords(a.target)} (${sectionHeading.get(a.target)})` : `amendment ${labelOf(a.target)}`;
+        return [a.id, { label: labelOf(a.id), title: r.title, form: r.form, target: a.target, targetLabel, lines: r.lineFrom === null ? null : [r.lineFrom, r.lineTo!] as [number, number], degree }];
       }),
     ),
   };
   return {
     measure: m,
     case: { measure: c.measure, amendments: chosen },
-    pending: pending.map((a) => ({ key: a.id, title: byKey.get(a.id)?.title ?? null, target: a.target, form: a.form, outOfOrder: outOfOrder(c.measure, pending, a.id) })),
+    pending: pending.map((a) => ({ key: a.id, label: labelOf(a.id), title: byKey.get(a.id)?.title ?? null, target: a.target, form: a.form, outOfOrder: outOfOrder(c.measure, pending, a.id) })),
     versions: model.versions.map((v) => ({ id: v.id, amendments: v.amendments, short: versionShort(v.id, labels), words: versionInWords(v.id, labels) })),
     labels,
   };
