@@ -1,5 +1,6 @@
 import { useState } from "react";
 import { when } from "../shared/dates.ts";
+import { Alert } from "../shared/Alert.tsx";
 import ConfirmBox from "./ConfirmBox.tsx";
 import VoteFields from "./VoteFields.tsx";
 import type { HistoryLine } from "./schemas.ts";
@@ -100,7 +101,7 @@ function Correction({ line, busy, record, onDone }: { line: HistoryLine; busy: b
           {replace && <VoteFields id={id} value={draft} onChange={(v) => { setDraft(v); setConfirm(null); setErrors({}); }} errors={errors} needsCount={false} disabled={busy} onRoster={setRosterSize} />}
         </>
       )}
-      {failure && <p role="alert" className="gw-error">{failure}</p>}
+      <Alert>{failure}</Alert>
       {confirm ? (
         <ConfirmBox testId="correction-confirm" danger yes="Yes, strike it out" no="Go back" busy={busy} onYes={() => void send(confirm)} onNo={() => setConfirm(null)}>
           Strike out entry {line.seq} (“{line.summary}”) because “{confirm.reason}”{confirm.vote ? `, and record instead: ${voteWords(confirm.vote)}` : ""}?

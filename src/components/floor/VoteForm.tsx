@@ -1,5 +1,6 @@
 import { useState } from "react";
 import { ApiError } from "../shared/api.ts";
+import { Alert } from "../shared/Alert.tsx";
 import ConfirmBox from "./ConfirmBox.tsx";
 import VoteFields from "./VoteFields.tsx";
 import type { Question } from "./schemas.ts";
@@ -82,7 +83,7 @@ export default function VoteForm({ question, busy, record }: Props) {
       </h3>
       <p className="gw-hint">Decided by {question.threshold}.</p>
       {retargeted && (
-        <div role="alert" className="gw-card border-verdict-bar bg-verdict-bar-tint text-sm" data-testid="vote-retarget">
+        <Alert look="box" testId="vote-retarget">
           <p className="font-semibold">The question pending changed while you were filling this in. Nothing was recorded.</p>
           <p className="mt-1">
             You began on: {forQuestion.name}. Now pending: {question.name}.
@@ -90,17 +91,13 @@ export default function VoteForm({ question, busy, record }: Props) {
           <button type="button" className="gw-btn-quiet mt-2" onClick={reset}>
             Start again on the question now pending
           </button>
-        </div>
+        </Alert>
       )}
       <VoteFields id="vote" value={draft} onChange={change} errors={errors} needsCount={question.needsCount} disabled={busy || retargeted} rules={question} onRoster={setRosterSize} />
       <label className="flex items-center gap-2 text-sm">
         <input type="checkbox" checked={disposesBelow} disabled={busy || retargeted} onChange={(e) => { if (!forQuestion) setForQuestion({ key: question.key, name: question.name }); setDisposesBelow(e.target.checked); setConfirm(null); }} /> Adopting it disposes of the questions below (tabled, referred, postponed)
       </label>
-      {failure && !mismatch && (
-        <p role="alert" className="gw-error" data-testid="vote-error">
-          {failure}
-        </p>
-      )}
+      <Alert testId="vote-error">{mismatch ? null : failure}</Alert>
       {mismatch && (
         <ConfirmBox testId="vote-mismatch" yes={`The chair declared it ${mismatch.vote.result}: record it so`} no="Change the result or the count" busy={busy} onYes={() => void send(mismatch.vote, true)} onNo={() => setMismatch(null)}>
           {mismatch.message}

@@ -38,13 +38,15 @@ function roleLabel(role: string | null): string {
 }
 
 /** For each change: what the dialog asks and says, its button, the request, and what the desk says once done. */
-function change(p: Pending): { title: string; says: string; confirm: string; danger: boolean; path: string; method: "PATCH" | "DELETE" | "POST"; send?: unknown; done: string; keep?: string } {
+function change(p: Pending): { title: string; says: string; confirm: string; danger: boolean; path: string; method: "PATCH" | "DELETE" | "POST"; send?: unknown; done: string; keep?: string; button: string; buttonLabel: string } {
   switch (p.kind) {
     case "role":
       return {
         title: `Make ${p.name} ${roleLabel(p.to)}?`,
         says: `${p.name} goes from ${roleLabel(p.from)} to ${roleLabel(p.to)} at once, with what that role may do. This cannot be undone: changing it back is a new change, and both stay in the people log with your name.`,
         confirm: "Change the role",
+        button: "Change the role…",
+        buttonLabel: `Change the role of ${p.name}…`,
         danger: true,
         path: `/api/people/members/${p.memberId}`,
         method: "PATCH",
@@ -56,6 +58,8 @@ function change(p: Pending): { title: string; says: string; confirm: string; dan
         title: `Remove ${p.name} from the chamber?`,
         says: `${p.name} (${roleLabel(p.role)}) loses access to the chamber at once. The removal cannot be undone: it stays in the people log with your name. You can restore ${p.name} later from this page, with the same role.`,
         confirm: "Remove",
+        button: "Remove…",
+        buttonLabel: `Remove ${p.name}…`,
         danger: true,
         path: `/api/people/members/${p.memberId}`,
         method: "DELETE",
@@ -66,6 +70,8 @@ function change(p: Pending): { title: string; says: string; confirm: string; dan
         title: `Restore ${p.name} as ${roleLabel(p.role)}?`,
         says: `${p.name} gets access to the chamber again at once. The restoration is recorded in the people log with your name.`,
         confirm: "Restore",
+        button: "Restore…",
+        buttonLabel: `Restore ${p.name}…`,
         danger: false,
         path: `/api/people/removed/${p.userId}`,
         method: "POST",
@@ -77,12 +83,24 @@ function change(p: Pending): { title: string; says: string; confirm: string; dan
         says: `The link sent to ${p.email} stops working at once; this cannot be undone. To let them in later, send a new invitation.`,
         confirm: "Cancel the invitation",
         keep: "Keep it",
+        button: "Cancel…",
+        buttonLabel: `Cancel the invitation to ${p.email}…`,
         danger: true,
         path: `/api/people/invitations/${p.invitationId}`,
         method: "DELETE",
         done: `Invitation to ${p.email} cancelled.`,
       };
   }
+}
+
+/** The row's button that asks for a change (the dialog then names it), labelled with whom it concerns. */
+function AskButton({ change: p, onAsk }: { change: Pending; onAsk: (p: Pending) => void }) {
+  const c = change(p);
+  return (
+    <button type="button" className="gw-btn-quiet" aria-label={c.buttonLabel} onClick={() => onAsk(p)}>
+      {c.button}
+    </button>
+  );
 }
 
 export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Props) {
@@ -206,9 +224,7 @@ export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Pro
                   {canAdminister && (
                     <td>
                       {m.userId !== selfUserId && (
-                        <button type="button" className="gw-btn-quiet" aria-label={`Remove ${m.name}…`} onClick={() => ask({ kind: "remove", memberId: m.id, name: m.name, role: m.role })}>
-                          Remove…
-                        </button>
+                        <AskButton change={{ kind: "remove", memberId: m.id, name: m.name, role: m.role }} onAsk={ask} />
                       )}
                     </td>
                   )}
@@ -231,9 +247,7 @@ export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Pro
                   <td>{roleLabel(r.role)}</td>
                   <td>{day(r.removedAt)}, by {r.removedBy}</td>
                   <td>
-                    <button type="button" className="gw-btn-quiet" aria-label={`Restore ${r.name}…`} onClick={() => ask({ kind: "restore", userId: r.userId, name: r.name, role: r.role })}>
-                      Restore…
-                    </button>
+                    <AskButton change={{ kind: "restore", userId: r.userId, name: r.name, role: r.role }} onAsk={ask} />
                   </td>
                 </tr>
               ))}
@@ -277,9 +291,7 @@ export default function PeopleDesk({ canAdminister, showEmail, selfUserId }: Pro
                     <td>{roleLabel(i.role)}</td>
                     <td>{day(i.expiresAt)}</td>
                     <td>
-                      <button type="button" className="gw-btn-quiet" aria-label={`Cancel the invitation to ${i.email}…`} onClick={() => ask({ kind: "cancel", invitationId: i.id, email: i.email })}>
-                        Cancel…
-                      </button>
+                      <AskButton change={{ kind: "cancel", invitationId: i.id, email: i.email }} onAsk={ask} />
                     </td>
                   </tr>
                 ))}
