@@ -23,6 +23,7 @@ const CHECKS: Array<[string, RegExp]> = [
   ["an ISO timestamp", /\b\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/],
   ["an ambiguous numeric date", /\b\d{1,2}\/\d{1,2}\/\d{4}\b/],
   ["a version code", /\b[\w-]+\+A\d+/],
+  ["a draft's internal key", /\bD-[0-9a-f]{8}\b/],
   ...SLUGS.map((s): [string, RegExp] => [`the slug “${s}”`, new RegExp(`(^|[^\\w-])${s}($|[^\\w-])`)]),
 ];
 
@@ -73,11 +74,33 @@ describe("the clerk's words on every page", () => {
     expect(problems).toEqual([]);
   }, 600_000);
 
+  it("a measure with drafts names them as people read them on its page, tree and printout", async () => {
+    const page = await browser.freshPage();
+    await signInAs(page, "clerk");
+    const post = async (path: string, data: unknown) => {
+      const res = await page.request.post(`${BASE_URL}${path}`, { data, headers: { origin: BASE_URL } });
+      expect(res.status(), `${path}: ${await res.text()}`).toBeLessThan(300);
+      return res.json();
+    };
+    const m = await post("/api/measures", { number: `HCR W ${Date.now() % 1_000_000}`, title: "Quay words", subjects: ["harbour"], text: "## Section 1 — Lamps\nEvery quay shall be lit.\n## Section 2 — Dues\nHarbour dues pay for it." });
+    for (const [target, title] of [["s1", "Brighter lamps"], ["s2", "Lower dues"]]) await post(`/api/measures/${m.id}/amendments`, { draft: true, form: "insert", target, title, text: "Insert: at night.", subjects: ["harbour"], sponsors: [] });
+    const problems: string[] = [];
+    for (const path of [`/measures/${m.id}`, `/measures/${m.id}/tree`, `/measures/${m.id}/print`]) {
+      await page.goto(`${BASE_URL}${path}`);
+      const text = await page.evaluate(() => document.body.innerText);
+      expect(text, path).toContain("Draft-1");
+      expect(text, path).toContain("Draft-2");
+      problems.push(...(await developerWords(page, path)));
+    }
+    await page.close();
+    expect(problems).toEqual([]);
+  });
+
   it("the checks catch what they look for", async () => {
     const page = await browser.freshPage();
-    await page.setContent(`<body><p>Status: on-floor, version measure+A1+A2, filed 2026-12-04T15:30:00Z by 1b4e28ba-2fa1-11d2-883f-0016d3cca427 on 12/11/2026</p></body>`);
+    await page.setContent(`<body><p>Status: on-floor, version measure+A1+A2, filed 2026-12-04T15:30:00Z by 1b4e28ba-2fa1-11d2-883f-0016d3cca427 on 12/11/2026, draft D-4d7cf41c</p></body>`);
     const found = await developerWords(page, "sample");
-    expect(found.map((f) => f.split(":")[0])).toEqual(["sample shows a UUID", "sample shows an ISO timestamp", "sample shows an ambiguous numeric date", "sample shows a version code", "sample shows the slug “on-floor”"]);
+    expect(found.map((f) => f.split(":")[0])).toEqual(["sample shows a UUID", "sample shows an ISO timestamp", "sample shows an ambiguous numeric date", "sample shows a version code", "sample shows a draft's internal key", "sample shows the slug “on-floor”"]);
     await page.close();
   });
 });
