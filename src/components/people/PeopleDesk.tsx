@@ -38,15 +38,13 @@ function roleLabel(role: string | null): string {
 }
 
 /** For each change: what the dialog asks and says, its button, the request, and what the desk says once done. */
-function change(p: Pending): { title: string; says: string; confirm: string; danger: boolean; path: string; method: "PATCH" | "DELETE" | "POST"; send?: unknown; done: string; keep?: string; button: string; buttonLabel: string } {
+function change(p: Pending): { title: string; says: string; confirm: string; danger: boolean; path: string; method: "PATCH" | "DELETE" | "POST"; send?: unknown; done: string; keep?: string; button?: string; buttonLabel?: string } {
   switch (p.kind) {
     case "role":
       return {
         title: `Make ${p.name} ${roleLabel(p.to)}?`,
         says: `${p.name} goes from ${roleLabel(p.from)} to ${roleLabel(p.to)} at once, with what that role may do. This cannot be undone: changing it back is a new change, and both stay in the people log with your name.`,
         confirm: "Change the role",
-        button: "Change the role…",
-        buttonLabel: `Change the role of ${p.name}…`,
         danger: true,
         path: `/api/people/members/${p.memberId}`,
         method: "PATCH",
@@ -93,8 +91,8 @@ function change(p: Pending): { title: string; says: string; confirm: string; dan
   }
 }
 
-/** The row's button that asks for a change (the dialog then names it), labelled with whom it concerns. */
-function AskButton({ change: p, onAsk }: { change: Pending; onAsk: (p: Pending) => void }) {
+/** The row's button that asks for a change (the dialog then names it), labelled with whom it concerns. A role is changed from its select instead. */
+function AskButton({ change: p, onAsk }: { change: Exclude<Pending, { kind: "role" }>; onAsk: (p: Pending) => void }) {
   const c = change(p);
   return (
     <button type="button" className="gw-btn-quiet" aria-label={c.buttonLabel} onClick={() => onAsk(p)}>

@@ -218,6 +218,17 @@ describe("filing amendments", () => {
     expect(filed.body.key).toBe("A2");
     expect((await db.select().from(outbox).where(eq(outbox.ref, d.body.id))).length).toBe(1);
     expect((await call(fileDraft.POST, "POST", "/x", { as: s.as.member, params: { id: d.body.id }, body: { version: 2 } })).status).toBe(409);
+    // Revoking the override names the amendment in the audit as the tree names it now: filed, "A2"; the draft left is "Draft".
+    expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.as.clerk, params: { id: m.id, oid: ov.body.id } })).status).toBe(200);
+    const log = (await call(auditRoute.GET, "GET", "/x", { as: s.as.clerk, params: { id: m.id } })).body.entries;
+    expect(log[0]).toMatchObject({ entity: "override", action: `revoked override of ${finding.code} on A2` });
+    const left = (await call(treeRoute.GET, "GET", "/x", { as: s.as.member, params: { id: m.id } })).body.findings.find((f: { amendmentId: string }) => f.amendmentId === second.body.id);
+    expect(left.amendment).toBe("Draft");
+    const ov2 = await call(overrides.POST, "POST", "/x", { as: s.as.clerk, params: { id: m.id }, body: { amendmentId: second.body.id, code: left.code, version: second.body.version, rulingRef: "Ruling 10 of the Presiding Officer" } });
+    expect(ov2.status).toBe(201);
+    expect((await call(overrideOne.DELETE, "DELETE", "/x", { as: s.as.clerk, params: { id: m.id, oid: ov2.body.id } })).status).toBe(200);
+    const log2 = (await call(auditRoute.GET, "GET", "/x", { as: s.as.clerk, params: { id: m.id } })).body.entries;
+    expect(log2[0]).toMatchObject({ entity: "override", action: `revoked override of ${left.code} on Draft` });
   });
 });
 

@@ -161,13 +161,14 @@ export async function recordOverride(actor: Actor, measureId: string, input: z.o
 export async function revokeOverride(actor: Actor, measureId: string, overrideId: string) {
   await measureRow(actor.chamber.id, measureId);
   if (!/^[0-9a-f-]{36}$/i.test(overrideId)) throw new GavelError("not-found", "No such override.");
-  // The amendment named in the audit as the tree names it ("A3", "Draft"), as recordOverride does.
-  const { keys } = await loadTree(actor.chamber.id, measureId);
   await db.transaction(async (tx) => {
     const [o] = await tx.select().from(treeOverrides).where(and(eq(treeOverrides.id, overrideId), eq(treeOverrides.measureId, measureId), eq(treeOverrides.chamberId, actor.chamber.id))).for("update");
     if (!o) throw new GavelError("not-found", "No such override on this measure.");
     assertNotArchived(await measureRow(actor.chamber.id, measureId, tx));
     const a = await amendmentRow(actor.chamber.id, o.amendmentId, tx);
+    // The amendment named in the audit as the tree names it ("A3", "Draft"), as recordOverride does:
+    // the labels need only the measure's amendments in the order they were saved, not a tree check.
+    const keys = amendmentLabels(await tx.select({ id: amendments.id, number: amendments.number }).from(amendments).where(and(eq(amendments.measureId, measureId), eq(amendments.chamberId, actor.chamber.id))).orderBy(asc(amendments.createdAt)));
     await tx.delete(treeOverrides).where(eq(treeOverrides.id, o.id));
     await recordAudit(tx, actor, { measureId, entity: "override", entityId: o.id, action: `revoked override of ${o.code} on ${keys.get(a.id) ?? amendmentKey(a)}`, version: 0, before: { amendment: keys.get(a.id) ?? amendmentKey(a), code: o.code, rulingRef: o.rulingRef, rulingId: o.rulingId, note: o.note }, after: null });
   });
